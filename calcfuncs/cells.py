@@ -1,0 +1,312 @@
+"""From cell values to core calls and back: the one evaluation path of every function.
+
+A cell hands over a number, a text, ``None`` (argument left out) or, for a range, a
+tuple of row tuples.  Any argument may be a range; single cells then apply to every
+row.  Each row is read and computed on its own terms, so a bad row gets its own
+``#SKY:`` message and the other rows their numbers.  Rows that share their option
+words (scale, model, unit ...) are computed in one vectorised core call.
+"""
+
+import importlib
+import inspect
+from collections import OrderedDict
+
+import numpy as np
+
+from . import registry
+from .angles import parse_angle
+from .errors import PREFIX, RowErrors, SkyError
+from .timeinput import null_date_jd, read_times
+from .timescales import Instants
+
+_IMPLS = {}
+_NULL_JDS = {}
+# Calc recomputes every cell of a sheet on load and on each full recalculation, and
+# the answer of a single cell depends only on its arguments: keep recent answers.
+_SINGLE_CELL_CACHE = OrderedDict()
+_SINGLE_CELL_CACHE_SIZE = 50_000
+
+
+def _impl(fn):
+    found = _IMPLS.get(fn.method)
+    if found is None:
+        module, name = fn.impl.split(":")
+        func = getattr(importlib.import_module(f"{__package__}.{module}"), name)
+        found = (func, frozenset(inspect.signature(func).parameters))
+        _IMPLS[fn.method] = found
+    return found
+
+
+def _null_jd(null_date):
+    key = tuple(null_date)
+    if key not in _NULL_JDS:
+        _NULL_JDS[key] = null_date_jd(key)
+    return _NULL_JDS[key]
+
+
+def _as_grid(raw):
+    """A range as a 2-D object array; ``None`` for a single value."""
+    if not isinstance(raw, (tuple, list)):
+        return None
+    rows = [tuple(r) if isinstance(r, (tuple, list)) else (r,) for r in raw]
+    width = len(rows[0]) if rows else 0
+    if any(len(r) != width for r in rows):
+        raise SkyError("the range is not rectangular")
+    grid = np.empty((len(rows), width), dtype=object)
+    for i, r in enumerate(rows):
+        for j, v in enumerate(r):
+            grid[i, j] = v
+    return grid
+
+
+def _is_blank(v):
+    return v is None or (isinstance(v, str) and v.strip() == "")
+
+
+# ---- options: one word or number shared by many rows ---------------------------------
+
+
+def _read_option(arg, value):
+    """The option's value, or a ``SkyError`` worded for the cell."""
+    if arg.kind == "choice":
+        # An empty cell arrives as 0.0 when referenced directly: it means the default.
+        if _is_blank(value) or (isinstance(value, float) and value == 0.0):
+            return arg.default
+        if not isinstance(value, str):
+            raise SkyError(f"{arg.name} must be one of " + ", ".join(arg.choices))
+        word = value.strip().upper()
+        if word not in arg.choices:
+            raise SkyError(f'unknown {arg.name} "{value}"; use ' + ", ".join(arg.choices))
+        return word
+    if _is_blank(value):
+        return arg.default
+    if isinstance(value, str):
+        try:
+            value = float(value.strip())
+        except ValueError:
+            raise SkyError(f'{arg.name} must be a number, not "{value}"') from None
+    value = float(value)
+    if not np.isfinite(value):
+        raise SkyError(f"{arg.name} must be a finite number")
+    if arg.kind == "count":
+        if value != int(value) or abs(value) > 1e6:
+            raise SkyError(f"{arg.name} must be a whole number, not {value:g}")
+        return int(value)
+    return value
+
+
+# ---- row-wise values ----------------------------------------------------------------
+
+
+def _read_numbers(values, what):
+    out = np.zeros(values.size)
+    messages = np.full(values.size, None, dtype=object)
+    for i, v in enumerate(values):
+        if isinstance(v, (float, int)) and not isinstance(v, bool):
+            out[i] = v
+        elif v is None:
+            messages[i] = f"{what} is missing"
+        else:
+            messages[i] = f'{what} must be a number, not "{v}"'
+    return out, messages
+
+
+def _read_angles(values, what):
+    out = np.zeros(values.size)
+    messages = np.full(values.size, None, dtype=object)
+    for i, v in enumerate(values):
+        if isinstance(v, (float, int)) and not isinstance(v, bool):
+            out[i] = v
+            if not np.isfinite(v):
+                messages[i] = f"{what} must be a finite number of degrees"
+        elif v is None:
+            messages[i] = f"{what} is missing"
+        else:
+            try:
+                out[i] = parse_angle(v)
+            except SkyError as err:
+                messages[i] = str(err)
+    return out, messages
+
+
+def _read_texts(values, what):
+    messages = np.array([f"{what} is missing" if v is None else None for v in values], dtype=object)
+    return values.copy(), messages
+
+
+def _merge(messages, new):
+    for i, m in enumerate(new):
+        if m is not None and messages[i] is None:
+            messages[i] = m
+
+
+# ---- evaluation ---------------------------------------------------------------------
+
+
+def _compute_group(fn, rows, options, null_jd):
+    """Results (object array) for rows that share their options."""
+    func, params = _impl(fn)
+    n = len(next(iter(rows.values()))) if rows else 1
+    messages = np.full(n, None, dtype=object)
+    columns = {}
+    for arg in fn.args:
+        if arg.kind not in registry.ROW_KINDS:
+            continue
+        values = rows[arg.name]
+        if arg.kind == "time":
+            jd1, jd2, msgs = read_times(
+                values, options.get("scale", "UTC"), null_jd, options.get("dut1", 0.0)
+            )
+            columns[arg.name] = (jd1, jd2)
+        elif arg.kind == "number":
+            columns[arg.name], msgs = _read_numbers(values, arg.name)
+        elif arg.kind == "angle":
+            columns[arg.name], msgs = _read_angles(values, arg.name)
+        else:
+            columns[arg.name], msgs = _read_texts(values, arg.name)
+        _merge(messages, msgs)
+
+    results = np.full(n, None, dtype=object)
+    good = np.array([m is None for m in messages], dtype=bool)
+    for _attempt in range(8):
+        idx = np.flatnonzero(good)
+        if idx.size == 0:
+            break
+        kwargs = {k: v for k, v in options.items() if k in params}
+        if "null_jd" in params:
+            kwargs["null_jd"] = null_jd
+        try:
+            for arg in fn.args:
+                if arg.kind not in registry.ROW_KINDS:
+                    continue
+                col = columns[arg.name]
+                if arg.kind == "time":
+                    kwargs[arg.name] = Instants(
+                        col[0][idx], col[1][idx], options.get("scale", "UTC"),
+                        options.get("dut1", 0.0),
+                    )
+                else:
+                    kwargs[arg.name] = col[idx]
+            out = np.asarray(func(**kwargs))
+        except RowErrors as err:
+            row_messages = err.messages.ravel()
+            if row_messages.size != idx.size:  # not row-aligned: the whole group fails
+                row_messages = np.full(idx.size, str(err), dtype=object)
+            failing = np.array([m is not None for m in row_messages], dtype=bool)
+            messages[idx[failing]] = row_messages[failing]
+            good[idx[failing]] = False
+            continue
+        except SkyError as err:
+            messages[idx] = str(err)
+            break
+        out = out.reshape(-1)
+        for k, i in enumerate(idx):
+            v = out[k]
+            if isinstance(v, str):
+                results[i] = v
+            elif v is None or not np.isfinite(v):
+                messages[i] = "no result for these arguments"
+            else:
+                results[i] = float(v)
+        break
+    for i in np.flatnonzero(np.array([m is not None for m in messages], dtype=bool)):
+        results[i] = PREFIX + messages[i]
+    return results
+
+
+def _evaluate(fn, raw_args, null_date):
+    raw_args = list(raw_args) + [None] * (len(fn.args) - len(raw_args))
+    grids = [_as_grid(v) for v in raw_args]
+    shapes = {g.shape for g in grids if g is not None}
+    if len(shapes) > 1:
+        dims = " and ".join(f"{r}x{c}" for r, c in sorted(shapes))
+        raise SkyError(f"the ranges have different shapes ({dims}); give ranges of one shape")
+    shape = shapes.pop() if shapes else (1, 1)
+    single = not any(g is not None for g in grids)
+    n = shape[0] * shape[1]
+    flat = []
+    for raw, grid in zip(raw_args, grids):
+        if grid is None:
+            column = np.empty(n, dtype=object)
+            column[:] = [raw] * n
+        else:
+            column = grid.reshape(-1)
+        flat.append(column)
+
+    out = np.full(n, "", dtype=object)
+    first_row_arg = next(k for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS)
+    groups = {}
+    for i in range(n):
+        if not single and flat[first_row_arg][i] is None:
+            continue  # an empty row of a column call stays empty
+        try:
+            key = tuple(
+                _read_option(a, flat[k][i]) if a.kind in registry.OPTION_KINDS else None
+                for k, a in enumerate(fn.args)
+            )
+        except SkyError as err:
+            out[i] = PREFIX + str(err)
+            continue
+        groups.setdefault(key, []).append(i)
+
+    null_jd = _null_jd(null_date) if fn.has_time or "null_jd" in _impl(fn)[1] else None
+    for key, members in groups.items():
+        members = np.array(members)
+        options = {a.name: key[k] for k, a in enumerate(fn.args) if a.kind in registry.OPTION_KINDS}
+        rows = {
+            a.name: flat[k][members] for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS
+        }
+        out[members] = _compute_group(fn, rows, options, null_jd)
+
+    if single:
+        return out[0]
+    grid = out.reshape(shape)
+    return tuple(tuple(row) for row in grid)
+
+
+def _hashable(args):
+    try:
+        hash(args)
+        return True
+    except TypeError:
+        return False
+
+
+def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
+    """The value a cell shows: a number, a text, or a tuple of row tuples for ranges.
+
+    Never raises for anything a user can type: problems come back as ``#SKY:`` text.
+    """
+    fn = name_or_fn if isinstance(name_or_fn, registry.CellFunction) else registry.BY_NAME[name_or_fn]
+    raw_args = tuple(raw_args)
+    key = None
+    if not any(isinstance(a, (tuple, list)) for a in raw_args) and _hashable(raw_args):
+        key = (fn.method, raw_args, tuple(null_date))
+        hit = _SINGLE_CELL_CACHE.get(key)
+        if hit is not None:
+            _SINGLE_CELL_CACHE.move_to_end(key)
+            return hit
+    try:
+        result = _evaluate(fn, raw_args, null_date)
+    except SkyError as err:
+        result = PREFIX + str(err)
+    except Exception as err:  # a defect of ours: say so in the cell, keep the office up
+        result = f"{PREFIX}internal error ({type(err).__name__}: {err}); please report it"
+        key = None
+    if key is not None:
+        _SINGLE_CELL_CACHE[key] = result
+        if len(_SINGLE_CELL_CACHE) > _SINGLE_CELL_CACHE_SIZE:
+            _SINGLE_CELL_CACHE.popitem(last=False)
+    return result
+
+
+def call_strict(name, args, null_date=(1899, 12, 30)):
+    """Like ``evaluate`` but raising ``ValueError`` with the first ``#SKY:`` message."""
+    if name not in registry.BY_NAME:
+        raise ValueError(f'unknown function "{name}"')
+    result = evaluate(name, args, null_date)
+    cells = [c for row in result for c in row] if isinstance(result, tuple) else [result]
+    for c in cells:
+        if isinstance(c, str) and c.startswith(PREFIX):
+            raise ValueError(c[len(PREFIX):])
+    return result

@@ -1,0 +1,34 @@
+"""The two kinds of problem the core reports, both ``ValueError`` for Python callers."""
+
+PREFIX = "#SKY: "
+
+
+class SkyError(ValueError):
+    """A problem with what the user gave, worded for a cell.
+
+    ``str(err)`` is the message without the ``#SKY:`` prefix; the cell layer adds it.
+    """
+
+
+class RowErrors(SkyError):
+    """Some rows of a vectorised call cannot be computed; the others can.
+
+    ``messages`` is an object array shaped like the input, ``None`` where the row is
+    fine.  The cell layer marks those rows and computes the rest again; a Python
+    caller sees the first message.
+    """
+
+    def __init__(self, messages):
+        self.messages = messages
+        first = next((m for m in messages.ravel() if m is not None), "bad input")
+        super().__init__(first)
+
+
+def rows_failing(mask, message):
+    """A ``RowErrors`` that puts one message on every row where ``mask`` is true."""
+    import numpy as np
+
+    mask = np.asarray(mask, dtype=bool)
+    messages = np.full(mask.shape, None, dtype=object)
+    messages[mask] = message
+    return RowErrors(messages)

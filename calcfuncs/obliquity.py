@@ -1,0 +1,166 @@
+"""Obliquity of the ecliptic and nutation, under the published models.
+
+Mean obliquity (angle between the mean equator and the ecliptic of date):
+  IAU2006     Hilton et al. (2006), the P03 precession of Capitaine et al. (2003); ERFA obl06
+  IAU1980     Lieske et al. (1977), adopted by the IAU in 1976/1980; ERFA obl80
+  NEWCOMB     Newcomb's formula as in the Explanatory Supplement (1961), argument in
+              tropical centuries from B1900.0
+  LASKAR1986  Laskar (1986), a tenth-degree polynomial in units of 10,000 Julian years
+  VONDRAK2011 Vondrak, Capitaine and Wallace (2011) long-term precession: the angle
+              between their equator pole and ecliptic pole of date; ERFA ltpequ, ltpecl
+Nutation (delta psi, delta epsilon):
+  IAU2000A    Mathews, Herring and Buffett (2002) with the IAU 2006 adjustments; ERFA nut06a
+  IAU2000B    McCarthy and Luzum (2003), 77 terms; ERFA nut00b
+  IAU1980     Wahr (1981); ERFA nut80
+
+Every model has a validity range in Julian years (TT); dates outside it are refused
+with a message naming a model that covers them, never extrapolated silently.
+"""
+
+from functools import lru_cache
+
+import erfa
+import numpy as np
+
+from .errors import SkyError, rows_failing
+
+ARCSEC = np.pi / (180.0 * 3600.0)
+
+# Validity in Julian epochs (years of TT).  The IAU polynomials are fits for a few
+# centuries around their epoch; the ranges below are the customary +-10 centuries
+# (from memory of the papers' own statements).  Laskar states +-10,000 years around
+# J2000, Vondrak et al. +-200,000 years.
+OBLIQUITY_VALIDITY = {
+    "IAU2006": (1000.0, 3000.0),
+    "IAU1980": (1000.0, 3000.0),
+    "NEWCOMB": (900.0, 2900.0),
+    "LASKAR1986": (-8000.0, 12000.0),
+    "VONDRAK2011": (-198000.0, 202000.0),
+}
+NUTATION_VALIDITY = {
+    "IAU2000A": (1000.0, 3000.0),
+    "IAU2000B": (1000.0, 3000.0),
+    "IAU1980": (1000.0, 3000.0),
+}
+
+# Newcomb's obliquity: 23°27'08.26" - 46.845" T - 0.0059" T^2 + 0.00181" T^3.
+NEWCOMB_COEFFS_ARCSEC = (84428.26, -46.845, -0.0059, 0.00181)
+B1900_JD = 2415020.31352
+TROPICAL_CENTURY_DAYS = 36524.21988
+
+# Laskar (1986): 23°26'21.448" and ten more terms, argument U = T / 100 with T in
+# Julian centuries from J2000.
+LASKAR_COEFFS_ARCSEC = (
+    84381.448, -4680.93, -1.55, 1999.25, -51.38, -249.67,
+    -39.05, 7.12, 27.87, 5.79, 2.45,
+)
+
+UNIT_FACTORS = {"DEG": 180.0 / np.pi, "ARCSEC": 180.0 * 3600.0 / np.pi, "RAD": 1.0}
+
+
+def julian_epoch(jd1, jd2):
+    """Julian epoch (e.g. 2000.0) of a two-part JD."""
+    return 2000.0 + ((jd1 - 2451545.0) + jd2) / 365.25
+
+
+def _check_model(model, table, kind):
+    name = str(model).strip().upper()
+    if name not in table:
+        raise SkyError(f'unknown {kind} model "{model}"; use ' + ", ".join(table))
+    return name
+
+
+def _alternatives(table, epochs, exclude):
+    """Names of the models in ``table`` that cover every given epoch."""
+    lo, hi = float(np.min(epochs)), float(np.max(epochs))
+    return [n for n, (a, b) in table.items() if n != exclude and a <= lo and hi <= b]
+
+
+def _check_validity(model, table, epochs, kind):
+    lo, hi = table[model]
+    outside = (epochs < lo) | (epochs > hi)
+    if np.any(outside):
+        others = _alternatives(table, epochs[outside], model)
+        hint = f"; use {' or '.join(others)}" if others else ""
+        raise rows_failing(
+            outside,
+            f"the date is outside the {kind} model {model} (valid {lo:g} to {hi:g})" + hint,
+        )
+
+
+def mean_obliquity(jd1, jd2, model="IAU2006"):
+    """Mean obliquity in radians at TT two-part JD(s)."""
+    model = _check_model(model, OBLIQUITY_VALIDITY, "obliquity")
+    jd1 = np.asarray(jd1, dtype=float)
+    jd2 = np.asarray(jd2, dtype=float)
+    epochs = julian_epoch(jd1, jd2)
+    _check_validity(model, OBLIQUITY_VALIDITY, epochs, "obliquity")
+    if model == "IAU2006":
+        return erfa.obl06(jd1, jd2)
+    if model == "IAU1980":
+        return erfa.obl80(jd1, jd2)
+    if model == "NEWCOMB":
+        t = ((jd1 - B1900_JD) + jd2) / TROPICAL_CENTURY_DAYS
+        return np.polynomial.polynomial.polyval(t, NEWCOMB_COEFFS_ARCSEC) * ARCSEC
+    if model == "LASKAR1986":
+        u = ((jd1 - 2451545.0) + jd2) / 3652500.0
+        return np.polynomial.polynomial.polyval(u, LASKAR_COEFFS_ARCSEC) * ARCSEC
+    # VONDRAK2011: the mean obliquity is the angle between the two poles of date.
+    return _angle_between(erfa.ltpequ(epochs), erfa.ltpecl(epochs))
+
+
+def _angle_between(a, b):
+    # atan2 of |a x b| and a . b stays accurate at every angle, unlike acos.
+    cross = np.linalg.norm(np.cross(a, b), axis=-1)
+    return np.arctan2(cross, np.sum(a * b, axis=-1))
+
+
+@lru_cache(maxsize=4096)
+def _nutation_one(jd1, jd2, model):
+    # Full IAU 2000A costs about 80 us a date; a sheet asks for the same dates over and
+    # over (every recalculation, several columns per row), so single dates are cached.
+    return _NUTATION[model](jd1, jd2)
+
+
+_NUTATION = {"IAU2000A": erfa.nut06a, "IAU2000B": erfa.nut00b, "IAU1980": erfa.nut80}
+
+
+def nutation_angles(jd1, jd2, model="IAU2000A"):
+    """(delta psi, delta epsilon) in radians at TT two-part JD(s)."""
+    model = _check_model(model, NUTATION_VALIDITY, "nutation")
+    jd1 = np.asarray(jd1, dtype=float)
+    jd2 = np.asarray(jd2, dtype=float)
+    _check_validity(model, NUTATION_VALIDITY, julian_epoch(jd1, jd2), "nutation")
+    if jd1.size == 1:
+        dpsi, deps = _nutation_one(float(jd1.ravel()[0]), float(jd2.ravel()[0]), model)
+        return np.full(jd1.shape, dpsi), np.full(jd1.shape, deps)
+    return _NUTATION[model](jd1, jd2)
+
+
+def true_obliquity(jd1, jd2, model="IAU2006", nutation_model="IAU2000A"):
+    """True obliquity (mean + delta epsilon) in radians at TT two-part JD(s)."""
+    mean = mean_obliquity(jd1, jd2, model)
+    return mean + nutation_angles(jd1, jd2, nutation_model)[1]
+
+
+def _in_unit(radians, unit):
+    return radians * UNIT_FACTORS[unit]
+
+
+# ---- cell functions -----------------------------------------------------------------
+
+
+def mean_obliquity_cells(time, model="IAU2006", unit="DEG"):
+    return _in_unit(mean_obliquity(*time.tt(), model), unit)
+
+
+def true_obliquity_cells(time, model="IAU2006", nutation="IAU2000A", unit="DEG"):
+    return _in_unit(true_obliquity(*time.tt(), model, nutation), unit)
+
+
+def nutation_lon_cells(time, nutation="IAU2000A", unit="DEG"):
+    return _in_unit(nutation_angles(*time.tt(), nutation)[0], unit)
+
+
+def nutation_obl_cells(time, nutation="IAU2000A", unit="DEG"):
+    return _in_unit(nutation_angles(*time.tt(), nutation)[1], unit)

@@ -1,0 +1,70 @@
+"""Cell functions of the time family, over whole columns of instants."""
+
+import numpy as np
+
+from .errors import SkyError, rows_failing
+from .timeinput import iso_text as _iso_text
+from .timeinput import to_serial
+from .timescales import JD_LIMIT, MJD_ZERO, Instants, seconds_between, split_days
+
+
+def _on(time, result_scale):
+    return time.to(result_scale or time.scale)
+
+
+def julian_date(time, result_scale=None):
+    """JD on ``result_scale`` (default: the input's scale), as one double."""
+    out = _on(time, result_scale)
+    return out.jd1 + out.jd2
+
+
+def modified_julian_date(time, result_scale=None):
+    """MJD = JD - 2400000.5 on ``result_scale``, subtracting before adding the parts."""
+    out = _on(time, result_scale)
+    return (out.jd1 - MJD_ZERO) + out.jd2
+
+
+def calc_datetime(time, null_jd, result_scale=None):
+    """Calc date-time value of the instant on ``result_scale``."""
+    serial, in_leap = to_serial(_on(time, result_scale), null_jd)
+    if np.any(in_leap):
+        raise rows_failing(
+            in_leap,
+            "this instant is inside a leap second (23:59:60), which a date-time cell "
+            "cannot show; use SKY.TEXT.ISO",
+        )
+    return serial
+
+
+def _instants_from_day_numbers(days, zero, scale, dut1):
+    days = np.asarray(days, dtype=float)
+    bad = ~np.isfinite(days) | (np.abs(np.nan_to_num(days)) > JD_LIMIT)
+    if np.any(bad):
+        raise rows_failing(bad, f"the day number is out of range (within +-{JD_LIMIT:.0e})")
+    whole = np.floor(days)
+    jd1, jd2 = split_days(zero + whole, days - whole)
+    return Instants(jd1, jd2, scale, dut1)
+
+
+def calc_datetime_from_jd(jd, null_jd, scale="UTC", result_scale=None, dut1=0.0):
+    """Calc date-time value from a JD number on ``scale``."""
+    time = _instants_from_day_numbers(jd, 0.0, scale, dut1)
+    return calc_datetime(time, null_jd, result_scale)
+
+
+def calc_datetime_from_mjd(mjd, null_jd, scale="UTC", result_scale=None, dut1=0.0):
+    """Calc date-time value from an MJD number on ``scale``."""
+    time = _instants_from_day_numbers(mjd, MJD_ZERO, scale, dut1)
+    return calc_datetime(time, null_jd, result_scale)
+
+
+def iso_text(time, result_scale=None, decimals=3):
+    """ISO 8601 text of the instant on ``result_scale``."""
+    if not 0 <= decimals <= 9:
+        raise SkyError(f"decimals must be 0 to 9, not {decimals}")
+    return _iso_text(_on(time, result_scale), decimals)
+
+
+def delta_t(time):
+    """Delta T = TT - UT1 in seconds: 32.184 s + (TAI - UTC) - DUT1."""
+    return seconds_between(time.to("TT"), time.to("UT1"))

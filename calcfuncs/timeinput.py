@@ -1,0 +1,301 @@
+"""Reading the instants that sheets hold, and writing them back as cells hold them.
+
+A time cell may hold a Calc date-time value (days since the document's null date),
+ISO 8601 text, or text with an explicit ``JD`` or ``MJD`` prefix.  The time scale is
+given separately.  Every reader works on a whole column and reports a message per
+bad row instead of failing the column.
+"""
+
+import re
+
+import erfa
+import numpy as np
+
+from .errors import SkyError
+from .timescales import (
+    GREGORIAN_START_JD,
+    JD_LIMIT,
+    MJD_ZERO,
+    Instants,
+    _quiet,
+    split_days,
+)
+
+DEFAULT_NULL_DATE = (1899, 12, 30)
+
+# A Calc date-time value further than this from the null date (about 27,000 years) is
+# no date a sheet means.
+SERIAL_LIMIT = 1.0e7
+
+_ACCEPTED = (
+    'give a date-time cell, ISO 8601 text (2024-03-20T03:06:00Z) or "JD 2460389.5" / '
+    '"MJD 60389.0"'
+)
+
+_DAY_NUMBER = re.compile(
+    r"^(?P<kind>MJD|JD)\s*(?P<sign>[+-])?(?P<int>\d+)(?P<frac>\.\d*)?"
+    r"(?P<exp>[eE][+-]?\d+)?$",
+    re.IGNORECASE,
+)
+_ISO = re.compile(
+    r"^(?P<y>[+-]?\d{4,})-(?P<m>\d{1,2})-(?P<d>\d{1,2})"
+    r"(?:[T ](?P<H>\d{1,2})(?::(?P<M>\d{1,2})(?::(?P<S>\d{1,2}(?:[.,]\d+)?))?)?)?"
+    r"\s*(?P<zone>Z|[+-]\d{2}:?\d{2})?$",
+    re.IGNORECASE,
+)
+
+
+def null_date_jd(null_date):
+    """JD (at 0h) of a document's null date given as (year, month, day)."""
+    y, m, d = (int(v) for v in null_date)
+    jd0, jd1 = erfa.cal2jd(y, m, d)
+    return float(jd0 + jd1)
+
+
+def _text_day_number(text, match):
+    """Two-part JD from 'JD ...' or 'MJD ...' text, splitting at the decimal point so
+    that digits beyond a double's reach are kept."""
+    sign = -1.0 if match.group("sign") == "-" else 1.0
+    if match.group("exp"):
+        value = sign * float(match.group("int") + (match.group("frac") or "") + match.group("exp"))
+        whole, frac = float(np.floor(value)), value - float(np.floor(value))
+    else:
+        whole = sign * float(match.group("int"))
+        frac = sign * float("0" + (match.group("frac") or ".0"))
+    if not np.isfinite(whole) or abs(whole) > JD_LIMIT:
+        raise SkyError(f'"{text}" is out of range; JD or MJD within +-{JD_LIMIT:.0e} days')
+    if match.group("kind").upper() == "MJD":
+        jd1, jd2 = split_days(MJD_ZERO + whole, frac)
+    else:
+        jd1, jd2 = split_days(whole, frac)
+    return float(jd1), float(jd2)
+
+
+def _calendar_fields(text, match, scale):
+    """Year, month, day, hour, minute, seconds from ISO text, each checked."""
+    y = int(match.group("y"))
+    mo = int(match.group("m"))
+    d = int(match.group("d"))
+    hh = int(match.group("H") or 0)
+    mi = int(match.group("M") or 0)
+    sec = float((match.group("S") or "0").replace(",", "."))
+    zone = match.group("zone")
+    if zone and zone.upper() != "Z" and zone.replace(":", "") not in ("+0000", "-0000"):
+        raise SkyError(
+            f'"{text}" has the zone offset {zone}; only UTC (Z or +00:00) is read, '
+            "so convert local times first"
+        )
+    if zone and scale != "UTC":
+        raise SkyError(f'"{text}" is marked as UTC (Z) but the scale argument is {scale}')
+    if not 1 <= mo <= 12:
+        raise SkyError(f'"{text}" has month {mo}; months are 1 to 12')
+    days_in_month = erfa.cal2jd(y, mo % 12 + 1, 1) if mo < 12 else erfa.cal2jd(y + 1, 1, 1)
+    first = erfa.cal2jd(y, mo, 1)
+    length = int(round((days_in_month[0] + days_in_month[1]) - (first[0] + first[1])))
+    if not 1 <= d <= length:
+        raise SkyError(f'"{text}" has day {d}; {y}-{mo:02d} has days 1 to {length}')
+    if hh == 24 and mi == 0 and sec == 0.0:
+        return y, mo, d, 24, 0, 0.0
+    if hh > 23 or mi > 59:
+        raise SkyError(f'"{text}" has a time past 24:00:00; hours 0-23, minutes 0-59')
+    if sec >= 61.0 or (sec >= 60.0 and scale != "UTC"):
+        raise SkyError(
+            f'"{text}" has {sec:g} seconds; seconds run 0 to below 60 '
+            "(60 only in a real UTC leap second)"
+        )
+    return y, mo, d, hh, mi, sec
+
+
+def _text_calendar(text, match, scale):
+    y, mo, d, hh, mi, sec = _calendar_fields(text, match, scale)
+    if hh == 24:
+        jd0 = sum(erfa.cal2jd(y, mo, d)) + 1.0
+        y, mo, d, _ = erfa.jd2cal(jd0, 0.0)
+        hh = 0
+    if (y, mo, d) < (1582, 10, 15):
+        raise SkyError(
+            f'"{text}" is before 1582-10-15; calendar dates before the Gregorian reform '
+            "are not yet supported (give JD or MJD text on TT)"
+        )
+    if y > 9999:
+        raise SkyError(f'"{text}" is after year 9999; give JD or MJD text on TT')
+    if sec >= 60.0 and not (hh == 23 and mi == 59 and _leap_second_day(y, mo, d)):
+        # ERFA only warns here (it would roll into the next day), so we check.
+        raise SkyError(
+            f'"{text}" has second 60 where there is no leap second; leap seconds are '
+            "the last second (23:59:60) of some June 30 and December 31 since 1972"
+        )
+    jd1, jd2 = _quiet(erfa.dtf2d, scale, int(y), int(mo), int(d), int(hh), int(mi), sec)
+    return float(jd1), float(jd2)
+
+
+def _leap_second_day(y, mo, d):
+    """True when TAI - UTC grows by a whole second at the end of this UTC day."""
+    jd = sum(erfa.cal2jd(y, mo, d))
+    ny, nm, nd, _ = erfa.jd2cal(jd + 1.0, 0.0)
+    before = _quiet(erfa.dat, y, mo, d, 0.0)
+    after = _quiet(erfa.dat, int(ny), int(nm), int(nd), 0.0)
+    return y >= 1972 and abs((after - before) - 1.0) < 1e-9
+
+
+def parse_time_text(text, scale):
+    """Two-part JD on ``scale`` from ISO 8601 or JD/MJD text; ``SkyError`` otherwise."""
+    stripped = text.strip()
+    match = _DAY_NUMBER.match(stripped)
+    if match:
+        return _text_day_number(stripped, match)
+    match = _ISO.match(stripped)
+    if match:
+        return _text_calendar(stripped, match, scale)
+    if not stripped:
+        raise SkyError("the time is empty; " + _ACCEPTED)
+    try:
+        float(stripped)
+    except ValueError:
+        raise SkyError(f'"{text}" is not a time; {_ACCEPTED}') from None
+    raise SkyError(
+        f'"{text}" is a number held as text, which could be a JD, an MJD or a date-time '
+        'value; write "JD ..." or "MJD ...", or enter it as a number'
+    )
+
+
+def _serial_pairs(serials, scale, null_jd):
+    """Two-part JDs from Calc date-time values on ``scale``.
+
+    A Calc day always has 86400 s, so for UTC the value is read as a calendar date and
+    clock time and handed to ERFA, which stretches the fraction of a leap-second day.
+    """
+    whole = np.floor(serials)
+    jd1, jd2 = split_days(null_jd + whole, serials - whole)
+    if scale != "UTC" or jd1.size == 0:
+        return jd1, jd2
+    iy, im, iday, fd = erfa.jd2cal(jd1, jd2)
+    seconds = fd * 86400.0
+    hours = np.floor(seconds / 3600.0)
+    minutes = np.floor((seconds - hours * 3600.0) / 60.0)
+    secs = seconds - hours * 3600.0 - minutes * 60.0
+    return _quiet(
+        erfa.dtf2d, "UTC", iy, im, iday, hours.astype(int), minutes.astype(int), secs
+    )
+
+
+def read_times(values, scale, null_jd, dut1=0.0):
+    """Read a column of time cells.
+
+    Returns ``(jd1, jd2, messages)``: two-part JDs on ``scale`` (rows with a message
+    hold J2000.0 as a placeholder) and an object array of messages, ``None`` where the
+    row was read.
+    """
+    values = np.asarray(values, dtype=object).ravel()
+    n = values.size
+    jd1 = np.full(n, 2451545.0)
+    jd2 = np.zeros(n)
+    messages = np.full(n, None, dtype=object)
+
+    is_number = np.array(
+        [isinstance(v, (float, int)) and not isinstance(v, bool) for v in values], dtype=bool
+    )
+    if is_number.any():
+        serials = values[is_number].astype(float)
+        bad = ~np.isfinite(serials) | (np.abs(np.nan_to_num(serials)) > SERIAL_LIMIT)
+        good = ~bad
+        idx = np.flatnonzero(is_number)
+        for i in idx[bad]:
+            messages[i] = (
+                f"the date-time value {values[i]!r} is out of range; a date-time cell "
+                "counts days from the document's null date"
+            )
+        early = good & ((null_jd + np.where(good, serials, 0.0)) < GREGORIAN_START_JD)
+        for i in idx[early]:
+            messages[i] = (
+                "date-time values before 1582-10-15 are not yet supported; give JD or "
+                "MJD text on TT"
+            )
+        good &= ~early
+        if good.any():
+            a, b = _serial_pairs(serials[good], scale, null_jd)
+            jd1[idx[good]] = a
+            jd2[idx[good]] = b
+
+    for i in np.flatnonzero(~is_number):
+        v = values[i]
+        if v is None:
+            messages[i] = "the time is missing; " + _ACCEPTED
+            continue
+        if not isinstance(v, str):
+            messages[i] = f"{v!r} is not a time; {_ACCEPTED}"
+            continue
+        try:
+            jd1[i], jd2[i] = parse_time_text(v, scale)
+        except SkyError as err:
+            messages[i] = str(err)
+
+    # The scale's own limits (UTC and UT1 from 1960) are checked row by row.
+    ok = np.array([m is None for m in messages], dtype=bool)
+    if scale in ("UTC", "UT1"):
+        from .timescales import UTC_START_JD
+
+        early = ok & ((jd1 + jd2) < UTC_START_JD)
+        for i in np.flatnonzero(early):
+            messages[i] = (
+                f"{scale} before 1960 is not yet supported; give the time as TT "
+                "(JD or MJD text with scale TT)"
+            )
+    return jd1, jd2, messages
+
+
+def instants(values, scale, null_jd=2415018.5, dut1=0.0):
+    """Instants from time cells, raising ``SkyError`` on the first bad one (Python API)."""
+    jd1, jd2, messages = read_times(values, scale, null_jd, dut1)
+    for m in messages:
+        if m is not None:
+            raise SkyError(m)
+    return Instants(jd1, jd2, scale, dut1)
+
+
+# ---- writing instants back ---------------------------------------------------------
+
+
+def to_serial(inst, null_jd):
+    """Calc date-time values (days since the null date) for instants on their scale.
+
+    A UTC instant inside a leap second has no date-time value (a Calc day has 86400 s),
+    so those rows are returned as NaN with a mask.
+    """
+    if inst.scale != "UTC":
+        return (inst.jd1 - null_jd) + inst.jd2, np.zeros(inst.jd1.shape, dtype=bool)
+    iy, im, iday, hmsf = _quiet(erfa.d2dtf, "UTC", 9, inst.jd1, inst.jd2)
+    hours, minutes, secs, nanos = (hmsf[k].astype(float) for k in "hmsf")
+    in_leap = secs >= 60.0
+    day0, day1 = erfa.cal2jd(iy, im, iday)
+    clock = (hours * 3600.0 + minutes * 60.0 + secs + nanos * 1e-9) / 86400.0
+    serial = ((day0 - null_jd) + day1) + clock
+    return np.where(in_leap, np.nan, serial), in_leap
+
+
+def iso_text(inst, decimals=3):
+    """ISO 8601 text of instants on their own scale (23:59:60 in a UTC leap second)."""
+    early = inst.jd < GREGORIAN_START_JD
+    if np.any(early):
+        from .errors import rows_failing
+
+        raise rows_failing(
+            early,
+            "calendar text before 1582-10-15 is not yet supported; use SKY.JD",
+        )
+    late = inst.jd >= 5373484.5  # 10000-01-01
+    if np.any(late):
+        from .errors import rows_failing
+
+        raise rows_failing(late, "calendar text after year 9999 is not supported; use SKY.JD")
+    iy, im, iday, hmsf = _quiet(erfa.d2dtf, inst.scale, decimals, inst.jd1, inst.jd2)
+    out = []
+    fields = (np.ravel(iy), np.ravel(im), np.ravel(iday)) + tuple(
+        np.ravel(hmsf[k]) for k in "hmsf"
+    )
+    for y, mo, d, h, mi, s, frac in zip(*fields):
+        text = f"{y:04d}-{mo:02d}-{d:02d}T{h:02d}:{mi:02d}:{s:02d}"
+        if decimals > 0:
+            text += f".{frac:0{decimals}d}"
+        out.append(text)
+    return np.array(out, dtype=object)
