@@ -52,6 +52,12 @@ class Arg:
     def optional(self):
         return self.default is not REQUIRED
 
+    @property
+    def idl_name(self):
+        """The parameter's name in the IDL and the xcu (UNO names take no underscore)."""
+        head, *rest = self.name.split("_")
+        return head + "".join(w.capitalize() for w in rest)
+
 
 @dataclass(frozen=True)
 class CellFunction:

@@ -23,9 +23,11 @@ from .timescales import (
 
 DEFAULT_NULL_DATE = (1899, 12, 30)
 
-# A Calc date-time value further than this from the null date (about 27,000 years) is
-# no date a sheet means.
+# Calc date-time values are read for years 1582 to 4999 (JD 3547272.5 is 5000-01-01).
+# A larger number in a time cell is most often a JD typed as a number, which as a
+# date-time would silently mean a date near year 8600.
 SERIAL_LIMIT = 1.0e7
+LAST_SERIAL_JD = 3547272.5
 
 _ACCEPTED = (
     'give a date-time cell, ISO 8601 text (2024-03-20T03:06:00Z) or "JD 2460389.5" / '
@@ -205,6 +207,13 @@ def read_times(values, scale, null_jd, dut1=0.0):
                 f"the date-time value {values[i]!r} is out of range; a date-time cell "
                 "counts days from the document's null date"
             )
+        late = good & ((null_jd + np.where(good, serials, 0.0)) >= LAST_SERIAL_JD)
+        for i in idx[late]:
+            messages[i] = (
+                f"the date-time value {values[i]!r} is after year 4999; if it is a Julian "
+                'Date, write "JD ..." as text or use SKY.JD.DATETIME'
+            )
+        good &= ~late
         early = good & ((null_jd + np.where(good, serials, 0.0)) < GREGORIAN_START_JD)
         for i in idx[early]:
             messages[i] = (

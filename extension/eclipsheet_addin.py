@@ -1,0 +1,96 @@
+"""UNO adapter: Calc's calls in, ``calcfuncs.cells.evaluate`` out.  No astronomy here.
+
+Each method of the generated interface ``XSkyFunctions`` is one cell function; the
+methods are made from ``calcfuncs.registry``, so this file never lists them.  numpy,
+erfa and the core are imported on the first call, not at load: if they are missing,
+every cell says which package to install instead of showing #NAME?.
+"""
+
+import sys
+
+import unohelper
+from com.sun.star.lang import XServiceInfo, XServiceName
+
+from calcfuncs import registry
+from org.eclipsheet.sky import XSkyFunctions
+
+_core = None
+_core_problem = None
+
+
+def _load_core():
+    """The cell evaluator, or ``None`` with the reason kept for the cells."""
+    global _core, _core_problem
+    if _core is None and _core_problem is None:
+        try:
+            from calcfuncs import cells
+
+            _core = cells
+        except ImportError as err:
+            missing = getattr(err, "name", None) or str(err)
+            package = {"numpy": "python3-numpy", "erfa": "python3-erfa"}.get(missing, missing)
+            _core_problem = (
+                f"#SKY: the office's Python ({sys.executable}, "
+                f"{sys.version_info[0]}.{sys.version_info[1]}) cannot import {missing}; "
+                f"install it (Debian/Ubuntu: apt install {package}) or use the "
+                "self-contained build of Eclipsheet"
+            )
+    return _core
+
+
+def _null_date(doc_settings):
+    try:
+        d = doc_settings.getPropertyValue("NullDate")
+        return (d.Year, d.Month, d.Day)
+    except Exception:
+        return (1899, 12, 30)
+
+
+def _call(fn, doc_settings, args):
+    """Every method returns sequence<sequence<any>>: Calc shows a 1x1 result in a plain
+    cell and fills an array formula with a larger one (an ``any`` return type cannot
+    carry an array from Python)."""
+    core = _load_core()
+    if core is None:
+        return ((_core_problem,),)
+    try:
+        null_date = _null_date(doc_settings) if fn.has_time else (1899, 12, 30)
+        result = core.evaluate(fn, args, null_date)
+    except Exception as err:  # never let a defect reach the office as an exception
+        result = f"#SKY: internal error ({type(err).__name__}: {err}); please report it"
+    return result if isinstance(result, tuple) else ((result,),)
+
+
+def _method(fn):
+    def method(self, doc_settings, *args):
+        return _call(fn, doc_settings, args)
+
+    method.__name__ = fn.method
+    method.__doc__ = fn.summary
+    return method
+
+
+class SkyFunctions(unohelper.Base, XSkyFunctions, XServiceName, XServiceInfo):
+    def __init__(self, ctx):
+        self.ctx = ctx
+
+    def getServiceName(self):
+        return registry.IMPLEMENTATION_NAME
+
+    def getImplementationName(self):
+        return registry.IMPLEMENTATION_NAME
+
+    def supportsService(self, name):
+        return name in registry.SERVICE_NAMES
+
+    def getSupportedServiceNames(self):
+        return registry.SERVICE_NAMES
+
+
+for _fn in registry.FUNCTIONS:
+    setattr(SkyFunctions, _fn.method, _method(_fn))
+
+g_ImplementationHelper = unohelper.ImplementationHelper()
+g_ImplementationHelper.addImplementation(
+    SkyFunctions, registry.IMPLEMENTATION_NAME, registry.SERVICE_NAMES
+)

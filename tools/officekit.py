@@ -1,0 +1,188 @@
+"""Drive a real headless LibreOffice: a fresh profile, the extension installed, UNO calls.
+
+Used by the office tests, the headless recompute command and the benchmark.  Runs in
+a Python that can ``import uno`` (Debian's python3, or a venv made from it with
+``--system-site-packages``).
+
+    with Office(oxt="dist/eclipsheet.oxt") as office:
+        doc = office.new_sheet()
+        ...
+"""
+
+import os
+import pwd
+import shutil
+import socket
+import subprocess
+import tempfile
+import time
+
+import uno
+from com.sun.star.beans import PropertyValue
+
+SOFFICE = shutil.which("soffice") or "/usr/lib/libreoffice/program/soffice"
+UNOPKG = shutil.which("unopkg") or "/usr/lib/libreoffice/program/unopkg"
+
+
+def _props(**kw):
+    out = []
+    for k, v in kw.items():
+        p = PropertyValue()
+        p.Name = k
+        p.Value = v
+        out.append(p)
+    return tuple(out)
+
+
+def file_url(path):
+    return uno.systemPathToFileUrl(os.path.abspath(path))
+
+
+def _free_port():
+    with socket.socket() as s:
+        s.bind(("127.0.0.1", 0))
+        return s.getsockname()[1]
+
+
+def _as_unprivileged(cmd, profile):
+    """unopkg refuses a per-user install as root, so as root run it as 'nobody'."""
+    if os.geteuid() != 0:
+        return cmd, None
+    nobody = pwd.getpwnam("nobody")
+    for dirpath, _dirs, files in os.walk(profile):
+        os.chown(dirpath, nobody.pw_uid, nobody.pw_gid)
+        for f in files:
+            os.chown(os.path.join(dirpath, f), nobody.pw_uid, nobody.pw_gid)
+    return (
+        ["setpriv", f"--reuid={nobody.pw_uid}", f"--regid={nobody.pw_gid}", "--clear-groups",
+         "env", f"HOME={profile}"] + cmd,
+        nobody,
+    )
+
+
+def install_extension(oxt, profile):
+    """Install ``oxt`` into the user profile ``profile`` with ``unopkg add``."""
+    os.makedirs(profile, exist_ok=True)
+    staged = os.path.join(profile, "staged-" + os.path.basename(oxt))
+    shutil.copyfile(oxt, staged)
+    cmd = [UNOPKG, "add", "-f", f"-env:UserInstallation={file_url(profile)}", staged]
+    cmd, _ = _as_unprivileged(cmd, profile)
+    done = subprocess.run(cmd, capture_output=True, text=True, timeout=300)
+    if done.returncode != 0:
+        raise RuntimeError(f"unopkg add failed: {done.stdout}{done.stderr}")
+    return done
+
+
+class Office:
+    """A headless office with its own fresh profile, ended on exit."""
+
+    def __init__(self, oxt=None, profile=None, keep_profile=False):
+        self.oxt = oxt
+        self._own_profile = profile is None
+        self.profile = profile or tempfile.mkdtemp(prefix="eclipsheet-profile-")
+        self.keep_profile = keep_profile or not self._own_profile
+        self.process = None
+        self.ctx = None
+        self.desktop = None
+
+    def __enter__(self):
+        if self.oxt:
+            install_extension(self.oxt, self.profile)
+        self.start()
+        return self
+
+    def __exit__(self, *exc):
+        self.stop()
+        if not self.keep_profile:
+            shutil.rmtree(self.profile, ignore_errors=True)
+
+    def start(self, timeout=90):
+        port = _free_port()
+        self.process = subprocess.Popen(
+            [
+                SOFFICE, "--headless", "--invisible", "--norestore", "--nologo",
+                "--nodefault", "--nolockcheck",
+                f"-env:UserInstallation={file_url(self.profile)}",
+                f"--accept=socket,host=127.0.0.1,port={port};urp;StarOffice.ComponentContext",
+            ],
+            stdout=subprocess.DEVNULL,
+            stderr=subprocess.DEVNULL,
+        )
+        local = uno.getComponentContext()
+        resolver = local.ServiceManager.createInstanceWithContext(
+            "com.sun.star.bridge.UnoUrlResolver", local
+        )
+        url = f"uno:socket,host=127.0.0.1,port={port};urp;StarOffice.ComponentContext"
+        deadline = time.time() + timeout
+        while True:
+            try:
+                self.ctx = resolver.resolve(url)
+                break
+            except Exception:
+                if self.process.poll() is not None or time.time() > deadline:
+                    raise RuntimeError("the office did not start")
+                time.sleep(0.25)
+        self.desktop = self.ctx.ServiceManager.createInstanceWithContext(
+            "com.sun.star.frame.Desktop", self.ctx
+        )
+        return self
+
+    def stop(self):
+        if self.desktop is not None:
+            try:
+                self.desktop.terminate()
+            except Exception:
+                pass  # the bridge drops as the office quits
+        if self.process is not None:
+            try:
+                self.process.wait(timeout=60)
+            except subprocess.TimeoutExpired:
+                self.process.kill()
+                self.process.wait()
+        self.desktop = self.ctx = self.process = None
+
+    def service(self, name):
+        return self.ctx.ServiceManager.createInstanceWithContext(name, self.ctx)
+
+    def new_sheet(self):
+        return self.desktop.loadComponentFromURL(
+            "private:factory/scalc", "_blank", 0, _props(Hidden=True)
+        )
+
+    def open(self, path):
+        doc = self.desktop.loadComponentFromURL(
+            file_url(path), "_blank", 0, _props(Hidden=True)
+        )
+        if doc is None:
+            raise RuntimeError(f"the office could not open {path}")
+        return doc
+
+    @staticmethod
+    def save(doc, path, filter_name="calc8", **options):
+        """Store a copy of ``doc`` at ``path`` (written beside, then moved into place)."""
+        path = os.path.abspath(path)
+        partial = os.path.join(os.path.dirname(path), ".partial-" + os.path.basename(path))
+        doc.storeToURL(file_url(partial), _props(FilterName=filter_name, Overwrite=True, **options))
+        os.replace(partial, path)
+        return path
+
+    def function_descriptions(self):
+        """The office's own view of every function: {display name: (description, args)}."""
+        fd = self.service("com.sun.star.sheet.FunctionDescriptions")
+        out = {}
+        for i in range(fd.getCount()):
+            props = {p.Name: p.Value for p in fd.getByIndex(i)}
+            args = [(a.Name, a.Description) for a in props.get("Arguments") or ()]
+            out[props["Name"]] = (props.get("Description", ""), args)
+        return out
+
+
+def null_date(doc):
+    d = doc.NullDate
+    return (d.Year, d.Month, d.Day)
+
+
+def set_null_date(doc, year, month, day):
+    d = uno.createUnoStruct("com.sun.star.util.Date")
+    d.Year, d.Month, d.Day = year, month, day
+    doc.NullDate = d
