@@ -147,6 +147,12 @@ def _compute_group(fn, rows, options, null_jd):
     """Results (object array) for rows that share their options."""
     func, params = _impl(fn)
     n = len(next(iter(rows.values()))) if rows else 1
+    if not any(a.kind in registry.ROW_KINDS for a in fn.args):
+        kwargs = {k: v for k, v in options.items() if k in params}
+        try:
+            return np.asarray(func(**kwargs), dtype=object).reshape(-1)[:1].repeat(n)
+        except SkyError as err:
+            return np.full(n, PREFIX + str(err), dtype=object)
     messages = np.full(n, None, dtype=object)
     columns = {}
     for arg in fn.args:
@@ -234,10 +240,12 @@ def _evaluate(fn, raw_args, null_date):
         flat.append(column)
 
     out = np.full(n, "", dtype=object)
-    first_row_arg = next(k for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS)
+    first_row_arg = next(
+        (k for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS), None
+    )
     groups = {}
     for i in range(n):
-        if not single and flat[first_row_arg][i] is None:
+        if not single and first_row_arg is not None and flat[first_row_arg][i] is None:
             continue  # an empty row of a column call stays empty
         try:
             key = tuple(

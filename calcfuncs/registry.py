@@ -397,7 +397,20 @@ FUNCTIONS = (
     ),
 )
 
+FUNCTIONS = FUNCTIONS + (
+    CellFunction(
+        name="SKY.VERSION",
+        method="skyVersion",
+        family="about",
+        summary="Which Eclipsheet and ERFA computed this sheet, for the record kept with it.",
+        args=(),
+        result='text such as "Eclipsheet 0.1.0; ERFA 2.0.1; numpy 2.4.6"',
+        impl="about:version_text",
+    ),
+)
+
 FAMILIES = {
+    "about": "About the add-in",
     "time": "Time: Julian dates and time scales",
     "angles": "Angles: sexagesimal text, formatting, wrapping",
     "obliquity": "Obliquity of the ecliptic and nutation",
