@@ -6,6 +6,7 @@ erfa and the core are imported on the first call, not at load: if they are missi
 every cell says which package to install instead of showing #NAME?.
 """
 
+import re
 import sys
 
 import unohelper
@@ -27,12 +28,14 @@ def _load_core():
 
             _core = cells
         except ImportError as err:
-            missing = getattr(err, "name", None) or str(err)
+            # The office's import hook rewords the error, so read the name from the text.
+            found = re.search(r"No module named '([^'.]+)", str(err))
+            missing = found.group(1) if found else (getattr(err, "name", None) or str(err))
             package = {"numpy": "python3-numpy", "erfa": "python3-erfa"}.get(missing, missing)
             _core_problem = (
-                f"#SKY: the office's Python ({sys.executable}, "
-                f"{sys.version_info[0]}.{sys.version_info[1]}) cannot import {missing}; "
-                f"install it (Debian/Ubuntu: apt install {package}) or use the "
+                f"#SKY: the office's Python {sys.version.split()[0]} (in {sys.prefix}) "
+                f"cannot import {missing}; install it (Debian/Ubuntu: apt install {package}, "
+                "elsewhere pip install numpy pyerfa for that Python) or use the "
                 "self-contained build of Eclipsheet"
             )
     return _core

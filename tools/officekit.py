@@ -76,8 +76,9 @@ def install_extension(oxt, profile):
 class Office:
     """A headless office with its own fresh profile, ended on exit."""
 
-    def __init__(self, oxt=None, profile=None, keep_profile=False):
+    def __init__(self, oxt=None, profile=None, keep_profile=False, env=None):
         self.oxt = oxt
+        self.env = env
         self._own_profile = profile is None
         self.profile = profile or tempfile.mkdtemp(prefix="eclipsheet-profile-")
         self.keep_profile = keep_profile or not self._own_profile
@@ -107,6 +108,7 @@ class Office:
             ],
             stdout=subprocess.DEVNULL,
             stderr=subprocess.DEVNULL,
+            env=dict(os.environ, **(self.env or {})),
         )
         local = uno.getComponentContext()
         resolver = local.ServiceManager.createInstanceWithContext(
@@ -165,6 +167,46 @@ class Office:
         doc.storeToURL(file_url(partial), _props(FilterName=filter_name, Overwrite=True, **options))
         os.replace(partial, path)
         return path
+
+    def install_with_extension_manager(self, oxt):
+        """Install as the Extension Manager dialog does: the deployment API, user scope,
+        confirming its question the way a user clicks OK.  Calc lists the new functions
+        after the office restarts."""
+        import unohelper
+        from com.sun.star.task import XInteractionHandler
+        from com.sun.star.ucb import XCommandEnvironment, XProgressHandler
+
+        approve_type = uno.getTypeByName("com.sun.star.task.XInteractionApprove")
+
+        class Confirm(unohelper.Base, XInteractionHandler):
+            def handle(self, request):
+                for choice in request.getContinuations():
+                    if choice.queryInterface(approve_type):
+                        choice.select()
+                        return
+
+        class Quiet(unohelper.Base, XProgressHandler):
+            def push(self, status):
+                pass
+
+            def update(self, status):
+                pass
+
+            def pop(self):
+                pass
+
+        class Environment(unohelper.Base, XCommandEnvironment):
+            def getInteractionHandler(self):
+                return Confirm()
+
+            def getProgressHandler(self):
+                return Quiet()
+
+        manager = self.ctx.getValueByName("/singletons/com.sun.star.deployment.ExtensionManager")
+        staged = os.path.join(self.profile, "staged-" + os.path.basename(oxt))
+        shutil.copyfile(oxt, staged)
+        manager.addExtension(file_url(staged), (), "user", None, Environment())
+        return [e.getIdentifier().Value for e in manager.getDeployedExtensions("user", None, Environment())]
 
     def function_descriptions(self):
         """The office's own view of every function: {display name: (description, args)}."""

@@ -1,0 +1,33 @@
+# Eclipsheet: `make demo` and `make test` do all the set-up on a fresh Debian/Ubuntu.
+PY := .venv/bin/python
+OXT := dist/eclipsheet.oxt
+
+.PHONY: all setup generate oxt test test-core demo bench clean
+
+all: oxt
+
+setup:
+	bash tools/setup.sh
+
+# Rewrite the files generated from calcfuncs/registry.py (commit them afterwards).
+generate:
+	python3 extension/build.py generate
+
+oxt: setup
+	$(PY) extension/build.py oxt $(OXT)
+
+test: oxt
+	$(PY) -m pytest -q
+
+# The core alone, without the office (fast).
+test-core: setup
+	$(PY) -m pytest -q -m "not office"
+
+demo: oxt
+	$(PY) tools/recompute.py --oxt $(OXT) --out out sample_sheets
+
+bench: oxt
+	$(PY) bench/bench_recalc.py --oxt $(OXT)
+
+clean:
+	rm -rf build dist out .pytest_cache

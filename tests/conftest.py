@@ -1,0 +1,47 @@
+"""Shared fixtures: the repository on sys.path, and a real headless office for the
+tests marked ``office``."""
+
+import os
+import subprocess
+import sys
+
+import pytest
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+sys.path.insert(0, ROOT)
+sys.path.insert(0, os.path.join(ROOT, "tools"))
+OXT = os.path.join(ROOT, "dist", "eclipsheet.oxt")
+
+
+def _build_oxt():
+    newest_source = max(
+        os.path.getmtime(os.path.join(d, f))
+        for d in (os.path.join(ROOT, "calcfuncs"), os.path.join(ROOT, "extension"))
+        for f in os.listdir(d)
+        if f.endswith(".py")
+    )
+    if not os.path.exists(OXT) or os.path.getmtime(OXT) < newest_source:
+        subprocess.run([sys.executable, os.path.join(ROOT, "extension", "build.py"), "oxt", OXT],
+                       check=True, stdout=subprocess.DEVNULL)
+    return OXT
+
+
+@pytest.fixture(scope="session")
+def oxt():
+    return _build_oxt()
+
+
+@pytest.fixture(scope="session")
+def office(oxt):
+    """One office for the session, with the built extension installed by unopkg."""
+    import officekit  # needs `import uno`: run from .venv (see the README)
+
+    with officekit.Office(oxt=oxt) as running:
+        yield running
+
+
+@pytest.fixture
+def sheet_doc(office):
+    doc = office.new_sheet()
+    yield doc
+    doc.close(True)

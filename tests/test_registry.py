@@ -1,0 +1,164 @@
+"""The registry is the single source of the add-in's surface; these checks keep it whole.
+
+ODS files store a call as IMPLEMENTATION_NAME.METHOD (see PLATFORM-NOTES), so the
+names pinned here are a file format: a test fails if one is renamed or removed.
+Add new functions to FROZEN_METHODS when they are declared; never edit a line.
+"""
+
+import importlib
+import inspect
+import os
+import re
+import sys
+
+import pytest
+
+from calcfuncs import registry
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+sys.path.insert(0, os.path.join(ROOT, "extension"))
+import build  # noqa: E402
+
+FROZEN_IMPLEMENTATION = "org.eclipsheet.sky.SkyFunctions"
+FROZEN_METHODS = {
+    "skyJd": "SKY.JD",
+    "skyMjd": "SKY.MJD",
+    "skyDatetime": "SKY.DATETIME",
+    "skyJdDatetime": "SKY.JD.DATETIME",
+    "skyMjdDatetime": "SKY.MJD.DATETIME",
+    "skyTextIso": "SKY.TEXT.ISO",
+    "skyDeltaT": "SKY.DELTAT",
+    "skyAngle": "SKY.ANGLE",
+    "skyAngleHours": "SKY.ANGLE.HOURS",
+    "skyTextDms": "SKY.TEXT.DMS",
+    "skyTextHms": "SKY.TEXT.HMS",
+    "skyWrap360": "SKY.WRAP.360",
+    "skyWrap180": "SKY.WRAP.180",
+    "skyObliquity": "SKY.OBLIQUITY",
+    "skyObliquityTrue": "SKY.OBLIQUITY.TRUE",
+    "skyNutationLon": "SKY.NUTATION.LON",
+    "skyNutationObl": "SKY.NUTATION.OBL",
+    "skyVersion": "SKY.VERSION",
+}
+
+
+def test_implementation_name_is_frozen():
+    assert registry.IMPLEMENTATION_NAME == FROZEN_IMPLEMENTATION
+
+
+@pytest.mark.parametrize("method", sorted(FROZEN_METHODS))
+def test_frozen_method_still_declared(method):
+    assert method in registry.BY_METHOD, f"{method} was removed or renamed: it is stored in sheets"
+
+
+def test_every_declared_method_is_pinned():
+    new = sorted(set(registry.BY_METHOD) - set(FROZEN_METHODS))
+    assert not new, f"pin the new methods in FROZEN_METHODS: {new}"
+
+
+def test_names_are_unique_and_well_formed():
+    names = [f.name for f in registry.FUNCTIONS]
+    methods = [f.method for f in registry.FUNCTIONS]
+    assert len(set(names)) == len(names)
+    assert len(set(m.lower() for m in methods)) == len(methods)  # ODS upper-cases them
+    for f in registry.FUNCTIONS:
+        assert re.fullmatch(r"SKY(\.[A-Z0-9]+)+", f.name), f.name
+        assert re.fullmatch(r"sky[A-Za-z0-9]+", f.method), f.method
+        for a in f.args:
+            assert re.fullmatch(r"[a-z][a-z0-9_]*", a.name), a.name
+            assert re.fullmatch(r"[a-z][A-Za-z0-9]*", a.idl_name), a.idl_name
+
+
+@pytest.mark.parametrize("fn", registry.FUNCTIONS, ids=lambda f: f.name)
+def test_every_function_and_argument_is_described(fn):
+    assert len(fn.summary) > 20 and fn.summary.endswith(".")
+    assert fn.result
+    assert fn.family in registry.FAMILIES
+    for a in fn.args:
+        assert len(a.description) > 15, f"{fn.name}({a.name}) lacks a description"
+        assert a.kind in registry.ROW_KINDS + registry.OPTION_KINDS
+        if a.kind == "choice":
+            assert a.choices
+            assert a.default is None or a.default in a.choices
+        if a.optional:
+            assert "default" in a.description.lower(), f"{fn.name}({a.name}) must state its default"
+
+
+@pytest.mark.parametrize("fn", registry.FUNCTIONS, ids=lambda f: f.name)
+def test_optional_arguments_come_last(fn):
+    seen_optional = False
+    for a in fn.args:
+        if a.optional:
+            seen_optional = True
+        else:
+            assert not seen_optional, f"{fn.name}: required {a.name} after an optional one"
+
+
+@pytest.mark.parametrize("fn", registry.FUNCTIONS, ids=lambda f: f.name)
+def test_time_arguments_carry_their_scale(fn):
+    names = [a.name for a in fn.args]
+    if fn.has_time or "jd" in names or "mjd" in names:
+        assert names[1] == "scale", f"{fn.name}: the scale follows the time"
+
+
+@pytest.mark.parametrize("fn", registry.FUNCTIONS, ids=lambda f: f.name)
+def test_models_state_their_validity(fn):
+    if any(a.name in ("model", "nutation") for a in fn.args):
+        assert re.search(r"\d{3,4}", fn.model) and ("valid" in fn.description.lower()
+                                                    or "outside" in fn.description.lower())
+
+
+@pytest.mark.parametrize("fn", registry.FUNCTIONS, ids=lambda f: f.name)
+def test_impl_resolves_and_takes_the_arguments(fn):
+    module, name = fn.impl.split(":")
+    func = getattr(importlib.import_module(f"calcfuncs.{module}"), name)
+    params = inspect.signature(func).parameters
+    consumed_by_time_reader = {"scale", "dut1"} if fn.has_time else set()
+    for a in fn.args:
+        if a.name in consumed_by_time_reader:
+            continue
+        assert a.name in params, f"{fn.impl} does not take {a.name}"
+
+
+def test_generated_files_are_current():
+    stale = build.stale_files()
+    assert not stale, f"regenerate with `make generate`: {stale}"
+
+
+def test_wizard_texts_cover_every_argument():
+    xcu = build.xcu_text()
+    for fn in registry.FUNCTIONS:
+        assert f'oor:name="{fn.method}"' in xcu
+        for a in fn.args:
+            assert f'oor:name="{a.idl_name}"' in xcu
+
+
+def test_idl_declares_every_method_with_hidden_settings_first():
+    idl = build.idl_text()
+    for fn in registry.FUNCTIONS:
+        m = re.search(rf"{fn.method}\(([^)]*)\)", idl)
+        assert m, fn.method
+        params = [p.strip() for p in m.group(1).split(",")]
+        assert params[0].endswith("XPropertySet docSettings")
+        assert [p.split()[-1] for p in params[1:]] == [a.idl_name for a in fn.args]
+
+
+def test_core_package_never_imports_the_office_bridge():
+    core = os.path.join(ROOT, "calcfuncs")
+    for name in os.listdir(core):
+        if name.endswith(".py"):
+            text = open(os.path.join(core, name), encoding="utf-8").read()
+            assert not re.search(r"^\s*(import|from)\s+uno\b", text, re.M), name
+
+
+def test_registry_import_is_light():
+    # The adapter imports the registry when the office loads the component; numpy
+    # must not come with it, or a missing numpy would break the install.
+    code = (
+        "import sys; import calcfuncs.registry; "
+        "sys.exit(1 if 'numpy' in sys.modules or 'erfa' in sys.modules else 0)"
+    )
+    import subprocess
+
+    done = subprocess.run([sys.executable, "-c", code], cwd=ROOT)
+    assert done.returncode == 0
