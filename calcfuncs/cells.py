@@ -9,7 +9,6 @@ words (scale, model, unit ...) are computed in one vectorised core call.
 
 import importlib
 import inspect
-from collections import OrderedDict
 
 import numpy as np
 
@@ -23,8 +22,11 @@ _IMPLS = {}
 _NULL_JDS = {}
 # Calc recomputes every cell of a sheet on load and on each full recalculation, and
 # the answer of a single cell depends only on its arguments: keep recent answers.
-_SINGLE_CELL_CACHE = OrderedDict()
-_SINGLE_CELL_CACHE_SIZE = 50_000
+# When full, the newest entry makes room (dict.popitem), so a sheet larger than the
+# cache still finds its first 200,000 cells on every recalculation instead of none, as
+# a least-recently-used policy would on a top-to-bottom pass.
+_SINGLE_CELL_CACHE = {}
+_SINGLE_CELL_CACHE_SIZE = 200_000
 
 
 def _impl(fn):
@@ -206,29 +208,47 @@ def _compute_group(fn, rows, options, null_jd):
             messages[idx] = str(err)
             break
         out = out.reshape(-1)
-        for k, i in enumerate(idx):
-            v = out[k]
-            if isinstance(v, str):
-                results[i] = v
-            elif v is None or not np.isfinite(v):
-                messages[i] = "no result for these arguments"
-            else:
-                results[i] = float(v)
+        if out.dtype.kind == "f":
+            finite = np.isfinite(out)
+            values = out.tolist()  # Python floats, as UNO wants them
+            for k, i in enumerate(idx):
+                if finite[k]:
+                    results[i] = values[k]
+                else:
+                    messages[i] = "no result for these arguments"
+        else:
+            for k, i in enumerate(idx):
+                results[i] = out[k] if isinstance(out[k], str) else float(out[k])
         break
     for i in np.flatnonzero(np.array([m is not None for m in messages], dtype=bool)):
         results[i] = PREFIX + messages[i]
     return results
 
 
+def _evaluate_single(fn, raw_args, null_date):
+    """One cell: the same path as a column of one row, without the grid bookkeeping."""
+    options, rows = {}, {}
+    for a, raw in zip(fn.args, raw_args):
+        if a.kind in registry.OPTION_KINDS:
+            options[a.name] = _read_option(a, raw)
+        else:
+            column = np.empty(1, dtype=object)
+            column[0] = raw
+            rows[a.name] = column
+    null_jd = _null_jd(null_date) if fn.has_time or "null_jd" in _impl(fn)[1] else None
+    return _compute_group(fn, rows, options, null_jd)[0]
+
+
 def _evaluate(fn, raw_args, null_date):
     raw_args = list(raw_args) + [None] * (len(fn.args) - len(raw_args))
+    if not any(isinstance(v, (tuple, list)) for v in raw_args):
+        return _evaluate_single(fn, raw_args, null_date)
     grids = [_as_grid(v) for v in raw_args]
     shapes = {g.shape for g in grids if g is not None}
     if len(shapes) > 1:
         dims = " and ".join(f"{r}x{c}" for r, c in sorted(shapes))
         raise SkyError(f"the ranges have different shapes ({dims}); give ranges of one shape")
-    shape = shapes.pop() if shapes else (1, 1)
-    single = not any(g is not None for g in grids)
+    shape = shapes.pop()
     n = shape[0] * shape[1]
     flat = []
     for raw, grid in zip(raw_args, grids):
@@ -244,18 +264,50 @@ def _evaluate(fn, raw_args, null_date):
         (k for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS), None
     )
     groups = {}
-    for i in range(n):
-        if not single and first_row_arg is not None and flat[first_row_arg][i] is None:
-            continue  # an empty row of a column call stays empty
+    option_args = [(k, a) for k, a in enumerate(fn.args) if a.kind in registry.OPTION_KINDS]
+    read = {}  # (argument, raw value) -> option value: a column rarely has many distinct
+
+    def option(k, a, raw):
+        memo = (k, raw) if isinstance(raw, (str, float, int, type(None))) else None
+        if memo is not None and memo in read:
+            return read[memo]
         try:
-            key = tuple(
-                _read_option(a, flat[k][i]) if a.kind in registry.OPTION_KINDS else None
-                for k, a in enumerate(fn.args)
-            )
+            value = _read_option(a, raw)
         except SkyError as err:
-            out[i] = PREFIX + str(err)
+            value = err
+        if memo is not None:
+            read[memo] = value
+        return value
+
+    if first_row_arg is not None:  # an empty row of a column call stays empty
+        filled = np.array([v is not None for v in flat[first_row_arg]], dtype=bool)
+    else:
+        filled = np.ones(n, dtype=bool)
+    if not any(grids[k] is not None for k, _ in option_args):
+        # The usual column call: every option is one value for all rows.
+        key = [None] * len(fn.args)
+        try:
+            for k, a in option_args:
+                key[k] = _read_option(a, raw_args[k])
+        except SkyError as err:
+            out[filled] = PREFIX + str(err)
+        else:
+            groups[tuple(key)] = np.flatnonzero(filled)
+    per_row_options = np.flatnonzero(filled) if any(
+        grids[k] is not None for k, _ in option_args) else ()
+    for i in per_row_options:
+        key = [None] * len(fn.args)
+        problem = None
+        for k, a in option_args:
+            value = option(k, a, flat[k][i])
+            if isinstance(value, SkyError):
+                problem = value
+                break
+            key[k] = value
+        if problem is not None:
+            out[i] = PREFIX + str(problem)
             continue
-        groups.setdefault(key, []).append(i)
+        groups.setdefault(tuple(key), []).append(i)
 
     null_jd = _null_jd(null_date) if fn.has_time or "null_jd" in _impl(fn)[1] else None
     for key, members in groups.items():
@@ -266,10 +318,7 @@ def _evaluate(fn, raw_args, null_date):
         }
         out[members] = _compute_group(fn, rows, options, null_jd)
 
-    if single:
-        return out[0]
-    grid = out.reshape(shape)
-    return tuple(tuple(row) for row in grid)
+    return tuple(map(tuple, out.reshape(shape).tolist()))
 
 
 def _hashable(args):
@@ -292,7 +341,6 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         key = (fn.method, raw_args, tuple(null_date))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
-            _SINGLE_CELL_CACHE.move_to_end(key)
             return hit
     try:
         result = _evaluate(fn, raw_args, null_date)
@@ -302,9 +350,9 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         result = f"{PREFIX}internal error ({type(err).__name__}: {err}); please report it"
         key = None
     if key is not None:
+        if len(_SINGLE_CELL_CACHE) >= _SINGLE_CELL_CACHE_SIZE:
+            _SINGLE_CELL_CACHE.popitem()
         _SINGLE_CELL_CACHE[key] = result
-        if len(_SINGLE_CELL_CACHE) > _SINGLE_CELL_CACHE_SIZE:
-            _SINGLE_CELL_CACHE.popitem(last=False)
     return result
 
 

@@ -6,6 +6,7 @@ given separately.  Every reader works on a whole column and reports a message pe
 bad row instead of failing the column.
 """
 
+import math
 import re
 
 import erfa
@@ -16,6 +17,7 @@ from .timescales import (
     GREGORIAN_START_JD,
     JD_LIMIT,
     MJD_ZERO,
+    UTC_START_JD,
     Instants,
     _quiet,
     split_days,
@@ -161,24 +163,66 @@ def parse_time_text(text, scale):
     )
 
 
+_STEP_DAYS = None
+
+
+def _utc_step_days():
+    """JDs (at 0h) of the UTC days that end in a step of TAI - UTC (leap seconds, and
+    the fractional steps of 1960-1971): the only days whose ERFA quasi-JD differs from
+    the calendar reading of a date-time cell."""
+    global _STEP_DAYS
+    if _STEP_DAYS is None:
+        table = erfa.leap_seconds.get()
+        starts = [sum(erfa.cal2jd(int(y), int(m), 1)) for y, m in zip(table["year"], table["month"])]
+        _STEP_DAYS = np.array(sorted(j - 1.0 for j in starts[1:]))
+    return _STEP_DAYS
+
+
 def _serial_pairs(serials, scale, null_jd):
     """Two-part JDs from Calc date-time values on ``scale``.
 
-    A Calc day always has 86400 s, so for UTC the value is read as a calendar date and
-    clock time and handed to ERFA, which stretches the fraction of a leap-second day.
+    A Calc day always has 86400 s.  On every scale but UTC, and on UTC days without a
+    step, that is also how ERFA counts; on a UTC step day the value is read as date and
+    clock time and handed to ERFA's dtf2d, which stretches that day's fraction.
     """
     whole = np.floor(serials)
-    jd1, jd2 = split_days(null_jd + whole, serials - whole)
-    if scale != "UTC" or jd1.size == 0:
-        return jd1, jd2
-    iy, im, iday, fd = erfa.jd2cal(jd1, jd2)
-    seconds = fd * 86400.0
-    hours = np.floor(seconds / 3600.0)
-    minutes = np.floor((seconds - hours * 3600.0) / 60.0)
-    secs = seconds - hours * 3600.0 - minutes * 60.0
-    return _quiet(
-        erfa.dtf2d, "UTC", iy, im, iday, hours.astype(int), minutes.astype(int), secs
-    )
+    day_start = null_jd + whole
+    fraction = serials - whole
+    if scale != "UTC":
+        return split_days(day_start, fraction)
+    jd1, jd2 = day_start, fraction
+    steps = _utc_step_days()
+    at = np.minimum(np.searchsorted(steps, day_start), steps.size - 1)
+    stepping = steps[at] == day_start
+    if stepping.any():
+        iy, im, iday, _ = erfa.jd2cal(day_start[stepping], 0.0)
+        seconds = fraction[stepping] * 86400.0
+        hours = np.floor(seconds / 3600.0)
+        minutes = np.floor((seconds - hours * 3600.0) / 60.0)
+        secs = seconds - hours * 3600.0 - minutes * 60.0
+        a, b = _quiet(erfa.dtf2d, "UTC", iy, im, iday, hours.astype(int), minutes.astype(int), secs)
+        jd1 = jd1.copy()
+        jd2 = jd2.copy()
+        jd1[stepping], jd2[stepping] = a, b
+    return jd1, jd2
+
+
+def _serial_problem(v, null_jd):
+    """Why a date-time value cannot be read, or None."""
+    if not math.isfinite(v) or abs(v) > SERIAL_LIMIT:
+        return (
+            f"the date-time value {v!r} is out of range; a date-time cell counts days "
+            "from the document's null date"
+        )
+    jd = null_jd + v
+    if jd >= LAST_SERIAL_JD:
+        return (
+            f"the date-time value {v!r} is after year 4999; if it is a Julian Date, write "
+            '"JD ..." as text or use SKY.JD.DATETIME'
+        )
+    if jd < GREGORIAN_START_JD:
+        return "date-time values before 1582-10-15 are not yet supported; give JD or MJD text on TT"
+    return None
 
 
 def read_times(values, scale, null_jd, dut1=0.0):
@@ -194,62 +238,53 @@ def read_times(values, scale, null_jd, dut1=0.0):
     jd2 = np.zeros(n)
     messages = np.full(n, None, dtype=object)
 
-    is_number = np.array(
-        [isinstance(v, (float, int)) and not isinstance(v, bool) for v in values], dtype=bool
-    )
-    if is_number.any():
-        serials = values[is_number].astype(float)
-        bad = ~np.isfinite(serials) | (np.abs(np.nan_to_num(serials)) > SERIAL_LIMIT)
-        good = ~bad
-        idx = np.flatnonzero(is_number)
-        for i in idx[bad]:
-            messages[i] = (
-                f"the date-time value {values[i]!r} is out of range; a date-time cell "
-                "counts days from the document's null date"
-            )
-        late = good & ((null_jd + np.where(good, serials, 0.0)) >= LAST_SERIAL_JD)
-        for i in idx[late]:
-            messages[i] = (
-                f"the date-time value {values[i]!r} is after year 4999; if it is a Julian "
-                'Date, write "JD ..." as text or use SKY.JD.DATETIME'
-            )
-        good &= ~late
-        early = good & ((null_jd + np.where(good, serials, 0.0)) < GREGORIAN_START_JD)
-        for i in idx[early]:
-            messages[i] = (
-                "date-time values before 1582-10-15 are not yet supported; give JD or "
-                "MJD text on TT"
-            )
-        good &= ~early
-        if good.any():
-            a, b = _serial_pairs(serials[good], scale, null_jd)
-            jd1[idx[good]] = a
-            jd2[idx[good]] = b
-
-    for i in np.flatnonzero(~is_number):
-        v = values[i]
-        if v is None:
+    if n > 1 and all(type(v) is float for v in values):
+        # The usual column of date-time cells: checked and converted in one go.
+        serials = values.astype(float)
+        with np.errstate(invalid="ignore"):
+            fine = np.isfinite(serials) & (np.abs(serials) <= SERIAL_LIMIT)
+            jd = null_jd + serials
+            fine &= (jd < LAST_SERIAL_JD) & (jd >= GREGORIAN_START_JD)
+        if fine.all():
+            jd1, jd2 = _serial_pairs(serials, scale, null_jd)
+            return _check_scale_start(jd1, jd2, messages, scale)
+    serial_rows, serials = [], []
+    for i, v in enumerate(values):
+        kind = type(v)
+        if kind is float or kind is int:
+            problem = _serial_problem(float(v), null_jd)
+            if problem is None:
+                serial_rows.append(i)
+                serials.append(float(v))
+            else:
+                messages[i] = problem
+        elif v is None:
             messages[i] = "the time is missing; " + _ACCEPTED
-            continue
-        if not isinstance(v, str):
+        elif isinstance(v, str):
+            try:
+                jd1[i], jd2[i] = parse_time_text(v, scale)
+            except SkyError as err:
+                messages[i] = str(err)
+        else:
             messages[i] = f"{v!r} is not a time; {_ACCEPTED}"
-            continue
-        try:
-            jd1[i], jd2[i] = parse_time_text(v, scale)
-        except SkyError as err:
-            messages[i] = str(err)
+    if serial_rows:
+        a, b = _serial_pairs(np.array(serials), scale, null_jd)
+        jd1[serial_rows] = a
+        jd2[serial_rows] = b
 
-    # The scale's own limits (UTC and UT1 from 1960) are checked row by row.
-    ok = np.array([m is None for m in messages], dtype=bool)
+    return _check_scale_start(jd1, jd2, messages, scale)
+
+
+def _check_scale_start(jd1, jd2, messages, scale):
+    """The scale's own limits (UTC and UT1 from 1960), row by row."""
     if scale in ("UTC", "UT1"):
-        from .timescales import UTC_START_JD
-
-        early = ok & ((jd1 + jd2) < UTC_START_JD)
+        early = (jd1 + jd2) < UTC_START_JD
         for i in np.flatnonzero(early):
-            messages[i] = (
-                f"{scale} before 1960 is not yet supported; give the time as TT "
-                "(JD or MJD text with scale TT)"
-            )
+            if messages[i] is None:
+                messages[i] = (
+                    f"{scale} before 1960 is not yet supported; give the time as TT "
+                    "(JD or MJD text with scale TT)"
+                )
     return jd1, jd2, messages
 
 
