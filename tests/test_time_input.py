@@ -12,7 +12,7 @@ import numpy as np
 import pytest
 from astropy.time import Time
 from astropy.utils import iers
-from hypothesis import given, settings
+from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
 import calcfuncs
@@ -285,10 +285,36 @@ def test_serial_round_trip_on_uniform_scales(serial, null_date, scale):
     assert abs(got - serial) <= _round_trip_tolerance(serial)
 
 
+# Days before a 1960s UTC step (the offset of the next row of the USNO tai-utc.dat
+# table jumps by 0.005 to 0.107758 s; from memory of that table).  ERFA dtf2d stretches
+# such a day by the step but d2dtf only for whole leap seconds, so writing a time back
+# on these days is off by up to 0.05 s (astropy 8.0 shows the same).
+UTC_STEP_DAYS = [
+    "1960-12-31", "1961-07-31", "1963-10-31", "1964-03-31", "1964-08-31", "1964-12-31",
+    "1965-02-28", "1965-06-30", "1965-08-31", "1968-01-31", "1971-12-31",
+]
+
+
+def _on_step_day(serial):
+    shown = NULL_DATES[(1899, 12, 30)] + datetime.timedelta(days=serial)
+    return shown.date().isoformat() in UTC_STEP_DAYS
+
+
+@pytest.mark.xfail(
+    strict=True,
+    reason="on 1960s UTC step days ERFA d2dtf does not invert dtf2d (it rescales only "
+    "for whole leap seconds): 1965-08-31T12:00:00Z is written back as 11:59:59.950",
+)
+@pytest.mark.parametrize("day", UTC_STEP_DAYS)
+def test_time_on_1960s_step_days_writes_back_unchanged(day):
+    assert evaluate("SKY.TEXT.ISO", [day + "T12:00:00Z", "UTC", None, None, 3]) == day + "T12:00:00.000"
+
+
 @settings(max_examples=300, deadline=None)
 @given(serial=st.floats(SERIAL_1960, SERIAL_2100), null_date=st.sampled_from(list(NULL_SHIFT)))
 def test_serial_round_trip_on_utc(serial, null_date):
-    serial_here = serial + NULL_SHIFT[null_date]  # the same displayed date-time
+    assume(not _on_step_day(serial))  # the xfail above
+    serial_here = serial - NULL_SHIFT[null_date]  # the same displayed date-time
     null_jd = null_date_jd(null_date)
     jd1, jd2, messages = read_times(np.array([serial_here]), "UTC", null_jd)
     assert messages[0] is None
@@ -303,6 +329,7 @@ def test_serial_round_trip_on_utc(serial, null_date):
 @settings(max_examples=300, deadline=None)
 @given(serial=st.floats(SERIAL_1960, SERIAL_2100), scale=st.sampled_from(["UTC", "TT", "TAI"]))
 def test_iso_text_of_a_serial_reads_back(serial, scale):
+    assume(not (scale == "UTC" and _on_step_day(serial)))  # the xfail above
     text = evaluate("SKY.TEXT.ISO", [serial, scale, None, None, 9])
     back = evaluate("SKY.DATETIME", [text, scale])
     assert abs(back - serial) <= _round_trip_tolerance(serial)
@@ -320,6 +347,7 @@ def iso_texts(draw):
     else:
         first = datetime.date(1960 if scale == "UTC" else 1583, 1, 1).toordinal()
         day = datetime.date.fromordinal(draw(st.integers(first, datetime.date(9999, 12, 31).toordinal())))
+        assume(not (scale == "UTC" and day.isoformat() in UTC_STEP_DAYS))  # the xfail above
         hh, mi, ss = draw(st.integers(0, 23)), draw(st.integers(0, 59)), draw(st.integers(0, 59))
     nanos = draw(st.integers(0, 999_999_999))
     return scale, f"{day.isoformat()}T{hh:02d}:{mi:02d}:{ss:02d}.{nanos:09d}"
@@ -340,7 +368,7 @@ def test_iso_text_round_trip(case):
         st.text(max_size=30),
         st.floats(allow_nan=True, allow_infinity=True),
         st.integers(-10**12, 10**12),
-        st.from_regex(r"\A[+-]?\d{4,5}-\d{1,2}-\d{1,2}([T ]\d{1,2}(:\d{1,2}(:\d{1,2}(\.\d{0,12})?)?)?)?Z?\Z"),
+        st.from_regex(r"\A(\+?\d{4,5}|-[0-3]\d{3})-\d{1,2}-\d{1,2}([T ]\d{1,2}(:\d{1,2}(:\d{1,2}(\.\d{0,12})?)?)?)?Z?\Z"),
         st.from_regex(r"\A(JD|MJD) ?[+-]?\d{1,12}(\.\d{0,15})?([eE][+-]?\d{1,3})?\Z"),
     ),
     scale=st.sampled_from(["UTC", "TT", "TDB", "UT1", "TAI"]),

@@ -284,7 +284,7 @@ def test_delta_t_matches_tt_minus_utc_minus_dut1_since_1972(astropy_random):
     assert np.max(np.abs(got - ref)) < 1e-6
 
 
-def test_delta_t_matches_astropy_tt_minus_ut1(astropy_random):
+def test_delta_t_matches_astropy_tt_minus_ut1():
     # astropy 8.0: TT - UT1 with UT1 - UTC set to the same DUT1 (delta_ut1_utc).
     t = Time(RANDOM_ISO, format="isot", scale="utc")
     t.delta_ut1_utc = _DUT1
