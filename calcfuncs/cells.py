@@ -78,7 +78,8 @@ def _read_option(arg, value):
             raise SkyError(f"{arg.name} must be one of " + ", ".join(arg.choices))
         word = value.strip().upper()
         if word not in arg.choices:
-            raise SkyError(f'unknown {arg.name} "{value}"; use ' + ", ".join(arg.choices))
+            noun = "nutation model" if arg.name == "nutation" else arg.name
+            raise SkyError(f'unknown {noun} "{value}"; use ' + ", ".join(arg.choices))
         return word
     if _is_blank(value):
         return arg.default
@@ -268,7 +269,8 @@ def _evaluate(fn, raw_args, null_date):
     read = {}  # (argument, raw value) -> option value: a column rarely has many distinct
 
     def option(k, a, raw):
-        memo = (k, raw) if isinstance(raw, (str, float, int, type(None))) else None
+        # Keyed with the type: 0, 0.0 and False are equal as keys but not as input.
+        memo = (k, type(raw), raw) if isinstance(raw, (str, float, int, type(None))) else None
         if memo is not None and memo in read:
             return read[memo]
         try:
@@ -338,7 +340,8 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     raw_args = tuple(raw_args)
     key = None
     if not any(isinstance(a, (tuple, list)) for a in raw_args) and _hashable(raw_args):
-        key = (fn.method, raw_args, tuple(null_date))
+        # With each argument's type, since 1, 1.0 and True are one key but not one input.
+        key = (fn.method, tuple((type(a), a) for a in raw_args), tuple(null_date))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
             return hit

@@ -66,7 +66,7 @@ def julian_epoch(jd1, jd2):
 def _check_model(model, table, kind):
     name = str(model).strip().upper()
     if name not in table:
-        raise SkyError(f'unknown {kind} model "{model}"; use ' + ", ".join(table))
+        raise SkyError(f'unknown {kind}model "{model}"; use ' + ", ".join(table))
     return name
 
 
@@ -90,7 +90,7 @@ def _check_validity(model, table, epochs, kind):
 
 def mean_obliquity(jd1, jd2, model="IAU2006"):
     """Mean obliquity in radians at TT two-part JD(s)."""
-    model = _check_model(model, OBLIQUITY_VALIDITY, "obliquity")
+    model = _check_model(model, OBLIQUITY_VALIDITY, "")
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
     epochs = julian_epoch(jd1, jd2)
@@ -127,7 +127,7 @@ _NUTATION = {"IAU2000A": erfa.nut06a, "IAU2000B": erfa.nut00b, "IAU1980": erfa.n
 
 def nutation_angles(jd1, jd2, model="IAU2000A"):
     """(delta psi, delta epsilon) in radians at TT two-part JD(s)."""
-    model = _check_model(model, NUTATION_VALIDITY, "nutation")
+    model = _check_model(model, NUTATION_VALIDITY, "nutation ")
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
     _check_validity(model, NUTATION_VALIDITY, julian_epoch(jd1, jd2), "nutation")

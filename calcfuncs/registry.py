@@ -155,7 +155,13 @@ _DOUBLE_LIMIT = (
 _UTC_NOTE = (
     "UTC uses ERFA's leap-second table (last leap second 2016-12-31) and assumes none "
     "since; 23:59:60 is accepted on real leap seconds. TT = TAI + 32.184 s; TDB - TT "
-    "from ERFA dtdb (Fairhead-Bretagnon, geocentre)."
+    "from ERFA dtdb (Fairhead-Bretagnon, geocentre) for 1000-3000, and outside those "
+    "years from the two-term approximation 0.001657 sin g + 0.000014 sin 2g (tens of "
+    "microseconds)."
+)
+_QUASI_JD = (
+    "A JD or MJD on UTC is ERFA's quasi-JD: on a day that ends in a leap second (or a "
+    "1960s step) the day's fraction spreads over its real length, so 23:59:60 has a place."
 )
 
 _OBLIQUITY_MODELS_TEXT = (
@@ -182,7 +188,7 @@ FUNCTIONS = (
         args=(_time(), _SCALE, _RESULT_SCALE, _DUT1),
         result="Julian Date in days on the result scale",
         impl="timefuncs:julian_date",
-        model=_DOUBLE_LIMIT + " " + _UTC_NOTE,
+        model=_DOUBLE_LIMIT + " " + _UTC_NOTE + " " + _QUASI_JD,
     ),
     CellFunction(
         name="SKY.MJD",
@@ -192,7 +198,7 @@ FUNCTIONS = (
         args=(_time(), _SCALE, _RESULT_SCALE, _DUT1),
         result="Modified Julian Date in days on the result scale",
         impl="timefuncs:modified_julian_date",
-        model=_UTC_NOTE,
+        model=_UTC_NOTE + " " + _QUASI_JD,
     ),
     CellFunction(
         name="SKY.DATETIME",

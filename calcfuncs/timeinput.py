@@ -93,6 +93,13 @@ def _calendar_fields(text, match, scale):
         raise SkyError(f'"{text}" is marked as UTC (Z) but the scale argument is {scale}')
     if not 1 <= mo <= 12:
         raise SkyError(f'"{text}" has month {mo}; months are 1 to 12')
+    if y < 1582:
+        raise SkyError(
+            f'"{text}" is before 1582-10-15; calendar dates before the Gregorian reform '
+            "are not yet supported (give JD or MJD text on TT)"
+        )
+    if y > 9999:
+        raise SkyError(f'"{text}" is after year 9999; give JD or MJD text on TT')
     days_in_month = erfa.cal2jd(y, mo % 12 + 1, 1) if mo < 12 else erfa.cal2jd(y + 1, 1, 1)
     first = erfa.cal2jd(y, mo, 1)
     length = int(round((days_in_month[0] + days_in_month[1]) - (first[0] + first[1])))
@@ -300,6 +307,26 @@ def instants(values, scale, null_jd=2415018.5, dut1=0.0):
 # ---- writing instants back ---------------------------------------------------------
 
 
+def _utc_clock(jd1, jd2):
+    """Day start (JD at 0h), seconds into the day and the day's length in SI seconds,
+    for ERFA UTC quasi-JDs.
+
+    The inverse of ERFA dtf2d: a UTC day that ends in a step of TAI - UTC is longer or
+    shorter by the step (a whole leap second since 1972, a fraction of one before),
+    and its quasi-JD fraction spreads over that length.  ERFA d2dtf rescales only for
+    whole seconds, so the 1960s days are handled here.
+    """
+    iy, im, iday, fd = erfa.jd2cal(jd1, jd2)
+    day0, day1 = erfa.cal2jd(iy, im, iday)
+    start = day0 + day1
+    ny, nm, nd, _ = erfa.jd2cal(start, 1.0)
+    dat0 = _quiet(erfa.dat, iy, im, iday, 0.0)
+    dat12 = _quiet(erfa.dat, iy, im, iday, 0.5)
+    dat24 = _quiet(erfa.dat, ny, nm, nd, 0.0)
+    length = 86400.0 + (dat24 - (2.0 * dat12 - dat0))
+    return start, fd * length, length
+
+
 def to_serial(inst, null_jd):
     """Calc date-time values (days since the null date) for instants on their scale.
 
@@ -308,13 +335,31 @@ def to_serial(inst, null_jd):
     """
     if inst.scale != "UTC":
         return (inst.jd1 - null_jd) + inst.jd2, np.zeros(inst.jd1.shape, dtype=bool)
-    iy, im, iday, hmsf = _quiet(erfa.d2dtf, "UTC", 9, inst.jd1, inst.jd2)
-    hours, minutes, secs, nanos = (hmsf[k].astype(float) for k in "hmsf")
-    in_leap = secs >= 60.0
-    day0, day1 = erfa.cal2jd(iy, im, iday)
-    clock = (hours * 3600.0 + minutes * 60.0 + secs + nanos * 1e-9) / 86400.0
-    serial = ((day0 - null_jd) + day1) + clock
+    start, seconds, _ = _utc_clock(inst.jd1, inst.jd2)
+    in_leap = seconds >= 86400.0
+    serial = (start - null_jd) + seconds / 86400.0
     return np.where(in_leap, np.nan, serial), in_leap
+
+
+def _clock_text(seconds, length, decimals):
+    """hh:mm:ss[.fff] for seconds into a day of ``length`` seconds, rounded once; the
+    last minute of a stretched day runs past 60 s.  Returns (text, carried into the
+    next day)."""
+    scale = 10**decimals
+    q = int(round(seconds * scale))
+    last_minute = 86340 * scale
+    if q >= int(round(length * scale)):
+        return "00:00:" + "00" + ("." + "0" * decimals if decimals else ""), True
+    if q >= last_minute:
+        hh, mm, rest = 23, 59, q - last_minute
+    else:
+        minutes_total, rest = divmod(q, 60 * scale)
+        hh, mm = divmod(minutes_total, 60)
+    whole, frac = divmod(rest, scale)
+    text = f"{hh:02d}:{mm:02d}:{whole:02d}"
+    if decimals:
+        text += f".{frac:0{decimals}d}"
+    return text, False
 
 
 def iso_text(inst, decimals=3):
@@ -332,14 +377,16 @@ def iso_text(inst, decimals=3):
         from .errors import rows_failing
 
         raise rows_failing(late, "calendar text after year 9999 is not supported; use SKY.JD")
-    iy, im, iday, hmsf = _quiet(erfa.d2dtf, inst.scale, decimals, inst.jd1, inst.jd2)
+    if inst.scale == "UTC":
+        start, seconds, length = _utc_clock(inst.jd1, inst.jd2)
+    else:
+        # Uniform scales: days of 86400 s, the day starting at the JD's .5.
+        start = np.floor(inst.jd1 + inst.jd2 - 0.5) + 0.5
+        seconds = ((inst.jd1 - start) + inst.jd2) * 86400.0
+        length = np.full(start.shape, 86400.0)
     out = []
-    fields = (np.ravel(iy), np.ravel(im), np.ravel(iday)) + tuple(
-        np.ravel(hmsf[k]) for k in "hmsf"
-    )
-    for y, mo, d, h, mi, s, frac in zip(*fields):
-        text = f"{y:04d}-{mo:02d}-{d:02d}T{h:02d}:{mi:02d}:{s:02d}"
-        if decimals > 0:
-            text += f".{frac:0{decimals}d}"
-        out.append(text)
+    for day, sec, day_len in zip(np.ravel(start), np.ravel(seconds), np.ravel(length)):
+        clock, next_day = _clock_text(float(sec), float(day_len), decimals)
+        y, mo, d, _ = erfa.jd2cal(float(day) + (1.0 if next_day else 0.0), 0.0)
+        out.append(f"{int(y):04d}-{int(mo):02d}-{int(d):02d}T{clock}")
     return np.array(out, dtype=object)

@@ -82,6 +82,12 @@ class Instants:
         scale = check_scale(scale)
         if scale == self.scale:
             return self
+        # UTC <-> UT1 directly: a detour through TAI can land a hair before midnight
+        # and pick up the previous day's TAI - UTC on a 1960s step day.
+        if (self.scale, scale) == ("UTC", "UT1"):
+            return Instants(*_quiet(erfa.utcut1, self.jd1, self.jd2, self.dut1), "UT1", self.dut1)
+        if (self.scale, scale) == ("UT1", "UTC"):
+            return Instants(*_quiet(erfa.ut1utc, self.jd1, self.jd2, self.dut1), "UTC", self.dut1)
         tai1, tai2 = self._to_tai()
         return Instants._from_tai(tai1, tai2, scale, self.dut1)
 
@@ -125,11 +131,31 @@ class Instants:
         return Instants(*_quiet(erfa.utcut1, utc1, utc2, dut1), "UT1", dut1)
 
 
+# TDB - TT is periodic and under 2 ms, but ERFA dtdb's series (Fairhead and Bretagnon
+# 1990) has Poisson terms (powers of time times sines) that grow without bound far from
+# J2000 (9.7 s at JD 1e8).  It is used over 1000-3000, a span of our choosing where
+# those terms stay far below a microsecond; outside it the weaker two-term expression
+# 0.001657 sin g + 0.000014 sin 2g (g the Sun's mean anomaly; the Astronomical
+# Almanac's approximation, tens of microseconds near the present) keeps TDB - TT bounded.
+TDB_SERIES_JD = (2086302.5, 2816787.5)  # 1000-01-01 and 3000-01-01
+
+
 def _tdb_minus_tt(jd1, jd2):
-    """TDB - TT in seconds at the geocentre (ERFA dtdb, Fairhead and Bretagnon 1990)."""
-    # At the geocentre (u = v = 0) the UT argument of dtdb multiplies zero, so the day
-    # fraction of the date itself serves.
-    return erfa.dtdb(jd1, jd2, np.mod(jd1 + jd2 + 0.5, 1.0), 0.0, 0.0, 0.0)
+    """TDB - TT in seconds at the geocentre."""
+    jd1 = np.asarray(jd1, dtype=float)
+    jd2 = np.asarray(jd2, dtype=float)
+    jd = jd1 + jd2
+    inside = (jd >= TDB_SERIES_JD[0]) & (jd <= TDB_SERIES_JD[1])
+    out = np.empty(np.broadcast(jd1, jd2).shape)
+    if np.any(inside):
+        # At the geocentre (u = v = 0) dtdb's UT argument multiplies zero, so the day
+        # fraction of the date itself serves.
+        a, b = np.broadcast_arrays(jd1, jd2)
+        out[inside] = erfa.dtdb(a[inside], b[inside], np.mod(jd[inside] + 0.5, 1.0), 0.0, 0.0, 0.0)
+    if not np.all(inside):
+        g = np.radians(357.53 + 0.98560028 * (jd[~inside] - 2451545.0))
+        out[~inside] = 0.001657 * np.sin(g) + 0.000014 * np.sin(2.0 * g)
+    return out
 
 
 def _tt_to_tdb(tt1, tt2):

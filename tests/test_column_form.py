@@ -200,11 +200,6 @@ def test_options_as_ranges():
 
 # ---- a defect of the single-cell cache -------------------------------------------------------------
 
-@pytest.mark.xfail(
-    strict=True,
-    reason="the single-cell cache keys on the argument tuple, and True == 1 == 1.0 and "
-    "0 == 0.0 with equal hashes, so a cached answer for one is returned for the other",
-)
 @pytest.mark.parametrize(
     "name, first, second",
     [
@@ -221,11 +216,6 @@ def test_single_cell_cache_keeps_booleans_apart(name, first, second):
     assert evaluate(name, second) == fresh
 
 
-@pytest.mark.xfail(
-    strict=True,
-    reason="the option memo in _evaluate keys on (argument, raw value), and 0 == 0.0 == "
-    "False, so a 0 or False cell gets the answer of a 0.0 cell (the default) of the same column",
-)
 @pytest.mark.parametrize(
     "name, lead, option_values",
     [
