@@ -72,11 +72,14 @@ def _read_option(arg, value):
     """The option's value, or a ``SkyError`` worded for the cell."""
     if arg.kind == "choice":
         # An empty cell arrives as 0.0 when referenced directly: it means the default.
-        if _is_blank(value) or (isinstance(value, float) and value == 0.0):
+        if _is_blank(value) or (type(value) is float and value == 0.0):
+            if not arg.optional:
+                raise SkyError(f"{arg.name} is missing; use " + ", ".join(arg.choices))
             return arg.default
         if not isinstance(value, str):
             raise SkyError(f"{arg.name} must be one of " + ", ".join(arg.choices))
-        word = value.strip().upper()
+        word = " ".join(value.replace("_", " ").split()).upper()
+        word = dict(arg.aliases).get(word, word)
         if word not in arg.choices:
             noun = "nutation model" if arg.name == "nutation" else arg.name
             raise SkyError(f'unknown {noun} "{value}"; use ' + ", ".join(arg.choices))
@@ -107,6 +110,8 @@ def _read_numbers(values, what):
     for i, v in enumerate(values):
         if isinstance(v, (float, int)) and not isinstance(v, bool):
             out[i] = v
+            if not np.isfinite(v):
+                messages[i] = f"{what} must be a finite number"
         elif v is None:
             messages[i] = f"{what} is missing"
         else:
@@ -162,6 +167,14 @@ def _compute_group(fn, rows, options, null_jd):
         if arg.kind not in registry.ROW_KINDS:
             continue
         values = rows[arg.name]
+        if arg.optional and arg.kind in ("number", "angle"):
+            values = np.array([arg.default if v is None else v for v in values], dtype=object)
+        if arg.kind == "time" and arg.optional:
+            # A time only some systems need: rows without one compute at J2000.0 and the
+            # core refuses them where the time matters (it gets the mask).
+            given = np.array([v is not None for v in values], dtype=bool)
+            columns[arg.name + "_given"] = given
+            values = np.where(given, values, "JD 2451545.0")
         if arg.kind == "time":
             jd1, jd2, msgs = read_times(
                 values, options.get("scale", "UTC"), null_jd, options.get("dut1", 0.0)
@@ -189,6 +202,8 @@ def _compute_group(fn, rows, options, null_jd):
                 if arg.kind not in registry.ROW_KINDS:
                     continue
                 col = columns[arg.name]
+                if arg.name + "_given" in params:
+                    kwargs[arg.name + "_given"] = columns[arg.name + "_given"][idx]
                 if arg.kind == "time":
                     kwargs[arg.name] = Instants(
                         col[0][idx], col[1][idx], options.get("scale", "UTC"),
@@ -346,7 +361,8 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         if hit is not None:
             return hit
     try:
-        result = _evaluate(fn, raw_args, null_date)
+        with np.errstate(all="ignore"):  # bad rows are reported in their cells
+            result = _evaluate(fn, raw_args, null_date)
     except SkyError as err:
         result = PREFIX + str(err)
     except Exception as err:  # a defect of ours: say so in the cell, keep the office up

@@ -29,13 +29,26 @@ REQUIRED = object()
 # so a whole-column call can mix good and bad rows; option kinds are one word or
 # number shared by the rows that give the same one.
 ROW_KINDS = ("time", "number", "angle", "text")
-OPTION_KINDS = ("choice", "count", "seconds")
+OPTION_KINDS = ("choice", "count", "seconds", "real")
 
 SCALES = ("UTC", "TAI", "TT", "TDB", "UT1")
 OBLIQUITY_MODELS = ("IAU2006", "IAU1980", "NEWCOMB", "LASKAR1986", "VONDRAK2011")
 NUTATION_MODELS = ("IAU2000A", "IAU2000B", "IAU1980")
 ANGLE_UNITS = ("DEG", "ARCSEC", "RAD")
 TEXT_STYLES = ("MARKS", "COLONS", "SPACES")
+COORDINATE_SYSTEMS = (
+    "ICRS", "EQUATORIAL J2000", "EQUATORIAL DATE", "EQUATORIAL TRUE",
+    "ECLIPTIC J2000", "ECLIPTIC DATE", "ECLIPTIC TRUE", "GALACTIC", "INVARIABLE",
+)
+SYSTEM_ALIASES = (
+    ("EQ J2000", "EQUATORIAL J2000"), ("EQ DATE", "EQUATORIAL DATE"),
+    ("EQ TRUE", "EQUATORIAL TRUE"), ("ECL J2000", "ECLIPTIC J2000"),
+    ("ECL DATE", "ECLIPTIC DATE"), ("ECL TRUE", "ECLIPTIC TRUE"), ("GAL", "GALACTIC"),
+)
+PRECESSION_MODELS = ("AUTO", "IAU2006", "VONDRAK2011")
+SIDEREAL_KINDS = ("GAST", "GMST", "ERA")
+HORIZON_FRAMES = ("ICRS", "TRUE")
+AIRMASS_MODELS = ("KASTENYOUNG1989", "PICKERING2002", "SECZ")
 
 
 @dataclass(frozen=True)
@@ -47,6 +60,7 @@ class Arg:
     description: str
     default: object = REQUIRED
     choices: tuple = ()
+    aliases: tuple = ()  # (other spelling, choice) pairs
 
     @property
     def optional(self):
@@ -403,6 +417,336 @@ FUNCTIONS = (
     ),
 )
 
+
+# ---- coordinates and the horizon (shared declarations) ---------------------------------
+
+_SYSTEMS_TEXT = (
+    "ICRS, EQUATORIAL J2000 (mean equator and equinox of J2000.0), EQUATORIAL DATE "
+    "(mean of date), EQUATORIAL TRUE (true equator and equinox of date), ECLIPTIC J2000 "
+    "(IAU 2006 ecliptic), ECLIPTIC DATE (mean ecliptic and equinox of date), ECLIPTIC "
+    "TRUE (true equinox of date), GALACTIC or INVARIABLE (EQ and ECL abbreviate)"
+)
+
+
+def _system(name, role):
+    return Arg(name, "choice", f"Coordinate system {role}: " + _SYSTEMS_TEXT + ". No default: "
+               "always say which.", choices=COORDINATE_SYSTEMS, aliases=SYSTEM_ALIASES)
+
+
+def _angle(name, what):
+    return Arg(name, "angle", f"{what}, in decimal degrees or as angle text.")
+
+
+_OPTIONAL_TIME = Arg(
+    "time", "time",
+    "The date of the DATE and TRUE systems (as for SKY.JD: date-time cell, ISO text, "
+    "JD/MJD text or epoch such as J2025.5). Needed only for those systems; default none.",
+    default=None,
+)
+_EPOCH_SCALE = Arg(
+    "scale", "choice",
+    "Time scale of the epochs: TT (default, as epochs are given), TDB, TAI, UTC or UT1. "
+    "Epoch text like J2000.0 or B1950.0 is always TT.",
+    default="TT", choices=SCALES,
+)
+
+
+def _epoch(name, what):
+    return Arg(name, "time", f"The epoch {what}: J2000.0, B1950.0 (Besselian epoch, TT), "
+               "a date-time cell, ISO text or JD/MJD text.")
+
+
+_LATITUDE = Arg("latitude", "angle",
+                "Geodetic latitude of the site in degrees (north positive), or angle text.")
+_LONGITUDE = Arg("longitude", "angle",
+                 "Longitude of the site in degrees, EAST positive (west negative), or angle text.")
+_HEIGHT = Arg("height", "number",
+              "Height of the site above the WGS84 ellipsoid in metres. Default 0.", default=0.0)
+_PRESSURE = Arg("pressure", "real",
+                "Air pressure at the site in hPa for refraction. Default 0: no refraction "
+                "(geometric place).", default=0.0)
+_TEMPERATURE = Arg("temperature", "real",
+                   "Air temperature at the site in degrees C, used with the pressure. Default 10.",
+                   default=10.0)
+_HORIZON_FRAME = Arg(
+    "frame", "choice",
+    "What the RA and Dec are: ICRS (default; a catalogue place, astrometric) or TRUE "
+    "(an apparent place on the true equator and equinox of date).",
+    default="ICRS", choices=HORIZON_FRAMES,
+)
+_HORIZON_MODEL = (
+    "Site longitude east-positive; azimuth from north through east (N 0, E 90, S 180, "
+    "W 270). From an ICRS place: ERFA atco13 (light deflection, annual and diurnal "
+    "aberration, IAU 2006/2000A precession-nutation, Earth rotation, refraction); from a "
+    "TRUE place: ERFA apio13 and atioq. Refraction: ERFA refco model at 0.55 um, humidity "
+    "0.5, only when a pressure is given. Polar motion taken as zero. UTC from 1960 on; "
+    "DUT1 default 0 (up to 0.9 s, about 14\" in hour angle)."
+)
+_COORD_MODEL = (
+    "A rotation of the direction: the centre and kind of place (astrometric or apparent) "
+    "stay those of the input. Matrices: IAU 2006 frame bias and precession (ERFA bp06, "
+    "ecm06), IAU 2006/2000A nutation (ERFA pnm06a, nut06a), galactic as for Hipparcos "
+    "(ERFA icrs2g), invariable plane from Souami and Souchay (2012: inclination "
+    "1°34'43.3\", node 107°34'56\" on the J2000 ecliptic, longitudes from that node). "
+    "DATE and TRUE systems are valid 1000-3000; outside, the cell says so."
+)
+
+
+def _coord_args(extra=()):
+    return (
+        _angle("lon", "Longitude of the input: RA for equatorial systems, longitude for the others"),
+        _angle("lat", "Latitude of the input: Dec for equatorial systems, latitude for the others"),
+        _system("from_system", "of the input"),
+        _system("to_system", "of the result"),
+    ) + tuple(extra) + (_OPTIONAL_TIME, _SCALE)
+
+
+_DISTANCE = Arg("distance", "number",
+                "Distance passed through to the rectangular result, in any unit. Default 1 "
+                "(a unit vector).", default=1.0)
+
+
+def _rect(axis, toward):
+    return CellFunction(
+        name=f"SKY.COORD.{axis}", method=f"skyCoord{axis}", family="coordinates",
+        summary=f"Rectangular {axis} of a direction in another coordinate system: {toward}.",
+        args=_coord_args((_DISTANCE,)),
+        result="the component, in the unit of the distance",
+        impl=f"frames:coord_{axis.lower()}_cells", model=_COORD_MODEL,
+    )
+
+
+def _xyz_args():
+    return tuple(Arg(c, "number", f"Rectangular {c} of the vector (any unit).") for c in "xyz")
+
+
+_PAIR_ARGS = (
+    _angle("ra1", "RA (or longitude) of the first direction"),
+    _angle("dec1", "Dec (or latitude) of the first direction"),
+    _angle("ra2", "RA (or longitude) of the second direction"),
+    _angle("dec2", "Dec (or latitude) of the second direction"),
+)
+
+_SITE_TIME = lambda first, second: (  # noqa: E731
+    first, second, Arg("time", "time", "The instant of the observation (as for SKY.JD)."),
+    _LATITUDE, _LONGITUDE, _SCALE, _HEIGHT,
+)
+
+COORDINATE_FUNCTIONS = (
+    CellFunction(
+        name="SKY.COORD.LON", method="skyCoordLon", family="coordinates",
+        summary="Longitude (or RA) of a direction converted between coordinate systems: "
+        "equatorial, ecliptic, galactic and invariable, on J2000, mean or true equinox.",
+        args=_coord_args(),
+        result="degrees in [0, 360): RA for equatorial systems, longitude for the others",
+        impl="frames:coord_lon_cells", model=_COORD_MODEL,
+    ),
+    CellFunction(
+        name="SKY.COORD.LAT", method="skyCoordLat", family="coordinates",
+        summary="Latitude (or Dec) of a direction converted between coordinate systems.",
+        args=_coord_args(),
+        result="degrees in [-90, 90]: Dec for equatorial systems, latitude for the others",
+        impl="frames:coord_lat_cells", model=_COORD_MODEL,
+    ),
+    _rect("X", "toward the system's origin of longitude (the equinox, or the node)"),
+    _rect("Y", "90 degrees east along the fundamental plane"),
+    _rect("Z", "toward the system's north pole"),
+    CellFunction(
+        name="SKY.RECT.LON", method="skyRectLon", family="coordinates",
+        summary="Longitude of a rectangular vector (x toward longitude 0, z to the pole).",
+        args=_xyz_args(), result="degrees in [0, 360)", impl="frames:rect_lon_cells",
+    ),
+    CellFunction(
+        name="SKY.RECT.LAT", method="skyRectLat", family="coordinates",
+        summary="Latitude of a rectangular vector (x toward longitude 0, z to the pole).",
+        args=_xyz_args(), result="degrees in [-90, 90]", impl="frames:rect_lat_cells",
+    ),
+    CellFunction(
+        name="SKY.RECT.DIST", method="skyRectDist", family="coordinates",
+        summary="Length of a rectangular vector.",
+        args=_xyz_args(), result="the length, in the unit of x, y, z", impl="frames:rect_dist_cells",
+    ),
+    CellFunction(
+        name="SKY.PRECESS.RA", method="skyPrecessRa", family="coordinates",
+        summary="RA precessed from the mean equator and equinox of one epoch to those of "
+        "another.",
+        args=(
+            _angle("ra", "RA on the mean equator and equinox of the first epoch"),
+            _angle("dec", "Dec on the mean equator and equinox of the first epoch"),
+            _epoch("from_epoch", "of the given position's equinox"),
+            _epoch("to_epoch", "of the wanted equinox"),
+            _EPOCH_SCALE,
+            Arg("model", "choice",
+                "AUTO (default: IAU2006 when both epochs are within 1000-3000, else "
+                "VONDRAK2011), IAU2006 (Capitaine et al. 2003, 1000-3000) or VONDRAK2011 "
+                "(Vondrak et al. 2011, -198000 to 202000).",
+                default="AUTO", choices=PRECESSION_MODELS),
+        ),
+        result="degrees in [0, 360)", impl="frames:precess_ra_cells",
+        model="Precession only (no nutation, no proper motion): IAU 2006 via ERFA pmat06, "
+        "long-term via ERFA ltpb, both including the frame bias so that J2000 means the "
+        "mean equator and equinox of J2000.0. FK4 (B1950 catalogue) systems are not "
+        "handled: B1950.0 here is only an epoch. Outside a model's range the cell says so.",
+    ),
+)
+
+
+def _precess_dec():
+    ra = COORDINATE_FUNCTIONS[-1]
+    return CellFunction(
+        name="SKY.PRECESS.DEC", method="skyPrecessDec", family="coordinates",
+        summary="Dec precessed from the mean equator and equinox of one epoch to those of "
+        "another.",
+        args=ra.args, result="degrees in [-90, 90]", impl="frames:precess_dec_cells",
+        model=ra.model,
+    )
+
+
+_MOTION_ARGS = (
+    _angle("ra", "RA at the first epoch (ICRS, as catalogues give it)"),
+    _angle("dec", "Dec at the first epoch"),
+    Arg("pmra", "number", "Proper motion in RA times cos(Dec), in mas per year, as "
+        "catalogues (Gaia, Hipparcos) give it."),
+    Arg("pmdec", "number", "Proper motion in Dec in mas per year."),
+    _epoch("from_epoch", "of the catalogue position (J2016.0 for Gaia DR3, J1991.25 for "
+           "Hipparcos)"),
+    _epoch("to_epoch", "wanted"),
+    _EPOCH_SCALE,
+    Arg("parallax", "number", "Parallax in mas. Default 0 (distance unknown: the motion is "
+        "then taken across the sky only).", default=0.0),
+    Arg("rv", "number", "Radial velocity in km/s, positive receding. Default 0.", default=0.0),
+)
+_MOTION_MODEL = (
+    "Rigorous space motion along a straight line at constant velocity (ERFA pmsafe, "
+    "with light time), in the frame of the catalogue; no precession."
+)
+
+COORDINATE_FUNCTIONS = COORDINATE_FUNCTIONS + (
+    _precess_dec(),
+    CellFunction(
+        name="SKY.PROPER.RA", method="skyProperRa", family="coordinates",
+        summary="RA of a star moved by its proper motion, parallax and radial velocity "
+        "from one epoch to another.",
+        args=_MOTION_ARGS, result="degrees in [0, 360)", impl="pairs:proper_motion_ra_cells",
+        model=_MOTION_MODEL,
+    ),
+    CellFunction(
+        name="SKY.PROPER.DEC", method="skyProperDec", family="coordinates",
+        summary="Dec of a star moved by its proper motion, parallax and radial velocity "
+        "from one epoch to another.",
+        args=_MOTION_ARGS, result="degrees in [-90, 90]", impl="pairs:proper_motion_dec_cells",
+        model=_MOTION_MODEL,
+    ),
+    CellFunction(
+        name="SKY.SEPARATION", method="skySeparation", family="coordinates",
+        summary="Angular separation between two directions given in the same system.",
+        args=_PAIR_ARGS, result="degrees in [0, 180]", impl="pairs:separation_cells",
+        model="ERFA seps: accurate for tiny and for near-antipodal separations.",
+    ),
+    CellFunction(
+        name="SKY.POSITION.ANGLE", method="skyPositionAngle", family="coordinates",
+        summary="Position angle of the second direction as seen from the first, counted "
+        "from north through east.",
+        args=_PAIR_ARGS, result="degrees in [0, 360)", impl="pairs:position_angle_cells",
+        model="ERFA pas; north is the pole of the system the directions are given in.",
+    ),
+)
+
+HORIZON_FUNCTIONS = (
+    CellFunction(
+        name="SKY.SIDEREAL", method="skySidereal", family="horizon",
+        summary="Sidereal time or Earth rotation angle at Greenwich, or at a longitude "
+        "(local sidereal time).",
+        args=(
+            Arg("time", "time", "The instant (as for SKY.JD)."),
+            _SCALE,
+            Arg("kind", "choice", "GAST (default: apparent sidereal time, IAU 2006/2000A), "
+                "GMST (mean, IAU 2006) or ERA (Earth rotation angle, IAU 2000).",
+                default="GAST", choices=SIDEREAL_KINDS),
+            Arg("longitude", "angle", "East longitude to add for local sidereal time. "
+                "Default 0 (Greenwich).", default=0.0),
+            Arg("unit", "choice", "DEG (default) or HOURS.", default="DEG",
+                choices=("DEG", "HOURS")),
+            _DUT1,
+        ),
+        result="angle in [0, 360) degrees, or [0, 24) hours",
+        impl="horizon:sidereal_cells",
+        model="ERFA gst06a, gmst06, era00 on UT1 = UTC + DUT1 (TT for the precession "
+        "part). UTC from 1960 on.",
+    ),
+    CellFunction(
+        name="SKY.HOURANGLE", method="skyHourangle", family="horizon",
+        summary="Local hour angle of a target at a site (west of the meridian positive).",
+        args=(_angle("ra", "RA of the target"), _angle("dec", "Dec of the target"),
+              Arg("time", "time", "The instant of the observation (as for SKY.JD)."),
+              _LATITUDE, _LONGITUDE, _SCALE, _HEIGHT, _HORIZON_FRAME, _DUT1),
+        result="degrees in (-180, 180]", impl="horizon:hour_angle_cells",
+        model="The topocentric hour angle of the place as observed without refraction. "
+        + _HORIZON_MODEL,
+    ),
+)
+
+
+def _horizon_fn(name, method, summary, first, second, result, impl, extra_model=""):
+    return CellFunction(
+        name=name, method=method, family="horizon", summary=summary,
+        args=(first, second, Arg("time", "time", "The instant of the observation (as for SKY.JD)."),
+              _LATITUDE, _LONGITUDE, _SCALE, _HEIGHT, _PRESSURE, _TEMPERATURE,
+              _HORIZON_FRAME, _DUT1),
+        result=result, impl=impl, model=extra_model + _HORIZON_MODEL,
+    )
+
+
+HORIZON_FUNCTIONS = HORIZON_FUNCTIONS + (
+    _horizon_fn("SKY.HORIZON.ALT", "skyHorizonAlt",
+                "Altitude of a target above the horizon at a site and time.",
+                _angle("ra", "RA of the target"), _angle("dec", "Dec of the target"),
+                "degrees in [-90, 90] (refracted when a pressure is given)",
+                "horizon:altitude_cells"),
+    _horizon_fn("SKY.HORIZON.AZ", "skyHorizonAz",
+                "Azimuth of a target at a site and time, from north through east.",
+                _angle("ra", "RA of the target"), _angle("dec", "Dec of the target"),
+                "degrees in [0, 360), north 0, east 90", "horizon:azimuth_cells"),
+    _horizon_fn("SKY.HORIZON.RA", "skyHorizonRa",
+                "RA of the direction seen at a given azimuth and altitude at a site and "
+                "time (the inverse of SKY.HORIZON.ALT/AZ).",
+                _angle("az", "Azimuth, from north through east"),
+                _angle("alt", "Altitude (observed: refracted when a pressure is given)"),
+                "degrees in [0, 360) in the chosen frame", "horizon:horizon_ra_cells"),
+    _horizon_fn("SKY.HORIZON.DEC", "skyHorizonDec",
+                "Dec of the direction seen at a given azimuth and altitude at a site and "
+                "time (the inverse of SKY.HORIZON.ALT/AZ).",
+                _angle("az", "Azimuth, from north through east"),
+                _angle("alt", "Altitude (observed: refracted when a pressure is given)"),
+                "degrees in [-90, 90] in the chosen frame", "horizon:horizon_dec_cells"),
+    CellFunction(
+        name="SKY.PARALLACTIC", method="skyParallactic", family="horizon",
+        summary="Parallactic angle of a target at a site and time: the angle at the "
+        "target from the direction of the celestial pole to the zenith.",
+        args=(_angle("ra", "RA of the target"), _angle("dec", "Dec of the target"),
+              Arg("time", "time", "The instant of the observation (as for SKY.JD)."),
+              _LATITUDE, _LONGITUDE, _SCALE, _HEIGHT, _HORIZON_FRAME, _DUT1),
+        result="degrees in (-180, 180], positive west of the meridian",
+        impl="horizon:parallactic_cells",
+        model="ERFA hd2pa on the observed (unrefracted) hour angle and declination. "
+        + _HORIZON_MODEL,
+    ),
+    CellFunction(
+        name="SKY.AIRMASS", method="skyAirmass", family="horizon",
+        summary="Relative air mass along the line of sight at an altitude.",
+        args=(
+            _angle("altitude", "Observed altitude above the horizon, 0 to 90 degrees"),
+            Arg("model", "choice", "KASTENYOUNG1989 (default; Kasten and Young 1989, good "
+                "to the horizon), PICKERING2002 (Pickering 2002) or SECZ (sec z, plane "
+                "atmosphere; above about 30 degrees only).",
+                default="KASTENYOUNG1989", choices=AIRMASS_MODELS),
+        ),
+        result="air mass, 1 at the zenith (about 38 at the horizon)",
+        impl="horizon:airmass_cells",
+        model="Below the horizon the cell says so.",
+    ),
+)
+
 FUNCTIONS = FUNCTIONS + (
     CellFunction(
         name="SKY.VERSION",
@@ -413,13 +757,15 @@ FUNCTIONS = FUNCTIONS + (
         result='text such as "Eclipsheet 0.1.0; ERFA 2.0.1; numpy 2.4.6"',
         impl="about:version_text",
     ),
-)
+) + COORDINATE_FUNCTIONS + HORIZON_FUNCTIONS
 
 FAMILIES = {
     "about": "About the add-in",
     "time": "Time: Julian dates and time scales",
     "angles": "Angles: sexagesimal text, formatting, wrapping",
     "obliquity": "Obliquity of the ecliptic and nutation",
+    "coordinates": "Coordinates: ecliptic, equatorial, galactic, invariable; precession; pairs",
+    "horizon": "Sidereal time and the horizon",
 }
 
 BY_NAME = {f.name: f for f in FUNCTIONS}

@@ -32,8 +32,8 @@ SERIAL_LIMIT = 1.0e7
 LAST_SERIAL_JD = 3547272.5
 
 _ACCEPTED = (
-    'give a date-time cell, ISO 8601 text (2024-03-20T03:06:00Z) or "JD 2460389.5" / '
-    '"MJD 60389.0"'
+    'give a date-time cell, ISO 8601 text (2024-03-20T03:06:00Z), "JD 2460389.5" / '
+    '"MJD 60389.0", or an epoch such as J2000.0'
 )
 
 _DAY_NUMBER = re.compile(
@@ -41,6 +41,7 @@ _DAY_NUMBER = re.compile(
     r"(?P<exp>[eE][+-]?\d+)?$",
     re.IGNORECASE,
 )
+_EPOCH = re.compile(r"^(?P<kind>[JB])\s*(?P<year>[+-]?\d+(?:\.\d*)?)$", re.IGNORECASE)
 _ISO = re.compile(
     r"^(?P<y>[+-]?\d{4,})-(?P<m>\d{1,2})-(?P<d>\d{1,2})"
     r"(?:[T ](?P<H>\d{1,2})(?::(?P<M>\d{1,2})(?::(?P<S>\d{1,2}(?:[.,]\d+)?))?)?)?"
@@ -149,6 +150,27 @@ def _leap_second_day(y, mo, d):
     return y >= 1972 and abs((after - before) - 1.0) < 1e-9
 
 
+def _text_epoch(text, match, scale):
+    """A Julian (J2000.0) or Besselian (B1950.0) epoch: by definition on TT."""
+    year = float(match.group("year"))
+    if abs(year) > 200000.0:
+        raise SkyError(f'"{text}" is out of range; epochs within +-200000 years')
+    if match.group("kind").upper() == "J":
+        jd1, jd2 = erfa.epj2jd(year)
+    else:
+        jd1, jd2 = erfa.epb2jd(year)
+    if scale == "TT":
+        return float(jd1), float(jd2)
+    from .errors import RowErrors
+
+    try:
+        other = Instants(np.array([jd1]), np.array([jd2]), "TT").to(scale)
+    except RowErrors:
+        raise SkyError(f'"{text}" is an epoch on TT, before 1960 on the {scale} scale; '
+                       "give scale TT") from None
+    return float(other.jd1[0]), float(other.jd2[0])
+
+
 def parse_time_text(text, scale):
     """Two-part JD on ``scale`` from ISO 8601 or JD/MJD text; ``SkyError`` otherwise."""
     stripped = text.strip()
@@ -158,6 +180,9 @@ def parse_time_text(text, scale):
     match = _ISO.match(stripped)
     if match:
         return _text_calendar(stripped, match, scale)
+    match = _EPOCH.match(stripped)
+    if match:
+        return _text_epoch(stripped, match, scale)
     if not stripped:
         raise SkyError("the time is empty; " + _ACCEPTED)
     try:

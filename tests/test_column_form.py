@@ -45,6 +45,9 @@ NUMBER_POOLS = {
            float("nan"), float("inf"), "2451545", "abc", None],
     "mjd": [60389.129166667, 51544.5, 36934.0, 0.0, -2400000.5, 1e308, float("-inf"), "x", None],
 }
+# Any other number: distances, vector components, proper motions, parallaxes, heights.
+GENERAL_NUMBER_POOL = [0.0, 1.0, -2.5, 1.5e3, 250.0, 90.0, -1e4, 3e4, float("nan"), "abc", None]
+REAL_POOL = [0.0, 10.0, 1013.25, -5.0, 2000.0, "abc", float("nan"), None]
 ANGLE_POOL = [12.5, -23.4393, -0.00001, 359.99999, 1e7, float("inf"), float("nan"),
               "-23 26 21.4", "12h34m56.7s", "23 60 00", "abc", "", None]
 TEXT_POOL = ["12h34m56.7s", "-23°26'21.4\"", "12 34 56.7", "12:34:56.7", "23.5 30", "bad",
@@ -58,7 +61,7 @@ def pool(arg):
     if arg.kind == "time":
         return TIME_POOL
     if arg.kind == "number":
-        return NUMBER_POOLS[arg.name]
+        return NUMBER_POOLS.get(arg.name, GENERAL_NUMBER_POOL)
     if arg.kind == "angle":
         return ANGLE_POOL
     if arg.kind == "text":
@@ -67,6 +70,8 @@ def pool(arg):
         return COUNT_POOL
     if arg.kind == "seconds":
         return SECONDS_POOL
+    if arg.kind == "real":
+        return REAL_POOL
     return list(arg.choices) + [arg.choices[-1].lower()] + CHOICE_EXTRAS
 
 

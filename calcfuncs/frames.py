@@ -1,0 +1,286 @@
+"""Celestial coordinate systems as rotations of the ICRS axes, and precession.
+
+Every system is a 3x3 rotation M with v_system = M v_ICRS (the GCRS axes are those of
+the ICRS, so the same matrices serve geocentric directions).  A conversion from system
+A to system B is M_B M_A^T.  These are rotations of a direction: the centre
+(geocentric, heliocentric, barycentric) and the kind of place (astrometric, apparent)
+stay those of the input.
+
+  ICRS                 the ICRS axes themselves
+  EQUATORIAL J2000     mean equator and equinox of J2000.0: the IAU 2006 frame bias
+  EQUATORIAL DATE      mean equator and equinox of date: IAU 2006 bias-precession (ERFA bp06)
+  EQUATORIAL TRUE      true equator and equinox of date: IAU 2006/2000A (ERFA pnm06a)
+  ECLIPTIC J2000       IAU 2006 mean ecliptic and equinox of J2000.0 (ERFA ecm06 at J2000)
+  ECLIPTIC DATE        mean ecliptic and equinox of date (ERFA ecm06)
+  ECLIPTIC TRUE        true equinox of date, on the ecliptic of date: the true equator
+                       rotated by the true obliquity, so longitudes gain the nutation in
+                       longitude and latitudes are those of the mean ecliptic
+  GALACTIC             IAU 1958 system as realised for Hipparcos (ERFA icrs2g)
+  INVARIABLE           the solar system's invariable plane (Souami and Souchay 2012:
+                       inclination 1°34'43.3", ascending node 107°34'56" on the J2000
+                       ecliptic); longitudes count from that node
+"""
+
+from functools import lru_cache
+
+import erfa
+import numpy as np
+
+from .errors import SkyError, rows_failing
+from .obliquity import julian_epoch
+
+SYSTEMS = (
+    "ICRS",
+    "EQUATORIAL J2000",
+    "EQUATORIAL DATE",
+    "EQUATORIAL TRUE",
+    "ECLIPTIC J2000",
+    "ECLIPTIC DATE",
+    "ECLIPTIC TRUE",
+    "GALACTIC",
+    "INVARIABLE",
+)
+DATED = {"EQUATORIAL DATE", "EQUATORIAL TRUE", "ECLIPTIC DATE", "ECLIPTIC TRUE"}
+
+# Validity of the IAU 2006/2000A matrices of date, in Julian years (as the obliquity).
+IAU2006_YEARS = (1000.0, 3000.0)
+VONDRAK_YEARS = (-198000.0, 202000.0)
+
+INVARIABLE_INCLINATION_DEG = 1.0 + 34.0 / 60.0 + 43.3 / 3600.0
+INVARIABLE_NODE_DEG = 107.0 + 34.0 / 60.0 + 56.0 / 3600.0
+
+J2000 = (2451545.0, 0.0)
+
+
+def _rot_x(angle):
+    return erfa.rx(angle, np.eye(3))
+
+
+def _rot_z(angle):
+    return erfa.rz(angle, np.eye(3))
+
+
+def _galactic_matrix():
+    # ERFA gives the galactic system as a conversion of angles; its matrix is the
+    # image of the three ICRS axes.
+    cols = []
+    for axis in np.eye(3):
+        lon, lat = erfa.c2s(axis)
+        gl, gb = erfa.icrs2g(lon, lat)
+        cols.append(erfa.s2c(gl, gb))
+    return np.array(cols).T
+
+
+_FIXED = {}
+
+
+def _fixed(system):
+    if system not in _FIXED:
+        if system == "ICRS":
+            m = np.eye(3)
+        elif system == "EQUATORIAL J2000":
+            m = erfa.bp06(*J2000)[0]
+        elif system == "ECLIPTIC J2000":
+            m = erfa.ecm06(*J2000)
+        elif system == "GALACTIC":
+            m = _galactic_matrix()
+        else:  # INVARIABLE
+            m = (_rot_x(np.radians(INVARIABLE_INCLINATION_DEG))
+                 @ _rot_z(np.radians(INVARIABLE_NODE_DEG)) @ erfa.ecm06(*J2000))
+        _FIXED[system] = m
+    return _FIXED[system]
+
+
+def _dated(system, jd1, jd2):
+    if system == "EQUATORIAL DATE":
+        return erfa.bp06(jd1, jd2)[2]
+    if system == "EQUATORIAL TRUE":
+        return erfa.pnm06a(jd1, jd2)
+    if system == "ECLIPTIC DATE":
+        return erfa.ecm06(jd1, jd2)
+    # ECLIPTIC TRUE: the true equator of date, turned about the true equinox by the true
+    # obliquity (mean IAU 2006 obliquity plus the nutation in obliquity).
+    _, deps = erfa.nut06a(jd1, jd2)
+    return erfa.rx(erfa.obl06(jd1, jd2) + deps, erfa.pnm06a(jd1, jd2))
+
+
+@lru_cache(maxsize=2048)
+def _dated_one(system, jd1, jd2):
+    # A sheet asks for the same date in several columns and on every recalculation;
+    # the full IAU 2006/2000A matrix costs about 80 us.
+    return _dated(system, jd1, jd2)
+
+
+def check_system(name):
+    word = " ".join(str(name).replace("_", " ").replace(".", " ").split()).upper()
+    word = {"EQ J2000": "EQUATORIAL J2000", "EQ DATE": "EQUATORIAL DATE",
+            "EQ TRUE": "EQUATORIAL TRUE", "ECL J2000": "ECLIPTIC J2000",
+            "ECL DATE": "ECLIPTIC DATE", "ECL TRUE": "ECLIPTIC TRUE",
+            "GAL": "GALACTIC"}.get(word, word)
+    if word not in SYSTEMS:
+        raise SkyError(f'unknown coordinate system "{name}"; use ' + ", ".join(SYSTEMS))
+    return word
+
+
+def system_matrix(system, jd1=None, jd2=None, given=None):
+    """Rotation(s) from ICRS axes to ``system`` at TT dates (arrays, or None if fixed)."""
+    system = check_system(system)
+    if system not in DATED:
+        return _fixed(system)
+    jd1 = np.asarray(jd1, dtype=float)
+    jd2 = np.asarray(jd2, dtype=float)
+    if given is not None and not np.all(given):
+        raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
+    years = julian_epoch(jd1, jd2)
+    outside = (years < IAU2006_YEARS[0]) | (years > IAU2006_YEARS[1])
+    if np.any(outside):
+        raise rows_failing(
+            outside,
+            f"{system} uses IAU 2006/2000A, valid 1000 to 3000; for other dates precess "
+            "with SKY.PRECESS.RA/DEC and model VONDRAK2011",
+        )
+    if jd1.size == 1:
+        m = _dated_one(system, float(jd1.ravel()[0]), float(jd2.ravel()[0]))
+        return np.broadcast_to(m, jd1.shape + (3, 3))
+    return _dated(system, jd1, jd2)
+
+
+def rotate(vectors, m_from, m_to):
+    """Vectors (..., 3) from one system to another: M_to M_from^T v."""
+    m = np.einsum("...ij,...kj->...ik", m_to, m_from)
+    return np.einsum("...ij,...j->...i", m, vectors)
+
+
+def unit_vectors(lon_deg, lat_deg):
+    return erfa.s2c(np.radians(lon_deg), np.radians(lat_deg))
+
+
+def spherical(vectors):
+    """(longitude in [0, 360), latitude) in degrees of vectors (..., 3)."""
+    lon, lat = erfa.c2s(vectors)
+    return np.degrees(erfa.anp(lon)), np.degrees(lat)
+
+
+def check_latitudes(lat_deg, what="latitude"):
+    lat = np.asarray(lat_deg, dtype=float)
+    bad = np.abs(lat) > 90.0
+    if np.any(bad):
+        raise rows_failing(bad, f"the {what} must be within -90 to +90 degrees")
+
+
+def convert(lon, lat, from_system, to_system, jd1=None, jd2=None, given=None):
+    """Unit vectors of (lon, lat) in ``from_system`` expressed in ``to_system``."""
+    check_latitudes(lat)
+    m_from = system_matrix(from_system, jd1, jd2, given)
+    m_to = system_matrix(to_system, jd1, jd2, given)
+    return rotate(unit_vectors(lon, lat), m_from, m_to)
+
+
+# ---- cell functions -----------------------------------------------------------------
+
+
+def _tt(time):
+    if time is None:
+        return None, None
+    return time.tt()
+
+
+def coord_lon_cells(lon, lat, from_system, to_system, time, time_given):
+    v = convert(lon, lat, from_system, to_system, *_tt(time), time_given)
+    return spherical(v)[0]
+
+
+def coord_lat_cells(lon, lat, from_system, to_system, time, time_given):
+    v = convert(lon, lat, from_system, to_system, *_tt(time), time_given)
+    return spherical(v)[1]
+
+
+def _coord_xyz(axis, lon, lat, from_system, to_system, distance, time, time_given):
+    v = convert(lon, lat, from_system, to_system, *_tt(time), time_given)
+    return v[..., axis] * distance
+
+
+def coord_x_cells(lon, lat, from_system, to_system, time, time_given, distance=1.0):
+    return _coord_xyz(0, lon, lat, from_system, to_system, distance, time, time_given)
+
+
+def coord_y_cells(lon, lat, from_system, to_system, time, time_given, distance=1.0):
+    return _coord_xyz(1, lon, lat, from_system, to_system, distance, time, time_given)
+
+
+def coord_z_cells(lon, lat, from_system, to_system, time, time_given, distance=1.0):
+    return _coord_xyz(2, lon, lat, from_system, to_system, distance, time, time_given)
+
+
+def _xyz(x, y, z):
+    v = np.stack([np.asarray(x, float), np.asarray(y, float), np.asarray(z, float)], axis=-1)
+    zero = ~np.any(v != 0.0, axis=-1)
+    if np.any(zero):
+        raise rows_failing(zero, "the vector (0, 0, 0) has no direction")
+    return v
+
+
+def rect_lon_cells(x, y, z):
+    return spherical(_xyz(x, y, z))[0]
+
+
+def rect_lat_cells(x, y, z):
+    return spherical(_xyz(x, y, z))[1]
+
+
+def rect_dist_cells(x, y, z):
+    return np.linalg.norm(_xyz(x, y, z), axis=-1)
+
+
+# ---- precession ---------------------------------------------------------------------
+
+PRECESSION_MODELS = ("AUTO", "IAU2006", "VONDRAK2011")
+
+
+def precession_matrices(jd1, jd2, model):
+    """Rotations from ICRS axes to the mean equator and equinox of each TT date."""
+    years = julian_epoch(jd1, jd2)
+    if model == "IAU2006":
+        outside = (years < IAU2006_YEARS[0]) | (years > IAU2006_YEARS[1])
+        if np.any(outside):
+            raise rows_failing(outside, "the epoch is outside IAU2006 precession (valid 1000 "
+                                        "to 3000); use VONDRAK2011 (-198000 to 202000)")
+        return erfa.pmat06(jd1, jd2)
+    outside = (years < VONDRAK_YEARS[0]) | (years > VONDRAK_YEARS[1])
+    if np.any(outside):
+        raise rows_failing(outside, "the epoch is outside VONDRAK2011 precession (valid "
+                                    "-198000 to 202000)")
+    return erfa.ltpb(years)
+
+
+def precess(ra, dec, from_epoch, to_epoch, model="AUTO"):
+    """Unit vectors of mean-equator-and-equinox positions moved between two epochs.
+
+    AUTO takes IAU 2006 (Capitaine et al. 2003, ERFA pmat06) when both epochs lie in
+    1000-3000 and the long-term model of Vondrak et al. (2011, ERFA ltpb) otherwise.
+    """
+    check_latitudes(dec, "declination")
+    f1, f2 = from_epoch.tt()
+    t1, t2 = to_epoch.tt()
+    f1, f2, t1, t2 = np.broadcast_arrays(f1, f2, t1, t2)
+    if model == "AUTO":
+        inside = ((julian_epoch(f1, f2) >= IAU2006_YEARS[0]) & (julian_epoch(f1, f2) <= IAU2006_YEARS[1])
+                  & (julian_epoch(t1, t2) >= IAU2006_YEARS[0]) & (julian_epoch(t1, t2) <= IAU2006_YEARS[1]))
+        m_from = np.empty(f1.shape + (3, 3))
+        m_to = np.empty(f1.shape + (3, 3))
+        for mask, name in ((inside, "IAU2006"), (~inside, "VONDRAK2011")):
+            if np.any(mask):
+                m_from[mask] = precession_matrices(f1[mask], f2[mask], name)
+                m_to[mask] = precession_matrices(t1[mask], t2[mask], name)
+    else:
+        m_from = precession_matrices(f1, f2, model)
+        m_to = precession_matrices(t1, t2, model)
+    return rotate(unit_vectors(ra, dec), m_from, m_to)
+
+
+def precess_ra_cells(ra, dec, from_epoch, to_epoch, model="AUTO"):
+    return spherical(precess(ra, dec, from_epoch, to_epoch, model))[0]
+
+
+def precess_dec_cells(ra, dec, from_epoch, to_epoch, model="AUTO"):
+    return spherical(precess(ra, dec, from_epoch, to_epoch, model))[1]

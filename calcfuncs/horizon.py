@@ -1,0 +1,183 @@
+"""Sidereal time, hour angle, altitude and azimuth at a site, and airmass.
+
+Site: geodetic latitude and longitude in degrees (longitude east-positive), height in
+metres above the WGS84 ellipsoid.  Azimuth counts from north through east (N = 0,
+E = 90).  Polar motion is taken as zero (under 0.5", and not known ahead).
+
+From a catalogue (ICRS astrometric) place the whole chain is ERFA atco13: light
+deflection, annual and diurnal aberration, IAU 2006/2000A precession-nutation, Earth
+rotation, and refraction when a pressure is given.  From an apparent place of date
+(TRUE: true equator and equinox) it is ERFA apio13 + atioq, the same chain from the
+apparent place on.  Refraction follows ERFA's model (refco), for optical light
+(0.55 um, relative humidity 0.5); pressure 0 gives the geometric (unrefracted) place.
+"""
+
+import erfa
+import numpy as np
+
+from .errors import SkyError, rows_failing
+from .frames import check_latitudes
+from .timescales import _quiet
+
+WAVELENGTH_UM = 0.55
+HUMIDITY = 0.5
+SIDEREAL_KINDS = ("GAST", "GMST", "ERA")
+HORIZON_FRAMES = ("ICRS", "TRUE")
+AIRMASS_MODELS = ("KASTENYOUNG1989", "PICKERING2002", "SECZ")
+
+
+def _ut1_tt(time):
+    ut1 = time.to("UT1")
+    tt = time.to("TT")
+    return ut1.jd1, ut1.jd2, tt.jd1, tt.jd2
+
+
+def sidereal_angle(time, kind="GAST"):
+    """Greenwich angle in radians: apparent (GAST, IAU 2006/2000A, ERFA gst06a), mean
+    (GMST, IAU 2006, ERFA gmst06) sidereal time, or the Earth rotation angle (ERA,
+    IAU 2000, ERFA era00)."""
+    u1, u2, t1, t2 = _ut1_tt(time)
+    if kind == "ERA":
+        return erfa.era00(u1, u2)
+    if kind == "GMST":
+        return erfa.gmst06(u1, u2, t1, t2)
+    return erfa.gst06a(u1, u2, t1, t2)
+
+
+def sidereal_cells(time, kind="GAST", longitude=0.0, unit="DEG"):
+    angle = np.degrees(erfa.anp(sidereal_angle(time, kind) + np.radians(longitude)))
+    return angle / 15.0 if unit == "HOURS" else angle
+
+
+def _site(latitude, longitude, height):
+    check_latitudes(latitude)
+    height = np.asarray(height, dtype=float)
+    bad = (height < -1000.0) | (height > 20000.0)
+    if np.any(bad):
+        raise rows_failing(bad, "the height must be within -1000 to 20000 m above the ellipsoid")
+    return np.radians(longitude), np.radians(latitude), height
+
+
+def _atmosphere(pressure, temperature):
+    if not 0.0 <= pressure <= 1500.0:
+        raise SkyError(f"the pressure must be 0 (no refraction) to 1500 hPa, not {pressure:g}")
+    if not -80.0 <= temperature <= 60.0:
+        raise SkyError(f"the temperature must be -80 to 60 degrees C, not {temperature:g}")
+    return pressure, temperature
+
+
+def _utc(time):
+    utc = time.to("UTC")
+    return utc.jd1, utc.jd2
+
+
+def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
+             temperature=10.0, frame="ICRS"):
+    """(azimuth, zenith distance, hour angle, declination) observed, in radians."""
+    check_latitudes(dec, "declination")
+    elong, phi, hm = _site(latitude, longitude, height)
+    phpa, tc = _atmosphere(pressure, temperature)
+    utc1, utc2 = _utc(time)
+    dut1 = time.dut1
+    rc, dc = np.radians(ra), np.radians(dec)
+    if frame == "ICRS":
+        aob, zob, hob, dob, _, _ = _quiet(
+            erfa.atco13, rc, dc, 0.0, 0.0, 0.0, 0.0, utc1, utc2, dut1, elong, phi, hm,
+            0.0, 0.0, phpa, tc, HUMIDITY, WAVELENGTH_UM)
+        return aob, zob, hob, dob
+    # TRUE: apparent RA on the equinox; the CIO-based RA that ERFA's observed chain
+    # takes is larger by the equation of the origins.
+    tt = time.to("TT")
+    ri = rc + erfa.eo06a(tt.jd1, tt.jd2)
+    astrom = _quiet(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
+                       HUMIDITY, WAVELENGTH_UM)
+    aob, zob, hob, dob, _ = erfa.atioq(ri, dc, astrom)
+    return aob, zob, hob, dob
+
+
+def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
+                  temperature=10.0, frame="ICRS"):
+    """(RA, Dec) in radians from observed azimuth and altitude (degrees)."""
+    check_latitudes(alt, "altitude")
+    elong, phi, hm = _site(latitude, longitude, height)
+    phpa, tc = _atmosphere(pressure, temperature)
+    utc1, utc2 = _utc(time)
+    dut1 = time.dut1
+    a = np.radians(az)
+    z = np.radians(90.0 - np.asarray(alt, dtype=float))
+    if frame == "ICRS":
+        return _quiet(erfa.atoc13, "A", a, z, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0,
+                      phpa, tc, HUMIDITY, WAVELENGTH_UM)
+    astrom = _quiet(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
+                       HUMIDITY, WAVELENGTH_UM)
+    ri, di = erfa.atoiq("A", a, z, astrom)
+    tt = time.to("TT")
+    return ri - erfa.eo06a(tt.jd1, tt.jd2), di
+
+
+def _deg180(rad):
+    d = np.degrees(erfa.anpm(rad))
+    return np.where(d <= -180.0, d + 360.0, d)
+
+
+# ---- cell functions -----------------------------------------------------------------
+
+
+def altitude_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
+                   temperature=10.0, frame="ICRS"):
+    _, zob, _, _ = observed(ra, dec, time, latitude, longitude, height, pressure, temperature, frame)
+    return 90.0 - np.degrees(zob)
+
+
+def azimuth_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
+                  temperature=10.0, frame="ICRS"):
+    aob, _, _, _ = observed(ra, dec, time, latitude, longitude, height, pressure, temperature, frame)
+    return np.degrees(erfa.anp(aob))
+
+
+def hour_angle_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
+    _, _, hob, _ = observed(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
+    return _deg180(hob)
+
+
+def parallactic_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
+    _, _, hob, dob = observed(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
+    return np.degrees(erfa.hd2pa(hob, dob, np.radians(latitude)))
+
+
+def horizon_ra_cells(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
+                     temperature=10.0, frame="ICRS"):
+    ra, _ = from_observed(az, alt, time, latitude, longitude, height, pressure, temperature, frame)
+    return np.degrees(erfa.anp(ra))
+
+
+def horizon_dec_cells(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
+                      temperature=10.0, frame="ICRS"):
+    _, dec = from_observed(az, alt, time, latitude, longitude, height, pressure, temperature, frame)
+    return np.degrees(dec)
+
+
+def airmass_cells(altitude, model="KASTENYOUNG1989"):
+    """Relative air mass at an altitude in degrees (the refracted, observed one).
+
+    KASTENYOUNG1989: Kasten and Young (1989), 1 / (sin h + 0.50572 (h + 6.07995)^-1.6364).
+    PICKERING2002: Pickering (2002), 1 / sin(h + 244 / (165 + 47 h^1.1)).
+    SECZ: the plane-parallel sec z (common practice; good above about 30 degrees).
+    """
+    h = np.asarray(altitude, dtype=float)
+    below = h < 0.0
+    if np.any(below):
+        raise rows_failing(below, "the altitude is below the horizon; air mass is for altitudes 0 to 90")
+    above = h > 90.0
+    if np.any(above):
+        raise rows_failing(above, "the altitude must be 0 to 90 degrees")
+    if model == "KASTENYOUNG1989":
+        return 1.0 / (np.sin(np.radians(h)) + 0.50572 * (h + 6.07995) ** -1.6364)
+    if model == "PICKERING2002":
+        return 1.0 / np.sin(np.radians(h + 244.0 / (165.0 + 47.0 * h ** 1.1)))
+    low = h < 1.0
+    if np.any(low):
+        raise rows_failing(low, "sec z is infinite at the horizon; use KASTENYOUNG1989 below 30 degrees")
+    return 1.0 / np.sin(np.radians(h))
+
+
