@@ -28,27 +28,53 @@ def position_angle_cells(ra1, dec1, ra2, dec2):
 
 
 def _propagate(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax, rv):
-    """Space motion of a star (ERFA pmsafe): catalogue proper motions in mas/yr, the one
-    in RA multiplied by cos(Dec) as catalogues give it; parallax in mas; radial
-    velocity in km/s.  Epochs on TDB (TT given is within 2 ms of it)."""
+    """Space motion of a star from catalogue values: proper motions in mas/yr (the one
+    in RA multiplied by cos Dec, as catalogues give it), parallax in mas, radial
+    velocity in km/s; epochs on TDB (TT is within 2 ms of it).
+
+    With a parallax: rigorous straight-line motion with light time (ERFA pmsafe).
+    Without one (0, distance unknown): the direction moves along the straight line
+    u0 + t (pm_ra* e_ra + pm_dec e_dec), which is exact for a star at any distance
+    with no radial velocity (the radial velocity has no effect without a distance).
+    """
     check_latitudes(dec, "declination")
-    dec_r = np.radians(dec)
+    ra_r, dec_r = np.radians(ra), np.radians(dec)
     near_pole = np.cos(dec_r) < 1e-9
     if np.any(near_pole):
         raise rows_failing(near_pole, "the declination is at a pole, where RA motion is undefined")
-    bad_px = np.asarray(parallax, dtype=float) < 0.0
-    if np.any(bad_px):
-        raise rows_failing(bad_px, "the parallax must not be negative (0 means unknown)")
-    f1, f2 = from_epoch.to("TDB").jd1, from_epoch.to("TDB").jd2
-    t1, t2 = to_epoch.to("TDB").jd1, to_epoch.to("TDB").jd2
-    pmr = np.asarray(pmra, dtype=float) * MAS / np.cos(dec_r)
+    px = np.asarray(parallax, dtype=float)
+    if np.any(px < 0.0):
+        raise rows_failing(px < 0.0, "the parallax must not be negative (0 means unknown)")
+    f, t = from_epoch.to("TDB"), to_epoch.to("TDB")
+    pmra = np.asarray(pmra, dtype=float) * MAS
     pmd = np.asarray(pmdec, dtype=float) * MAS
-    with warnings.catch_warnings():
-        # pmsafe warns when it substitutes a tiny parallax for 0 (distance unknown).
-        warnings.simplefilter("ignore", erfa.ErfaWarning)
-        out = erfa.pmsafe(np.radians(ra), dec_r, pmr, pmd, np.asarray(parallax, float) / 1000.0,
-                          np.asarray(rv, float), f1, f2, t1, t2)
-    return out[0], out[1]
+    shape = np.broadcast(ra_r, px, f.jd1, t.jd1).shape
+
+    def b(x):
+        return np.broadcast_to(x, shape)
+
+    ra_out = b(ra_r).astype(float).copy()
+    dec_out = b(dec_r).astype(float).copy()
+    known = b(px > 0.0)
+    if np.any(known):
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", erfa.ErfaWarning)
+            out = erfa.pmsafe(b(ra_r)[known], b(dec_r)[known], b(pmra / np.cos(dec_r))[known],
+                              b(pmd)[known], b(px / 1000.0)[known], b(np.asarray(rv, float))[known],
+                              b(f.jd1)[known], b(f.jd2)[known], b(t.jd1)[known], b(t.jd2)[known])
+        ra_out[known], dec_out[known] = out[0], out[1]
+    if not np.all(known):
+        years = ((t.jd1 - f.jd1) + (t.jd2 - f.jd2)) / 365.25
+        u0 = erfa.s2c(ra_r, dec_r)
+        east = np.stack([-np.sin(ra_r), np.cos(ra_r), np.zeros_like(ra_r)], axis=-1)
+        north = np.stack([-np.sin(dec_r) * np.cos(ra_r), -np.sin(dec_r) * np.sin(ra_r),
+                          np.cos(dec_r)], axis=-1)
+        moved = u0 + np.asarray(years)[..., None] * (pmra[..., None] * east + pmd[..., None] * north)
+        lon, lat = erfa.c2s(moved)
+        unknown = ~known
+        ra_out[unknown] = b(lon)[unknown]
+        dec_out[unknown] = b(lat)[unknown]
+    return ra_out, dec_out
 
 
 def proper_motion_ra_cells(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax=0.0, rv=0.0):

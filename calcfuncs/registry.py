@@ -617,8 +617,10 @@ _MOTION_ARGS = (
     Arg("rv", "number", "Radial velocity in km/s, positive receding. Default 0.", default=0.0),
 )
 _MOTION_MODEL = (
-    "Rigorous space motion along a straight line at constant velocity (ERFA pmsafe, "
-    "with light time), in the frame of the catalogue; no precession."
+    "Straight-line motion at constant velocity in the frame of the catalogue, no "
+    "precession: with a parallax, rigorous space motion with light time (ERFA pmsafe); "
+    "with parallax 0 (distance unknown), the direction moves along the straight line "
+    "of its proper motion (exact for any distance when there is no radial velocity)."
 )
 
 COORDINATE_FUNCTIONS = COORDINATE_FUNCTIONS + (
