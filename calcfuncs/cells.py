@@ -16,7 +16,7 @@ from . import registry
 from .angles import parse_angle
 from .errors import PREFIX, RowErrors, SkyError
 from .timeinput import null_date_jd, read_times
-from .timescales import Instants
+from .timescales import _SCALE_WORDS, Instants, check_scale
 
 _IMPLS = {}
 _NULL_JDS = {}
@@ -70,6 +70,17 @@ def _is_blank(v):
 
 def _read_option(arg, value):
     """The option's value, or a ``SkyError`` worded for the cell."""
+    if arg.kind == "scale":
+        if _is_blank(value) or (type(value) is float and value == 0.0):
+            return arg.default
+        if not isinstance(value, str):
+            raise SkyError(f"{arg.name} must be a time scale: " + _SCALE_WORDS)
+        try:
+            return check_scale(value)
+        except SkyError as err:
+            if str(err).startswith("unknown time scale"):
+                raise SkyError(f'unknown {arg.name} "{value}"; use ' + _SCALE_WORDS) from None
+            raise
     if arg.kind == "choice":
         # An empty cell arrives as 0.0 when referenced directly: it means the default.
         if _is_blank(value) or (type(value) is float and value == 0.0):
@@ -157,6 +168,8 @@ def _compute_group(fn, rows, options, null_jd):
     n = len(next(iter(rows.values()))) if rows else 1
     if not any(a.kind in registry.ROW_KINDS for a in fn.args):
         kwargs = {k: v for k, v in options.items() if k in params}
+        if "null_jd" in params:
+            kwargs["null_jd"] = null_jd
         try:
             return np.asarray(func(**kwargs), dtype=object).reshape(-1)[:1].repeat(n)
         except SkyError as err:

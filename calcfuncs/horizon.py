@@ -26,8 +26,8 @@ HORIZON_FRAMES = ("ICRS", "TRUE")
 AIRMASS_MODELS = ("KASTENYOUNG1989", "PICKERING2002", "SECZ")
 
 
-def _ut1_tt(time):
-    ut1 = time.to("UT1")
+def _ut_tt(time):
+    ut1 = time.to("UT")  # UT1 from 1960 (DUT1), through Delta T before
     tt = time.to("TT")
     return ut1.jd1, ut1.jd2, tt.jd1, tt.jd2
 
@@ -36,7 +36,7 @@ def sidereal_angle(time, kind="GAST"):
     """Greenwich angle in radians: apparent (GAST, IAU 2006/2000A, ERFA gst06a), mean
     (GMST, IAU 2006, ERFA gmst06) sidereal time, or the Earth rotation angle (ERA,
     IAU 2000, ERFA era00)."""
-    u1, u2, t1, t2 = _ut1_tt(time)
+    u1, u2, t1, t2 = _ut_tt(time)
     if kind == "ERA":
         return erfa.era00(u1, u2)
     if kind == "GMST":

@@ -29,9 +29,10 @@ REQUIRED = object()
 # so a whole-column call can mix good and bad rows; option kinds are one word or
 # number shared by the rows that give the same one.
 ROW_KINDS = ("time", "number", "angle", "text")
-OPTION_KINDS = ("choice", "count", "seconds", "real")
+OPTION_KINDS = ("choice", "count", "seconds", "real", "scale")
 
-SCALES = ("UTC", "TAI", "TT", "TDB", "UT1")
+SCALES = ("UTC", "TAI", "TT", "TDB", "UT1", "UT", "LMT")
+DELTA_T_MODELS = ("AUTO", "MEASURED", "SMH2016", "ESPENAK2006")
 OBLIQUITY_MODELS = ("IAU2006", "IAU1980", "NEWCOMB", "LASKAR1986", "VONDRAK2011")
 NUTATION_MODELS = ("IAU2000A", "IAU2000B", "IAU1980")
 ANGLE_UNITS = ("DEG", "ARCSEC", "RAD")
@@ -107,23 +108,27 @@ def _time(name="time"):
         name,
         "time",
         "The instant: a date-time cell (the document's null date is honoured), ISO 8601 "
-        'text such as "2024-03-20T03:06:00Z" or "2024-03-20 03:06:00.25", or text '
-        '"JD 2460389.629" or "MJD 60389.129". UTC and UT1 from 1960 on; calendar dates '
-        "from 1582-10-15 on (Gregorian); JD or MJD text on TT, TDB or TAI at any date.",
+        'text such as "2024-03-20T03:06:00Z" or "2024-03-20 03:06:00.25", a historical '
+        'date such as "44 BC March 15 10:00" or "-0043-03-15T10:00" (Julian calendar '
+        'before 1582-10-15 unless the text says "Gregorian"), "JD 2460389.629", '
+        '"MJD 60389.129" or an epoch such as J2000.0. UTC and UT1 from 1960 on; UT, TT, '
+        "TDB, TAI and LMT at any date.",
     )
 
 
 _SCALE = Arg(
     "scale",
-    "choice",
-    "Time scale of the time argument: UTC (default), TAI, TT, TDB or UT1.",
+    "scale",
+    "Time scale of the time argument: UTC (default), TAI, TT, TDB, UT1, UT (universal "
+    "time at any date through Delta T; UT ESPENAK2006 or UT 10850 name the model or give "
+    "Delta T in seconds) or LMT and an east longitude (local mean time, e.g. LMT 12.4964).",
     default="UTC",
     choices=SCALES,
 )
 _RESULT_SCALE = Arg(
     "result_scale",
-    "choice",
-    "Time scale of the result: UTC, TAI, TT, TDB or UT1. Default: the scale of the input.",
+    "scale",
+    "Time scale of the result, as for scale. Default: the scale of the input.",
     default=None,
     choices=SCALES,
 )
@@ -274,12 +279,82 @@ FUNCTIONS = (
         name="SKY.DELTAT",
         method="skyDeltaT",
         family="time",
-        summary="Delta T = TT - UT1 at an instant, from the leap-second table and DUT1.",
-        args=(_time(), _SCALE, _DUT1),
+        summary="Delta T = TT - UT at an instant: measured from 1960 on, from a published "
+        "model before (or as chosen).",
+        args=(_time(), _SCALE, _DUT1, Arg(
+            "model", "choice",
+            "AUTO (default: MEASURED from 1960, SMH2016 before), MEASURED (32.184 s + "
+            "(TAI - UTC) - DUT1, 1960 on), SMH2016 (Stephenson, Morrison and Hohenkerk 2016 "
+            "with the 2020 addendum: spline -720 to 2019, their parabola before) or "
+            "ESPENAK2006 (Espenak and Meeus polynomials, -1999 to 3000, parabola outside).",
+            default="AUTO", choices=DELTA_T_MODELS)),
         result="seconds",
         impl="timefuncs:delta_t",
-        model="Computed as 32.184 s + (TAI - UTC) - DUT1, so defined from 1960 on; "
-        "before 1960 the cell says so. " + _UTC_NOTE,
+        model="The scale UT of every time argument uses the same default (AUTO). Before "
+        "-720 SMH2016 is its long-term parabola joined to the spline by a constant shift "
+        "of ours (358 s). SMH2016 ends in 2019 and MEASURED starts in 1960: outside, the "
+        "cell says so. " + _UTC_NOTE,
+    ),
+    CellFunction(
+        name="SKY.DELTAT.UNCERTAINTY",
+        method="skyDeltaTUncertainty",
+        family="time",
+        summary="Published standard error of Delta T at a date: how far a clock time "
+        "reconstructed through Delta T can be trusted.",
+        args=(_time(), _SCALE),
+        result="seconds (one standard error)",
+        impl="timefuncs:delta_t_uncertainty",
+        model="Morrison and Stephenson (2004): 0.8 u^2 s, u = (year - 1820)/100, for 1000 "
+        "BC to AD 1200; Stephenson and Houlden (1986): 5 s in 1700, 1 s in 1800, 0.1 s in "
+        "1900. Other dates have no published estimate here and the cell says so.",
+    ),
+    CellFunction(
+        name="SKY.LEAPSECONDS",
+        method="skyLeapseconds",
+        family="time",
+        summary="TAI - UTC at an instant: the leap seconds (and the 1960s offsets) of "
+        "ERFA's table.",
+        args=(_time(), _SCALE),
+        result="seconds",
+        impl="timefuncs:tai_minus_utc",
+        model="From 1960 on. " + _UTC_NOTE,
+    ),
+    CellFunction(
+        name="SKY.LEAPSECONDS.UNTIL",
+        method="skyLeapsecondsUntil",
+        family="time",
+        summary="The last date for which the built-in leap-second table is known to be "
+        "valid, as ERFA states it; UTC results after it assume no new leap second.",
+        args=(),
+        result="a date-time value (format the cell as a date)",
+        impl="timefuncs:leap_table_valid_until",
+        model="ERFA treats dates more than five years after its release year as dubious "
+        "(eraDat); this is the last day before that. DUT1 or a Delta T you give still "
+        "apply after it.",
+    ),
+    CellFunction(
+        name="SKY.TEXT.DATE",
+        method="skyTextDate",
+        family="time",
+        summary="The instant as calendar text in the Julian or Gregorian calendar, with "
+        "historical (44 BC) or astronomical (-0043) year numbering.",
+        args=(
+            _time(), _SCALE, _RESULT_SCALE,
+            Arg("calendar", "choice", "AUTO (default: Julian before 1582-10-15, Gregorian "
+                "after), JULIAN or GREGORIAN (proleptic). A calendar other than AUTO's "
+                "choice is named in the text, so it reads back the same.",
+                default="AUTO", choices=("AUTO", "JULIAN", "GREGORIAN")),
+            Arg("numbering", "choice", "HISTORICAL (default: 44 BC March 15 10:00:00) or "
+                "ASTRONOMICAL (-0043-03-15T10:00:00; year 0 is 1 BC).",
+                default="HISTORICAL", choices=("HISTORICAL", "ASTRONOMICAL")),
+            Arg("decimals", "count", "Decimal places of the seconds, 0 to 9. Default 0.",
+                default=0),
+            _DUT1,
+        ),
+        result='text such as "44 BC March 15 10:00:00"',
+        impl="timefuncs:calendar_date_text",
+        model="Calendar arithmetic of our own at any date (ERFA's stops in 4799 BC). "
+        + _UTC_NOTE,
     ),
     # ---- angles -----------------------------------------------------------------
     CellFunction(
@@ -444,7 +519,7 @@ _OPTIONAL_TIME = Arg(
     default=None,
 )
 _EPOCH_SCALE = Arg(
-    "scale", "choice",
+    "scale", "scale",
     "Time scale of the epochs: TT (default, as epochs are given), TDB, TAI, UTC or UT1. "
     "Epoch text like J2000.0 or B1950.0 is always TT.",
     default="TT", choices=SCALES,
@@ -673,8 +748,9 @@ HORIZON_FUNCTIONS = (
         ),
         result="angle in [0, 360) degrees, or [0, 24) hours",
         impl="horizon:sidereal_cells",
-        model="ERFA gst06a, gmst06, era00 on UT1 = UTC + DUT1 (TT for the precession "
-        "part). UTC from 1960 on.",
+        model="ERFA gst06a, gmst06, era00 on UT1 = UTC + DUT1 from 1960, and on UT through "
+        "Delta T before (TT for the precession part; GAST and GMST valid 1000-3000 as "
+        "their IAU 2006/2000A parts).",
     ),
     CellFunction(
         name="SKY.HOURANGLE", method="skyHourangle", family="horizon",

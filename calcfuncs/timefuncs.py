@@ -3,9 +3,18 @@
 import numpy as np
 
 from .errors import SkyError, rows_failing
+from . import deltat
+from .timeinput import date_text
 from .timeinput import iso_text as _iso_text
 from .timeinput import to_serial
-from .timescales import JD_LIMIT, MJD_ZERO, Instants, seconds_between, split_days
+from .timescales import (
+    JD_LIMIT,
+    MJD_ZERO,
+    Instants,
+    _decimal_year,
+    seconds_between,
+    split_days,
+)
 
 
 def _on(time, result_scale):
@@ -65,6 +74,50 @@ def iso_text(time, result_scale=None, decimals=3):
     return _iso_text(_on(time, result_scale), decimals)
 
 
-def delta_t(time):
-    """Delta T = TT - UT1 in seconds: 32.184 s + (TAI - UTC) - DUT1."""
-    return seconds_between(time.to("TT"), time.to("UT1"))
+def delta_t(time, model="AUTO"):
+    """Delta T = TT - UT in seconds, measured (32.184 s + (TAI - UTC) - DUT1) or modelled."""
+    tt = time.to("TT")
+    if model == "AUTO":
+        return seconds_between(tt, time.to("UT"))
+    if model == "MEASURED":
+        return seconds_between(tt, time.to("UT1"))
+    # The model's Delta T at the UT date that this model itself gives.
+    return seconds_between(tt, time.to("UT " + model))
+
+
+def delta_t_uncertainty(time):
+    """Published standard error of Delta T at the instant's date, in seconds."""
+    ut = time.to("UT")
+    return deltat.uncertainty(_decimal_year(ut.jd1, ut.jd2))
+
+
+def tai_minus_utc(time):
+    """TAI - UTC in seconds at the instant (from 1960)."""
+    return seconds_between(time.to("TAI"), time.to("UTC"))
+
+
+def leap_table_valid_until(null_jd):
+    """Calc date-time value of the last day ERFA vouches for its leap-second table."""
+    import warnings
+
+    import erfa
+
+    year = 2000
+    with warnings.catch_warnings():
+        warnings.simplefilter("error", erfa.ErfaWarning)
+        while year < 2200:
+            try:
+                erfa.dat(year + 1, 1, 1, 0.0)
+            except erfa.ErfaWarning:
+                break
+            year += 1
+    last_day = sum(erfa.cal2jd(year, 12, 31))
+    return np.array([last_day - null_jd])
+
+
+def calendar_date_text(time, result_scale=None, calendar="AUTO", numbering="HISTORICAL",
+                       decimals=0):
+    """Calendar text of the instant on ``result_scale``."""
+    if not 0 <= decimals <= 9:
+        raise SkyError(f"decimals must be 0 to 9, not {decimals}")
+    return date_text(_on(time, result_scale), calendar, numbering, decimals)

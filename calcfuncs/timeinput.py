@@ -12,8 +12,18 @@ import re
 import erfa
 import numpy as np
 
+from .calendars import (
+    GREGORIAN,
+    JULIAN,
+    REFORM_JDN,
+    calendar_date,
+    calendar_text,
+    jdn,
+    parse_calendar_text,
+)
 from .errors import SkyError
 from .timescales import (
+    before_1960_message,
     GREGORIAN_START_JD,
     JD_LIMIT,
     MJD_ZERO,
@@ -42,12 +52,6 @@ _DAY_NUMBER = re.compile(
     re.IGNORECASE,
 )
 _EPOCH = re.compile(r"^(?P<kind>[JB])\s*(?P<year>[+-]?\d+(?:\.\d*)?)$", re.IGNORECASE)
-_ISO = re.compile(
-    r"^(?P<y>[+-]?\d{4,})-(?P<m>\d{1,2})-(?P<d>\d{1,2})"
-    r"(?:[T ](?P<H>\d{1,2})(?::(?P<M>\d{1,2})(?::(?P<S>\d{1,2}(?:[.,]\d+)?))?)?)?"
-    r"\s*(?P<zone>Z|[+-]\d{2}:?\d{2})?$",
-    re.IGNORECASE,
-)
 
 
 def null_date_jd(null_date):
@@ -76,69 +80,52 @@ def _text_day_number(text, match):
     return float(jd1), float(jd2)
 
 
-def _calendar_fields(text, match, scale):
-    """Year, month, day, hour, minute, seconds from ISO text, each checked."""
-    y = int(match.group("y"))
-    mo = int(match.group("m"))
-    d = int(match.group("d"))
-    hh = int(match.group("H") or 0)
-    mi = int(match.group("M") or 0)
-    sec = float((match.group("S") or "0").replace(",", "."))
-    zone = match.group("zone")
-    if zone and zone.upper() != "Z" and zone.replace(":", "") not in ("+0000", "-0000"):
+_ZONE = re.compile(r"^(?P<body>.*?\d)\s*(?P<zone>Z|[+-]\d{2}:?\d{2})$", re.IGNORECASE)
+
+
+def _split_zone(text, scale):
+    """The text without a trailing zone designator, after checking it says UTC."""
+    m = _ZONE.match(text)
+    if not m or not re.search(r"\d{1,2}:\d{2}", m.group("body")) and m.group("zone").upper() != "Z":
+        return text
+    zone = m.group("zone")
+    if zone.upper() != "Z" and zone.replace(":", "") not in ("+0000", "-0000"):
         raise SkyError(
             f'"{text}" has the zone offset {zone}; only UTC (Z or +00:00) is read, '
-            "so convert local times first"
+            "so convert local times first (or give the scale LMT with a longitude)"
         )
-    if zone and scale != "UTC":
+    if scale != "UTC":
         raise SkyError(f'"{text}" is marked as UTC (Z) but the scale argument is {scale}')
-    if not 1 <= mo <= 12:
-        raise SkyError(f'"{text}" has month {mo}; months are 1 to 12')
-    if y < 1582:
-        raise SkyError(
-            f'"{text}" is before 1582-10-15; calendar dates before the Gregorian reform '
-            "are not yet supported (give JD or MJD text on TT)"
-        )
-    if y > 9999:
-        raise SkyError(f'"{text}" is after year 9999; give JD or MJD text on TT')
-    days_in_month = erfa.cal2jd(y, mo % 12 + 1, 1) if mo < 12 else erfa.cal2jd(y + 1, 1, 1)
-    first = erfa.cal2jd(y, mo, 1)
-    length = int(round((days_in_month[0] + days_in_month[1]) - (first[0] + first[1])))
-    if not 1 <= d <= length:
-        raise SkyError(f'"{text}" has day {d}; {y}-{mo:02d} has days 1 to {length}')
-    if hh == 24 and mi == 0 and sec == 0.0:
-        return y, mo, d, 24, 0, 0.0
-    if hh > 23 or mi > 59:
-        raise SkyError(f'"{text}" has a time past 24:00:00; hours 0-23, minutes 0-59')
-    if sec >= 61.0 or (sec >= 60.0 and scale != "UTC"):
+    return m.group("body")
+
+
+def _text_calendar(text, scale):
+    """Two-part JD on ``scale`` from calendar text, or None if it is not a date."""
+    fields = parse_calendar_text(_split_zone(text, scale))
+    if fields is None:
+        return None
+    y, mo, d, hh, mi, sec, calendar = fields
+    day = jdn(y, mo, d, calendar) - 0.5  # the JD at 0h of that date
+    if hh == 24:
+        day, hh = day + 1.0, 0
+    if scale == "UTC":
+        if calendar != GREGORIAN or day < UTC_START_JD:
+            raise SkyError(before_1960_message("UTC"))
+        gy, gm, gd = calendar_date(int(day + 0.5), GREGORIAN)
+        if sec >= 60.0 and not (hh == 23 and mi == 59 and _leap_second_day(gy, gm, gd)):
+            # ERFA only warns here (it would roll into the next day), so we check.
+            raise SkyError(
+                f'"{text}" has second 60 where there is no leap second; leap seconds are '
+                "the last second (23:59:60) of some June 30 and December 31 since 1972"
+            )
+        jd1, jd2 = _quiet(erfa.dtf2d, "UTC", gy, gm, gd, int(hh), int(mi), sec)
+        return float(jd1), float(jd2)
+    if sec >= 60.0:
         raise SkyError(
             f'"{text}" has {sec:g} seconds; seconds run 0 to below 60 '
             "(60 only in a real UTC leap second)"
         )
-    return y, mo, d, hh, mi, sec
-
-
-def _text_calendar(text, match, scale):
-    y, mo, d, hh, mi, sec = _calendar_fields(text, match, scale)
-    if hh == 24:
-        jd0 = sum(erfa.cal2jd(y, mo, d)) + 1.0
-        y, mo, d, _ = erfa.jd2cal(jd0, 0.0)
-        hh = 0
-    if (y, mo, d) < (1582, 10, 15):
-        raise SkyError(
-            f'"{text}" is before 1582-10-15; calendar dates before the Gregorian reform '
-            "are not yet supported (give JD or MJD text on TT)"
-        )
-    if y > 9999:
-        raise SkyError(f'"{text}" is after year 9999; give JD or MJD text on TT')
-    if sec >= 60.0 and not (hh == 23 and mi == 59 and _leap_second_day(y, mo, d)):
-        # ERFA only warns here (it would roll into the next day), so we check.
-        raise SkyError(
-            f'"{text}" has second 60 where there is no leap second; leap seconds are '
-            "the last second (23:59:60) of some June 30 and December 31 since 1972"
-        )
-    jd1, jd2 = _quiet(erfa.dtf2d, scale, int(y), int(mo), int(d), int(hh), int(mi), sec)
-    return float(jd1), float(jd2)
+    return float(day), (hh * 3600.0 + mi * 60.0 + sec) / 86400.0
 
 
 def _leap_second_day(y, mo, d):
@@ -177,12 +164,12 @@ def parse_time_text(text, scale):
     match = _DAY_NUMBER.match(stripped)
     if match:
         return _text_day_number(stripped, match)
-    match = _ISO.match(stripped)
-    if match:
-        return _text_calendar(stripped, match, scale)
     match = _EPOCH.match(stripped)
     if match:
         return _text_epoch(stripped, match, scale)
+    found = _text_calendar(stripped, scale)
+    if found is not None:
+        return found
     if not stripped:
         raise SkyError("the time is empty; " + _ACCEPTED)
     try:
@@ -252,8 +239,6 @@ def _serial_problem(v, null_jd):
             f"the date-time value {v!r} is after year 4999; if it is a Julian Date, write "
             '"JD ..." as text or use SKY.JD.DATETIME'
         )
-    if jd < GREGORIAN_START_JD:
-        return "date-time values before 1582-10-15 are not yet supported; give JD or MJD text on TT"
     return None
 
 
@@ -276,7 +261,7 @@ def read_times(values, scale, null_jd, dut1=0.0):
         with np.errstate(invalid="ignore"):
             fine = np.isfinite(serials) & (np.abs(serials) <= SERIAL_LIMIT)
             jd = null_jd + serials
-            fine &= (jd < LAST_SERIAL_JD) & (jd >= GREGORIAN_START_JD)
+            fine &= jd < LAST_SERIAL_JD
         if fine.all():
             jd1, jd2 = _serial_pairs(serials, scale, null_jd)
             return _check_scale_start(jd1, jd2, messages, scale)
@@ -313,10 +298,7 @@ def _check_scale_start(jd1, jd2, messages, scale):
         early = (jd1 + jd2) < UTC_START_JD
         for i in np.flatnonzero(early):
             if messages[i] is None:
-                messages[i] = (
-                    f"{scale} before 1960 is not yet supported; give the time as TT "
-                    "(JD or MJD text with scale TT)"
-                )
+                messages[i] = before_1960_message(scale)
     return jd1, jd2, messages
 
 
@@ -387,31 +369,47 @@ def _clock_text(seconds, length, decimals):
     return text, False
 
 
-def iso_text(inst, decimals=3):
-    """ISO 8601 text of instants on their own scale (23:59:60 in a UTC leap second)."""
-    early = inst.jd < GREGORIAN_START_JD
-    if np.any(early):
-        from .errors import rows_failing
-
-        raise rows_failing(
-            early,
-            "calendar text before 1582-10-15 is not yet supported; use SKY.JD",
-        )
-    late = inst.jd >= 5373484.5  # 10000-01-01
-    if np.any(late):
-        from .errors import rows_failing
-
-        raise rows_failing(late, "calendar text after year 9999 is not supported; use SKY.JD")
+def _days_and_seconds(inst):
+    """Per instant: JD at 0h of its day, seconds into the day, and the day's length
+    (86400 s but on a UTC day that ends in a step)."""
     if inst.scale == "UTC":
-        start, seconds, length = _utc_clock(inst.jd1, inst.jd2)
-    else:
-        # Uniform scales: days of 86400 s, the day starting at the JD's .5.
-        start = np.floor(inst.jd1 + inst.jd2 - 0.5) + 0.5
-        seconds = ((inst.jd1 - start) + inst.jd2) * 86400.0
-        length = np.full(start.shape, 86400.0)
+        return _utc_clock(inst.jd1, inst.jd2)
+    start = np.floor(inst.jd1 + inst.jd2 - 0.5) + 0.5
+    seconds = ((inst.jd1 - start) + inst.jd2) * 86400.0
+    return start, seconds, np.full(start.shape, 86400.0)
+
+
+def iso_text(inst, decimals=3):
+    """ISO 8601 text of instants on their own scale (23:59:60 in a UTC leap second).
+
+    ISO 8601 dates are Gregorian with astronomical year numbering; before the reform
+    the text says " Gregorian" so that it reads back as the same day here.
+    """
+    start, seconds, length = _days_and_seconds(inst)
     out = []
     for day, sec, day_len in zip(np.ravel(start), np.ravel(seconds), np.ravel(length)):
         clock, next_day = _clock_text(float(sec), float(day_len), decimals)
-        y, mo, d, _ = erfa.jd2cal(float(day) + (1.0 if next_day else 0.0), 0.0)
-        out.append(f"{int(y):04d}-{int(mo):02d}-{int(d):02d}T{clock}")
+        number = int(day + 0.5) + (1 if next_day else 0)
+        y, mo, d = calendar_date(number, GREGORIAN)
+        year = f"{y:04d}" if y >= 0 else f"-{-y:04d}"
+        marker = " Gregorian" if number < REFORM_JDN else ""
+        out.append(f"{year}-{mo:02d}-{d:02d}T{clock}{marker}")
+    return np.array(out, dtype=object)
+
+
+def date_text(inst, calendar="AUTO", numbering="HISTORICAL", decimals=0):
+    """Calendar text of instants on their own scale, in the Julian or Gregorian calendar
+    (AUTO: Julian before 1582-10-15) and historical (44 BC) or astronomical (-0043)
+    year numbering; a calendar other than AUTO's choice is named in the text."""
+    start, seconds, length = _days_and_seconds(inst)
+    out = []
+    for day, sec in zip(np.ravel(start), np.ravel(seconds)):
+        number = int(day + 0.5)
+        if calendar == "AUTO":
+            used = GREGORIAN if number >= REFORM_JDN else JULIAN
+        else:
+            used = calendar
+        auto_choice = GREGORIAN if number >= REFORM_JDN else JULIAN
+        out.append(calendar_text(number, float(sec), used, numbering, decimals,
+                                 marker=used != auto_choice))
     return np.array(out, dtype=object)

@@ -17,7 +17,13 @@ import numpy as np
 
 from .errors import SkyError, rows_failing
 
-SCALES = ("UTC", "TAI", "TT", "TDB", "UT1")
+SCALES = ("UTC", "TAI", "TT", "TDB", "UT1", "UT", "LMT")
+DELTA_T_MODELS = ("SMH2016", "ESPENAK2006")
+_SCALE_WORDS = (
+    "UTC, TAI, TT, TDB, UT1, UT (universal time at any date, through Delta T; add a "
+    "model, SMH2016 or ESPENAK2006, or a Delta T in seconds: UT ESPENAK2006, UT 10850) "
+    "or LMT with an east longitude (local mean time: LMT 12.4964, LMT 12.4964 ESPENAK2006)"
+)
 
 # UTC as ERFA's table defines it starts on 1960 January 1; UT1 is reached through it.
 UTC_START_JD = 2436934.5
@@ -31,11 +37,69 @@ DUT1_LIMIT = 1.0
 
 
 def check_scale(scale):
-    """The scale name, upper-cased, or a ``SkyError`` naming the accepted ones."""
-    name = str(scale).strip().upper()
-    if name not in SCALES:
-        raise SkyError(f'unknown time scale "{scale}"; use ' + ", ".join(SCALES))
-    return name
+    """The scale in its canonical spelling, or a ``SkyError`` naming the accepted ones.
+
+    Besides the five of ERFA: "UT" for universal time at any date, reached through
+    Delta T (the default model, a named one, or a value in seconds), and "LMT <east
+    longitude>" for local mean time, which is UT plus longitude / 15 hours.
+    """
+    words = str(scale).replace(",", " ").split()
+    name = words[0].upper() if words else ""
+    if name in ("UTC", "TAI", "TT", "TDB", "UT1") and len(words) == 1:
+        return name
+    if name in ("UT", "LMT"):
+        rest = words[1:]
+        parts = [name]
+        if name == "LMT":
+            if not rest:
+                raise SkyError(f'"{scale}": LMT needs the east longitude, e.g. LMT 12.4964')
+            lon = _number(rest.pop(0), scale)
+            if not -180.0 <= lon <= 360.0:
+                raise SkyError(f'"{scale}": the longitude must be within -180 to 360 degrees')
+            parts.append(repr(float(lon)))
+        if rest:
+            word = rest.pop(0).upper()
+            if word in DELTA_T_MODELS:
+                parts.append(word)
+            else:
+                value = _number(word, scale)
+                if not abs(value) < 1e7:
+                    raise SkyError(f'"{scale}": Delta T must be a number of seconds below 1e7')
+                parts.append(repr(float(value)))
+        if rest:
+            raise SkyError(f'unknown time scale "{scale}"; use ' + _SCALE_WORDS)
+        return " ".join(parts)
+    raise SkyError(f'unknown time scale "{scale}"; use ' + _SCALE_WORDS)
+
+
+def _number(word, scale):
+    try:
+        return float(word)
+    except ValueError:
+        raise SkyError(f'unknown time scale "{scale}"; use ' + _SCALE_WORDS) from None
+
+
+def _universal(scale):
+    """(longitude in days, Delta T rule) of a UT or LMT scale: the rule is None for the
+    default, a model name, or a number of seconds."""
+    words = scale.split()
+    lon_days = float(words.pop(1)) / 360.0 if words[0] == "LMT" else 0.0
+    rule = None
+    if len(words) > 1:
+        rule = words[1] if words[1] in DELTA_T_MODELS else float(words[1])
+    return lon_days, rule
+
+
+def _decimal_year(jd1, jd2):
+    return 2000.0 + ((jd1 - 2451545.0) + jd2) / 365.25
+
+
+def _delta_t_days(jd1, jd2, rule):
+    from . import deltat
+
+    if isinstance(rule, float):
+        return np.full(np.shape(jd1), rule / 86400.0)
+    return deltat.model_delta_t(_decimal_year(jd1, jd2), rule or "SMH2016") / 86400.0
 
 
 def _quiet(func, *args):
@@ -64,11 +128,7 @@ class Instants:
         if self.scale in ("UTC", "UT1"):
             early = (self.jd1 + self.jd2) < UTC_START_JD
             if np.any(early):
-                raise rows_failing(
-                    early,
-                    f"{self.scale} before 1960 is not yet supported; give the time as "
-                    "TT (JD or MJD text with scale TT)",
-                )
+                raise rows_failing(early, before_1960_message(self.scale))
 
     def __len__(self):
         return self.jd1.size
@@ -84,9 +144,10 @@ class Instants:
             return self
         # UTC <-> UT1 directly: a detour through TAI can land a hair before midnight
         # and pick up the previous day's TAI - UTC on a 1960s step day.
-        if (self.scale, scale) == ("UTC", "UT1"):
-            return Instants(*_quiet(erfa.utcut1, self.jd1, self.jd2, self.dut1), "UT1", self.dut1)
-        if (self.scale, scale) == ("UT1", "UTC"):
+        # (UT with the default Delta T is UT1 from 1960, which is all of UTC's range.)
+        if self.scale == "UTC" and scale in ("UT1", "UT"):
+            return Instants(*_quiet(erfa.utcut1, self.jd1, self.jd2, self.dut1), scale, self.dut1)
+        if self.scale in ("UT1", "UT") and scale == "UTC":
             return Instants(*_quiet(erfa.ut1utc, self.jd1, self.jd2, self.dut1), "UTC", self.dut1)
         tai1, tai2 = self._to_tai()
         return Instants._from_tai(tai1, tai2, scale, self.dut1)
@@ -98,6 +159,8 @@ class Instants:
 
     def _to_tai(self):
         s = self.scale
+        if s.startswith(("UT ", "LMT")) or s == "UT":
+            return self._universal_to_tai()
         if s == "TAI":
             return self.jd1, self.jd2
         if s == "TT":
@@ -111,8 +174,52 @@ class Instants:
         utc1, utc2 = _quiet(erfa.ut1utc, self.jd1, self.jd2, self.dut1)
         return _quiet(erfa.utctai, utc1, utc2)
 
+    def _universal_to_tai(self):
+        """UT (or LMT) to TAI: through DUT1 and the leap seconds from 1960 when no
+        Delta T model is named, else TT = UT + Delta T (Delta T at the UT date)."""
+        lon_days, rule = _universal(self.scale)
+        ut1, ut2 = self.jd1, self.jd2 - lon_days
+        tai1, tai2 = np.array(ut1, dtype=float), np.array(ut2, dtype=float)
+        measured = ((ut1 + ut2) >= UTC_START_JD) if rule is None else np.zeros(np.shape(ut1), bool)
+        if np.any(measured):
+            ut1m, ut2m = np.broadcast_arrays(ut1, ut2)
+            utc = _quiet(erfa.ut1utc, ut1m[measured], ut2m[measured], self.dut1)
+            a, b = _quiet(erfa.utctai, *utc)
+            tai1[measured], tai2[measured] = a, b
+        modelled = ~measured
+        if np.any(modelled):
+            a, b = np.broadcast_arrays(ut1, ut2)
+            dt = _delta_t_days(a[modelled], b[modelled], rule)
+            tai1[modelled] = a[modelled]
+            tai2[modelled] = b[modelled] + dt - 32.184 / 86400.0
+        return tai1, tai2
+
+    @staticmethod
+    def _tai_to_universal(tai1, tai2, scale, dut1):
+        lon_days, rule = _universal(scale)
+        tt1, tt2 = erfa.taitt(tai1, tai2)
+        tt1, tt2 = np.array(tt1, dtype=float), np.array(tt2, dtype=float)
+        ut1, ut2 = tt1.copy(), tt2.copy()
+        measured = ((tt1 + tt2) >= UTC_START_JD + 50.0 / 86400.0) if rule is None else np.zeros(tt1.shape, bool)
+        if np.any(measured):
+            utc = _quiet(erfa.taiutc, np.broadcast_to(tai1, tt1.shape)[measured],
+                         np.broadcast_to(tai2, tt1.shape)[measured])
+            a, b = _quiet(erfa.utcut1, *utc, dut1)
+            ut1[measured], ut2[measured] = a, b
+        modelled = ~measured
+        if np.any(modelled):
+            # Delta T is a function of UT: two rounds of UT = TT - Delta T(UT) settle it
+            # (it changes by under a second a year).
+            guess = tt2[modelled]
+            for _ in range(3):
+                guess = tt2[modelled] - _delta_t_days(tt1[modelled], guess, rule)
+            ut2[modelled] = guess
+        return Instants(ut1, ut2 + lon_days, scale, dut1)
+
     @staticmethod
     def _from_tai(tai1, tai2, scale, dut1):
+        if scale.startswith(("UT ", "LMT")) or scale == "UT":
+            return Instants._tai_to_universal(tai1, tai2, scale, dut1)
         if scale == "TAI":
             return Instants(tai1, tai2, "TAI", dut1)
         if scale in ("TT", "TDB"):
@@ -122,9 +229,7 @@ class Instants:
             return Instants(*_tt_to_tdb(tt1, tt2), "TDB", dut1)
         early = (tai1 + tai2) < UTC_START_JD
         if np.any(early):
-            raise rows_failing(
-                early, f"{scale} is defined here from 1960 on; this instant is earlier"
-            )
+            raise rows_failing(early, before_1960_message(scale))
         utc1, utc2 = _quiet(erfa.taiutc, tai1, tai2)
         if scale == "UTC":
             return Instants(utc1, utc2, "UTC", dut1)
@@ -166,6 +271,11 @@ def _tdb_to_tt(tdb1, tdb2):
     # TDB - TT varies by under 2 ms, so evaluating it at the TDB date is exact enough
     # (the error is the derivative, 1e-8, times 2 ms: far below a nanosecond).
     return erfa.tdbtt(tdb1, tdb2, _tdb_minus_tt(tdb1, tdb2))
+
+
+def before_1960_message(scale):
+    return (f"{scale} is defined from 1960 on; for earlier times use the scale UT "
+            "(universal time through Delta T) or TT")
 
 
 def split_days(whole, fraction=0.0):

@@ -56,7 +56,13 @@ EXAMPLES = {
     "SKY.JD.DATETIME": [('K{r};"TT";"UTC"', lambda v: [v[10], "TT", "UTC"])],
     "SKY.MJD.DATETIME": [("K{r}-2400000.5", lambda v: [v[10] - 2400000.5])],
     "SKY.TEXT.ISO": [('A{r};;"TT";;6', lambda v: [v[0], None, "TT", None, 6.0])],
-    "SKY.DELTAT": [("A{r};;0.1", lambda v: [v[0], None, 0.1])],
+    "SKY.DELTAT": [("A{r};;0.1", lambda v: [v[0], None, 0.1]),
+                   ('A{r}-800000;"UT";;"ESPENAK2006"', lambda v: [v[0] - 800000, "UT", None, "ESPENAK2006"])],
+    "SKY.DELTAT.UNCERTAINTY": [('A{r}-800000;"UT"', lambda v: [v[0] - 800000, "UT"])],
+    "SKY.LEAPSECONDS": [("A{r}", lambda v: [v[0]])],
+    "SKY.LEAPSECONDS.UNTIL": [("", lambda v: [])],
+    "SKY.TEXT.DATE": [('A{r}-700000;"LMT 12.5";;"JULIAN";"ASTRONOMICAL";2',
+                       lambda v: [v[0] - 700000, "LMT 12.5", None, "JULIAN", "ASTRONOMICAL", 2.0])],
     "SKY.ANGLE": [("J{r}", lambda v: [v[9]])],
     "SKY.ANGLE.HOURS": [("J{r}", lambda v: [v[9]])],
     "SKY.TEXT.DMS": [('C{r};2;"COLONS"', lambda v: [v[2], 2.0, "COLONS"])],
@@ -158,6 +164,10 @@ def test_filled_down_equals_the_core(filled, name, template, args):
         want = evaluate(name, args(row))
         if name == "SKY.VERSION":  # the office's numpy and ERFA may be other versions
             got, want = got.split(";")[0], want.split(";")[0]
+        if name == "SKY.LEAPSECONDS.UNTIL":
+            # Depends on the ERFA release (its year + 5): the office's may be older.
+            # 46387 is 2026-12-31, ERFA 2.0.0's last trusted day (ERFA dat.c, IYV 2021).
+            want = got if isinstance(got, float) and got >= 46387.0 else want
         if isinstance(want, str):
             messages += want.startswith("#SKY:")
             ok = got == want

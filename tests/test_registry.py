@@ -61,6 +61,10 @@ FROZEN_METHODS = {
     "skyHorizonDec": "SKY.HORIZON.DEC",
     "skyParallactic": "SKY.PARALLACTIC",
     "skyAirmass": "SKY.AIRMASS",
+    "skyDeltaTUncertainty": "SKY.DELTAT.UNCERTAINTY",
+    "skyLeapseconds": "SKY.LEAPSECONDS",
+    "skyLeapsecondsUntil": "SKY.LEAPSECONDS.UNTIL",
+    "skyTextDate": "SKY.TEXT.DATE",
 }
 
 

@@ -213,12 +213,14 @@ BAD_TIMES = [
     (float("nan"), "UTC", "out of range"),
     (float("inf"), "TT", "out of range"),
     (3.0e6, "TT", "after year 4999"),  # a JD typed as a number
-    (-200000.0, "TT", "1582"),
-    ("-0044-03-15", "TT", "1582"),  # negative (astronomical) years
-    ("-4799-01-01", "TT", "1582"),
-    ("0000-01-01", "TT", "1582"),
-    ("1582-10-14", "TT", "1582"),
-    ("10000-01-01", "TT", "9999"),
+    ("1582-10-14", "TT", "did not exist"),  # the days the reform skipped
+    ("1582-10-05", "UT", "did not exist"),
+    ("0 BC March 1", "UT", "no year 0"),  # historical numbering has no year 0
+    ("AD 0 March 1", "UT", "no year AD 0"),
+    ("44 BC Febtober 1", "UT", "not a month"),
+    ("1700-02-29", "TT", "Gregorian"),  # a Julian leap day after the reform
+    ("1500-02-29 Gregorian", "TT", "days"),  # not a Gregorian leap year
+    ("-0043-03-15", "UTC", "1960"),
     ("45371.5", "UTC", "number held as text"),
     ("2451545", "TT", "number held as text"),
     ("2024-03-20T03:06:00+01:00", "UTC", "zone offset"),
@@ -242,7 +244,7 @@ def test_bad_time_gives_a_message(value, scale, word):
         calcfuncs.call("SKY.JD", value, scale)
 
 
-@pytest.mark.parametrize("text", ["-5000-01-01", "-4800-12-31T12:00", "99999999999999999999-01-01"])
+@pytest.mark.parametrize("text", ["99999999999999999999-01-01", "-2000000-01-01"])
 def test_extreme_years_give_a_plain_message(text):
     got = evaluate("SKY.JD", [text, "TT"])
     assert got.startswith("#SKY: ") and "internal error" not in got
