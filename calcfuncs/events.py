@@ -1,0 +1,48 @@
+"""One search for every event: the instants where a smooth function of time crosses zero.
+
+An event (an equinox, the Sun reaching a longitude, sunrise, a transit) is a function
+f(tt1, tt2) of TT two-part JDs, sampled on a grid fine enough that it crosses zero at
+most once between neighbours; each crossing is then narrowed by bisection.  Every event
+in the add-in is a few lines on top of ``crossings``.
+"""
+
+import numpy as np
+
+
+def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None):
+    """TT JDs (as (jd1, jd2) arrays) where ``f`` changes sign in [start, end].
+
+    ``start`` and ``end`` are TT JDs (floats, one search) and ``step`` the sampling in
+    days.  ``direction`` +1 keeps rising crossings only, -1 falling, 0 both.  For
+    angle-like functions, ``jump`` rejects sign changes where the function leaps by more
+    than that (a wrap from +180 to -180 is not a crossing).  The bisection stops when
+    the bracket is under ``tolerance`` days (1e-8 day is under a millisecond).
+    """
+    n = max(2, int(np.ceil((end - start) / step)) + 1)
+    base = np.floor(start) + 0.5
+    offsets = np.linspace(start - base, end - base, n)
+    values = f(np.full(n, base), offsets)
+    a, b = values[:-1], values[1:]
+    change = (np.sign(a) != np.sign(b)) & (a != 0.0)
+    if direction > 0:
+        change &= b > a
+    elif direction < 0:
+        change &= b < a
+    if jump is not None:
+        change &= np.abs(b - a) < jump
+    lo = offsets[:-1][change]
+    hi = offsets[1:][change]
+    f_lo = a[change]
+    while lo.size and np.max(hi - lo) > tolerance:
+        mid = 0.5 * (lo + hi)
+        f_mid = f(np.full(mid.shape, base), mid)
+        same = np.sign(f_mid) == np.sign(f_lo)
+        lo = np.where(same, mid, lo)
+        f_lo = np.where(same, f_mid, f_lo)
+        hi = np.where(same, hi, mid)
+    return np.full(lo.shape, base), 0.5 * (lo + hi)
+
+
+def wrap180(degrees):
+    """Angles in [-180, 180), for functions whose zero is an angle reached."""
+    return np.mod(np.asarray(degrees) + 180.0, 360.0) - 180.0

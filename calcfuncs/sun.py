@@ -1,0 +1,386 @@
+"""The Sun as seen from the Earth's centre, and the events of the solar year.
+
+Caution: never look at the Sun, or point binoculars, a telescope or a camera at it,
+without a proper solar filter made for that purpose.
+
+Position: the Earth's heliocentric and barycentric position and velocity from ERFA
+epv00 (Bretagnon and Francou's VSOP2000-based series, 1900-2100 good to a few km,
+usable 1000-3000 here); the Sun's barycentric place follows.
+  GEOMETRIC   the Sun's direction at the same instant, no light time, no aberration
+  ASTROMETRIC light time (about 499 s) applied: where the light left the Sun
+  APPARENT    light time and annual aberration (ERFA ab): the direction observed
+Then a rotation into the chosen system (frames.py): J2000, DATE (mean ecliptic and
+equinox of date) or TRUE (true equinox, nutation in longitude included).
+"""
+
+import erfa
+import numpy as np
+
+from . import frames
+from .errors import SkyError, rows_failing
+from .events import crossings, wrap180
+from .timescales import Instants, _quiet
+
+KINDS = ("APPARENT", "ASTROMETRIC", "GEOMETRIC")
+SUN_YEARS = (1000.0, 3000.0)
+LIGHT_DAYS_PER_AU = erfa.AULT / erfa.DAYSEC
+
+
+def _check_years(tt1, tt2):
+    years = 2000.0 + ((tt1 - 2451545.0) + tt2) / 365.25
+    outside = (years < SUN_YEARS[0]) | (years > SUN_YEARS[1])
+    if np.any(outside):
+        raise rows_failing(outside, "the Sun's position is computed for 1000 to 3000 "
+                                    "(ERFA epv00 and the IAU 2006/2000A frames)")
+
+
+def sun_gcrs(tt1, tt2, kind="APPARENT"):
+    """(unit vectors, distance in au) of the geocentric Sun on the GCRS axes."""
+    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    _check_years(tt1, tt2)
+    # epv00 wants TDB; TT differs by under 2 ms, which moves the Sun by 0.00008".
+    pvh, pvb = _quiet(erfa.epv00, tt1, tt2)  # it warns outside its 1900-2100 fit
+    earth_helio = pvh["p"]
+    sun_bary_v = pvb["v"] - pvh["v"]
+    geometric = -earth_helio
+    distance = np.linalg.norm(geometric, axis=-1)
+    if kind == "GEOMETRIC":
+        return geometric / distance[..., None], distance
+    tau = distance * LIGHT_DAYS_PER_AU
+    astrometric = geometric - tau[..., None] * sun_bary_v
+    u = astrometric / np.linalg.norm(astrometric, axis=-1)[..., None]
+    if kind == "ASTROMETRIC":
+        return u, distance
+    v = pvb["v"] * LIGHT_DAYS_PER_AU  # the Earth's barycentric velocity in units of c
+    bm1 = np.sqrt(1.0 - np.sum(v * v, axis=-1))
+    return erfa.ab(u, v, distance, bm1), distance
+
+
+def sun_in(tt1, tt2, system, kind="APPARENT"):
+    """Unit vectors of the Sun in a coordinate system of frames.py."""
+    u, _ = sun_gcrs(tt1, tt2, kind)
+    m = frames.system_matrix(system, tt1, tt2)
+    return np.einsum("...ij,...j->...i", m, u)
+
+
+_FRAME_TO_ECLIPTIC = {"J2000": "ECLIPTIC J2000", "DATE": "ECLIPTIC DATE", "TRUE": "ECLIPTIC TRUE"}
+_FRAME_TO_EQUATORIAL = {"J2000": "EQUATORIAL J2000", "DATE": "EQUATORIAL DATE",
+                        "TRUE": "EQUATORIAL TRUE", "ICRS": "ICRS"}
+
+
+def sun_longitude(tt1, tt2, frame="TRUE", kind="APPARENT"):
+    lon, _ = frames.spherical(sun_in(tt1, tt2, _FRAME_TO_ECLIPTIC[frame], kind))
+    return lon
+
+
+# ---- cell functions: position ---------------------------------------------------------
+
+
+def lon_cells(time, frame="TRUE", kind="APPARENT"):
+    return sun_longitude(*time.tt(), frame, kind)
+
+
+def lat_cells(time, frame="TRUE", kind="APPARENT"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind))[1]
+
+
+def ra_cells(time, frame="TRUE", kind="APPARENT"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind))[0]
+
+
+def dec_cells(time, frame="TRUE", kind="APPARENT"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind))[1]
+
+
+def distance_cells(time):
+    return sun_gcrs(*time.tt(), "GEOMETRIC")[1]
+
+
+def solar_longitude_cells(time):
+    """The meteor-work solar longitude: apparent, on the ecliptic and equinox J2000.0."""
+    return sun_longitude(*time.tt(), "J2000", "APPARENT")
+
+
+def equation_of_time_minutes(time):
+    """Apparent minus mean solar time, in minutes (positive: a sundial is fast)."""
+    tt1, tt2 = time.tt()
+    ut = time.to("UT")
+    ra = frames.spherical(sun_in(tt1, tt2, "EQUATORIAL TRUE"))[0]
+    gast = np.degrees(erfa.gst06a(ut.jd1, ut.jd2, tt1, tt2))
+    # Greenwich hour angle of the Sun minus that of the mean Sun (UT - 12 h).
+    ut_fraction = np.mod((ut.jd1 - 0.5) + ut.jd2, 1.0)
+    return wrap180(gast - ra - (ut_fraction * 360.0 - 180.0)) * 4.0
+
+
+def equation_of_time_cells(time):
+    return equation_of_time_minutes(time)
+
+
+def sundial_time_cells(time, longitude, null_jd):
+    """Local apparent (sundial) time as a Calc date-time: UT + longitude/15 h + EoT."""
+    ut = time.to("UT")
+    eot_days = equation_of_time_minutes(time) / 1440.0
+    return (ut.jd1 - null_jd) + ut.jd2 + np.asarray(longitude) / 360.0 + eot_days
+
+
+# ---- the solar year ---------------------------------------------------------------------
+
+SEASONS = {"MARCH": 0.0, "JUNE": 90.0, "SEPTEMBER": 180.0, "DECEMBER": 270.0}
+
+
+def longitude_crossing(target_deg, start_tt, end_tt, frame="TRUE"):
+    """TT instants in [start, end] when the Sun's apparent longitude reaches the target."""
+    def f(jd1, jd2):
+        return wrap180(sun_longitude(jd1, jd2, frame) - target_deg)
+
+    # The Sun moves about 1 degree a day: 1-day samples never skip a crossing.
+    return crossings(f, start_tt, end_tt, 1.0, direction=+1, jump=90.0)
+
+
+def _year_start_tt(year):
+    from .calendars import GREGORIAN, jdn
+
+    return jdn(int(year), 1, 1, GREGORIAN) - 0.5
+
+
+def _check_year(year):
+    y = np.asarray(year, dtype=float)
+    bad = (y != np.round(y)) | (y < SUN_YEARS[0]) | (y > SUN_YEARS[1] - 1)
+    if np.any(bad):
+        raise rows_failing(bad, "the year must be a whole number from 1000 to 2999")
+    return y.astype(int)
+
+
+def _as_result(tt1, tt2, result_scale, null_jd):
+    from .timeinput import to_serial
+
+    inst = Instants(tt1, tt2, "TT").to(result_scale)
+    serial, in_leap = to_serial(inst, null_jd)
+    return serial
+
+
+def season_instant(year, event, frame="TRUE"):
+    """TT (jd1, jd2) of an equinox or solstice of a (Gregorian) year."""
+    target = SEASONS[event]
+    out1, out2 = [], []
+    for y in np.ravel(year):
+        start = _year_start_tt(y) - 2.0
+        a, b = longitude_crossing(target, start, start + 370.0, frame)
+        # The one in that calendar year (the March equinox of year y, and so on).
+        keep = [(p, q) for p, q in zip(a, b) if _year_start_tt(y) <= p + q < _year_start_tt(y + 1)]
+        if len(keep) != 1:
+            raise SkyError(f"the {event.lower()} event of {y} was not found once")
+        out1.append(keep[0][0])
+        out2.append(keep[0][1])
+    return np.array(out1), np.array(out2)
+
+
+def season_cells(year, null_jd, event="MARCH", result_scale="UTC"):
+    t1, t2 = season_instant(_check_year(year), event)
+    return _as_result(t1, t2, result_scale, null_jd)
+
+
+def season_length_cells(year, event="MARCH"):
+    """Days from this event to the next event of the year (the season it opens)."""
+    order = list(SEASONS)
+    years = _check_year(year)
+    a1, a2 = season_instant(years, event)
+    k = order.index(event)
+    nxt = order[(k + 1) % 4]
+    b1, b2 = season_instant(years + (1 if nxt == "MARCH" else 0), nxt)
+    return (b1 - a1) + (b2 - a2)
+
+
+def reaches_cells(longitude, time, null_jd, frame="TRUE", result_scale="UTC"):
+    """The first instant after ``time`` when the Sun's longitude reaches a value."""
+    lon = np.asarray(longitude, dtype=float) % 360.0
+    tt1, tt2 = time.tt()
+    out1, out2 = [], []
+    for target, a, b in zip(np.ravel(lon), np.ravel(tt1), np.ravel(tt2)):
+        start = a + b
+        found1, found2 = longitude_crossing(float(target), start, start + 367.0, frame)
+        after = (found1 + found2) > start
+        out1.append(found1[after][0])
+        out2.append(found2[after][0])
+    if result_scale is None:
+        result_scale = time.scale
+    return _as_result(np.array(out1), np.array(out2), result_scale, null_jd)
+
+
+# ---- rise, transit, set, twilight -------------------------------------------------------
+
+# Altitudes of the Sun's centre at the event, degrees.  SUNRISE: upper limb on the
+# horizon with standard refraction (34') and semidiameter (16'), common practice.
+EVENT_ALTITUDES = {"SUNRISE": -50.0 / 60.0, "CIVIL": -6.0, "NAUTICAL": -12.0, "ASTRONOMICAL": -18.0}
+
+
+def _threshold(event, height):
+    h0 = EVENT_ALTITUDES[event]
+    if event == "SUNRISE":
+        # Dip of the horizon for an observer above the ground, 1.76' per sqrt(metre)
+        # (common practice, standard refraction included).
+        h0 -= 0.0293 * np.sqrt(np.maximum(height, 0.0))
+    return h0
+
+
+def sun_altitude(tt1, tt2, latitude, longitude, scale="UTC", dut1=0.0):
+    """Geocentric apparent altitude of the Sun's centre in degrees (refraction not
+    applied; diurnal parallax, under 9", neglected)."""
+    inst = Instants(tt1, tt2, "TT", dut1)
+    ut = inst.to("UT")
+    ra, dec = frames.spherical(sun_in(tt1, tt2, "EQUATORIAL TRUE"))
+    gast = erfa.gst06a(ut.jd1, ut.jd2, tt1, tt2)
+    ha = gast + np.radians(longitude) - np.radians(ra)
+    _, el = erfa.hd2ae(ha, np.radians(dec), np.radians(latitude))
+    return np.degrees(el)
+
+
+def _local_day(time, utc_offset):
+    """TT (start, end) of the local calendar day that contains the given date."""
+    from .timeinput import _days_and_seconds
+
+    start, _, _ = _days_and_seconds(time)  # 0h of the given date on its own scale
+    day0 = Instants(start - utc_offset / 24.0, np.zeros_like(start), time.scale, time.dut1)
+    tt = day0.to("TT")
+    return tt.jd1 + tt.jd2
+
+
+def _events_of_day(time, latitude, longitude, utc_offset, event, height):
+    """Per row: (rise TT JD or None, set TT JD or None, state at the day's start)."""
+    starts = _local_day(time, utc_offset)
+    lat = np.broadcast_to(np.asarray(latitude, float), starts.shape)
+    lon = np.broadcast_to(np.asarray(longitude, float), starts.shape)
+    h = np.broadcast_to(np.asarray(height, float), starts.shape)
+    out = []
+    for t0, la, lo, hh in zip(starts, lat, lon, h):
+        h0 = _threshold(event, hh)
+
+        def f(jd1, jd2, la=la, lo=lo, h0=h0):
+            return sun_altitude(jd1, jd2, la, lo, time.scale, time.dut1) - h0
+
+        ups = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=+1)
+        downs = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=-1)
+        up_at_start = f(np.array([np.floor(t0) + 0.5]), np.array([t0 - np.floor(t0) - 0.5]))[0] > 0
+        out.append((ups[0] + ups[1], downs[0] + downs[1], up_at_start, t0))
+    return out
+
+
+def _to_local(jds, time, utc_offset, null_jd):
+    from .timeinput import to_serial
+
+    jd = np.asarray(jds, dtype=float)
+    inst = Instants(np.floor(jd) + 0.5, jd - (np.floor(jd) + 0.5), "TT").to(time.scale)
+    serial, _ = to_serial(inst, null_jd)
+    return serial + utc_offset / 24.0
+
+
+def _no_event_text(up, event, rising):
+    if event == "SUNRISE":
+        return "polar day: the Sun does not set" if up else "polar night: the Sun does not rise"
+    word = event.lower()
+    if up:
+        return f"no {word} twilight: the Sun stays above {EVENT_ALTITUDES[event]:g} degrees"
+    return f"no {word} twilight {'start' if rising else 'end'}: the Sun stays below " \
+           f"{EVENT_ALTITUDES[event]:g} degrees"
+
+
+def _rise_or_set(time, latitude, longitude, null_jd, utc_offset, event, height, rising):
+    _check_site(latitude, longitude)
+    rows = _events_of_day(time, latitude, longitude, utc_offset, event, height)
+    out = np.empty(len(rows), dtype=object)
+    for k, (ups, downs, up_at_start, _t0) in enumerate(rows):
+        found = ups if rising else downs
+        if found.size:
+            out[k] = float(_to_local(found[:1], time, utc_offset, null_jd)[0])
+        else:
+            out[k] = _no_event_text(up_at_start, event, rising)
+    return out
+
+
+def _check_site(latitude, longitude):
+    frames.check_latitudes(latitude)
+    lon = np.asarray(longitude, dtype=float)
+    bad = np.abs(lon) > 360.0
+    if np.any(bad):
+        raise rows_failing(bad, "the longitude must be within -360 to 360 degrees")
+
+
+def rise_cells(date, latitude, longitude, null_jd, utc_offset=0.0, event="SUNRISE", height=0.0):
+    return _rise_or_set(date, latitude, longitude, null_jd, utc_offset, event, height, True)
+
+
+def set_cells(date, latitude, longitude, null_jd, utc_offset=0.0, event="SUNRISE", height=0.0):
+    return _rise_or_set(date, latitude, longitude, null_jd, utc_offset, event, height, False)
+
+
+def daylength_cells(date, latitude, longitude, utc_offset=0.0, event="SUNRISE", height=0.0):
+    """Hours of the local day with the Sun above the event's altitude (24 or 0 in
+    polar day or night)."""
+    _check_site(latitude, longitude)
+    rows = _events_of_day(date, latitude, longitude, utc_offset, event, height)
+    out = []
+    for ups, downs, up, t0 in rows:
+        marks = sorted([(t, +1) for t in ups] + [(t, -1) for t in downs])
+        total, last, state = 0.0, t0, up
+        for t, kind in marks:
+            if state:
+                total += t - last
+            last, state = t, kind > 0
+        if state:
+            total += t0 + 1.0 - last
+        out.append(total * 24.0)
+    return np.array(out)
+
+
+def transit_cells(date, latitude, longitude, null_jd, utc_offset=0.0):
+    """Local time of the Sun's upper transit (local apparent noon)."""
+    _check_site(latitude, longitude)
+    starts = _local_day(date, utc_offset)
+    lon = np.broadcast_to(np.asarray(longitude, float), starts.shape)
+    out = np.empty(starts.shape, dtype=object)
+    for k, (t0, lo) in enumerate(zip(starts, lon)):
+        def f(jd1, jd2, lo=lo):
+            inst = Instants(jd1, jd2, "TT", date.dut1)
+            ut = inst.to("UT")
+            ra, _ = frames.spherical(sun_in(jd1, jd2, "EQUATORIAL TRUE"))
+            gast = np.degrees(erfa.gst06a(ut.jd1, ut.jd2, jd1, jd2))
+            return wrap180(gast + lo - ra)
+
+        a, b = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=+1, jump=180.0)
+        out[k] = float(_to_local((a + b)[:1], date, utc_offset, null_jd)[0]) if a.size else \
+            "no transit on this local date"
+    return out
+
+
+# ---- the Sun and other directions ------------------------------------------------------
+
+
+def _target_and_sun(ra, dec, time, system):
+    """Target (catalogue, ICRS) and the astrometric Sun, both in ``system``."""
+    frames.check_latitudes(dec, "declination")
+    tt1, tt2 = time.tt()
+    m = frames.system_matrix(system, tt1, tt2)
+    target = np.einsum("...ij,...j->...i", m, frames.unit_vectors(ra, dec))
+    sun = sun_in(tt1, tt2, system, "ASTROMETRIC")
+    return target, sun
+
+
+def elongation_cells(ra, dec, time):
+    """Angular distance of a catalogue direction from the Sun, degrees."""
+    target, sun = _target_and_sun(ra, dec, time, "ICRS")
+    return np.degrees(np.arctan2(np.linalg.norm(np.cross(target, sun), axis=-1),
+                                 np.sum(target * sun, axis=-1)))
+
+
+def relative_lon_cells(ra, dec, time):
+    """Ecliptic longitude of a target minus the Sun's, in (-180, 180], mean of date."""
+    target, sun = _target_and_sun(ra, dec, time, "ECLIPTIC DATE")
+    d = frames.spherical(target)[0] - frames.spherical(sun)[0]
+    r = wrap180(d)
+    return np.where(r == -180.0, 180.0, r)
+
+
+def relative_lat_cells(ra, dec, time):
+    """Ecliptic latitude of the target, mean ecliptic of date (the Sun's is ~0)."""
+    target, _ = _target_and_sun(ra, dec, time, "ECLIPTIC DATE")
+    return frames.spherical(target)[1]
