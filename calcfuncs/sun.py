@@ -125,6 +125,23 @@ def sundial_time_cells(time, longitude, null_jd):
 
 # ---- the solar year ---------------------------------------------------------------------
 
+
+def _rows(n, compute):
+    """Results of ``compute(k)`` for rows 0..n-1; rows whose computation raises a
+    SkyError get its message, as a row-aligned RowErrors once all rows are done."""
+    from .errors import RowErrors
+
+    results = [None] * n
+    messages = np.full(n, None, dtype=object)
+    for k in range(n):
+        try:
+            results[k] = compute(k)
+        except SkyError as err:
+            messages[k] = str(err)
+    if any(m is not None for m in messages):
+        raise RowErrors(messages)
+    return results
+
 SEASONS = {"MARCH": 0.0, "JUNE": 90.0, "SEPTEMBER": 180.0, "DECEMBER": 270.0}
 
 
@@ -162,17 +179,20 @@ def _as_result(tt1, tt2, result_scale, null_jd):
 def season_instant(year, event, frame="TRUE"):
     """TT (jd1, jd2) of an equinox or solstice of a (Gregorian) year."""
     target = SEASONS[event]
-    out1, out2 = [], []
-    for y in np.ravel(year):
+    years = np.ravel(year)
+
+    def one(k):
+        y = years[k]
         start = _year_start_tt(y) - 2.0
         a, b = longitude_crossing(target, start, start + 370.0, frame)
         # The one in that calendar year (the March equinox of year y, and so on).
         keep = [(p, q) for p, q in zip(a, b) if _year_start_tt(y) <= p + q < _year_start_tt(y + 1)]
         if len(keep) != 1:
             raise SkyError(f"the {event.lower()} event of {y} was not found once")
-        out1.append(keep[0][0])
-        out2.append(keep[0][1])
-    return np.array(out1), np.array(out2)
+        return keep[0]
+
+    found = _rows(years.size, one)
+    return np.array([f[0] for f in found]), np.array([f[1] for f in found])
 
 
 def season_cells(year, null_jd, event="MARCH", result_scale="UTC"):
@@ -193,18 +213,21 @@ def season_length_cells(year, event="MARCH"):
 
 def reaches_cells(longitude, time, null_jd, frame="TRUE", result_scale="UTC"):
     """The first instant after ``time`` when the Sun's longitude reaches a value."""
-    lon = np.asarray(longitude, dtype=float) % 360.0
     tt1, tt2 = time.tt()
-    out1, out2 = [], []
-    for target, a, b in zip(np.ravel(lon), np.ravel(tt1), np.ravel(tt2)):
-        start = a + b
-        found1, found2 = longitude_crossing(float(target), start, start + 367.0, frame)
+    lon, tt1, tt2 = np.broadcast_arrays(np.asarray(longitude, dtype=float) % 360.0, tt1, tt2)
+    lon, tt1, tt2 = lon.ravel(), tt1.ravel(), tt2.ravel()
+
+    def one(k):
+        start = tt1[k] + tt2[k]
+        found1, found2 = longitude_crossing(float(lon[k]), start, start + 367.0, frame)
         after = (found1 + found2) > start
-        out1.append(found1[after][0])
-        out2.append(found2[after][0])
+        return found1[after][0], found2[after][0]
+
+    found = _rows(lon.size, one)
     if result_scale is None:
         result_scale = time.scale
-    return _as_result(np.array(out1), np.array(out2), result_scale, null_jd)
+    return _as_result(np.array([f[0] for f in found]), np.array([f[1] for f in found]),
+                      result_scale, null_jd)
 
 
 # ---- rise, transit, set, twilight -------------------------------------------------------
@@ -251,18 +274,20 @@ def _events_of_day(time, latitude, longitude, utc_offset, event, height):
     lat = np.broadcast_to(np.asarray(latitude, float), starts.shape)
     lon = np.broadcast_to(np.asarray(longitude, float), starts.shape)
     h = np.broadcast_to(np.asarray(height, float), starts.shape)
-    out = []
-    for t0, la, lo, hh in zip(starts, lat, lon, h):
-        h0 = _threshold(event, hh)
 
-        def f(jd1, jd2, la=la, lo=lo, h0=h0):
+    def one(k):
+        t0, la, lo = starts[k], lat[k], lon[k]
+        h0 = _threshold(event, h[k])
+
+        def f(jd1, jd2):
             return sun_altitude(jd1, jd2, la, lo, time.scale, time.dut1) - h0
 
         ups = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=+1)
         downs = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=-1)
         up_at_start = f(np.array([np.floor(t0) + 0.5]), np.array([t0 - np.floor(t0) - 0.5]))[0] > 0
-        out.append((ups[0] + ups[1], downs[0] + downs[1], up_at_start, t0))
-    return out
+        return ups[0] + ups[1], downs[0] + downs[1], up_at_start, t0
+
+    return _rows(starts.size, one)
 
 
 def _to_local(jds, time, utc_offset, null_jd):
@@ -337,19 +362,22 @@ def transit_cells(date, latitude, longitude, null_jd, utc_offset=0.0):
     _check_site(latitude, longitude)
     starts = _local_day(date, utc_offset)
     lon = np.broadcast_to(np.asarray(longitude, float), starts.shape)
-    out = np.empty(starts.shape, dtype=object)
-    for k, (t0, lo) in enumerate(zip(starts, lon)):
-        def f(jd1, jd2, lo=lo):
-            inst = Instants(jd1, jd2, "TT", date.dut1)
-            ut = inst.to("UT")
+
+    def one(k):
+        t0, lo = starts[k], lon[k]
+
+        def f(jd1, jd2):
+            ut = Instants(jd1, jd2, "TT", date.dut1).to("UT")
             ra, _ = frames.spherical(sun_in(jd1, jd2, "EQUATORIAL TRUE"))
             gast = np.degrees(erfa.gst06a(ut.jd1, ut.jd2, jd1, jd2))
             return wrap180(gast + lo - ra)
 
         a, b = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=+1, jump=180.0)
-        out[k] = float(_to_local((a + b)[:1], date, utc_offset, null_jd)[0]) if a.size else \
-            "no transit on this local date"
-    return out
+        if not a.size:
+            return "no transit on this local date"
+        return float(_to_local((a + b)[:1], date, utc_offset, null_jd)[0])
+
+    return np.array(_rows(starts.size, one), dtype=object)
 
 
 # ---- the Sun and other directions ------------------------------------------------------
