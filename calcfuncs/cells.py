@@ -50,14 +50,12 @@ def _as_grid(raw):
     """A range as a 2-D object array; ``None`` for a single value."""
     if not isinstance(raw, (tuple, list)):
         return None
-    rows = [tuple(r) if isinstance(r, (tuple, list)) else (r,) for r in raw]
+    rows = [r if isinstance(r, (tuple, list)) else (r,) for r in raw]
     width = len(rows[0]) if rows else 0
     if any(len(r) != width for r in rows):
         raise SkyError("the range is not rectangular")
     grid = np.empty((len(rows), width), dtype=object)
-    for i, r in enumerate(rows):
-        for j, v in enumerate(r):
-            grid[i, j] = v
+    grid[:] = rows  # one C-level copy; cell values are scalars, never sequences
     return grid
 
 
@@ -115,7 +113,20 @@ def _read_option(arg, value):
 # ---- row-wise values ----------------------------------------------------------------
 
 
+def _all_floats(values):
+    """The values as a float array when every one is a Python float (the usual column
+    of numbers from Calc), else None."""
+    if values.size > 1 and all(type(v) is float for v in values):
+        return values.astype(float)
+    return None
+
+
 def _read_numbers(values, what):
+    fast = _all_floats(values)
+    if fast is not None:
+        messages = np.full(values.size, None, dtype=object)
+        messages[~np.isfinite(fast)] = f"{what} must be a finite number"
+        return fast, messages
     out = np.zeros(values.size)
     messages = np.full(values.size, None, dtype=object)
     for i, v in enumerate(values):
@@ -131,6 +142,11 @@ def _read_numbers(values, what):
 
 
 def _read_angles(values, what):
+    fast = _all_floats(values)
+    if fast is not None:
+        messages = np.full(values.size, None, dtype=object)
+        messages[~np.isfinite(fast)] = f"{what} must be a finite number of degrees"
+        return fast, messages
     out = np.zeros(values.size)
     messages = np.full(values.size, None, dtype=object)
     for i, v in enumerate(values):
@@ -158,22 +174,26 @@ def _passed_on(values):
     first problem is passed on as it is, instead of 'is not an angle'."""
     out = np.full(len(values), None, dtype=object)
     for i, v in enumerate(values):
-        if isinstance(v, str) and v.startswith(PREFIX):
+        if type(v) is str and v.startswith(PREFIX):
             out[i] = v[len(PREFIX):]
     return out
 
 
 def _merge(messages, new):
-    for i, m in enumerate(new):
-        if m is not None and messages[i] is None:
-            messages[i] = m
+    """Keep each row's first message."""
+    take = np.not_equal(new, None) & np.equal(messages, None)
+    messages[take] = new[take]
 
 
 # ---- evaluation ---------------------------------------------------------------------
 
 
-def _compute_group(fn, rows, options, null_jd):
-    """Results (object array) for rows that share their options."""
+def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
+    """Results (object array) for rows that share their options.
+
+    Arguments named in ``shared`` came from one cell for every row: they are read
+    once and their value (or message) spread over the rows.
+    """
     func, params = _impl(fn)
     n = len(next(iter(rows.values()))) if rows else 1
     if not any(a.kind in registry.ROW_KINDS for a in fn.args):
@@ -190,7 +210,10 @@ def _compute_group(fn, rows, options, null_jd):
         if arg.kind not in registry.ROW_KINDS:
             continue
         values = rows[arg.name]
-        _merge(messages, _passed_on(values))
+        spread = arg.name in shared and n > 1
+        if spread:
+            values = values[:1]
+        msgs_passed = _passed_on(values)
         if arg.optional and arg.kind in ("number", "angle"):
             values = np.array([arg.default if v is None else v for v in values], dtype=object)
         if arg.kind == "time" and arg.optional:
@@ -210,10 +233,20 @@ def _compute_group(fn, rows, options, null_jd):
             columns[arg.name], msgs = _read_angles(values, arg.name)
         else:
             columns[arg.name], msgs = _read_texts(values, arg.name)
-        _merge(messages, msgs)
+        _merge(msgs_passed, msgs)
+        if spread:
+            msgs_passed = np.full(n, msgs_passed[0], dtype=object)
+            col = columns[arg.name]
+            if arg.kind == "time":
+                columns[arg.name] = (np.full(n, col[0][0]), np.full(n, col[1][0]))
+            else:
+                columns[arg.name] = np.full(n, col[0], dtype=col.dtype)
+            if arg.name + "_given" in columns:
+                columns[arg.name + "_given"] = np.full(n, columns[arg.name + "_given"][0])
+        _merge(messages, msgs_passed)
 
     results = np.full(n, None, dtype=object)
-    good = np.array([m is None for m in messages], dtype=bool)
+    good = np.equal(messages, None)
     for _attempt in range(8):
         idx = np.flatnonzero(good)
         if idx.size == 0:
@@ -357,7 +390,9 @@ def _evaluate(fn, raw_args, null_date):
         rows = {
             a.name: flat[k][members] for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS
         }
-        out[members] = _compute_group(fn, rows, options, null_jd)
+        shared = frozenset(a.name for k, a in enumerate(fn.args)
+                           if a.kind in registry.ROW_KINDS and grids[k] is None)
+        out[members] = _compute_group(fn, rows, options, null_jd, shared)
 
     return tuple(map(tuple, out.reshape(shape).tolist()))
 

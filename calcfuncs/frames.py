@@ -139,7 +139,8 @@ def system_matrix(system, jd1=None, jd2=None, given=None):
             f"{system} uses IAU 2006/2000A, valid 1000 to 3000; for other dates precess "
             "with SKY.PRECESS.RA/DEC and model VONDRAK2011",
         )
-    if jd1.size == 1:
+    if jd1.size == 1 or (np.all(jd1 == jd1.flat[0]) and np.all(jd2 == jd2.flat[0])):
+        # One date for every row (a single cell against a column): one matrix.
         m = _dated_one(system, float(jd1.ravel()[0]), float(jd2.ravel()[0]))
         return np.broadcast_to(m, jd1.shape + (3, 3))
     return _dated(system, jd1, jd2)
