@@ -156,10 +156,16 @@ def unit_vectors(lon_deg, lat_deg):
     return erfa.s2c(np.radians(lon_deg), np.radians(lat_deg))
 
 
+def degrees_360(radians):
+    """Degrees in [0, 360): ERFA anp of a tiny negative angle rounds to 2 pi itself."""
+    d = np.degrees(erfa.anp(radians))
+    return np.where(d >= 360.0, 0.0, d)
+
+
 def spherical(vectors):
     """(longitude in [0, 360), latitude) in degrees of vectors (..., 3)."""
     lon, lat = erfa.c2s(vectors)
-    return np.degrees(erfa.anp(lon)), np.degrees(lat)
+    return degrees_360(lon), np.degrees(lat)
 
 
 def check_latitudes(lat_deg, what="latitude"):

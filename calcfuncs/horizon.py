@@ -16,7 +16,7 @@ import erfa
 import numpy as np
 
 from .errors import SkyError, rows_failing
-from .frames import check_latitudes
+from .frames import check_latitudes, degrees_360
 from .timescales import _quiet
 
 WAVELENGTH_UM = 0.55
@@ -30,6 +30,18 @@ HORIZON_FRAMES = ("ICRS", "TRUE")
 AIRMASS_MODELS = ("KASTENYOUNG1989", "PICKERING2002", "SECZ")
 
 
+IAU2006_YEARS = (1000.0, 3000.0)
+
+
+def _check_years(time, what):
+    tt = time.to("TT")
+    years = 2000.0 + ((tt.jd1 - 2451545.0) + tt.jd2) / 365.25
+    outside = (years < IAU2006_YEARS[0]) | (years > IAU2006_YEARS[1])
+    if np.any(outside):
+        raise rows_failing(outside, f"{what} uses IAU 2006/2000A precession-nutation, valid "
+                                    "1000 to 3000; outside, the cell says so (ERA has no limit)")
+
+
 def _ut_tt(time):
     ut1 = time.to("UT")  # UT1 from 1960 (DUT1), through Delta T before
     tt = time.to("TT")
@@ -40,6 +52,8 @@ def sidereal_angle(time, kind="GAST"):
     """Greenwich angle in radians: apparent (GAST, IAU 2006/2000A, ERFA gst06a), mean
     (GMST, IAU 2006, ERFA gmst06) sidereal time, or the Earth rotation angle (ERA,
     IAU 2000, ERFA era00)."""
+    if kind != "ERA":
+        _check_years(time, kind)
     u1, u2, t1, t2 = _ut_tt(time)
     if kind == "ERA":
         return erfa.era00(u1, u2)
@@ -49,7 +63,7 @@ def sidereal_angle(time, kind="GAST"):
 
 
 def sidereal_cells(time, kind="GAST", longitude=0.0, unit="DEG"):
-    angle = np.degrees(erfa.anp(sidereal_angle(time, kind) + np.radians(longitude)))
+    angle = degrees_360(sidereal_angle(time, kind) + np.radians(longitude))
     return angle / 15.0 if unit == "HOURS" else angle
 
 
@@ -79,6 +93,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
              temperature=10.0, frame="ICRS"):
     """(azimuth, zenith distance, hour angle, declination) observed, in radians."""
     check_latitudes(dec, "declination")
+    _check_years(time, "the observed place")
     elong, phi, hm = _site(latitude, longitude, height)
     phpa, tc = _atmosphere(pressure, temperature)
     utc1, utc2 = _utc(time)
@@ -116,6 +131,7 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     """(RA, Dec) in radians from observed azimuth and altitude (degrees)."""
     check_latitudes(alt, "altitude")
+    _check_years(time, "the observed place")
     elong, phi, hm = _site(latitude, longitude, height)
     phpa, tc = _atmosphere(pressure, temperature)
     utc1, utc2 = _utc(time)
@@ -150,7 +166,7 @@ def altitude_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
 def azimuth_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     aob, _, _, _ = observed(ra, dec, time, latitude, longitude, height, pressure, temperature, frame)
-    return np.degrees(erfa.anp(aob))
+    return degrees_360(aob)
 
 
 def hour_angle_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
@@ -166,7 +182,7 @@ def parallactic_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICR
 def horizon_ra_cells(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                      temperature=10.0, frame="ICRS"):
     ra, _ = from_observed(az, alt, time, latitude, longitude, height, pressure, temperature, frame)
-    return np.degrees(erfa.anp(ra))
+    return degrees_360(ra)
 
 
 def horizon_dec_cells(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,

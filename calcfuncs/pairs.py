@@ -6,7 +6,7 @@ import erfa
 import numpy as np
 
 from .errors import rows_failing
-from .frames import check_latitudes
+from .frames import check_latitudes, degrees_360
 
 MAS = np.pi / (180.0 * 3600.0 * 1000.0)
 
@@ -24,7 +24,7 @@ def position_angle_cells(ra1, dec1, ra2, dec2):
     check_latitudes(dec1, "first declination")
     check_latitudes(dec2, "second declination")
     pa = erfa.pas(np.radians(ra1), np.radians(dec1), np.radians(ra2), np.radians(dec2))
-    return np.degrees(erfa.anp(pa))
+    return degrees_360(pa)
 
 
 def _propagate(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax, rv):
@@ -78,7 +78,7 @@ def _propagate(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax, rv):
 
 
 def proper_motion_ra_cells(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax=0.0, rv=0.0):
-    return np.degrees(erfa.anp(_propagate(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax, rv)[0]))
+    return degrees_360(_propagate(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax, rv)[0])
 
 
 def proper_motion_dec_cells(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax=0.0, rv=0.0):

@@ -555,7 +555,8 @@ _HORIZON_MODEL = (
     "aberration, IAU 2006/2000A precession-nutation, Earth rotation, refraction); from a "
     "TRUE place: ERFA apio13 and atioq. Refraction: ERFA refco model at 0.55 um, humidity "
     "0.5, only when a pressure is given, and only above 5 degrees altitude (lower, the "
-    "cell says so). Polar motion taken as zero. UTC from 1960 on; "
+    "cell says so). The target is taken at infinite distance: no parallax (up to 9\" for "
+    "the Sun and planets, 1 degree for the Moon). Valid 1000-3000. Polar motion taken as zero. UTC from 1960 on; "
     "DUT1 default 0 (up to 0.9 s, about 14\" in hour angle)."
 )
 _COORD_MODEL = (
@@ -820,7 +821,7 @@ HORIZON_FUNCTIONS = HORIZON_FUNCTIONS + (
                 "atmosphere; above about 30 degrees only).",
                 default="KASTENYOUNG1989", choices=AIRMASS_MODELS),
         ),
-        result="air mass, 1 at the zenith (about 38 at the horizon)",
+        result="air mass, about 1 at the zenith (about 38 at the horizon)",
         impl="horizon:airmass_cells",
         model="Below the horizon the cell says so.",
     ),

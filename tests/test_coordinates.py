@@ -636,8 +636,6 @@ def test_core_raises_value_error(call):
 
 # ---- found defects (kept as strict xfail; see the report) ---------------------------------------------
 
-@pytest.mark.xfail(strict=True, reason="documented range [0, 360) but 360.0 comes back: "
-                   "ERFA anp maps -tiny to 2pi - tiny, which rounds to 2pi")
 @pytest.mark.parametrize("fn, args", [
     # The true equinox seen on the true equator: RA 0 (definition), shown as 360.
     ("SKY.COORD.LON", [0.0, 0.0, "ECLIPTIC TRUE", "EQUATORIAL TRUE", "J2025.5", "TT"]),

@@ -405,7 +405,7 @@ WHEN = "2024-03-20T03:06:00"
 BAD = [
     ("SKY.HORIZON.ALT", [10, 91, WHEN, 40, 0], "declination must be within"),
     ("SKY.HORIZON.ALT", [10, 10, WHEN, 91, 0], "latitude must be within"),
-    ("SKY.HORIZON.AZ", [10, 10, "1959-12-31T00:00:00", 40, 0], "before 1960"),
+    ("SKY.HORIZON.AZ", [10, 10, "1959-12-31T00:00:00", 40, 0], "from 1960"),
     ("SKY.HORIZON.ALT", [10, 10, "JD 2433282.5", 40, 0, "TT"], "from 1960 on"),
     ("SKY.HORIZON.RA", [10, 100, WHEN, 40, 0], "altitude must be within"),
     ("SKY.HORIZON.DEC", [10, 10, WHEN, 40, 0, "UTC", 0, 0, 10, "GALACTIC"], 'unknown frame "GALACTIC"'),
@@ -457,9 +457,6 @@ def test_nutation_refuses_the_dates_below(when, scale):
     assert evaluate("SKY.NUTATION.LON", [when, scale]).startswith("#SKY: ")
 
 
-@pytest.mark.xfail(strict=True, reason="computes silently with IAU 2006/2000A far outside "
-                   "1000-3000, where SKY.NUTATION.LON refuses the same date (CONVENTIONS: never "
-                   "extrapolate silently)")
 @pytest.mark.parametrize("fn, args", [
     ("SKY.HORIZON.ALT", [10.0, 10.0, "3500-01-01T00:00:00", 40.0, 0.0]),
     ("SKY.HORIZON.AZ", [10.0, 10.0, "3500-01-01T00:00:00", 40.0, 0.0, "UTC", 0.0, 0.0, 10.0, "TRUE"]),
