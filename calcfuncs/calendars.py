@@ -128,16 +128,24 @@ def parse_calendar_text(text):
     Raises ``SkyError`` for a date that is written as one but cannot be.
     """
     body, calendar, reform = split_marker(text.strip())
-    for form in _FORMS:
-        m = form.match(body)
-        if m:
-            break
-    else:
+    matches = [m for m in (form.match(body) for form in _FORMS) if m]
+    if not matches:
         if calendar is not None or reform != REFORM_JDN:
             raise SkyError(f'"{text}" is not a date this reads; write e.g. 44 BC March 15 10:00, '
                            "-0043-03-15T10:00 or 1066-10-14 Julian")
         return None
-    groups = m.groupdict()
+    # "15 March 44" also fits the year-first form (year 15, day 44): the first reading
+    # that is a real date wins; if none is, the first one's problem is reported.
+    first_problem = None
+    for m in matches:
+        try:
+            return _fields(m.groupdict(), text, calendar, reform)
+        except SkyError as err:
+            first_problem = first_problem or err
+    raise first_problem
+
+
+def _fields(groups, text, calendar, reform):
     number = int(groups["y"])
     era = (groups.get("era") or groups.get("era0") or "").upper().replace(".", "")
     if era in ("BC", "BCE"):
@@ -167,8 +175,9 @@ def parse_calendar_text(text):
         calendar = _calendar_of_unmarked(year, month, day, reform, text)
     length = days_in_month(year, month, calendar)
     if not 1 <= day <= length:
-        raise SkyError(f'"{text}" has day {day}; {month:02d}/{year} has {length} days in the '
-                       f"{calendar.lower()} calendar")
+        n, era = historical_year(year)
+        raise SkyError(f'"{text}" has day {day}; {MONTHS[month - 1].capitalize()} {n} {era} '
+                       f"has {length} days in the {calendar.capitalize()} calendar")
     if hour == 24 and minute == 0 and second == 0.0:
         pass
     elif hour > 23 or minute > 59:
@@ -193,10 +202,11 @@ def _calendar_of_unmarked(year, month, day, reform, text):
         return JULIAN
     if g is None and j is None:
         would = GREGORIAN if jdn(year, month, 1, GREGORIAN) >= reform else JULIAN
-        raise SkyError(f'"{text}" has day {day}; {month:02d}/{year} has '
-                       f"{days_in_month(year, month, would)} days")
+        n, era = historical_year(year)
+        raise SkyError(f'"{text}" has day {day}; {MONTHS[month - 1].capitalize()} {n} {era} '
+                       f"has {days_in_month(year, month, would)} days")
     if g is None and j is not None:  # e.g. 1700-02-29: a Julian leap day after the reform
-        raise SkyError(f'"{text}" has day {day}; {month:02d}/{year} has '
+        raise SkyError(f'"{text}" has day {day}; {MONTHS[month - 1].capitalize()} {year} has '
                        f"{days_in_month(year, month, GREGORIAN)} days in the Gregorian "
                        'calendar (add "Julian" to read it in the Julian calendar)')
     last_julian = calendar_date(reform - 1, JULIAN)

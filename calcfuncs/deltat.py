@@ -184,7 +184,9 @@ def uncertainty(year):
     """Published standard error of Delta T at decimal years (see the module text)."""
     year = np.asarray(year, dtype=float)
     out = np.full(year.shape, np.nan)
-    ancient = (year >= -999.0) & (year <= 1200.0)  # 1000 BC (astronomical -999) to AD 1200
+    # The tabulated years -1000 (1001 BC) to AD 1200, each whole (our decimal
+    # years are Julian years from J2000, a few hundredths off calendar years).
+    ancient = (year >= -1000.0) & (year < 1201.0)
     u = (year - 1820.0) / 100.0
     out[ancient] = (0.8 * u * u)[ancient]
     for y, sigma in ((1700.0, 5.0), (1800.0, 1.0), (1900.0, 0.1)):

@@ -304,7 +304,7 @@ FUNCTIONS = (
         args=(_time(), _SCALE),
         result="seconds (one standard error)",
         impl="timefuncs:delta_t_uncertainty",
-        model="Morrison and Stephenson (2004): 0.8 u^2 s, u = (year - 1820)/100, for 1000 "
+        model="Morrison and Stephenson (2004): 0.8 u^2 s, u = (year - 1820)/100, for 1001 "
         "BC to AD 1200; Stephenson and Houlden (1986): 5 s in 1700, 1 s in 1800, 0.1 s in "
         "1900. Other dates have no published estimate here and the cell says so.",
     ),

@@ -9,6 +9,7 @@ from .timeinput import iso_text as _iso_text
 from .timeinput import to_serial
 from .timescales import (
     JD_LIMIT,
+    universal_of,
     MJD_ZERO,
     Instants,
     _decimal_year,
@@ -78,7 +79,8 @@ def delta_t(time, model="AUTO"):
     """Delta T = TT - UT in seconds, measured (32.184 s + (TAI - UTC) - DUT1) or modelled."""
     tt = time.to("TT")
     if model == "AUTO":
-        return seconds_between(tt, time.to("UT"))
+        # The time's own scale may carry a Delta T (UT ESPENAK2006, UT 10850, LMT ...).
+        return seconds_between(tt, time.to(universal_of(time.scale)))
     if model == "MEASURED":
         return seconds_between(tt, time.to("UT1"))
     # The model's Delta T at the UT date that this model itself gives.
@@ -92,8 +94,20 @@ def delta_t_uncertainty(time):
 
 
 def tai_minus_utc(time):
-    """TAI - UTC in seconds at the instant (from 1960)."""
-    return seconds_between(time.to("TAI"), time.to("UTC"))
+    """TAI - UTC in seconds at the instant (from 1960), from ERFA dat at the UTC date
+    and clock time (a difference of quasi-JDs would count a stretched day's fraction)."""
+    import erfa
+
+    from .calendars import GREGORIAN, calendar_date
+    from .timeinput import _days_and_seconds
+    from .timescales import _quiet
+
+    start, seconds, _ = _days_and_seconds(time.to("UTC"))
+    out = []
+    for day, sec in zip(np.ravel(start), np.ravel(seconds)):
+        y, m, d = calendar_date(int(day + 0.5), GREGORIAN)
+        out.append(_quiet(erfa.dat, y, m, d, min(sec, 86399.999999) / 86400.0))
+    return np.array(out, dtype=float)
 
 
 def leap_table_valid_until(null_jd):

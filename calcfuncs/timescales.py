@@ -90,6 +90,14 @@ def _universal(scale):
     return lon_days, rule
 
 
+def universal_of(scale):
+    """The UT scale with the same Delta T rule as ``scale`` (plain UT for the others)."""
+    if scale.startswith(("UT ", "LMT")):
+        _, rule = _universal(scale)
+        return "UT" if rule is None else f"UT {rule}" if isinstance(rule, str) else f"UT {rule!r}"
+    return "UT"
+
+
 def _decimal_year(jd1, jd2):
     return 2000.0 + ((jd1 - 2451545.0) + jd2) / 365.25
 
