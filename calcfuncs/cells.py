@@ -50,6 +50,12 @@ def _as_grid(raw):
     """A range as a 2-D object array; ``None`` for a single value."""
     if not isinstance(raw, (tuple, list)):
         return None
+    try:
+        grid = np.array(raw, dtype=object)  # C speed for the usual tuple of row tuples
+        if grid.ndim == 2:
+            return grid
+    except ValueError:  # ragged rows
+        pass
     rows = [r if isinstance(r, (tuple, list)) else (r,) for r in raw]
     width = len(rows[0]) if rows else 0
     if any(len(r) != width for r in rows):
@@ -173,6 +179,8 @@ def _passed_on(values):
     """Messages for rows whose input is itself a #SKY: message from another cell: the
     first problem is passed on as it is, instead of 'is not an angle'."""
     out = np.full(len(values), None, dtype=object)
+    if not any(type(v) is str for v in values):
+        return out
     for i, v in enumerate(values):
         if type(v) is str and v.startswith(PREFIX):
             out[i] = v[len(PREFIX):]
@@ -283,17 +291,15 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
         out = out.reshape(-1)
         if out.dtype.kind == "f":
             finite = np.isfinite(out)
-            values = out.tolist()  # Python floats, as UNO wants them
-            for k, i in enumerate(idx):
-                if finite[k]:
-                    results[i] = values[k]
-                else:
-                    messages[i] = "no result for these arguments"
+            as_objects = np.empty(out.size, dtype=object)
+            as_objects[:] = out.tolist()  # Python floats, as UNO wants them
+            results[idx[finite]] = as_objects[finite]
+            messages[idx[~finite]] = "no result for these arguments"
         else:
             for k, i in enumerate(idx):
                 results[i] = out[k] if isinstance(out[k], str) else float(out[k])
         break
-    for i in np.flatnonzero(np.array([m is not None for m in messages], dtype=bool)):
+    for i in np.flatnonzero(np.not_equal(messages, None)):
         results[i] = PREFIX + messages[i]
     return results
 
@@ -354,7 +360,7 @@ def _evaluate(fn, raw_args, null_date):
         return value
 
     if first_row_arg is not None:  # an empty row of a column call stays empty
-        filled = np.array([v is not None for v in flat[first_row_arg]], dtype=bool)
+        filled = np.not_equal(flat[first_row_arg], None)
     else:
         filled = np.ones(n, dtype=bool)
     if not any(grids[k] is not None for k, _ in option_args):
