@@ -211,7 +211,7 @@ def season_length_cells(year, event="MARCH"):
     return (b1 - a1) + (b2 - a2)
 
 
-def reaches_cells(longitude, time, null_jd, frame="TRUE", result_scale="UTC"):
+def reaches_cells(longitude, time, null_jd, frame="J2000", result_scale=None):
     """The first instant after ``time`` when the Sun's longitude reaches a value."""
     tt1, tt2 = time.tt()
     lon, tt1, tt2 = np.broadcast_arrays(np.asarray(longitude, dtype=float) % 360.0, tt1, tt2)
