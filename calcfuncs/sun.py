@@ -217,9 +217,13 @@ def reaches_cells(longitude, time, null_jd, frame="J2000", result_scale=None):
     lon, tt1, tt2 = np.broadcast_arrays(np.asarray(longitude, dtype=float) % 360.0, tt1, tt2)
     lon, tt1, tt2 = lon.ravel(), tt1.ravel(), tt2.ravel()
 
+    last = _year_start_tt(3000) + 0.5  # the search stays inside the position's range
+
     def one(k):
         start = tt1[k] + tt2[k]
-        found1, found2 = longitude_crossing(float(lon[k]), start, start + 367.0, frame)
+        found1, found2 = longitude_crossing(float(lon[k]), start, min(start + 367.0, last), frame)
+        if not np.any((found1 + found2) > start):
+            raise SkyError("the Sun does not reach that longitude before the year 3000")
         after = (found1 + found2) > start
         return found1[after][0], found2[after][0]
 
@@ -299,14 +303,22 @@ def _to_local(jds, time, utc_offset, null_jd):
     return serial + utc_offset / 24.0
 
 
-def _no_event_text(up, event, rising):
-    if event == "SUNRISE":
-        return "polar day: the Sun does not set" if up else "polar night: the Sun does not rise"
-    word = event.lower()
-    if up:
-        return f"no {word} twilight: the Sun stays above {EVENT_ALTITUDES[event]:g} degrees"
-    return f"no {word} twilight {'start' if rising else 'end'}: the Sun stays below " \
-           f"{EVENT_ALTITUDES[event]:g} degrees"
+def _no_event_text(up_at_start, other_found, event, rising):
+    """Words for a local day without the asked event: polar day or night when the Sun
+    never crosses the altitude, else which way the day goes."""
+    word = "sunrise" if rising else "sunset"
+    if event != "SUNRISE":
+        word = f"{event.lower()} twilight {'start' if rising else 'end'}"
+    if not other_found:
+        level = "" if event == "SUNRISE" else f" above {EVENT_ALTITUDES[event]:g} degrees"
+        if up_at_start:
+            return ("polar day: the Sun does not set" if event == "SUNRISE"
+                    else f"no {word}: the Sun stays{level}")
+        return ("polar night: the Sun does not rise" if event == "SUNRISE"
+                else f"no {word}: the Sun stays below {EVENT_ALTITUDES[event]:g} degrees")
+    if rising:
+        return f"no {word} on this local date: the Sun is already up when it begins"
+    return f"no {word} on this local date: the Sun stays up after rising"
 
 
 def _rise_or_set(time, latitude, longitude, null_jd, utc_offset, event, height, rising):
@@ -314,11 +326,11 @@ def _rise_or_set(time, latitude, longitude, null_jd, utc_offset, event, height, 
     rows = _events_of_day(time, latitude, longitude, utc_offset, event, height)
     out = np.empty(len(rows), dtype=object)
     for k, (ups, downs, up_at_start, _t0) in enumerate(rows):
-        found = ups if rising else downs
+        found, other = (ups, downs) if rising else (downs, ups)
         if found.size:
             out[k] = float(_to_local(found[:1], time, utc_offset, null_jd)[0])
         else:
-            out[k] = _no_event_text(up_at_start, event, rising)
+            out[k] = _no_event_text(up_at_start, other.size > 0, event, rising)
     return out
 
 

@@ -267,6 +267,8 @@ def read_times(values, scale, null_jd, dut1=0.0):
             return _check_scale_start(jd1, jd2, messages, scale)
     serial_rows, serials = [], []
     for i, v in enumerate(values):
+        if isinstance(v, (np.floating, np.integer)) and not isinstance(v, np.bool_):
+            v = float(v)  # numpy numbers from Python callers (Calc sends floats)
         kind = type(v)
         if kind is float or kind is int:
             problem = _serial_problem(float(v), null_jd)
