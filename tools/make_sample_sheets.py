@@ -2,18 +2,27 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Two workbooks, one office session:
+Four workbooks, one office session:
 
-  observing_log.ods  a season's estimate times: Julian dates, time scales, obliquity,
-                     nutation, angle text (the time, angle and obliquity families)
-  target_list.ods    one night's targets: coordinate systems, precession, proper
-                     motion, sidereal time and the horizon (the coordinates and horizon
-                     families)
+  observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
+                         nutation, angle text (the time, angle and obliquity families)
+  target_list.ods        one night's targets: coordinate systems, precession, proper
+                         motion, sidereal time and the horizon (the coordinates and
+                         horizon families)
+  historical_record.ods  an invented chronicle's dated sky events: historical dates in
+                         both calendars, local mean time, Delta T and its uncertainty,
+                         long-term obliquity, the 1960s UTC steps (time across history)
+  meteor_watch.ods       an invented club's meteor watches reduced to solar longitude, a
+                         year of nights (sunset, twilight, transit, sundial time), the
+                         seasons and the Sun's place (the Sun family)
 
-The scenario is invented: the Saltmarsh Variable Star Circle, observing from its
+The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
-made up too; observers, nights, fields and stars are made up.  The sheets hold formulas
-(no macros), so opening them never asks about macro security.
+made up too; the Annals of Holmwray Abbey; the Tollmere Meteor Section at Whinburn
+Common.  Observers, nights, fields, stars, entries and counts are made up.  The sheets
+hold formulas (no macros), so opening them never asks about macro security.  Every
+sheet about the Sun carries the caution never to look at it, or point optics at it,
+without a proper solar filter.
 """
 
 import argparse
@@ -333,6 +342,7 @@ FAST_STARS = [
 ]
 
 RIGHT = uno.Enum("com.sun.star.table.CellHoriJustify", "RIGHT")
+CENTER = uno.Enum("com.sun.star.table.CellHoriJustify", "CENTER")
 
 SITE_NAMES = {  # named cells on the Site sheet, so formulas read as what they mean
     "SiteLat": 3, "SiteLon": 4, "SiteHeight": 5, "NightDate": 7,
@@ -699,6 +709,658 @@ def night_sheet(doc, sheet, night):
     widths(sheet, [1.0, 3.8, 2.2, 2.2, 2.4, 2.4, 2.0, 2.8] + [c[3] for c in NIGHT_COLUMNS])
 
 
+# ---- historical_record.ods: an invented chronicle's dated sky events ------------------
+
+SUN_CAUTION = (
+    "CAUTION: never look at the Sun, and never point binoculars, a telescope or a camera "
+    "at it or near it, without a proper solar filter made for that purpose over the front "
+    "of the instrument. An eclipsed Sun is no safer: watch it projected onto card, or "
+    "through a proper solar filter.")
+
+
+def caution(sheet, row, cols):
+    """The Sun caution as a bold note row, on every sheet about the Sun."""
+    note(sheet, row, SUN_CAUTION, cols)
+    sheet.getRows().getByIndex(row).Height = 900
+    sheet.getCellByPosition(0, row).CharWeight = 150.0
+
+
+ABBEY = "LMT 9.62"  # the invented abbey's east longitude, as a local-mean-time scale
+WEST_PORT = "LMT -1.25"  # an invented correspondent at a western port
+EAST_TOWN = "LMT 18.05"  # an invented correspondent in the east
+
+# The Annals of Holmwray Abbey (invented): entries copied from older rolls and from
+# correspondents' letters, each date written the way its writer wrote it.  The dates
+# are chosen to show the ways of writing them; the events are invented, not records.
+CHRONICLE = [
+    ("44 BC March 15 10:00", ABBEY,
+     "Copied from an older roll: a ring round the Sun at the fourth hour. Historical year "
+     "numbering, Julian calendar, the abbey's local mean time."),
+    ("March 15, 44 BC 10:00", ABBEY,
+     "The same note in a second hand, the date written the other way round: the same "
+     "instant (0 days from the entry above)."),
+    ("-0308-07-14T11:30", "UT",
+     "An astronomer's copy with astronomical year numbering (-0308 is 309 BC) and the time "
+     "in UT: the Sun darkened at midday."),
+    ("15 April 837 06:00", ABBEY, "A star with a tail before dawn in the east (a comet)."),
+    ("AD 1021 May 9 22:00", EAST_TOWN,
+     "A letter from the east, in its writer's local mean time: a new star low in the south."),
+    ("1133 August 2 12:00", ABBEY,
+     "At noon the Sun darkened and stars were seen (an eclipse)."),
+    ("1194-11-30 17:30", ABBEY,
+     "After sunset two bright planets stood close together (a conjunction)."),
+    ("1582-10-04 23:00", ABBEY,
+     "The abbey takes up the new calendar: the last evening of the old one. The next "
+     "day is October 15."),
+    ("1582-10-15 01:00", ABBEY,
+     "Two hours later, the first night of the new calendar (0.0833 days from the entry above)."),
+    ("1700-02-29 04:00 Julian", WEST_PORT,
+     "A letter from a land still on the Julian calendar: a leap day the Gregorian calendar "
+     "does not have. A bright fireball before dawn."),
+    ("1752-09-02 22:00 cutover 1752-09-14", WEST_PORT,
+     "The same land changes calendars in 1752 (September 2 is followed by September 14): "
+     "an aurora on the last evening of the old style."),
+    ("1752-09-14 05:00 cutover 1752-09-14", WEST_PORT,
+     "Seven hours later, the first morning of the new style."),
+    ("1800-06-10 21:00", ABBEY, "A bright comet low in the north-west."),
+    ("1900-05-28 15:00", ABBEY,
+     "The Sun partly covered by the Moon (a partial eclipse), watched by projecting its "
+     "image through a pinhole onto card."),
+]
+CHRONICLE_FIRST = 4  # 0-based row of the first entry on the Chronicle sheet
+
+
+TOP = 1  # com.sun.star.table.CellVertJustify2.TOP
+
+
+def _wrapped(sheet, col, first, last):
+    sheet.getCellRangeByPosition(col, first, col, last).IsTextWrapped = True
+
+
+def chronicle_sheet(doc, sheet):
+    cols = 9
+    note(sheet, 0,
+         "The Annals of Holmwray Abbey: an INVENTED chronicle (abbey, places, correspondents "
+         "and entries are made up; the dates show the ways dates are written, they are not "
+         "historical observations). Each entry's date is typed as its writer wrote it, with "
+         "the time scale beside it: UT (universal time through Delta T) or LMT and the east "
+         "longitude of the writer's place (local mean time). Dates before 1582-10-15 are "
+         "read in the Julian calendar unless the text says Gregorian; \"Julian\" or "
+         "\"cutover 1752-09-14\" in the text choose the calendar. Uses SKY.JD on TT and UT, "
+         "SKY.TEXT.DATE (read back on the entry's own scale) and SKY.TEXT.ISO; the Calendars "
+         "sheet writes the same instants in both calendars and both year numberings.", cols)
+    sheet.getRows().getByIndex(0).Height = 1900
+    caution(sheet, 1, cols)
+    sheet.getCellByPosition(0, 2).setString(
+        "The abbey (invented) lies at east longitude 9.62 deg (LMT 9.62); its correspondents "
+        "at -1.25 (a western port, LMT -1.25) and 18.05 (a town in the east, LMT 18.05).")
+    header(sheet, 3, [
+        "No.", "Date as the source writes it", "Scale as written", "What the entry says",
+        "JD (TT)", "JD (UT)", "Days since the entry above",
+        "On the entry's own scale, in the usual calendar (Gregorian from 1582-10-15)",
+        "TT as ISO 8601 text (Gregorian, astronomical years)",
+    ])
+    first = CHRONICLE_FIRST
+    last = first + len(CHRONICLE) - 1
+    sheet.getCellRangeByPosition(0, first, 3, last).setDataArray(
+        tuple((float(k + 1),) + entry for k, entry in enumerate(CHRONICLE)))
+    _wrapped(sheet, 3, first, last)
+    _columns(doc, sheet, first, last, 4, [
+        ('=SKY.JD(B{r};C{r};"TT")', "0.00000"),
+        ('=SKY.JD(B{r};C{r};"UT")', "0.00000"),
+    ])
+    fill_shifted(sheet, 6, first + 1, last, "=E{r}-E{t}", first)
+    format_range(sheet, 6, first, last, number_format(doc, "#,##0.0000"))
+    sheet.getCellRangeByPosition(6, first + 1, 6, last).HoriJustify = RIGHT
+    _columns(doc, sheet, first, last, 7, [
+        ("=SKY.TEXT.DATE(B{r};C{r})", "@"),
+        ('=SKY.TEXT.ISO(B{r};C{r};"TT";;0)', "@"),
+    ], right=False)
+    sheet.getCellRangeByPosition(0, first, cols - 1, last).VertJustify = TOP
+    widths(sheet, [1.0, 7.6, 2.2, 9.6, 3.2, 3.2, 3.0, 6.0, 6.8])
+
+
+def calendars_sheet(doc, sheet):
+    cols = 7
+    note(sheet, 0,
+         "The chronicle's instants (Chronicle sheet) in universal time, written in the Julian "
+         "and in the (proleptic) Gregorian calendar, with historical year numbering (44 BC) "
+         "and astronomical numbering (-0043; year 0 is 1 BC). A calendar other than the "
+         "usual one for the date (Julian before 1582-10-15, Gregorian after) is named in the "
+         "text, so the text reads back as the same instant. Uses SKY.TEXT.DATE.", cols)
+    header(sheet, 1, [
+        "No.", "Date as the source writes it", "Scale as written",
+        "Julian calendar, historical years (UT)", "Gregorian calendar, historical years (UT)",
+        "Julian calendar, astronomical years (UT)",
+        "Gregorian calendar, astronomical years (UT)",
+    ])
+    first = 2
+    last = first + len(CHRONICLE) - 1
+    _columns(doc, sheet, first, last, 0, [
+        ("=$Chronicle.A{t}", "0"), ("=$Chronicle.B{t}", "@"), ("=$Chronicle.C{t}", "@"),
+    ], source_first=CHRONICLE_FIRST, right=False)
+    _columns(doc, sheet, first, last, 3, [
+        ('=SKY.TEXT.DATE(B{r};C{r};"UT";"JULIAN")', "@"),
+        ('=SKY.TEXT.DATE(B{r};C{r};"UT";"GREGORIAN")', "@"),
+        ('=SKY.TEXT.DATE(B{r};C{r};"UT";"JULIAN";"ASTRONOMICAL")', "@"),
+        ('=SKY.TEXT.DATE(B{r};C{r};"UT";"GREGORIAN";"ASTRONOMICAL")', "@"),
+    ], right=False)
+    widths(sheet, [1.0, 7.6, 2.2, 6.4, 6.8, 6.2, 6.8])
+
+
+def deltat_sheet(doc, sheet):
+    cols = 16
+    note(sheet, 0,
+         "The chronicle's entries (Chronicle sheet) with what it takes to turn their clock "
+         "times into instants: Delta T = TT - UT by the model of record (AUTO: Stephenson, "
+         "Morrison and Hohenkerk 2016 before 1960) and by Espenak and Meeus 2006, and how far "
+         "they differ; the published standard error of Delta T where there is one (Morrison "
+         "and Stephenson 2004 for 1000 BC to AD 1200; 1700, 1800, 1900) and the uncertainty "
+         "it gives a clock time and the longitude of an eclipse track; the mean obliquity of "
+         "the ecliptic by the long-term formulas (Laskar 1986, Vondrak et al. 2011); and the "
+         "Sun's apparent longitude (computed for 1000 to 3000 only). Uses SKY.DELTAT (models "
+         "AUTO, SMH2016, ESPENAK2006), SKY.DELTAT.UNCERTAINTY, SKY.OBLIQUITY (LASKAR1986, "
+         "VONDRAK2011), SKY.TEXT.DMS and SKY.SUN.LON.", cols)
+    sheet.getRows().getByIndex(0).Height = 2300
+    caution(sheet, 1, cols)
+    header(sheet, 2, [
+        "No.", "Date as the source writes it", "Scale", "Year (TT, decimal)",
+        "Delta T, AUTO (s)", "Delta T, SMH2016 (s)", "Delta T, ESPENAK2006 (s)",
+        "ESPENAK2006 - SMH2016 (s)", "Delta T as hours, minutes, seconds",
+        "Standard error of Delta T (s)", "So a clock time computed from TT is uncertain by (min)",
+        "And an eclipse track by (deg of longitude)", "Mean obliquity, LASKAR1986 (deg)",
+        "Mean obliquity, VONDRAK2011 (deg)", 'VONDRAK2011 - LASKAR1986 (")',
+        "Sun's apparent longitude, true equinox of date (deg)",
+    ])
+    first = 3
+    last = first + len(CHRONICLE) - 1
+    _columns(doc, sheet, first, last, 0, [
+        ("=$Chronicle.A{t}", "0"), ("=$Chronicle.B{t}", "@"), ("=$Chronicle.C{t}", "@"),
+        ("=2000+($Chronicle.E{t}-2451545)/365.25", "0.0"),
+    ], source_first=CHRONICLE_FIRST, right=False)
+    none = '"none published"'
+    _columns(doc, sheet, first, last, 4, [
+        ("=SKY.DELTAT(B{r};C{r})", "#,##0.0"),
+        ('=SKY.DELTAT(B{r};C{r};;"SMH2016")', "#,##0.0"),
+        ('=SKY.DELTAT(B{r};C{r};;"ESPENAK2006")', "#,##0.0"),
+        ("=G{r}-F{r}", "+#,##0.0;-#,##0.0"),
+        ("=E{r}/86400", "[HH]:MM:SS"),
+        (f"=IF(ISNUMBER(SKY.DELTAT.UNCERTAINTY(B{{r}};C{{r}}));"
+         f"SKY.DELTAT.UNCERTAINTY(B{{r}};C{{r}});{none})", "#,##0.0"),
+        # Earth turns 360 degrees in 86400 s: 1 degree of longitude per 240 s.
+        ('=IF(ISNUMBER(J{r});J{r}/60;"-")', "#,##0.00"),
+        ('=IF(ISNUMBER(J{r});J{r}/240;"-")', "0.0000"),
+        ('=SKY.OBLIQUITY(B{r};C{r};"LASKAR1986")', "0.000000"),
+        ('=SKY.OBLIQUITY(B{r};C{r};"VONDRAK2011")', "0.000000"),
+        ("=(N{r}-M{r})*3600", "+0.000;-0.000"),
+        ('=IF(D{r}>=1000;SKY.SUN.LON(B{r};C{r});"before AD 1000")', "0.0000"),
+    ])
+    for col in (9, 15):
+        _wrapped(sheet, col, first, last)
+    for k, (label, row) in enumerate((("first", first), ("last", last))):
+        r = last + 2 + k
+        sheet.getCellByPosition(1, r).setString(
+            f"Mean obliquity (VONDRAK2011) at the {label} entry, as written:")
+        sheet.getCellRangeByPosition(1, r, 4, r).merge(True)
+        cell = sheet.getCellByPosition(5, r)
+        cell.setFormula(f"=SKY.TEXT.DMS(N{row + 1};1)")
+        cell.HoriJustify = RIGHT
+    sheet.getCellByPosition(1, last + 4).setString(
+        "Delta T before 1960 is a model: the two models differ (column H) by as much as "
+        "several published standard errors (column J) at some of these dates.")
+    widths(sheet, [1.0, 7.6, 2.2, 2.2, 2.4, 2.6, 2.8, 2.8, 2.6, 2.6, 3.0, 2.8, 3.0, 3.0,
+                   2.8, 3.2])
+
+
+# Days that begin with a step of TAI - UTC: 1960s rate and offset changes, the start of
+# whole leap seconds in 1972, and the last leap second (ERFA's leap-second table).
+UTC_STEPS = [
+    (datetime.datetime(1961, 1, 1), "offset +0.005 s"),
+    (datetime.datetime(1961, 8, 1), "offset -0.05 s"),
+    (datetime.datetime(1962, 1, 1), "new rate (0.0011232 s/day)"),
+    (datetime.datetime(1963, 11, 1), "offset +0.1 s"),
+    (datetime.datetime(1964, 1, 1), "new rate (0.001296 s/day)"),
+    (datetime.datetime(1965, 9, 1), "offset +0.1 s"),
+    (datetime.datetime(1966, 1, 1), "new rate (0.002592 s/day)"),
+    (datetime.datetime(1968, 2, 1), "offset -0.1 s"),
+    (datetime.datetime(1972, 1, 1), "whole leap seconds: 10 s, no drift"),
+    (datetime.datetime(2017, 1, 1), "the leap second at 2016-12-31 23:59:60"),
+]
+
+
+def utc_1960s_sheet(doc, sheet):
+    cols = 10
+    note(sheet, 0,
+         "UTC before whole leap seconds: from 1960 to 1971 UTC ran at a slightly different "
+         "rate from TAI and stepped by fractions of a second; TAI - UTC grew by a fixed "
+         "number of seconds a day. Each row is a day on which it changed (ERFA's table): "
+         "TAI - UTC at 00:00 UTC two days before, one day before and on the day, and the "
+         "step itself (the change over the last day, less the day's drift before it). "
+         "Uses SKY.LEAPSECONDS, SKY.LEAPSECONDS.UNTIL, SKY.TEXT.ISO and SKY.DELTAT "
+         "(DUT1 taken as 0).", cols)
+    header(sheet, 1, [
+        "Date of the change (UTC, 00:00)", "What changed", "TAI - UTC two days before (s)",
+        "TAI - UTC one day before (s)", "TAI - UTC on the day (s)", "Drift per day before (s)",
+        "Step at 00:00 (s)", "TAI at that 00:00 UTC (ISO text)",
+        "Delta T then (s, DUT1 = 0)", "Days since the row above",
+    ])
+    first = 2
+    last = first + len(UTC_STEPS) - 1
+    sheet.getCellRangeByPosition(0, first, 1, last).setDataArray(
+        tuple((_serial(day), what) for day, what in UTC_STEPS))
+    format_range(sheet, 0, first, last, number_format(doc, "YYYY-MM-DD"))
+    _columns(doc, sheet, first, last, 2, [
+        ("=SKY.LEAPSECONDS(A{r}-2)", "0.0000000"),
+        ("=SKY.LEAPSECONDS(A{r}-1)", "0.0000000"),
+        ("=SKY.LEAPSECONDS(A{r})", "0.0000000"),
+        ("=D{r}-C{r}", "0.0000000"),
+        # Rounded to a nanosecond, so that no step shows as -0.0000000.
+        ("=ROUND((E{r}-D{r})-F{r};9)", "+0.0000000;-0.0000000;0.0000000"),
+        ('=SKY.TEXT.ISO(A{r};"UTC";"TAI";;7)', "@"),
+        ("=SKY.DELTAT(A{r})", "0.0000000"),
+    ])
+    fill_shifted(sheet, 9, first + 1, last, "=A{r}-A{t}", first)
+    format_range(sheet, 9, first, last, number_format(doc, "#,##0"))
+    end = last + 2
+    rows = [
+        ("The leap-second table is vouched for until (ERFA)", "=SKY.LEAPSECONDS.UNTIL()",
+         "YYYY-MM-DD"),
+        ("TAI - UTC on that day (s; no leap second since 2016-12-31 is assumed)",
+         f"=SKY.LEAPSECONDS(E{end + 1})", "0"),
+    ]
+    for k, (label, formula, code) in enumerate(rows):
+        sheet.getCellByPosition(0, end + k).setString(label)
+        sheet.getCellRangeByPosition(0, end + k, 3, end + k).merge(True)
+        cell = sheet.getCellByPosition(4, end + k)
+        cell.setFormula(formula)
+        cell.NumberFormat = number_format(doc, code)
+        cell.HoriJustify = RIGHT
+    widths(sheet, [3.0, 6.8, 3.0, 3.0, 3.0, 2.8, 2.8, 6.2, 3.0, 2.4])
+
+
+def historical_record_book(office, out_dir):
+    doc = office.new_sheet()
+    try:
+        chronicle_sheet(doc, _sheet(doc, 0, "Chronicle"))
+        calendars_sheet(doc, _sheet(doc, 1, "Calendars"))
+        deltat_sheet(doc, _sheet(doc, 2, "Delta T and sky"))
+        utc_1960s_sheet(doc, _sheet(doc, 3, "1960s UTC"))
+        return _save(office, doc, out_dir, "historical_record.ods")
+    finally:
+        doc.close(True)
+
+
+# ---- meteor_watch.ods: an invented club's meteor watches, nights and the Sun -----------
+
+CLUB = "Tollmere Meteor Section"
+WATCH_SITE = "Whinburn Common"
+WATCH_LATITUDE = 54.62  # degrees north, invented
+WATCH_LONGITUDE = -2.35  # degrees east (west negative), invented
+WATCH_UTC_OFFSET = 0.0  # the section keeps its tables in UTC all year
+NIGHTS_YEAR = 2027
+
+# Showers the section watches, with the solar longitude (J2000) of their listed peaks:
+# approximate values of the kind meteor-shower calendars give, from memory, for the
+# example only.
+SHOWERS = [
+    ("QUA", "Quadrantids", 283.15),
+    ("LYR", "Lyrids", 32.32),
+    ("ETA", "eta Aquariids", 45.5),
+    ("PER", "Perseids", 140.0),
+    ("ORI", "Orionids", 208.0),
+    ("LEO", "Leonids", 235.27),
+    ("GEM", "Geminids", 262.2),
+]
+WATCH_OBSERVERS = ("HB", "JW", "LP", "SO", "TN")
+
+# Invented watch periods in 2026 (UTC): shower, start, minutes, and a typical rate of
+# shower meteors an hour for the invented counts.
+WATCH_PLAN = [
+    ("QUA", (2026, 1, 4, 2, 0), 90, 35), ("QUA", (2026, 1, 4, 3, 30), 90, 48),
+    ("QUA", (2026, 1, 4, 4, 15), 75, 52),
+    ("LYR", (2026, 4, 22, 22, 30), 90, 6), ("LYR", (2026, 4, 23, 0, 0), 90, 9),
+    ("LYR", (2026, 4, 23, 1, 30), 75, 11),
+    ("ETA", (2026, 5, 6, 1, 45), 60, 4),
+    ("PER", (2026, 8, 11, 22, 0), 90, 18), ("PER", (2026, 8, 11, 23, 30), 90, 27),
+    ("PER", (2026, 8, 12, 21, 45), 90, 30), ("PER", (2026, 8, 12, 23, 15), 90, 46),
+    ("PER", (2026, 8, 13, 0, 45), 90, 58), ("PER", (2026, 8, 13, 22, 0), 90, 24),
+    ("PER", (2026, 8, 14, 0, 0), 90, 19),
+    ("ORI", (2026, 10, 21, 1, 0), 90, 9), ("ORI", (2026, 10, 21, 2, 30), 90, 13),
+    ("LEO", (2026, 11, 17, 2, 30), 90, 7), ("LEO", (2026, 11, 17, 4, 0), 90, 10),
+    ("GEM", (2026, 12, 13, 19, 30), 90, 28), ("GEM", (2026, 12, 13, 21, 0), 90, 44),
+    ("GEM", (2026, 12, 13, 22, 30), 90, 55), ("GEM", (2026, 12, 14, 0, 0), 90, 62),
+    ("GEM", (2026, 12, 14, 20, 0), 90, 38),
+]
+
+
+def invented_watches(seed=20260812):
+    """(start, end, observer, shower, shower meteors, sporadic meteors) per watch."""
+    rng = random.Random(seed)
+    rows = []
+    for shower, start, minutes, rate in WATCH_PLAN:
+        t0 = _serial(datetime.datetime(*start))
+        hours = minutes / 60.0
+        count = max(0, round(rng.gauss(rate * hours, (rate * hours) ** 0.5)))
+        sporadic = max(0, round(rng.gauss(7.0 * hours, 2.0)))
+        rows.append((t0, t0 + minutes / 1440.0, rng.choice(WATCH_OBSERVERS), shower,
+                     float(count), float(sporadic)))
+    return rows
+
+
+def watch_log_sheet(doc, sheet):
+    watches = invented_watches()
+    cols = 20
+    note(sheet, 0,
+         f"{CLUB} (an INVENTED club; observers, watches and counts are made up): the 2026 "
+         "watch log, times in UTC, reduced to solar longitude as meteor work indexes showers "
+         "(the Sun's apparent longitude on the ecliptic and equinox of J2000.0), and the "
+         "instant next year when the Sun is back at the same solar longitude (the same point "
+         "of the shower's year). Uses SKY.SUN.SOLARLON, SKY.SUN.REACHES, SKY.WRAP.180 and "
+         "SKY.TEXT.ISO. Rates are plain counts per hour of watching (no correction for the "
+         "radiant's altitude or the sky's limiting magnitude).", cols)
+    sheet.getRows().getByIndex(0).Height = 1900
+    caution(sheet, 1, cols)
+    header(sheet, 2, [
+        "No.", "Start (UTC)", "End (UTC)", "Observer", "Shower", "Shower meteors",
+        "Sporadic meteors", "Watch (h)", "Shower meteors per hour", "Mid-time (UTC)",
+        "Solar longitude at mid-time (deg, J2000)", "Solar longitude at start (deg)",
+        "Solar longitude at end (deg)", "Longitude covered (deg)",
+        "Listed peak longitude (deg)", "Mid-time from the peak (deg of solar longitude)",
+        "Sun at the same longitude next year (UTC)", "Days later",
+        "Later than the same calendar date and time next year (h)",
+        "Next year's instant (ISO text, UTC)",
+    ])
+    first, last = 3, 3 + len(watches) - 1
+    sheet.getCellRangeByPosition(0, first, 6, last).setDataArray(
+        tuple((float(k + 1),) + w for k, w in enumerate(watches)))
+    for col in (1, 2):
+        format_range(sheet, col, first, last, number_format(doc, "YYYY-MM-DD HH:MM"))
+    sheet.getCellRangeByPosition(3, first, 4, last).HoriJustify = CENTER
+    table_first = last + 4  # 0-based row of the first shower in the table below
+    table = f"$A${table_first + 1}:$C${table_first + len(SHOWERS)}"
+    _columns(doc, sheet, first, last, 7, [
+        ("=(C{r}-B{r})*24", "0.00"),
+        ("=F{r}/H{r}", "0.0"),
+        ("=(B{r}+C{r})/2", "YYYY-MM-DD HH:MM"),
+        ("=SKY.SUN.SOLARLON(J{r})", "0.0000"),
+        ("=SKY.SUN.SOLARLON(B{r})", "0.0000"),
+        ("=SKY.SUN.SOLARLON(C{r})", "0.0000"),
+        ("=SKY.WRAP.180(M{r}-L{r})", "0.0000"),
+        (f"=VLOOKUP(E{{r}};{table};3;0)", "0.00"),
+        ("=SKY.WRAP.180(K{r}-O{r})", "+0.000;-0.000"),
+        # Searching from a day after the watch finds next year's crossing.
+        ("=SKY.SUN.REACHES(K{r};J{r}+1)", "YYYY-MM-DD HH:MM:SS"),
+        ("=Q{r}-J{r}", "0.0000"),
+        ("=(Q{r}-DATE(YEAR(J{r})+1;MONTH(J{r});DAY(J{r}))-MOD(J{r};1))*24", "+0.00;-0.00"),
+        ("=SKY.TEXT.ISO(Q{r};;;;1)", "@"),
+    ])
+    total = last + 1
+    sheet.getCellByPosition(4, total).setString("Total")
+    for col in (5, 6, 7):
+        letter = column_letter(col)
+        cell = sheet.getCellByPosition(col, total)
+        cell.setFormula(f"=SUM({letter}{first + 1}:{letter}{last + 1})")
+        cell.NumberFormat = number_format(doc, "0.00" if col == 7 else "0")
+
+    sheet.getCellByPosition(0, table_first - 2).setString(
+        "The showers: the solar longitude of each listed peak (approximate values of the kind "
+        "shower calendars give, for the example) and when the Sun reaches it in "
+        f"{NIGHTS_YEAR}.")
+    header(sheet, table_first - 1, [
+        "Code", "Name", "Listed peak (deg, J2000)", f"Sun reaches it in {NIGHTS_YEAR} (UTC)",
+        "Watches in the log", "Shower meteors counted",
+    ])
+    tfirst, tlast = table_first, table_first + len(SHOWERS) - 1
+    sheet.getCellRangeByPosition(0, tfirst, 2, tlast).setDataArray(tuple(SHOWERS))
+    format_range(sheet, 2, tfirst, tlast, number_format(doc, "0.00"))
+    log_codes = f"$E${first + 1}:$E${last + 1}"
+    _columns(doc, sheet, tfirst, tlast, 3, [
+        (f'=SKY.SUN.REACHES(C{{r}};"{NIGHTS_YEAR}-01-01T00:00:00Z")', "YYYY-MM-DD HH:MM"),
+        (f"=COUNTIF({log_codes};A{{r}})", "0"),
+        (f"=SUMIF({log_codes};A{{r}};$F${first + 1}:$F${last + 1})", "0"),
+    ])
+    widths(sheet, [1.2, 3.4, 3.4, 3.4, 2.0, 2.2, 2.0, 1.8, 2.2, 3.4, 2.6, 2.4, 2.4, 2.4,
+                   2.4, 2.8, 4.2, 2.2, 3.0, 4.6])
+
+
+NIGHTS_FIRST = 7  # 0-based row of January 1 on the Year of nights sheet
+
+
+def year_of_nights_sheet(doc, sheet):
+    cols = 12
+    note(sheet, 0,
+         f"Every night of {NIGHTS_YEAR} at the section's {WATCH_SITE} site (an INVENTED site "
+         "and coordinates: SiteLat, SiteLon and UtcOffset are the named cells below; change "
+         "them and the sheet follows). Times are UTC (offset 0): sunset and sunrise (upper "
+         "limb on the horizon, standard refraction), the end and start of astronomical "
+         "twilight (Sun 18 degrees below the horizon), the dark hours between them, the day "
+         "length, the Sun's transit (local apparent noon) and the equation of time then, and "
+         "the sundial (local apparent) time at sunset and at the transit, where it is 12:00 "
+         "by definition (shown as the difference in seconds). In summer the Sun does not get 18 degrees "
+         "below the horizon here: those cells say so in words and the night has no dark "
+         "hours. Uses SKY.SUN.SET, SKY.SUN.RISE (events SUNRISE and ASTRONOMICAL), "
+         "SKY.SUN.DAYLENGTH, SKY.SUN.TRANSIT, SKY.SUN.EQTIME and SKY.SUN.SUNDIAL.", cols)
+    sheet.getRows().getByIndex(0).Height = 2300
+    caution(sheet, 1, cols)
+    params = [
+        ("Latitude (deg, north +), invented  [SiteLat]", WATCH_LATITUDE, "+0.0000;-0.0000"),
+        ("Longitude (deg, east +), invented  [SiteLon]", WATCH_LONGITUDE, "+0.0000;-0.0000"),
+        ("Clock ahead of UTC (h)  [UtcOffset]", WATCH_UTC_OFFSET, "+0.0;-0.0"),
+    ]
+    origin = uno.createUnoStruct("com.sun.star.table.CellAddress")
+    for k, (label, value, code) in enumerate(params):
+        row = 2 + k
+        sheet.getCellByPosition(0, row).setString(label)
+        sheet.getCellRangeByPosition(0, row, 2, row).merge(True)
+        cell = sheet.getCellByPosition(3, row)
+        cell.setValue(value)
+        cell.NumberFormat = number_format(doc, code)
+        name = label.split("[")[1].rstrip("]")
+        doc.NamedRanges.addNewByName(name, f"$'Year of nights'.$D${row + 1}", origin, 0)
+    first, last = NIGHTS_FIRST, NIGHTS_FIRST + 364
+    span = "{c}" + str(first + 1) + ":{c}" + str(last + 1)
+    lines = [
+        ("Dark hours in the year (h); nights with none",
+         ("=SUM(" + span.format(c="F") + ")", "#,##0"),
+         ("=SUMPRODUCT(ISTEXT(" + span.format(c="C") + "))", "0")),
+        ("Longest and shortest day (h)",
+         ("=MAX(" + span.format(c="G") + ")", "0.00"),
+         ("=MIN(" + span.format(c="G") + ")", "0.00")),
+        ("Equation of time, highest and lowest (min)",
+         ("=MAX(" + span.format(c="I") + ")", "+0.00;-0.00"),
+         ("=MIN(" + span.format(c="I") + ")", "+0.00;-0.00")),
+    ]
+    for k, (label, a, b) in enumerate(lines):
+        row = 2 + k
+        sheet.getCellByPosition(5, row).setString(label)
+        sheet.getCellRangeByPosition(5, row, 7, row).merge(True)
+        for col, (formula, code) in ((8, a), (9, b)):
+            cell = sheet.getCellByPosition(col, row)
+            cell.setFormula(formula)
+            cell.NumberFormat = number_format(doc, code)
+    header(sheet, 6, [
+        "Date (UTC + UtcOffset)", "Sunset", "End of astronomical twilight (evening)",
+        "Start of astronomical twilight (next morning)", "Sunrise (next morning)",
+        "Dark hours (Sun below -18 deg)", "Day length, sunrise to sunset (h)",
+        "Transit of the Sun (local apparent noon)", "Equation of time at the transit (min)",
+        "Sundial time at sunset", "Sundial time at the transit minus 12:00 (s)",
+        "Sunset to next sunrise (h)",
+    ])
+    start = _serial(datetime.datetime(NIGHTS_YEAR, 1, 1))
+    sheet.getCellRangeByPosition(0, first, 0, last).setDataArray(
+        tuple((start + k,) for k in range(365)))
+    format_range(sheet, 0, first, last, number_format(doc, "YYYY-MM-DD DDD"))
+    site = "SiteLat;SiteLon;;UtcOffset"
+    _columns(doc, sheet, first, last, 1, [
+        (f"=SKY.SUN.SET(A{{r}};{site})", "HH:MM:SS"),
+        (f'=SKY.SUN.SET(A{{r}};{site};"ASTRONOMICAL")', "HH:MM:SS"),
+        (f'=SKY.SUN.RISE(A{{r}}+1;{site};"ASTRONOMICAL")', "HH:MM:SS"),
+        (f"=SKY.SUN.RISE(A{{r}}+1;{site})", "HH:MM:SS"),
+        ("=IF(AND(ISNUMBER(C{r});ISNUMBER(D{r}));(D{r}-C{r})*24;0)", "0.00"),
+        (f"=SKY.SUN.DAYLENGTH(A{{r}};{site})", "0.00"),
+        (f"=SKY.SUN.TRANSIT(A{{r}};{site})", "HH:MM:SS"),
+        # The transit is on the local clock; the Sun's functions take UTC.
+        ("=SKY.SUN.EQTIME(H{r}-UtcOffset/24)", "+0.00;-0.00"),
+        ("=SKY.SUN.SUNDIAL(B{r}-UtcOffset/24;SiteLon)", "HH:MM:SS"),
+        ("=(MOD(SKY.SUN.SUNDIAL(H{r}-UtcOffset/24;SiteLon);1)-0.5)*86400", "+0.0000;-0.0000"),
+        ("=(E{r}-B{r})*24", "0.00"),
+    ])
+    for col in (2, 3):
+        sheet.getCellRangeByPosition(col, first, col, last).IsTextWrapped = True
+    widths(sheet, [3.2, 2.0, 3.6, 3.6, 2.4, 2.4, 2.6, 2.8, 2.6, 2.6, 2.8, 2.6])
+
+
+def seasons_sheet(doc, sheet):
+    cols = 14
+    note(sheet, 0,
+         "Equinoxes and solstices of 2020 to 2035 (when the Sun's apparent longitude, true "
+         "equinox of date, is 0, 90, 180 and 270 degrees), in UTC, and the lengths of the "
+         "seasons they open (northern-hemisphere names). Uses SKY.SEASON (on UTC and TT), "
+         "SKY.SEASON.LENGTH and SKY.SUN.LON (the Sun's longitude at the June solstice, "
+         "90 degrees by definition).", cols)
+    caution(sheet, 1, cols)
+    header(sheet, 2, [
+        "Year", "March equinox (UTC)", "June solstice (UTC)", "September equinox (UTC)",
+        "December solstice (UTC)", "Spring, March to June (d)", "Summer, June to September (d)",
+        "Autumn, September to December (d)", "Winter, December to March (d)",
+        "Spring and summer minus autumn and winter (d)", "March equinox to the next (d)",
+        "March equinox (TT)",
+        "TT - UTC then (s)", "Sun's longitude at the June solstice (deg)",
+    ])
+    years = list(range(2020, 2036))
+    first, last = 3, 3 + len(years) - 1
+    sheet.getCellRangeByPosition(0, first, 0, last).setDataArray(tuple((float(y),) for y in years))
+    when = "YYYY-MM-DD HH:MM:SS"
+    _columns(doc, sheet, first, last, 1, [
+        ('=SKY.SEASON(A{r};"MARCH")', when),
+        ('=SKY.SEASON(A{r};"JUNE")', when),
+        ('=SKY.SEASON(A{r};"SEPTEMBER")', when),
+        ('=SKY.SEASON(A{r};"DECEMBER")', when),
+        ('=SKY.SEASON.LENGTH(A{r};"MARCH")', "0.0000"),
+        ('=SKY.SEASON.LENGTH(A{r};"JUNE")', "0.0000"),
+        ('=SKY.SEASON.LENGTH(A{r};"SEPTEMBER")', "0.0000"),
+        ('=SKY.SEASON.LENGTH(A{r};"DECEMBER")', "0.0000"),
+        # The northern spring and summer are longer: the Earth is near aphelion then.
+        ("=(F{r}+G{r})-(H{r}+I{r})", "+0.0000;-0.0000"),
+        ('=SKY.SEASON(A{r}+1;"MARCH")-B{r}', "0.0000"),
+        ('=SKY.SEASON(A{r};"MARCH";"TT")', when),
+        ("=(L{r}-B{r})*86400", "0.000"),
+        ("=SKY.SUN.LON(C{r})", "0.000000"),
+    ])
+    widths(sheet, [1.4, 4.2, 4.2, 4.2, 4.2, 2.4, 2.4, 2.4, 2.4, 2.8, 2.6, 4.2, 2.2, 3.0])
+
+
+# Invented marker directions (ICRS) for the elongation block: one near the Sun in late
+# March, one at quadrature, one near opposition.
+SUN_MARKERS = [
+    ("Marker A", "00h20m00s", "+05°30'00\""),
+    ("Marker B", "06h30m00s", "+23°00'00\""),
+    ("Marker C", "13h05m00s", "-06°30'00\""),
+]
+SUN_MONTH = (NIGHTS_YEAR, 3)
+
+
+def sun_sheet(doc, sheet):
+    cols = 22
+    note(sheet, 0,
+         f"The Sun at 00:00 UTC on each day of March {SUN_MONTH[0]}, geocentric: ecliptic "
+         "longitude and latitude, right ascension and declination in the frames TRUE (true "
+         "equator and equinox of date, as almanacs give apparent places), DATE (mean equinox "
+         "of date) and J2000, and the kinds APPARENT (light time and aberration), ASTROMETRIC "
+         "(light time only) and GEOMETRIC; what each step changes; and the distance. Below: "
+         "three invented marker directions, their elongation from the Sun and their "
+         "Sun-centred ecliptic longitude and latitude (mean ecliptic of date) over the month. "
+         "Uses SKY.SUN.LON, SKY.SUN.LAT, SKY.SUN.RA, SKY.SUN.DEC, SKY.SUN.DIST, "
+         "SKY.SUN.ELONGATION, SKY.SUN.RELATIVE.LON, SKY.SUN.RELATIVE.LAT, SKY.WRAP.180, "
+         "SKY.TEXT.HMS, SKY.TEXT.DMS, SKY.ANGLE.HOURS and SKY.ANGLE.", cols)
+    sheet.getRows().getByIndex(0).Height = 1900
+    caution(sheet, 1, cols)
+    header(sheet, 2, [
+        "Date (UTC)", "Lon, TRUE, APPARENT (deg)", "Lon, DATE, APPARENT (deg)",
+        "Lon, J2000, APPARENT (deg)", "Lon, TRUE, GEOMETRIC (deg)",
+        "Lon, TRUE, ASTROMETRIC (deg)", 'Aberration: APPARENT - ASTROMETRIC (")',
+        'Light time: ASTROMETRIC - GEOMETRIC (")', 'Nutation: TRUE - DATE (")',
+        "Precession since J2000: DATE - J2000 (deg)", 'Lat, TRUE (")', 'Lat, J2000 (")',
+        "RA, TRUE (deg)", "RA, TRUE (HMS)", "Dec, TRUE (deg)", "Dec, TRUE (DMS)",
+        "RA, DATE, APPARENT (deg)", "Dec, DATE, APPARENT (deg)",
+        "RA, J2000, ASTROMETRIC (deg)", "Dec, J2000, ASTROMETRIC (deg)", "Distance (au)",
+        "Light time (min)",
+    ])
+    days = 31
+    first, last = 3, 3 + days - 1
+    start = _serial(datetime.datetime(SUN_MONTH[0], SUN_MONTH[1], 1))
+    sheet.getCellRangeByPosition(0, first, 0, last).setDataArray(
+        tuple((start + k,) for k in range(days)))
+    format_range(sheet, 0, first, last, number_format(doc, "YYYY-MM-DD HH:MM"))
+    deg, sdeg = "0.000000", "+0.000000;-0.000000"
+    _columns(doc, sheet, first, last, 1, [
+        ("=SKY.SUN.LON(A{r})", deg),
+        ('=SKY.SUN.LON(A{r};;"DATE")', deg),
+        ('=SKY.SUN.LON(A{r};;"J2000")', deg),
+        ('=SKY.SUN.LON(A{r};;"TRUE";"GEOMETRIC")', deg),
+        ('=SKY.SUN.LON(A{r};;"TRUE";"ASTROMETRIC")', deg),
+        ("=SKY.WRAP.180(B{r}-F{r})*3600", "+0.000;-0.000"),
+        ("=SKY.WRAP.180(F{r}-E{r})*3600", "+0.0000;-0.0000"),
+        ("=SKY.WRAP.180(B{r}-C{r})*3600", "+0.000;-0.000"),
+        ("=SKY.WRAP.180(C{r}-D{r})", "+0.000000;-0.000000"),
+        ("=SKY.SUN.LAT(A{r})*3600", "+0.000;-0.000"),
+        ('=SKY.SUN.LAT(A{r};;"J2000")*3600', "+0.000;-0.000"),
+        ("=SKY.SUN.RA(A{r})", deg),
+        ("=SKY.TEXT.HMS(M{r};2)", "@"),
+        ("=SKY.SUN.DEC(A{r})", sdeg),
+        ("=SKY.TEXT.DMS(O{r};1)", "@"),
+        ('=SKY.SUN.RA(A{r};;"DATE")', deg),
+        ('=SKY.SUN.DEC(A{r};;"DATE")', sdeg),
+        ('=SKY.SUN.RA(A{r};;"J2000";"ASTROMETRIC")', deg),
+        ('=SKY.SUN.DEC(A{r};;"J2000";"ASTROMETRIC")', sdeg),
+        ("=SKY.SUN.DIST(A{r})", "0.0000000"),
+        # Light takes 499.004784 s to cross 1 au (IAU 2012 au, c).
+        ("=U{r}*499.004784/60", "0.0000"),
+    ])
+
+    # The invented markers and their places relative to the Sun.
+    mt = last + 2
+    sheet.getCellByPosition(0, mt).setString(
+        "Invented marker directions (ICRS). Marker A comes within a few degrees of the Sun "
+        "late in the month: never point optics at or near the Sun (see the caution above).")
+    header(sheet, mt + 1, ["Marker", "RA as typed", "Dec as typed", "RA (deg)", "Dec (deg)"])
+    mfirst, mlast = mt + 2, mt + 1 + len(SUN_MARKERS)
+    sheet.getCellRangeByPosition(0, mfirst, 2, mlast).setDataArray(tuple(SUN_MARKERS))
+    _columns(doc, sheet, mfirst, mlast, 3, [
+        ("=SKY.ANGLE.HOURS(B{r})", deg), ("=SKY.ANGLE(C{r})", sdeg),
+    ])
+    titles = ["Date (UTC)"]
+    for name, _, _ in SUN_MARKERS:
+        titles += [f"{name}: elongation (deg)", f"{name}: Sun-centred lon (deg)",
+                   f"{name}: ecliptic lat (deg)"]
+    ht = mlast + 2
+    header(sheet, ht, titles)
+    dfirst, dlast = ht + 1, ht + days
+    _columns(doc, sheet, dfirst, dlast, 0, [("=A{t}", "YYYY-MM-DD HH:MM")],
+             source_first=first, right=False)
+    for k in range(len(SUN_MARKERS)):
+        ra, dec = f"$D${mfirst + k + 1}", f"$E${mfirst + k + 1}"
+        _columns(doc, sheet, dfirst, dlast, 1 + 3 * k, [
+            (f"=SKY.SUN.ELONGATION({ra};{dec};A{{r}})", "0.0000"),
+            (f"=SKY.SUN.RELATIVE.LON({ra};{dec};A{{r}})", "+0.0000;-0.0000"),
+            (f"=SKY.SUN.RELATIVE.LAT({ra};{dec};A{{r}})", "+0.0000;-0.0000"),
+        ])
+    widths(sheet, [3.4] + [2.6] * 4 + [2.9, 2.9, 2.9] + [2.6] * 5 + [3.0, 2.6, 3.0]
+           + [2.6] * 2 + [2.9, 2.9] + [2.6] * 2)
+
+
+def meteor_watch_book(office, out_dir):
+    doc = office.new_sheet()
+    try:
+        watch_log_sheet(doc, _sheet(doc, 0, "Watch log"))
+        year_of_nights_sheet(doc, _sheet(doc, 1, "Year of nights"))
+        seasons_sheet(doc, _sheet(doc, 2, "Seasons"))
+        sun_sheet(doc, _sheet(doc, 3, "Sun"))
+        return _save(office, doc, out_dir, "meteor_watch.ods")
+    finally:
+        doc.close(True)
+
+
 def _save(office, doc, out_dir, name):
     landscape_fit_to_width(doc)
     doc.calculateAll()
@@ -736,7 +1398,8 @@ def target_list_book(office, out_dir):
 def build(oxt, out_dir):
     os.makedirs(out_dir, exist_ok=True)
     with officekit.Office(oxt=oxt) as office:
-        paths = [observing_log_book(office, out_dir), target_list_book(office, out_dir)]
+        paths = [observing_log_book(office, out_dir), target_list_book(office, out_dir),
+                 historical_record_book(office, out_dir), meteor_watch_book(office, out_dir)]
     for path in paths:
         print(path)
     return paths
