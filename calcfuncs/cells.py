@@ -95,6 +95,8 @@ def _read_option(arg, value):
             raise SkyError(f"{arg.name} must be one of " + ", ".join(arg.choices))
         word = " ".join(value.replace("_", " ").split()).upper()
         word = dict(arg.aliases).get(word, word)
+        # Choices are matched with spaces and underscores alike (EARTH_RADII, EARTH RADII).
+        word = {c.replace("_", " "): c for c in arg.choices}.get(word, word)
         if word not in arg.choices:
             noun = "nutation model" if arg.name == "nutation" else arg.name
             raise SkyError(f'unknown {noun} "{value}"; use ' + ", ".join(arg.choices))

@@ -1014,7 +1014,143 @@ SUN_FUNCTIONS = (
     ),
 )
 
-FUNCTIONS = FUNCTIONS + SUN_FUNCTIONS
+
+# ---- the Moon, and observation times ------------------------------------------------------
+
+_MOON_MODEL = (
+    "The Moon from ERFA moon98 (Meeus's ELP-2000/82 truncation: RMS 2.9\", worst 18\" "
+    "and 32 km against ELP/MPP02 over 1950-2100, as ERFA states; up to 31\" and 46 km against "
+    "DE440 in our tests; accepted 1000-3000 with "
+    "degrading accuracy); light time and annual aberration for APPARENT; geocentric (the "
+    "Moon's parallax, up to 1 degree, is not applied). The Sun as SKY.SUN.LON."
+)
+_MOON_TIME = (_SUN_TIME, _SCALE)
+_MOON_PHASE = Arg("phase", "choice", "NEW (default), FIRST (quarter), FULL or LAST (quarter).",
+                  default="NEW", choices=("NEW", "FIRST", "FULL", "LAST"))
+_FORM = Arg("form", "choice", "JD (default, one cell resolves about 40 us) or MJD (the same "
+            "minus 2400000.5, about 1 us).", default="JD", choices=("JD", "MJD"))
+_TARGET = (_angle("ra", "RA of the target (ICRS, a catalogue place)"),
+           _angle("dec", "Dec of the target (ICRS)"))
+_OBSTIME_MODEL = (
+    "Geometric (Roemer) light-time delay to first order, r . n / c, with the Earth's "
+    "centre from ERFA epv00 (a few km, 10 us, over 1900-2100); the Shapiro delay (under "
+    "0.1 ms away from the Sun) and the observer's offset from the geocentre (up to 21 ms) "
+    "are left out. Valid 1000-3000."
+)
+
+
+def _moon_position(name, method, summary, result, impl):
+    return CellFunction(name=name, method=method, family="moon", summary=summary,
+                        args=_MOON_TIME + (_SUN_FRAME, _SUN_KIND), result=result, impl=impl,
+                        model=_MOON_MODEL)
+
+
+MOON_FUNCTIONS = (
+    _moon_position("SKY.MOON.LON", "skyMoonLon", "Ecliptic longitude of the Moon, geocentric.",
+                   "degrees in [0, 360)", "moon:lon_cells"),
+    _moon_position("SKY.MOON.LAT", "skyMoonLat", "Ecliptic latitude of the Moon, geocentric.",
+                   "degrees", "moon:lat_cells"),
+    _moon_position("SKY.MOON.RA", "skyMoonRa", "Right ascension of the Moon, geocentric.",
+                   "degrees in [0, 360)", "moon:ra_cells"),
+    _moon_position("SKY.MOON.DEC", "skyMoonDec", "Declination of the Moon, geocentric.",
+                   "degrees", "moon:dec_cells"),
+    CellFunction(
+        name="SKY.MOON.DIST", method="skyMoonDist", family="moon",
+        summary="Distance of the Moon from the Earth's centre.",
+        args=_MOON_TIME + (Arg("unit", "choice", "KM (default) or EARTH_RADII (6378.1366 km).",
+                               default="KM", choices=("KM", "EARTH_RADII")),),
+        result="kilometres or Earth radii", impl="moon:distance_cells", model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.MOON.ELONGATION", method="skyMoonElongation", family="moon",
+        summary="The Moon's apparent ecliptic longitude minus the Sun's: 0 at new Moon, 90 "
+        "at first quarter, 180 at full, 270 at last quarter.",
+        args=_MOON_TIME, result="degrees in [0, 360)", impl="moon:elongation_cells",
+        model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.MOON.PHASE.ANGLE", method="skyMoonPhaseAngle", family="moon",
+        summary="Phase angle of the Moon: the angle Sun-Moon-Earth (0 full, 180 new).",
+        args=_MOON_TIME, result="degrees", impl="moon:phase_angle_cells", model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.MOON.ILLUMINATED", method="skyMoonIlluminated", family="moon",
+        summary="Illuminated fraction of the Moon's disc, (1 + cos phase angle) / 2.",
+        args=_MOON_TIME, result="fraction 0 to 1", impl="moon:illuminated_cells",
+        model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.MOON.AGE", method="skyMoonAge", family="moon",
+        summary="Age of the Moon: days since the last new Moon.",
+        args=_MOON_TIME, result="days", impl="moon:age_cells", model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.MOON.NODE", method="skyMoonNode", family="moon",
+        summary="Ecliptic longitude of the Moon's ascending node, mean ecliptic and equinox "
+        "of date.",
+        args=_MOON_TIME + (Arg("kind", "choice", "TRUE (default: the osculating node of the "
+                               "Moon's orbit) or MEAN (Simon et al. 1994, IERS 2003, ERFA "
+                               "faom03).", default="TRUE", choices=("TRUE", "MEAN")),),
+        result="degrees in [0, 360)", impl="moon:node_cells", model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.MOON.PHASE.NEXT", method="skyMoonPhaseNext", family="moon",
+        summary="The next instant after a time of a phase of the Moon (new, first quarter, "
+        "full, last quarter).",
+        args=_MOON_TIME + (_MOON_PHASE, Arg("result_scale", "scale", "Time scale of the "
+                           "result. Default: that of the time argument.", default=None,
+                           choices=SCALES)),
+        result="a date-time value on the result scale", impl="moon:next_phase_cells",
+        model="Found by the one event search on SKY.MOON.ELONGATION (to well under a second "
+        "of the model; the model's own error moves a phase by up to about a minute). "
+        + _MOON_MODEL),
+    CellFunction(
+        name="SKY.ECLIPSE.NODE.DISTANCE", method="skyEclipseNodeDistance", family="moon",
+        summary="The Sun's distance in ecliptic longitude from the nearer node of the "
+        "Moon's orbit (the true node): small near an eclipse season.",
+        args=_MOON_TIME, result="degrees, 0 to 90", impl="moon:node_distance_cells",
+        model=_MOON_MODEL),
+    CellFunction(
+        name="SKY.ECLIPSE.POSSIBLE", method="skyEclipsePossible", family="moon",
+        summary="At a new or full Moon, whether a solar or lunar eclipse is possible by the "
+        "ecliptic limits.",
+        args=_MOON_TIME, result='text: "solar eclipse possible", "no solar eclipse", "lunar '
+        'eclipse possible" or "no lunar eclipse"',
+        impl="moon:eclipse_cells",
+        model="Ecliptic limits (common practice): solar when the Sun is within 18.5 degrees "
+        "of a node at new Moon, lunar (umbral) within 12.2 degrees at full Moon; these are "
+        "the widest limits, so 'possible' is not 'certain'. Give the phase's instant "
+        "(SKY.MOON.PHASE.NEXT). " + _MOON_MODEL),
+    CellFunction(
+        name="SKY.BJD.TDB", method="skyBjdTdb", family="moon",
+        summary="Barycentric Julian Date on TDB (BJD_TDB) of an observation of a target: "
+        "the time the light would have reached the solar system's barycentre.",
+        args=(_SUN_TIME,) + _TARGET + (_SCALE, _FORM), result="BJD_TDB in days (JD or MJD form)",
+        impl="obstimes:bjd_tdb_cells", model=_OBSTIME_MODEL),
+    CellFunction(
+        name="SKY.HJD.UTC", method="skyHjdUtc", family="moon",
+        summary="Heliocentric Julian Date on UTC (HJD_UTC) of an observation of a target: "
+        "the time the light would have reached the Sun's centre, on the UTC clock.",
+        args=(_SUN_TIME,) + _TARGET + (_SCALE, _FORM), result="HJD_UTC in days (JD or MJD form)",
+        impl="obstimes:hjd_utc_cells",
+        model="Mixing HJD_UTC with BJD_TDB costs over a minute: the names say which. "
+        + _OBSTIME_MODEL),
+    CellFunction(
+        name="SKY.HJD.TT", method="skyHjdTt", family="moon",
+        summary="Heliocentric Julian Date on TT (HJD_TT) of an observation of a target.",
+        args=(_SUN_TIME,) + _TARGET + (_SCALE, _FORM), result="HJD_TT in days (JD or MJD form)",
+        impl="obstimes:hjd_tt_cells", model=_OBSTIME_MODEL),
+    CellFunction(
+        name="SKY.BJD.TDB.DATETIME", method="skyBjdTdbDatetime", family="moon",
+        summary="The UTC date-time of the observation whose BJD_TDB is given (the inverse of "
+        "SKY.BJD.TDB).",
+        args=(Arg("bjd", "number", "The BJD_TDB, in the form given next."),) + _TARGET + (_FORM,),
+        result="a date-time value on UTC", impl="obstimes:bjd_tdb_datetime_cells",
+        model=_OBSTIME_MODEL),
+    CellFunction(
+        name="SKY.HJD.UTC.DATETIME", method="skyHjdUtcDatetime", family="moon",
+        summary="The UTC date-time of the observation whose HJD_UTC is given (the inverse of "
+        "SKY.HJD.UTC).",
+        args=(Arg("hjd", "number", "The HJD_UTC, in the form given next."),) + _TARGET + (_FORM,),
+        result="a date-time value on UTC", impl="obstimes:hjd_utc_datetime_cells",
+        model=_OBSTIME_MODEL),
+)
+
+FUNCTIONS = FUNCTIONS + SUN_FUNCTIONS + MOON_FUNCTIONS
 
 FAMILIES = {
     "about": "About the add-in",
@@ -1024,6 +1160,7 @@ FAMILIES = {
     "coordinates": "Coordinates: ecliptic, equatorial, galactic, invariable; precession; pairs",
     "horizon": "Sidereal time and the horizon",
     "sun": "The Sun and the year (never look at the Sun without a proper solar filter)",
+    "moon": "The Moon, eclipse seasons, and heliocentric and barycentric times",
 }
 
 BY_NAME = {f.name: f for f in FUNCTIONS}
