@@ -43,22 +43,10 @@ def _display(formula):
 
 def freeze_document(doc):
     """Replace our formula cells by their values; return [(sheet, cell, formula)]."""
-    from com.sun.star.sheet.CellFlags import FORMULA
-
     replaced = []
     for i in range(doc.Sheets.getCount()):
         sheet = doc.Sheets.getByIndex(i)
-        ranges = sheet.queryContentCells(FORMULA)
-        cells = []
-        for k in range(ranges.getCount()):
-            block = ranges.getByIndex(k)
-            addr = block.getRangeAddress()
-            formulas = block.getFormulaArray()
-            values = block.getDataArray()
-            for r, (frow, vrow) in enumerate(zip(formulas, values)):
-                for c, (f, v) in enumerate(zip(frow, vrow)):
-                    if _ours(f):
-                        cells.append((addr.StartColumn + c, addr.StartRow + r, f, v))
+        cells = [c for c in officekit.formula_cells(sheet) if _ours(c[2])]
         # Array formulas are one object over their range: clear each once, first.
         for col, row, _f, _v in cells:
             cursor = sheet.createCursorByRange(sheet.getCellByPosition(col, row))

@@ -219,6 +219,20 @@ class Office:
         return out
 
 
+def formula_cells(sheet):
+    """(column, row, formula, value) of every formula cell of a sheet, read a block at
+    a time (one UNO call per block, not per cell)."""
+    from com.sun.star.sheet.CellFlags import FORMULA
+
+    ranges = sheet.queryContentCells(FORMULA)
+    for k in range(ranges.getCount()):
+        block = ranges.getByIndex(k)
+        origin = block.getRangeAddress()
+        for r, (frow, vrow) in enumerate(zip(block.getFormulaArray(), block.getDataArray())):
+            for c, (f, v) in enumerate(zip(frow, vrow)):
+                yield origin.StartColumn + c, origin.StartRow + r, f, v
+
+
 def null_date(doc):
     d = doc.NullDate
     return (d.Year, d.Month, d.Day)

@@ -38,24 +38,18 @@ def _inputs(paths):
 
 def survey(doc):
     """Per sheet: (name, formula cells, [(cell, message)], [error cells])."""
-    from com.sun.star.sheet.CellFlags import FORMULA
     from com.sun.star.sheet.FormulaResult import ERROR
 
     report = []
     for i in range(doc.Sheets.getCount()):
         sheet = doc.Sheets.getByIndex(i)
-        ranges = sheet.queryContentCells(FORMULA)
         n_formulas = 0
         messages = []
-        for k in range(ranges.getCount()):
-            block = ranges.getByIndex(k)
-            origin = block.getRangeAddress()
-            for r, row in enumerate(block.getDataArray()):
-                for c, v in enumerate(row):
-                    n_formulas += 1
-                    if isinstance(v, str) and v.startswith("#SKY"):
-                        cell = sheet.getCellByPosition(origin.StartColumn + c, origin.StartRow + r)
-                        messages.append((cell.AbsoluteName.split(".")[-1], v))
+        for col, row, _formula, v in officekit.formula_cells(sheet):
+            n_formulas += 1
+            if isinstance(v, str) and v.startswith("#SKY"):
+                cell = sheet.getCellByPosition(col, row)
+                messages.append((cell.AbsoluteName.split(".")[-1], v))
         errors = sheet.queryFormulaCells(ERROR)
         error_cells = [errors.getByIndex(k).AbsoluteName for k in range(errors.getCount())]
         report.append((sheet.getName(), n_formulas, messages, error_cells))
