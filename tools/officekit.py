@@ -67,7 +67,8 @@ def install_extension(oxt, profile):
     shutil.copyfile(oxt, staged)
     cmd = [UNOPKG, "add", "-f", f"-env:UserInstallation={file_url(profile)}", staged]
     cmd, _ = _as_unprivileged(cmd, profile)
-    done = subprocess.run(cmd, capture_output=True, text=True, timeout=300)
+    # cwd: the unprivileged user may not enter the folder the tests run from.
+    done = subprocess.run(cmd, capture_output=True, text=True, timeout=300, cwd=profile)
     if done.returncode != 0:
         raise RuntimeError(f"unopkg add failed: {done.stdout}{done.stderr}")
     return done
