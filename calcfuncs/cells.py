@@ -12,7 +12,7 @@ import inspect
 
 import numpy as np
 
-from . import registry
+from . import ephemeris, registry
 from .angles import parse_angle
 from .errors import PREFIX, RowErrors, SkyError
 from .timeinput import null_date_jd, read_times
@@ -85,6 +85,12 @@ def _read_option(arg, value):
             if str(err).startswith("unknown time scale"):
                 raise SkyError(f'unknown {arg.name} "{value}"; use ' + _SCALE_WORDS) from None
             raise
+    if arg.kind == "source":
+        if _is_blank(value) or (type(value) is float and value == 0.0):
+            return arg.default
+        if not isinstance(value, str):
+            raise SkyError(f"{arg.name} must be a text: " + ephemeris.SOURCE_WORDS)
+        return ephemeris.check_source(value)
     if arg.kind == "choice":
         # An empty cell arrives as 0.0 when referenced directly: it means the default.
         if _is_blank(value) or (type(value) is float and value == 0.0):
@@ -224,7 +230,13 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
         if spread:
             values = values[:1]
         msgs_passed = _passed_on(values)
-        if arg.optional and arg.kind in ("number", "angle"):
+        if arg.optional and arg.kind in ("number", "angle") and arg.default is None:
+            # Left out means "not given" (a site that is the geocentre): the core gets
+            # the mask, and the rows a placeholder it never uses.
+            given = np.array([v is not None for v in values], dtype=bool)
+            columns[arg.name + "_given"] = given
+            values = np.where(given, values, 0.0)
+        elif arg.optional and arg.kind in ("number", "angle", "text"):
             values = np.array([arg.default if v is None else v for v in values], dtype=object)
         if arg.kind == "time" and arg.optional:
             # A time only some systems need: rows without one compute at J2000.0 and the

@@ -8,6 +8,8 @@ in the add-in is a few lines on top of ``crossings``.
 
 import numpy as np
 
+SHORT_BRACKET_DAYS = 0.04  # about an hour
+
 
 def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None):
     """TT JDs (as (jd1, jd2) arrays) where ``f`` changes sign in [start, end].
@@ -33,14 +35,34 @@ def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None):
     lo = offsets[:-1][change]
     hi = offsets[1:][change]
     f_lo = a[change]
-    while lo.size and np.max(hi - lo) > tolerance:
+    f_hi = b[change]
+    # Bisection until the bracket is short, then false-position steps: on an hour-long
+    # bracket a smooth function is a straight line to far below the tolerance, so two
+    # or three steps replace the twenty-odd bisections that would remain.
+    while lo.size and np.max(hi - lo) > max(tolerance, SHORT_BRACKET_DAYS):
         mid = 0.5 * (lo + hi)
         f_mid = f(np.full(mid.shape, base), mid)
         same = np.sign(f_mid) == np.sign(f_lo)
         lo = np.where(same, mid, lo)
         f_lo = np.where(same, f_mid, f_lo)
         hi = np.where(same, hi, mid)
-    return np.full(lo.shape, base), 0.5 * (lo + hi)
+        f_hi = np.where(same, f_hi, f_mid)
+    x = 0.5 * (lo + hi)
+    if lo.size and np.max(hi - lo) > tolerance:
+        for _ in range(6):
+            slope = np.where(f_hi != f_lo, (hi - lo) / (f_hi - f_lo), 0.0)
+            new = np.clip(lo - f_lo * slope, lo, hi)
+            settled = np.max(np.abs(new - x)) < 0.1 * tolerance
+            x = new
+            if settled:
+                break
+            f_x = f(np.full(x.shape, base), x)
+            same = np.sign(f_x) == np.sign(f_lo)
+            lo = np.where(same, x, lo)
+            f_lo = np.where(same, f_x, f_lo)
+            hi = np.where(same, hi, x)
+            f_hi = np.where(same, f_hi, f_x)
+    return np.full(lo.shape, base), x
 
 
 def wrap180(degrees):

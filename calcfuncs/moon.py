@@ -28,47 +28,58 @@ LUNAR_LIMIT_DEG = 12.2
 SYNODIC_DAYS = 29.530589
 
 
-def moon_gcrs(tt1, tt2, kind="APPARENT"):
-    """(unit vectors, distance in au, velocity au/day) of the Moon on the GCRS axes."""
+def moon_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
+    """(unit vectors, distance in au) of the Moon on the GCRS axes."""
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    if source != "BUILTIN":  # a JPL kernel: the general pipeline, at TDB
+        from .bodies import place
+        from .timescales import _tt_to_tdb
+
+        # The distance is that of the kind asked for: for APPARENT and ASTROMETRIC to
+        # where the light left the Moon (tens of metres from the geometric one).
+        p = place("MOON", *_tt_to_tdb(tt1, tt2), kind, source)
+        return p.direction, p.distance
     _check_years(tt1, tt2)
     pv = _quiet(erfa.moon98, tt1, tt2)
     p, v = pv["p"], pv["v"]
     distance = np.linalg.norm(p, axis=-1)
     if kind == "GEOMETRIC":
-        return p / distance[..., None], distance, v
+        return p / distance[..., None], distance
     tau = distance * LIGHT_DAYS_PER_AU
     astrometric = p - tau[..., None] * v
     u = astrometric / np.linalg.norm(astrometric, axis=-1)[..., None]
     if kind == "ASTROMETRIC":
-        return u, distance, v
+        return u, distance
     pvh, pvb = _quiet(erfa.epv00, tt1, tt2)
     c = pvb["v"] * LIGHT_DAYS_PER_AU
     bm1 = np.sqrt(1.0 - np.sum(c * c, axis=-1))
     sun_distance = np.linalg.norm(pvh["p"], axis=-1)
-    return erfa.ab(u, c, sun_distance, bm1), distance, v
+    return erfa.ab(u, c, sun_distance, bm1), distance
 
 
-def moon_in(tt1, tt2, system, kind="APPARENT"):
-    u, _, _ = moon_gcrs(tt1, tt2, kind)
+def moon_in(tt1, tt2, system, kind="APPARENT", source="BUILTIN"):
+    u, _ = moon_gcrs(tt1, tt2, kind, source)
     m = frames.system_matrix(system, tt1, tt2)
     return np.einsum("...ij,...j->...i", m, u)
 
 
-def elongation_lon(tt1, tt2):
+def elongation_lon(tt1, tt2, source="BUILTIN"):
     """Apparent ecliptic longitude of the Moon minus the Sun's (true equinox), degrees
     in [0, 360): 0 new, 90 first quarter, 180 full, 270 last quarter."""
-    moon = frames.spherical(moon_in(tt1, tt2, "ECLIPTIC TRUE"))[0]
-    sun = frames.spherical(sun_in(tt1, tt2, "ECLIPTIC TRUE"))[0]
+    # Nutation turns the true ecliptic frame about the ecliptic's own pole (the plane
+    # does not nutate), so a difference of longitudes is the same on the mean ecliptic
+    # of date, whose matrix costs a hundredth as much.
+    moon = frames.spherical(moon_in(tt1, tt2, "ECLIPTIC DATE", "APPARENT", source))[0]
+    sun = frames.spherical(sun_in(tt1, tt2, "ECLIPTIC DATE", "APPARENT", source))[0]
     return np.mod(moon - sun, 360.0)
 
 
-def _phase_angle_rad(tt1, tt2):
+def _phase_angle_rad(tt1, tt2, source="BUILTIN"):
     """Sun-Moon-Earth angle, from the geocentric Sun and Moon vectors."""
     from .sun import sun_gcrs
 
-    um, dm, _ = moon_gcrs(tt1, tt2, "APPARENT")
-    us, ds = sun_gcrs(tt1, tt2, "APPARENT")
+    um, dm = moon_gcrs(tt1, tt2, "APPARENT", source)
+    us, ds = sun_gcrs(tt1, tt2, "APPARENT", source)
     moon = um * dm[..., None]
     sun = us * ds[..., None]
     to_earth = -moon
@@ -80,39 +91,39 @@ def _phase_angle_rad(tt1, tt2):
 # ---- cell functions: place -------------------------------------------------------------
 
 
-def lon_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind))[0]
+def lon_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[0]
 
 
-def lat_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind))[1]
+def lat_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[1]
 
 
-def ra_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind))[0]
+def ra_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[0]
 
 
-def dec_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind))[1]
+def dec_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[1]
 
 
-def distance_cells(time, unit="KM"):
-    d = moon_gcrs(*time.tt(), "GEOMETRIC")[1] * AU_KM
+def distance_cells(time, unit="KM", source="BUILTIN"):
+    d = moon_gcrs(*time.tt(), "GEOMETRIC", source)[1] * AU_KM
     return d / EARTH_RADIUS_KM if unit == "EARTH_RADII" else d
 
 
-def phase_angle_cells(time):
-    return np.degrees(_phase_angle_rad(*time.tt()))
+def phase_angle_cells(time, source="BUILTIN"):
+    return np.degrees(_phase_angle_rad(*time.tt(), source))
 
 
-def illuminated_cells(time):
+def illuminated_cells(time, source="BUILTIN"):
     """Illuminated fraction of the disc, (1 + cos phase angle) / 2."""
-    return 0.5 * (1.0 + np.cos(_phase_angle_rad(*time.tt())))
+    return 0.5 * (1.0 + np.cos(_phase_angle_rad(*time.tt(), source)))
 
 
-def elongation_cells(time):
+def elongation_cells(time, source="BUILTIN"):
     """Moon minus Sun apparent ecliptic longitude, degrees in [0, 360)."""
-    return elongation_lon(*time.tt())
+    return elongation_lon(*time.tt(), source)
 
 
 def age_cells(time):
@@ -154,22 +165,23 @@ def node_cells(time, kind="TRUE"):
 # ---- the phases and eclipse seasons -----------------------------------------------------
 
 
-def _phase_crossings(target, start, end):
+def _phase_crossings(target, start, end, source="BUILTIN"):
     def f(jd1, jd2):
-        return wrap180(elongation_lon(jd1, jd2) - target)
+        return wrap180(elongation_lon(jd1, jd2, source) - target)
 
-    # The elongation grows about 12 degrees a day: 6-hour samples never skip one.
-    a, b = crossings(f, start, end, 0.25, direction=+1, jump=90.0)
+    # The elongation grows 10 to 15 degrees a day and a phase comes once a month:
+    # daily samples never hold two crossings, and never leap 90 degrees.
+    a, b = crossings(f, start, end, 1.0, direction=+1, jump=90.0)
     return a + b
 
 
-def next_phase_cells(time, null_jd, phase="NEW", result_scale=None):
+def next_phase_cells(time, null_jd, phase="NEW", result_scale=None, source="BUILTIN"):
     """The first instant after ``time`` of a phase of the Moon."""
     tt1, tt2 = time.tt()
     jd = np.ravel(tt1 + tt2)
 
     def one(k):
-        found = _phase_crossings(PHASES[phase], jd[k], jd[k] + 32.0)
+        found = _phase_crossings(PHASES[phase], jd[k], jd[k] + 32.0, source)
         after = found[found > jd[k]]
         if not after.size:
             raise SkyError("no such phase found in the month after")

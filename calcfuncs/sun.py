@@ -34,9 +34,15 @@ def _check_years(tt1, tt2):
                                     "(ERFA epv00 and the IAU 2006/2000A frames)")
 
 
-def sun_gcrs(tt1, tt2, kind="APPARENT"):
+def sun_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
     """(unit vectors, distance in au) of the geocentric Sun on the GCRS axes."""
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    if source != "BUILTIN":  # a JPL kernel: the general pipeline, at TDB
+        from .bodies import place
+        from .timescales import _tt_to_tdb
+
+        p = place("SUN", *_tt_to_tdb(tt1, tt2), kind, source)
+        return p.direction, p.distance
     _check_years(tt1, tt2)
     # epv00 wants TDB; TT differs by under 2 ms, which moves the Sun by 0.00008".
     pvh, pvb = _quiet(erfa.epv00, tt1, tt2)  # it warns outside its 1900-2100 fit
@@ -56,9 +62,9 @@ def sun_gcrs(tt1, tt2, kind="APPARENT"):
     return erfa.ab(u, v, distance, bm1), distance
 
 
-def sun_in(tt1, tt2, system, kind="APPARENT"):
+def sun_in(tt1, tt2, system, kind="APPARENT", source="BUILTIN"):
     """Unit vectors of the Sun in a coordinate system of frames.py."""
-    u, _ = sun_gcrs(tt1, tt2, kind)
+    u, _ = sun_gcrs(tt1, tt2, kind, source)
     m = frames.system_matrix(system, tt1, tt2)
     return np.einsum("...ij,...j->...i", m, u)
 
@@ -76,24 +82,24 @@ def sun_longitude(tt1, tt2, frame="TRUE", kind="APPARENT"):
 # ---- cell functions: position ---------------------------------------------------------
 
 
-def lon_cells(time, frame="TRUE", kind="APPARENT"):
-    return sun_longitude(*time.tt(), frame, kind)
+def lon_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[0]
 
 
-def lat_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind))[1]
+def lat_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[1]
 
 
-def ra_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind))[0]
+def ra_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[0]
 
 
-def dec_cells(time, frame="TRUE", kind="APPARENT"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind))[1]
+def dec_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[1]
 
 
-def distance_cells(time):
-    return sun_gcrs(*time.tt(), "GEOMETRIC")[1]
+def distance_cells(time, source="BUILTIN"):
+    return sun_gcrs(*time.tt(), "GEOMETRIC", source)[1]
 
 
 def solar_longitude_cells(time):

@@ -55,6 +55,7 @@ TEXT_POOL = ["12h34m56.7s", "-23°26'21.4\"", "12 34 56.7", "12:34:56.7", "23.5 
 COUNT_POOL = [0, 1, 2, 3.0, 6, 9, 10, -1, 2.5, "3", "x", float("inf"), None]
 SECONDS_POOL = [0.0, 0.3, -0.5, 0.9, 1.5, "0.2", "abc", float("nan"), None]
 CHOICE_EXTRAS = [None, 0.0, "bogus", 5.0, ""]
+SOURCE_POOL = ["BUILTIN", "DE440", "de440", "/no/such/kernel.bsp", "bogus", 5.0, 0.0, "", None]
 
 
 def pool(arg):
@@ -72,6 +73,8 @@ def pool(arg):
         return SECONDS_POOL
     if arg.kind == "real":
         return REAL_POOL
+    if arg.kind == "source" or arg.name == "source":
+        return SOURCE_POOL
     return list(arg.choices) + [arg.choices[-1].lower()] + CHOICE_EXTRAS
 
 

