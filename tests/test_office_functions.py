@@ -285,6 +285,13 @@ HOSTILE = [
     ('=SKY.AIRMASS(-2)', "below the horizon"),
     ('=SKY.PROPER.RA(10;90;5;5;"J2016";"J2020")', "at a pole"),
     ('=SKY.SEPARATION(10;20;30)', "missing"),
+    ('=SKY.PLANET.RA("VULCAN";45500)', 'unknown body "VULCAN"'),
+    ('=SKY.PLANET.RA("PLUTO";45500)', "Pluto is not in the built-in theories"),
+    ('=SKY.PLANET.RA("MARS";45500;;;;"/no/such/kernel.bsp")', "no kernel file"),
+    ('=SKY.PLANET.RA("MARS";"1500-01-01";"TT";;;"' + DE440 + '")', "outside the span of de440.bsp"),
+    ('=SKY.MOON.PHASE.NEXT("2700-01-01";"TT";;;"' + DE440 + '")', "outside the span of de440.bsp"),
+    ('=SKY.PLANET.EVENT.NEXT("VENUS";45500;;"OPPOSITION")', "never comes to opposition"),
+    ('=SKY.BJD.TDB(45500;10;20;;;52)', "give both the latitude and the longitude"),
 ]
 
 
