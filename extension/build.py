@@ -380,6 +380,9 @@ def _oxt_arguments(argv):
     args = parser.parse_args(argv)
     if not args.bundle and (args.platform or args.python_version or args.codesign):
         parser.error("--platform, --python-version and --codesign go with --bundle")
+    if args.platform and not args.python_version:
+        parser.error("--platform needs --python-version: the version of that office's own "
+                     "Python, read from it (see the README), never guessed")
     return args
 
 
