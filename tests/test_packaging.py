@@ -184,6 +184,7 @@ def test_self_contained_build_computes_where_the_office_has_no_numpy(bundled_oxt
     assert probe["path"].index(shadow) < min(dist), probe["path"]
 
 
+@pytest.mark.office  # builds an .oxt: needs the office's SDK and Python
 def test_bundle_signs_every_compiled_module_before_zipping(tmp_path):
     """--codesign runs codesign on each .so/.dylib that goes into the .oxt.  Apple's
     codesign is not on this machine: a stand-in on PATH marks each file it is given, and
@@ -238,6 +239,7 @@ def test_a_glibc_tag_also_takes_older_manylinux_wheels():
 # ---- metadata and upgrading over an older version -------------------------------------
 
 
+@pytest.mark.office  # builds an .oxt: needs the office's SDK
 def test_description_carries_the_metadata(oxt):
     with zipfile.ZipFile(oxt) as z:
         root = ET.fromstring(z.read("description.xml"))
