@@ -2,7 +2,7 @@
 PY := .venv/bin/python
 OXT := dist/eclipsheet.oxt
 
-.PHONY: all setup generate oxt test test-core demo bench clean
+.PHONY: all setup generate oxt oxt-bundle test test-core demo bench clean
 
 all: oxt
 
@@ -15,6 +15,13 @@ generate:
 
 oxt: setup
 	$(PY) extension/build.py oxt $(OXT)
+
+# Self-contained: numpy and pyerfa inside (README, "Self-contained builds for other
+# platforms"). For this machine's office, or another's, e.g.
+#   make oxt-bundle PLATFORM=win_amd64 PYTHON_VERSION=3.11 [CODESIGN=- on a Mac]
+oxt-bundle: setup
+	$(PY) extension/build.py oxt --bundle $(if $(PLATFORM),--platform $(PLATFORM)) \
+	  $(if $(PYTHON_VERSION),--python-version $(PYTHON_VERSION)) $(if $(CODESIGN),--codesign $(CODESIGN))
 
 test: oxt
 	$(PY) -m pytest -q

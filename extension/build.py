@@ -2,12 +2,25 @@
 
     python3 extension/build.py generate   # rewrite the committed generated files
     python3 extension/build.py check      # exit 1 if any generated file is stale
-    python3 extension/build.py oxt        # generate, compile the type library, zip
+    python3 extension/build.py oxt [OUT.oxt] [--version V]
+                                          # generate, compile the type library, zip
+    python3 extension/build.py oxt --bundle [--platform TAG] [--python-version X.Y]
+                                   [--numpy V] [--pyerfa V] [--codesign ID] [OUT.oxt]
+                                          # self-contained: numpy and pyerfa inside
 
 Generated from ``calcfuncs/registry.py`` alone: the IDL, ``CalcAddIns.xcu`` (Function
-Wizard texts), the ``.components`` file, ``description.xml``, the manifest and
-``docs/functions.md``.  The type library is compiled with the SDK's ``unoidl-write``.
+Wizard texts), the ``.components`` file, ``description.xml``, the manifest,
+``docs/functions.md``, and the icon (``extension/icon.py``).  The type library is
+compiled with the SDK's ``unoidl-write``.
+
+The plain build uses the numpy and erfa of the office's own Python.  ``--bundle``
+unpacks numpy and pyerfa wheels into the extension's ``pythonpath/`` for one wheel
+platform tag and one office Python version (default: this machine's office, read from
+its Python; see the README, "Self-contained builds for other platforms").  The version
+is ``calcfuncs.__version__``; ``--version`` builds the same code under another number.
 """
+
+import argparse
 
 import os
 import subprocess
@@ -22,10 +35,26 @@ sys.path.insert(0, ROOT)
 
 from calcfuncs import __version__, registry  # noqa: E402
 
+sys.path.insert(0, HERE)
+import bundle  # noqa: E402
+import icon  # noqa: E402
+
 GENERATED = os.path.join(HERE, "generated")
 ADAPTER = "eclipsheet_addin.py"
 RDB_NAME = "eclipsheet.rdb"
 COMPONENTS_NAME = "eclipsheet.components"
+PUBLISHER = "Eclipsheet contributors"  # no web site exists, so no link
+MINIMAL_OFFICE = "7.4"  # the LibreOffice version the office tests run on
+LICENCE_IN_OXT = "registration/LICENSE.txt"
+ICON_IN_OXT = "icons/eclipsheet.png"
+RELEASE_NOTES = "release-notes.txt"
+SUMMARY_IN_OXT = "description-en.txt"
+SUMMARY = (
+    "Astronomical cell functions (SKY.*) for LibreOffice Calc, computed with the IAU's "
+    "standard models through ERFA: time scales and Julian dates, calendars across "
+    "history, the obliquity of the ecliptic and nutation, coordinate systems and "
+    "precession, the horizon, the Sun and the Moon, BJD and HJD.\n"
+)
 OFFICE_DIRS = ("/usr/lib/libreoffice", "/opt/libreoffice", "/usr/local/lib/libreoffice")
 
 
@@ -106,7 +135,10 @@ def components_text():
     )
 
 
-def description_text():
+def description_text(version=__version__, platform="all"):
+    """description.xml: what the Extension Manager shows and checks at install.  The
+    licence is shown once, to whoever installs (accept-by admin: a shared install does
+    not ask every user again) and not again on an update."""
     return (
         '<?xml version="1.0" encoding="UTF-8"?>\n'
         "<!-- Generated from calcfuncs/registry.py by extension/build.py: do not edit. -->\n"
@@ -115,14 +147,33 @@ def description_text():
         '             xmlns:lo="http://libreoffice.org/extensions/description/2011"\n'
         '             xmlns:xlink="http://www.w3.org/1999/xlink">\n'
         f'  <identifier value="{registry.EXTENSION_IDENTIFIER}"/>\n'
-        f'  <version value="{__version__}"/>\n'
+        f"  <version value={quoteattr(version)}/>\n"
         "  <display-name>\n"
         '    <name lang="en">Eclipsheet: astronomy cell functions (SKY.*)</name>\n'
         "  </display-name>\n"
-        '  <platform value="all"/>\n'
+        "  <extension-description>\n"
+        f'    <src xlink:href="{SUMMARY_IN_OXT}" lang="en"/>\n'
+        "  </extension-description>\n"
+        "  <publisher>\n"
+        f'    <name lang="en">{escape(PUBLISHER)}</name>\n'
+        "  </publisher>\n"
+        f"  <platform value={quoteattr(platform)}/>\n"
         "  <dependencies>\n"
-        '    <lo:LibreOffice-minimal-version d:name="LibreOffice 7.0" value="7.0"/>\n'
+        f'    <lo:LibreOffice-minimal-version d:name="LibreOffice {MINIMAL_OFFICE}" '
+        f'value="{MINIMAL_OFFICE}"/>\n'
         "  </dependencies>\n"
+        "  <registration>\n"
+        '    <simple-license accept-by="admin" suppress-on-update="true" '
+        'default-license-id="en">\n'
+        f'      <license-text xlink:href="{LICENCE_IN_OXT}" lang="en" license-id="en"/>\n'
+        "    </simple-license>\n"
+        "  </registration>\n"
+        "  <icon>\n"
+        f'    <default xlink:href="{ICON_IN_OXT}"/>\n'
+        "  </icon>\n"
+        "  <release-notes>\n"
+        f'    <src xlink:href="{RELEASE_NOTES}" lang="en"/>\n'
+        "  </release-notes>\n"
         "</description>\n"
     )
 
@@ -195,17 +246,22 @@ def generated_files():
         "extension/generated/description.xml": description_text(),
         "extension/generated/manifest.xml": manifest_text(),
         "docs/functions.md": functions_md_text(),
+        "extension/generated/icon.png": icon.icon_png(),
     }
 
 
+def _as_bytes(content):
+    return content if isinstance(content, bytes) else content.encode("utf-8")
+
+
 def stale_files():
-    """Paths whose committed text differs from what the registry generates."""
+    """Paths whose committed content differs from what the registry generates."""
     stale = []
-    for rel, text in generated_files().items():
+    for rel, content in generated_files().items():
         path = os.path.join(ROOT, rel)
         try:
-            with open(path, encoding="utf-8") as f:
-                if f.read() != text:
+            with open(path, "rb") as f:
+                if f.read() != _as_bytes(content):
                     stale.append(rel)
         except FileNotFoundError:
             stale.append(rel)
@@ -213,11 +269,11 @@ def stale_files():
 
 
 def write_generated():
-    for rel, text in generated_files().items():
+    for rel, content in generated_files().items():
         path = os.path.join(ROOT, rel)
         os.makedirs(os.path.dirname(path), exist_ok=True)
-        with open(path, "w", encoding="utf-8") as f:
-            f.write(text)
+        with open(path, "wb") as f:
+            f.write(_as_bytes(content))
 
 
 # ---- the type library and the package ---------------------------------------------------
@@ -247,26 +303,87 @@ def compile_rdb(idl_path, rdb_path):
     )
 
 
-def build_oxt(target):
+def _core_source(name, version):
+    """A core module's text as it goes into the .oxt; under ``--version`` the package's
+    version line says the same number as description.xml."""
+    with open(os.path.join(ROOT, "calcfuncs", name), encoding="utf-8") as f:
+        text = f.read()
+    if name == "__init__.py" and version != __version__:
+        line = f'__version__ = "{__version__}"'
+        if line not in text:
+            raise SystemExit(f"calcfuncs/__init__.py has no line {line}")
+        text = text.replace(line, f'__version__ = "{version}"', 1)
+    return text
+
+
+def build_oxt(target, version=__version__, bundle_target=None, codesign=None, log=print):
+    """Zip the extension into ``target``.  ``bundle_target`` = (wheel platform, Python
+    "X.Y", {"numpy": v, "pyerfa": v}) puts those wheels into ``pythonpath/``."""
     write_generated()
+    platform = "all"
     with tempfile.TemporaryDirectory() as tmp:
         rdb = os.path.join(tmp, RDB_NAME)
         compile_rdb(os.path.join(GENERATED, "XSkyFunctions.idl"), rdb)
+        bundled = os.path.join(tmp, "pythonpath")
+        if bundle_target:
+            wheel_platform, python_version, versions = bundle_target
+            platform = bundle.office_platform_token(wheel_platform)
+            os.makedirs(bundled)
+            log("bundle: " + bundle.stage(wheel_platform, python_version, versions, bundled,
+                                          codesign_identity=codesign, log=log))
         os.makedirs(os.path.dirname(os.path.abspath(target)), exist_ok=True)
         partial = target + ".part"
         with zipfile.ZipFile(partial, "w", zipfile.ZIP_DEFLATED) as z:
             z.write(os.path.join(GENERATED, "manifest.xml"), "META-INF/manifest.xml")
-            z.write(os.path.join(GENERATED, "description.xml"), "description.xml")
+            z.writestr("description.xml", description_text(version, platform))
             z.write(os.path.join(GENERATED, COMPONENTS_NAME), COMPONENTS_NAME)
             z.write(os.path.join(GENERATED, "CalcAddIns.xcu"), "CalcAddIns.xcu")
             z.write(rdb, f"types/{RDB_NAME}")
             z.write(os.path.join(HERE, ADAPTER), ADAPTER)
+            z.write(os.path.join(ROOT, "LICENSE"), LICENCE_IN_OXT)
+            z.write(os.path.join(GENERATED, "icon.png"), ICON_IN_OXT)
+            z.write(os.path.join(HERE, RELEASE_NOTES), RELEASE_NOTES)
+            z.writestr(SUMMARY_IN_OXT, SUMMARY)
             core = os.path.join(ROOT, "calcfuncs")
             for name in sorted(os.listdir(core)):
                 if name.endswith(".py"):
-                    z.write(os.path.join(core, name), f"pythonpath/calcfuncs/{name}")
+                    z.writestr(f"pythonpath/calcfuncs/{name}", _core_source(name, version))
+            for dirpath, dirs, files in os.walk(bundled):
+                dirs.sort()
+                for name in sorted(files):
+                    path = os.path.join(dirpath, name)
+                    z.write(path, "pythonpath/" + os.path.relpath(path, bundled).replace(os.sep, "/"))
         os.replace(partial, target)
     return target
+
+
+def _oxt_arguments(argv):
+    parser = argparse.ArgumentParser(prog="build.py oxt", description="Build the .oxt.")
+    parser.add_argument("target", nargs="?", help="the .oxt to write (default under dist/)")
+    parser.add_argument("--version", default=__version__,
+                        help=f"version number to build under (default {__version__})")
+    parser.add_argument("--bundle", action="store_true",
+                        help="put numpy and pyerfa wheels inside (a self-contained build)")
+    parser.add_argument("--platform",
+                        help="wheel platform tag, e.g. manylinux_2_28_x86_64, win_amd64, "
+                             "macosx_11_0_arm64 (default: this machine's office)")
+    parser.add_argument("--python-version",
+                        help="the office's Python as X.Y (default: read from this machine's "
+                             "office's Python)")
+    pins = bundle.pinned_versions()
+    parser.add_argument("--numpy", default=pins["numpy"],
+                        help=f"numpy version (default {pins['numpy']}, as requirements-dev.txt)")
+    parser.add_argument("--pyerfa", default=pins["pyerfa"],
+                        help=f"pyerfa version (default {pins['pyerfa']}, as requirements-dev.txt)")
+    parser.add_argument("--codesign", metavar="IDENTITY",
+                        help="macOS: sign the compiled modules (- for ad hoc); needs codesign")
+    args = parser.parse_args(argv)
+    if not args.bundle and (args.platform or args.python_version or args.codesign):
+        parser.error("--platform, --python-version and --codesign go with --bundle")
+    if args.platform and not args.python_version:
+        parser.error("--platform needs --python-version: the version of that office's own "
+                     "Python, read from it (see the README), never guessed")
+    return args
 
 
 def main(argv):
@@ -280,8 +397,20 @@ def main(argv):
             print("\n".join("  " + s for s in stale))
             return 1
     elif what == "oxt":
-        target = argv[2] if len(argv) > 2 else os.path.join(ROOT, "dist", "eclipsheet.oxt")
-        print(build_oxt(target))
+        args = _oxt_arguments(argv[2:])
+        bundle_target = None
+        name = "eclipsheet.oxt"
+        if args.bundle:
+            platform, python_version = args.platform, args.python_version
+            if not (platform and python_version):
+                here_platform, here_python = bundle.machine_target(find_office())
+                platform, python_version = platform or here_platform, python_version or here_python
+            bundle_target = (platform, python_version,
+                             {"numpy": args.numpy, "pyerfa": args.pyerfa})
+            token = bundle.office_platform_token(platform)
+            name = f"eclipsheet-{args.version}-{token}-py{python_version}.oxt"
+        target = args.target or os.path.join(ROOT, "dist", name)
+        print(build_oxt(target, args.version, bundle_target, args.codesign))
     else:
         print(__doc__)
         return 2

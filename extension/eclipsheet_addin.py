@@ -6,14 +6,23 @@ erfa and the core are imported on the first call, not at load: if they are missi
 every cell says which package to install instead of showing #NAME?.
 """
 
+import os
 import re
 import sys
 
-import unohelper
-from com.sun.star.lang import XServiceInfo, XServiceName
+# The office's loader appends our pythonpath/ to sys.path, behind the interpreter's own
+# site-packages.  A self-contained build brings numpy and erfa there, and an older numpy
+# of the interpreter's must not shadow them: then our folder goes first.
+_OWN_PATH = os.path.join(os.path.dirname(os.path.abspath(__file__)), "pythonpath")
+_BUNDLED = os.path.isdir(os.path.join(_OWN_PATH, "numpy"))
+if _BUNDLED:
+    sys.path[:] = [_OWN_PATH] + [p for p in sys.path if os.path.normpath(p) != _OWN_PATH]
 
-from calcfuncs import registry
-from org.eclipsheet.sky import XSkyFunctions
+import unohelper  # noqa: E402
+from com.sun.star.lang import XServiceInfo, XServiceName  # noqa: E402
+
+from calcfuncs import registry  # noqa: E402
+from org.eclipsheet.sky import XSkyFunctions  # noqa: E402
 
 _core = None
 _core_problem = None
@@ -32,12 +41,23 @@ def _load_core():
             found = re.search(r"No module named '([^'.]+)", str(err))
             missing = found.group(1) if found else (getattr(err, "name", None) or str(err))
             package = {"numpy": "python3-numpy", "erfa": "python3-erfa"}.get(missing, missing)
-            _core_problem = (
-                f"#SKY: the office's Python {sys.version.split()[0]} (in {sys.prefix}) "
-                f"cannot import {missing}; install it (Debian/Ubuntu: apt install {package}, "
-                "elsewhere pip install numpy pyerfa for that Python) or use the "
-                "self-contained build of Eclipsheet"
-            )
+            import sysconfig
+
+            office_python = (f"the office's Python {sys.version.split()[0]} "
+                             f"({sysconfig.get_platform()}, in {sys.prefix})")
+            if _BUNDLED:
+                detail = (str(err).strip().splitlines() or [""])[0][:160]
+                _core_problem = (
+                    f"#SKY: {office_python} cannot import the {missing} inside this "
+                    f"Eclipsheet build ({detail}); use a build made for this Python "
+                    "version and platform"
+                )
+            else:
+                _core_problem = (
+                    f"#SKY: {office_python} cannot import {missing}; install it "
+                    f"(Debian/Ubuntu: apt install {package}, elsewhere pip install numpy "
+                    "pyerfa for that Python) or use the self-contained build of Eclipsheet"
+                )
     return _core
 
 

@@ -60,18 +60,26 @@ def _as_unprivileged(cmd, profile):
     )
 
 
-def install_extension(oxt, profile):
-    """Install ``oxt`` into the user profile ``profile`` with ``unopkg add``."""
+def unopkg(profile, *args):
+    """Run ``unopkg`` on the user profile ``profile`` (as 'nobody' when root) and return
+    the finished process; raises with its output if it fails."""
     os.makedirs(profile, exist_ok=True)
-    staged = os.path.join(profile, "staged-" + os.path.basename(oxt))
-    shutil.copyfile(oxt, staged)
-    cmd = [UNOPKG, "add", "-f", f"-env:UserInstallation={file_url(profile)}", staged]
+    cmd = [UNOPKG, *args, f"-env:UserInstallation={file_url(profile)}"]
     cmd, _ = _as_unprivileged(cmd, profile)
     # cwd: the unprivileged user may not enter the folder the tests run from.
     done = subprocess.run(cmd, capture_output=True, text=True, timeout=300, cwd=profile)
     if done.returncode != 0:
-        raise RuntimeError(f"unopkg add failed: {done.stdout}{done.stderr}")
+        raise RuntimeError(f"unopkg {args[0]} failed: {done.stdout}{done.stderr}")
     return done
+
+
+def install_extension(oxt, profile):
+    """Install ``oxt`` into the user profile ``profile`` with ``unopkg add``, replacing
+    an installed version; the licence is accepted (-s) as a script cannot answer."""
+    os.makedirs(profile, exist_ok=True)
+    staged = os.path.join(profile, "staged-" + os.path.basename(oxt))
+    shutil.copyfile(oxt, staged)
+    return unopkg(profile, "add", "-f", "-s", staged)
 
 
 class Office:
