@@ -21,7 +21,9 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 ROOT = os.path.dirname(HERE)
 WHEEL_CACHE = os.path.join(ROOT, "build", "wheels")
 PINS_FILE = os.path.join(ROOT, "requirements-dev.txt")
-BUNDLED = ("numpy", "pyerfa")  # distribution names; pyerfa installs the package erfa
+# Distribution names; pyerfa installs the package erfa.  jplephem (pure Python) is what
+# the cells read JPL kernels with, so a bundled office can use source DE440 or a .bsp.
+BUNDLED = ("numpy", "pyerfa", "jplephem")
 
 # What the office's Python reports about itself, read by running it.
 _PROBE = (
