@@ -213,7 +213,7 @@ class _Output:
 
 
 def apply_to_csv(fn, input_path, output_path, columns, constants, column_name=None,
-                 replace=False, delimiter=",", dates="iso", err=sys.stderr):
+                 replace=False, delimiter=",", dates="iso"):
     """Compute ``fn`` over the rows of a CSV; returns (rows, rows with a message,
     [(line, message)] of the first few)."""
     is_datetime = api.returns_datetime(fn)
@@ -280,7 +280,9 @@ def _compute(fn, plan, chunk, lines, writer, dates_iso, is_datetime, stats):
             stats["blank"] += 1
 
 
-def main(argv=None, out=sys.stdout, err=sys.stderr):
+def main(argv=None, out=None, err=None):
+    out = out or sys.stdout
+    err = err or sys.stderr
     ap = _parser()
     try:
         args = ap.parse_args(argv)
