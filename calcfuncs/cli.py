@@ -18,6 +18,7 @@ every row computed, 1 when some row holds a message, 2 for a usage problem.
 import argparse
 import csv
 import os
+import re
 import sys
 import tempfile
 import textwrap
@@ -27,6 +28,8 @@ from .errors import PREFIX
 
 CHUNK_ROWS = 50_000  # rows per vectorised call: long logs stream through in bounded memory
 NUMERIC_KINDS = ("number", "angle")
+# A plain decimal number, as a cell holding it would be a number (not "nan", "1_000").
+_PLAIN_NUMBER = re.compile(r"^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$")
 
 
 class UsageError(Exception):
@@ -144,12 +147,9 @@ def _value(arg, text):
     numeric argument is a number, everything else is text (time columns included)."""
     if text.strip() == "":
         return None
-    if arg.kind in NUMERIC_KINDS:
-        try:
-            return float(text)
-        except ValueError:
-            return text  # angle text such as 12:34:56.7, or a mistake the cell explains
-    return text
+    if arg.kind in NUMERIC_KINDS and _PLAIN_NUMBER.match(text):
+        return float(text)
+    return text  # time text, angle text such as 12:34:56.7, or a mistake the cell explains
 
 
 def _format(value, dates_iso, is_datetime):
