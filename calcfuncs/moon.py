@@ -43,10 +43,16 @@ def moon_gcrs(tt1, tt2, kind="APPARENT"):
     if kind == "ASTROMETRIC":
         return u, distance, v
     pvh, pvb = _quiet(erfa.epv00, tt1, tt2)
+    # Annual aberration applies to the place on barycentric axes, the Moon when the light
+    # left it seen from where the Earth is now: p(t - tau) - tau V_earth.  Applied to the
+    # geocentric p(t - tau) alone it adds the Earth's whole orbital aberration (up to
+    # 20") to a body that shares the Earth's orbital motion.
+    barycentric = astrometric - tau[..., None] * pvb["v"]
+    ub = barycentric / np.linalg.norm(barycentric, axis=-1)[..., None]
     c = pvb["v"] * LIGHT_DAYS_PER_AU
     bm1 = np.sqrt(1.0 - np.sum(c * c, axis=-1))
     sun_distance = np.linalg.norm(pvh["p"], axis=-1)
-    return erfa.ab(u, c, sun_distance, bm1), distance, v
+    return erfa.ab(ub, c, sun_distance, bm1), distance, v
 
 
 def moon_in(tt1, tt2, system, kind="APPARENT"):
