@@ -2,8 +2,9 @@
 
 Position: ERFA moon98 (Meeus's implementation of the ELP-2000/82 truncation; ERFA
 states RMS 2.9", worst 18" in direction and 6 km in distance against ELP/MPP02 over
-1950-2100), accepted here 1000-3000 like the other bodies.  APPARENT adds the light time
-(about 1.3 s) and annual aberration; the Sun comes from sun.py.
+1950-2100), accepted here 1000-3000 like the other bodies, or a JPL kernel.  The place
+comes from the pipeline of bodies.py (light time of about 1.3 s; for APPARENT the Sun's
+light deflection and annual aberration); the Sun from sun.py.
 """
 
 import erfa
@@ -13,7 +14,7 @@ from . import frames
 from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
 from .sun import _FRAME_TO_ECLIPTIC, _FRAME_TO_EQUATORIAL, _as_result, _check_years, _rows
-from .sun import LIGHT_DAYS_PER_AU, sun_in
+from .sun import sun_in
 from .timescales import _quiet
 
 EARTH_RADIUS_KM = 6378.1366  # IERS 2010 equatorial radius (common practice)
@@ -29,32 +30,23 @@ SYNODIC_DAYS = 29.530589
 
 
 def moon_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
-    """(unit vectors, distance in au) of the Moon on the GCRS axes."""
-    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
-    if source != "BUILTIN":  # a JPL kernel: the general pipeline, at TDB
-        from .bodies import place
-        from .timescales import _tt_to_tdb
+    """(unit vectors, distance in au) of the Moon on the GCRS axes.
 
-        # The distance is that of the kind asked for: for APPARENT and ASTROMETRIC to
-        # where the light left the Moon (tens of metres from the geometric one).
-        p = place("MOON", *_tt_to_tdb(tt1, tt2), kind, source)
-        return p.direction, p.distance
-    _check_years(tt1, tt2)
-    pv = _quiet(erfa.moon98, tt1, tt2)
-    p, v = pv["p"], pv["v"]
-    distance = np.linalg.norm(p, axis=-1)
-    if kind == "GEOMETRIC":
-        return p / distance[..., None], distance
-    tau = distance * LIGHT_DAYS_PER_AU
-    astrometric = p - tau[..., None] * v
-    u = astrometric / np.linalg.norm(astrometric, axis=-1)[..., None]
-    if kind == "ASTROMETRIC":
-        return u, distance
-    pvh, pvb = _quiet(erfa.epv00, tt1, tt2)
-    c = pvb["v"] * LIGHT_DAYS_PER_AU
-    bm1 = np.sqrt(1.0 - np.sum(c * c, axis=-1))
-    sun_distance = np.linalg.norm(pvh["p"], axis=-1)
-    return erfa.ab(u, c, sun_distance, bm1), distance
+    Through the one pipeline of bodies.py for every source: the astrometric place is
+    the Moon's barycentric place when the light left it minus the Earth's now,
+    m(t - tau) + E(t - tau) - E(t), so the Earth's own motion over the 1.3 s of light
+    time (38 km, 20") is in it before annual aberration; leaving it out and aberrating
+    the geocentric place instead counts the Earth's orbital motion twice.  The
+    distance is that of the kind asked for (for APPARENT and ASTROMETRIC to where the
+    light left the Moon: tens of metres from the geometric one)."""
+    from .bodies import place
+    from .timescales import _tt_to_tdb
+
+    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    if source == "BUILTIN":
+        _check_years(tt1, tt2)
+    p = place("MOON", *_tt_to_tdb(tt1, tt2), kind, source)
+    return p.direction, p.distance
 
 
 def moon_in(tt1, tt2, system, kind="APPARENT", source="BUILTIN"):

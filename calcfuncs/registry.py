@@ -1028,7 +1028,7 @@ SUN_FUNCTIONS = (
 
 _MOON_MODEL = (
     "The Moon from ERFA moon98 (Meeus's ELP-2000/82 truncation: RMS 2.9\", worst 18\" "
-    "and 32 km against ELP/MPP02 over 1950-2100, as ERFA states; up to 31\" and 46 km against "
+    "and 32 km against ELP/MPP02 over 1950-2100, as ERFA states; up to 16\" (2.8\" rms) and 12 km against "
     "DE440 in our tests; accepted 1000-3000 with "
     "degrading accuracy); light time and annual aberration for APPARENT; geocentric (the "
     "Moon's parallax, up to 1 degree, is not applied). The Sun as SKY.SUN.LON."
