@@ -88,12 +88,24 @@ class CellFunction:
     model: str = ""
 
     @property
+    def returns_text(self):
+        """A function whose result is a text returns one plain value to Calc, not a 1x1
+        array: LibreOffice 7.4 compares a text taken from an add-in's array result as
+        unequal to the same typed text (=A1="..." is FALSE), which would make an
+        IF() on our text silently wrong.  Such a function takes one cell at a time."""
+        return self.result.startswith("text")
+
+    @property
     def description(self):
         """The Function Wizard text: what it does, what it returns, model and validity."""
         parts = [self.summary, "Result: " + self.result + "."]
         if self.model:
             parts.append(self.model)
-        parts.append("Accepts a range in any argument and then returns an array.")
+        if self.returns_text:
+            parts.append("One cell at a time: fill the formula down (a text result is "
+                         "never an array, so that comparing it with typed text works).")
+        else:
+            parts.append("Accepts a range in any argument and then returns an array.")
         return " ".join(parts)
 
     @property

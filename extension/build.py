@@ -77,7 +77,10 @@ def idl_text():
         params = ["[in] com::sun::star::beans::XPropertySet docSettings"]
         params += [f"[in] any {a.idl_name}" for a in fn.args]
         lines.append(f"    // {fn.name}")
-        lines.append(f"    sequence< sequence< any > > {fn.method}({', '.join(params)});")
+        # A text result is a plain any (see CellFunction.returns_text); the rest return
+        # arrays, which an any cannot carry from Python.
+        result = "any" if fn.returns_text else "sequence< sequence< any > >"
+        lines.append(f"    {result} {fn.method}({', '.join(params)});")
     lines += ["};", "", " ".join("};" for _ in mod), ""]
     return "\n".join(lines)
 

@@ -70,17 +70,25 @@ def _null_date(doc_settings):
 
 
 def _call(fn, doc_settings, args):
-    """Every method returns sequence<sequence<any>>: Calc shows a 1x1 result in a plain
-    cell and fills an array formula with a larger one (an ``any`` return type cannot
-    carry an array from Python)."""
+    """Methods return sequence<sequence<any>>: Calc shows a 1x1 result in a plain cell
+    and fills an array formula with a larger one (an ``any`` return type cannot carry
+    an array from Python).  Functions whose result is a text return a plain ``any``
+    instead, one value per cell (see registry.CellFunction.returns_text)."""
     core = _load_core()
     if core is None:
-        return ((_core_problem,),)
+        return _core_problem if fn.returns_text else ((_core_problem,),)
     try:
         null_date = _null_date(doc_settings) if fn.has_time else (1899, 12, 30)
         result = core.evaluate(fn, args, null_date)
     except Exception as err:  # never let a defect reach the office as an exception
         result = f"#SKY: internal error ({type(err).__name__}: {err}); please report it"
+    if fn.returns_text:
+        if not isinstance(result, tuple):
+            return result
+        if len(result) == 1 and len(result[0]) == 1:
+            return result[0][0]
+        return (f"#SKY: {fn.name} gives one text per cell; fill the formula down rather "
+                "than entering it as an array formula")
     return result if isinstance(result, tuple) else ((result,),)
 
 

@@ -340,3 +340,32 @@ def test_array_result_of_the_core_has_the_range_shape():
     grid = tuple((45500.0 + i, 45600.0 + i) for i in range(3))
     out = evaluate("SKY.MJD", [grid])
     assert np.shape(out) == (3, 2)
+
+
+def test_text_results_compare_equal_to_typed_text(sheet_doc):
+    """A text from a 1x1 array result compares unequal to the same typed text in
+    LibreOffice 7.4 (checked here with a sequence<sequence<any>> method); our text
+    functions return plain values, so IF() on their text works."""
+    cells = sheet_doc.Sheets.getByIndex(0)
+    # Total solar eclipse of 2024-04-08 (common knowledge); new Moon at 18:21 UTC.
+    formulas = [
+        ('=SKY.TEXT.HMS(10)="00h40m00.00s"', "TRUE"),
+        ('=IF(SKY.ECLIPSE.POSSIBLE("2024-04-08T18:21:00Z")="solar eclipse possible";"yes";"no")',
+         "yes"),
+        ('=COUNTIF(B1;"+23°26\'21.4""")', "1"),
+        ('=SKY.TEXT.DMS(23.43928;1)', '+23°26\'21.4"'),
+        ('=SKY.TEXT.HMS(C1:C3)', None),
+    ]
+    for k, (formula, _) in enumerate(formulas):
+        cells.getCellByPosition(0, k).setFormula(formula)
+    cells.getCellByPosition(1, 0).setFormula("=SKY.TEXT.DMS(23.43928;1)")
+    for k in range(3):
+        cells.getCellByPosition(2, k).setValue(10.0 * (k + 1))
+    sheet_doc.calculateAll()
+    for k, (formula, shown) in enumerate(formulas):
+        cell = cells.getCellByPosition(0, k)
+        assert cell.getError() == 0, formula
+        if shown is not None:
+            assert cell.getString() == shown, (formula, cell.getString())
+    # A range given to a text function: one message, not a silent first value.
+    assert cells.getCellByPosition(0, 4).getString().startswith("#SKY: SKY.TEXT.HMS gives one text per cell")

@@ -207,11 +207,13 @@ ROWS = [
     ("Moon", "Ecliptic longitude of the Moon", "lambda = 133.162655 deg on 1992 April 12, 0h TD",
      "Meeus, Astronomical Algorithms, Example 47.a (mean equinox of date; the series "
      "includes the light time)",
-     "=133.162655", '=SKY.MOON.LON("1992-04-12T00:00:00";"TT";"DATE";"ASTROMETRIC")',
+     "=133.162655", '=SKY.MOON.LON("1992-04-12T00:00:00";"TT";"DATE";"APPARENT")',
      "arcsec (from degrees)", 0.1, "0.000000",
-     "The same series (ERFA moon98 is Meeus's, with the light time taken out; ASTROMETRIC "
-     "puts it back); ERFA's rotation to the GCRS and ours back differ by a few hundredths "
-     "of an arcsecond."),
+     "The same series (ERFA moon98 is Meeus's, with the light time taken out). Meeus's "
+     "lambda is the Moon when the light left it seen from the Earth then, which is the "
+     "apparent direction (light time and aberration together) before nutation: our "
+     "APPARENT place on the mean equinox of date. Our ASTROMETRIC differs by the Earth's "
+     "motion over the light time (7.6\" here)."),
     ("Moon", "Distance of the Moon", "368409.7 km on 1992 April 12, 0h TD",
      "Meeus, Astronomical Algorithms, Example 47.a",
      "=368409.7", '=SKY.MOON.DIST("1992-04-12T00:00:00";"TT")', "km", 0.1, "0.0",
@@ -284,9 +286,9 @@ def cells_of(k, row):
     is_text = unit == TEXT
     ref = ("text", reference) if is_text else ("formula", reference)
     if is_text:
-        # G&"": LibreOffice 7.4 compares a text that an add-in returned (as a 1x1 array)
-        # unequal to the same text typed in a cell, with = and with EXACT alike.
-        diff = f'=IF(EXACT(G{r}&"";F{r});0;1)'
+        # Our text functions return plain values (registry.CellFunction.returns_text),
+        # so a typed text compares equal to them.
+        diff = f'=IF(EXACT(G{r};F{r});0;1)'
     else:
         diff = f"=IF(ISNUMBER(G{r});{DIFFERENCES[unit].format(r=r)};\"no value\")"
     diff_format = "@" if is_text else ("0.000E+00" if tol < 0.001 else "0.0000")
@@ -315,10 +317,7 @@ def note_text():
         "functions, the difference and a tolerance with its reason; Result says PASS when "
         "the difference is within the tolerance. The reference is typed from the published "
         "figures as a plain formula, never computed by our functions. Recompute (Ctrl+Shift+F9) "
-        "after installing or updating the extension. Texts are compared as EXACT(G&\"\";F): "
-        "LibreOffice 7.4 finds a text returned by an add-in unequal to the same typed text "
-        "otherwise (with = too), so write SKY.ECLIPSE.POSSIBLE(...)&\"\"=\"...\" in your own "
-        "formulas. " + SUN_CAUTION)
+        "after installing or updating the extension. " + SUN_CAUTION)
 
 
 def validation_sheet(doc, sheet):
