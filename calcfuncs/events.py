@@ -11,7 +11,33 @@ import numpy as np
 SHORT_BRACKET_DAYS = 0.04  # about an hour
 
 
-def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None):
+def _extremum_samples(offsets, values, f, base):
+    """Extra sample points at interior extrema whose neighbours share their sign.
+
+    A function that pokes above zero for less than a step (the Sun just clearing the
+    horizon near the polar night) leaves every sample on one side.  Where three samples
+    make a peak or a trough, the vertex of the parabola through them is sampled too;
+    if the function changes sign there, the crossings on both sides get brackets."""
+    a, b, c = values[:-2], values[1:-1], values[2:]
+    peak = ((b >= a) & (b >= c)) | ((b <= a) & (b <= c))
+    same = (np.sign(a) == np.sign(b)) & (np.sign(b) == np.sign(c))
+    idx = np.flatnonzero(peak & same & (a - 2.0 * b + c != 0.0))
+    if not idx.size:
+        return offsets, values
+    h = offsets[idx + 2] - offsets[idx + 1]
+    curvature = a[idx] - 2.0 * b[idx] + c[idx]
+    shift = 0.5 * (a[idx] - c[idx]) / curvature * h
+    vertex = offsets[idx + 1] + np.clip(shift, -h, h)
+    f_vertex = f(np.full(vertex.shape, base), vertex)
+    flips = np.sign(f_vertex) != np.sign(b[idx])
+    if not np.any(flips):
+        return offsets, values
+    merged = np.concatenate([offsets, vertex[flips]])
+    order = np.argsort(merged, kind="stable")
+    return merged[order], np.concatenate([values, f_vertex[flips]])[order]
+
+
+def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extrema=False):
     """TT JDs (as (jd1, jd2) arrays) where ``f`` changes sign in [start, end].
 
     ``start`` and ``end`` are TT JDs (floats, one search) and ``step`` the sampling in
@@ -19,11 +45,15 @@ def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None):
     angle-like functions, ``jump`` rejects sign changes where the function leaps by more
     than that (a wrap from +180 to -180 is not a crossing).  The bisection stops when
     the bracket is under ``tolerance`` days (1e-8 day is under a millisecond).
+    ``extrema`` also samples the vertices of sampled peaks and troughs, so that a brief
+    excursion to the other side of zero between two samples is not missed.
     """
     n = max(2, int(np.ceil((end - start) / step)) + 1)
     base = np.floor(start) + 0.5
     offsets = np.linspace(start - base, end - base, n)
     values = f(np.full(n, base), offsets)
+    if extrema and n >= 3:
+        offsets, values = _extremum_samples(offsets, values, f, base)
     a, b = values[:-1], values[1:]
     change = (np.sign(a) != np.sign(b)) & (a != 0.0)
     if direction > 0:

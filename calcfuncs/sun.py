@@ -292,8 +292,10 @@ def _events_of_day(time, latitude, longitude, utc_offset, event, height):
         def f(jd1, jd2):
             return sun_altitude(jd1, jd2, la, lo, time.scale, time.dut1) - h0
 
-        ups = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=+1)
-        downs = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=-1)
+        # Hourly samples, and the vertices of their peaks and troughs: near the polar
+        # night the Sun may clear the horizon for minutes around noon only.
+        ups = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=+1, extrema=True)
+        downs = crossings(f, t0, t0 + 1.0, 1.0 / 24.0, direction=-1, extrema=True)
         up_at_start = f(np.array([np.floor(t0) + 0.5]), np.array([t0 - np.floor(t0) - 0.5]))[0] > 0
         return ups[0] + ups[1], downs[0] + downs[1], up_at_start, t0
 

@@ -877,3 +877,29 @@ def test_a_bad_row_spoils_only_its_own_cell():
     assert isinstance(years[1], str) and years[1].startswith(PREFIX)
     assert abs(years[0] - iso_minute("2024-03-20 03:06")) * 86400.0 <= 60.0  # published, above
     assert abs(years[2] - iso_minute("2025-03-20 09:01")) * 86400.0 <= 60.0
+
+
+@pytest.mark.parametrize("lat, lon", [(67.38, 7.5), (67.36, 7.4), (67.39, 22.6), (67.30, -37.5)])
+def test_a_day_of_minutes_near_the_polar_night_is_found(sky, lat, lon):
+    # skyfield 1.55 + DE440 find_risings/find_settings: on 2026-12-21 the Sun clears the
+    # horizon for 10 to 45 minutes around noon, less than our hourly sampling step, with
+    # the transit between two samples.  Both events must be found.  The Sun then climbs
+    # a few arcseconds a second, so the 8.8" of parallax we neglect moves the instants by
+    # up to half a minute: 60 s here, and skyfield's altitude at our instants checked as
+    # in test_rise_and_set_match_skyfield.
+    ts, earth, sun = sky["ts"], sky["earth"], sky["sun"]
+    obs = earth + wgs84.latlon(lat, lon)
+    t0, t1 = ts.utc(2026, 12, 21), ts.utc(2026, 12, 22)
+    found = {}
+    for name, search in (("SKY.SUN.RISE", almanac.find_risings), ("SKY.SUN.SET", almanac.find_settings)):
+        t, real = search(obs, sun, t0, t1)
+        assert len(t) == 1 and real[0]
+        got = evaluate(name, ["2026-12-21", lat, lon])
+        assert isinstance(got, float), (name, got)
+        assert abs(got - serial_utc(t)[0]) * 86400.0 < 60.0, name
+        alt = obs.at(sky_utc(ts, got)).observe(sun).apparent().altaz()[0].degrees
+        assert abs(alt + 50.0 / 60.0) * ARCSEC_PER_DEG < PARALLAX_ARCSEC + 1.5, name
+        found[name] = got
+    hours = evaluate("SKY.SUN.DAYLENGTH", ["2026-12-21", lat, lon])
+    assert 0.1 < hours < 1.0
+    assert abs(hours - (found["SKY.SUN.SET"] - found["SKY.SUN.RISE"]) * 24.0) * 3600.0 < 1.0
