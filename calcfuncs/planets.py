@@ -6,6 +6,8 @@ the ecliptic of J2000.0, the mean ecliptic and equinox of date, or the true equi
 Geocentric places come from bodies.place (light time, deflection, aberration).
 Conjunctions and oppositions are in geocentric apparent ecliptic longitude (the
 almanacs' convention): the planet's longitude minus the Sun's is 0 or 180 degrees.
+Greatest elongations (Mercury, Venus) are the maxima of the apparent elongation, east
+(evening sky) or west (morning sky) of the Sun.
 """
 
 import numpy as np
@@ -20,7 +22,9 @@ INNER = ("MERCURY", "VENUS")
 # of one kind, so a search over a little more than one always finds the next.
 SYNODIC_DAYS = {"MERCURY": 115.88, "VENUS": 583.92, "MARS": 779.94, "JUPITER": 398.88,
                 "SATURN": 378.09, "URANUS": 369.66, "NEPTUNE": 367.49, "PLUTO": 366.73}
-EVENTS = ("OPPOSITION", "CONJUNCTION", "INFERIOR", "SUPERIOR")
+EVENTS = ("OPPOSITION", "CONJUNCTION", "INFERIOR", "SUPERIOR", "GREATEST EAST",
+          "GREATEST WEST")
+_DERIVATIVE_STEP_DAYS = 0.02  # half-width of the central difference for elongation's rate
 
 
 def _tdb_tt(time):
@@ -129,8 +133,28 @@ def longitude_from_sun(body, tt1, tt2, source="BUILTIN"):
     return wrap180(planet - sun)
 
 
+def _elongation_rate(body, source, sign):
+    """Rate of the elongation (degrees a day) where the planet is on the ``sign`` side of
+    the Sun (+1 east, -1 west); on the other side a constant, so it never crosses."""
+    h = _DERIVATIVE_STEP_DAYS
+
+    def f(jd1, jd2):
+        before = bodies.place(body, jd1, jd2 - h, "APPARENT", source)
+        after = bodies.place(body, jd1, jd2 + h, "APPARENT", source)
+        rate = np.degrees(bodies.elongation(after) - bodies.elongation(before)) / (2.0 * h)
+        side = np.sign(longitude_from_sun(body, jd1, jd2, source))
+        return np.where(side == sign, rate, 1.0)
+
+    return f
+
+
 def _event_rule(body, event):
     """(offset in degrees, direction of the crossing) of an event, or a SkyError."""
+    if event.startswith("GREATEST") and body not in INNER:
+        raise SkyError("greatest elongations are for Mercury and Venus; an outer planet's "
+                       "elongation is greatest at opposition")
+    if event.startswith("GREATEST"):
+        return 0.0, -1
     if body in INNER:
         if event == "OPPOSITION":
             raise SkyError(f"{body.capitalize()} never comes to opposition; use INFERIOR, "
@@ -155,6 +179,11 @@ def next_event_cells(body, time, null_jd, event="OPPOSITION", result_scale=None,
 
     def f(jd1, jd2):
         return wrap180(longitude_from_sun(body, jd1, jd2, source) - offset)
+
+    if event.startswith("GREATEST"):
+        # The elongation's maximum on one side of the Sun: its rate falls through zero.
+        f = _elongation_rate(body, source, +1 if event.endswith("EAST") else -1)
+        direction = -1
 
     def one(k):
         # Five-day samples: the difference moves under 3 degrees a day for every planet,

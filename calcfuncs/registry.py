@@ -1227,9 +1227,11 @@ _HELIO_FRAME = Arg("frame", "choice", "DATE (default: the mean ecliptic and equi
                    "date, as almanacs print heliocentric places), J2000 or TRUE (true "
                    "equinox of date).", default="DATE", choices=("DATE", "J2000", "TRUE"))
 _PLANET_EVENT = Arg("event", "choice", "OPPOSITION (default), CONJUNCTION (for Mercury and "
-                    "Venus either kind), INFERIOR or SUPERIOR (conjunction, Mercury and Venus "
-                    "only).", default="OPPOSITION",
-                    choices=("OPPOSITION", "CONJUNCTION", "INFERIOR", "SUPERIOR"))
+                    "Venus either kind), INFERIOR or SUPERIOR (conjunction), GREATEST EAST "
+                    "or GREATEST WEST (greatest elongation, evening or morning sky); the last "
+                    "four for Mercury and Venus only.", default="OPPOSITION",
+                    choices=("OPPOSITION", "CONJUNCTION", "INFERIOR", "SUPERIOR",
+                             "GREATEST EAST", "GREATEST WEST"))
 
 
 def _planet(name, method, summary, result, impl, args, note=""):
@@ -1291,7 +1293,7 @@ PLANET_FUNCTIONS = (
             "planet's disc, (1 + cos phase angle) / 2.", "fraction 0 to 1",
             "planets:illuminated_cells", _PLAIN_ARGS, _GEOCENTRIC_NOTE),
     _planet("SKY.PLANET.EVENT.NEXT", "skyPlanetEventNext", "The next instant after a time "
-            "of a planet's opposition or conjunction with the Sun.",
+            "of a planet's opposition, conjunction with the Sun or greatest elongation.",
             "a date-time value on the result scale", "planets:next_event_cells",
             (_BODY, Arg("time", "time", "Search from this instant on (as for SKY.JD); the "
                         "first event after it is returned, within one synodic period."),

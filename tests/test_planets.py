@@ -467,3 +467,33 @@ def test_a_column_with_bad_bodies_keeps_its_good_rows():
     got = evaluate("SKY.PLANET.HELIO.DIST", [(("MARS",), ("PLUTO",), ("venus",)), "2024-05-01"])
     assert isinstance(got[0][0], float) and isinstance(got[2][0], float)
     assert got[1][0].startswith("#SKY: Pluto is not in the built-in theories")
+
+
+@pytest.mark.parametrize("body, start, event, day, degrees", [
+    # Common knowledge (almanacs' published dates and elongations, to the day and 0.1 deg).
+    ("VENUS", "2023-01-01", "GREATEST EAST", "2023-06-04", 45.4),
+    ("VENUS", "2023-01-01", "GREATEST WEST", "2023-10-23", 46.4),
+    ("MERCURY", "2024-01-01", "GREATEST WEST", "2024-01-12", 23.5),
+    ("MERCURY", "2024-01-01", "GREATEST EAST", "2024-03-24", 18.7),
+])
+def test_greatest_elongations(sky, body, start, event, day, degrees):
+    got = evaluate("SKY.PLANET.EVENT.NEXT", [body, start, "UTC", event, None, DE440])
+    assert isinstance(got, float), got
+    assert evaluate("SKY.TEXT.ISO", [got]).startswith(day)
+    elong = evaluate("SKY.PLANET.ELONGATION", [body, got, "UTC", DE440])
+    assert abs(elong - degrees) < 0.06
+    # skyfield + DE440: the separation from the Sun every minute for 6 hours around our
+    # instant; its largest value (the maximum is flat: a minute moves it by 1e-7 deg)
+    # must be within 5 minutes of ours.
+    ts, eph = sky["ts"], sky["eph"]
+    minutes = np.arange(-180.0, 181.0)
+    t = ts.tt_jd(got + NULL_JD + 69.184 / 86400.0 + minutes / 1440.0)  # UTC to TT, 2023-2024
+    earth = eph["earth"].at(t)
+    sep = earth.observe(eph[SKYFIELD_NAMES[body]]).apparent().separation_from(
+        earth.observe(eph["sun"]).apparent()).degrees
+    assert abs(minutes[np.argmax(sep)]) <= 5.0
+
+
+def test_greatest_elongation_is_refused_for_an_outer_planet():
+    got = evaluate("SKY.PLANET.EVENT.NEXT", ["MARS", "2024-01-01", "UTC", "GREATEST EAST"])
+    assert got.startswith("#SKY: greatest elongations are for Mercury and Venus")

@@ -14,7 +14,9 @@ YEAR_START = 46388.0  # 2027-01-01 00:00 UTC as a date-time serial (null date 18
 # (planet, event) rows of the calendar: each row searches from the previous one of the
 # same kind, so the sheet lists every event of the year in turn.
 EVENTS = [("MERCURY", "INFERIOR")] * 3 + [("MERCURY", "SUPERIOR")] * 3 + [
-    ("VENUS", "INFERIOR"), ("VENUS", "SUPERIOR"),
+    ("MERCURY", "GREATEST EAST")] * 3 + [("MERCURY", "GREATEST WEST")] * 3 + [
+    ("VENUS", "INFERIOR"), ("VENUS", "SUPERIOR"), ("VENUS", "GREATEST EAST"),
+    ("VENUS", "GREATEST WEST"),
     ("MARS", "OPPOSITION"), ("MARS", "CONJUNCTION"),
     ("JUPITER", "OPPOSITION"), ("JUPITER", "CONJUNCTION"),
     ("SATURN", "OPPOSITION"), ("SATURN", "CONJUNCTION"),
@@ -72,7 +74,7 @@ def _source_rows(sheet, doc):
 def planet_calendar_sheet(doc, sheet):
     note(sheet, 0,
          "Invented: the Saltmarsh circle's planet calendar for 2027. For each planet the "
-         "oppositions and conjunctions with the Sun in the year (each row searches on from "
+         "oppositions, conjunctions with the Sun and greatest elongations in the year (each row searches on from "
          "the previous one; an event that falls in 2028 shows that there is none of its kind "
          "left in 2027), with the planet's elongation, distance, place and phase at the "
          "instant; below, each planet on the first of each month. Uses SKY.PLANET.EVENT.NEXT, "
