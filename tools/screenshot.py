@@ -1,12 +1,13 @@
 """A screenshot of the real Calc window: a sample sheet with the Function Wizard open.
 
-    .venv/bin/python tools/screenshot.py --oxt dist/eclipsheet.oxt [--out docs/images/first-hour.png]
+    .venv/bin/python tools/screenshot.py --oxt dist/eclipsheet.oxt [--out PATH.png]
 
 Starts a virtual screen (Xvfb), the ordinary windowed office on it with a fresh
 profile and the built extension, opens a sample sheet, selects a cell that holds one of
 our formulas, opens the Function Wizard on it (the dispatch command behind Insert >
-Function) and saves the screen as a PNG.  Run it again after changing the wizard texts
-or the sample sheets to refresh the README's picture.
+Function) and saves the screen as a PNG, docs/images/first-hour.png by default.  Run it
+again after changing the wizard texts or the sample sheets to refresh the README's
+picture.  The sample is opened from a temporary copy: the original is never touched.
 
 Xvfb writes its screen to a file (``-fbdir``, in the X Window Dump format), so reading
 the picture needs no screen-grabbing program; the PNG is written here with zlib.
@@ -54,10 +55,12 @@ class VirtualScreen:
         self._fbdir = tempfile.mkdtemp(prefix="eclipsheet-screen-")
         read_end, write_end = os.pipe()
         try:
-            # -displayfd: Xvfb picks a free display and writes its number to the pipe.
+            # -displayfd: Xvfb picks a free display and writes its number to the pipe;
+            # -fbdir: it keeps the screen in a file there; -nocursor: no mouse pointer.
             self.process = subprocess.Popen(
                 [xvfb, "-displayfd", str(write_end), "-screen", "0",
-                 f"{self.width}x{self.height}x24", "-fbdir", self._fbdir, "-nolisten", "tcp", "-nocursor"],
+                 f"{self.width}x{self.height}x24", "-fbdir", self._fbdir,
+                 "-nolisten", "tcp", "-nocursor"],
                 pass_fds=(write_end,), stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL,
             )
             os.close(write_end)
@@ -68,6 +71,9 @@ class VirtualScreen:
                 if not chunk:
                     raise RuntimeError("Xvfb did not start")
                 number += chunk
+        except BaseException:
+            self.__exit__()
+            raise
         finally:
             os.close(read_end)
             if write_end is not None:
@@ -189,8 +195,9 @@ def png_bytes(rgb, lossless=False):
         raw.append(best)
         raw += (candidates[best] % 256).astype(np.uint8).tobytes()
 
-    def chunk(kind, body):
-        return struct.pack(">I", len(body)) + kind + body + struct.pack(">I", zlib.crc32(kind + body))
+    def chunk(kind, body):  # length, type, data, CRC-32 of type and data
+        crc = struct.pack(">I", zlib.crc32(kind + body))
+        return struct.pack(">I", len(body)) + kind + body + crc
 
     return b"".join([b"\x89PNG\r\n\x1a\n", chunk(b"IHDR", header)]
                     + [chunk(k, b) for k, b in extra]
