@@ -95,7 +95,8 @@ LOG_COLUMNS = [
      "YYYY-MM-DD HH:MM:SS.000", 5.6),
     ("Round trip via one-cell JD (ms; a JD in one cell keeps ~0.04 ms)",
      "=(O{r}-B{r})*86400000", "0.000", 3.4),
-    ("Back from MJD (TDB)", '=SKY.MJD.DATETIME(F{r};"TDB";"UTC")', "YYYY-MM-DD HH:MM:SS.000", 5.6),
+    ("Back from MJD (TDB) to UTC", '=SKY.MJD.DATETIME(F{r};"TDB";"UTC")',
+     "YYYY-MM-DD HH:MM:SS.000", 5.6),
 ]
 
 
@@ -107,16 +108,20 @@ def observing_log(doc, sheet, log):
          "Uses SKY.JD, SKY.MJD, SKY.DATETIME, SKY.TEXT.ISO, SKY.DELTAT, SKY.OBLIQUITY, "
          "SKY.OBLIQUITY.TRUE, SKY.TEXT.DMS, SKY.NUTATION.LON, SKY.NUTATION.OBL, "
          "SKY.JD.DATETIME and SKY.MJD.DATETIME, one formula per row (fill down).", 12)
+    sheet.getRows().getByIndex(0).Height = 1900  # three lines of note
     header(sheet, 1, ["No.", "Time (UTC)", "Observer"] + [c[0] for c in LOG_COLUMNS])
     first, last = 2, 2 + len(log) - 1
     sheet.getCellRangeByPosition(0, first, 2, last).setDataArray(
         tuple((float(i + 1), t, who) for i, (t, who) in enumerate(log))
     )
     format_range(sheet, 1, first, last, number_format(doc, "YYYY-MM-DD HH:MM:SS"))
+    sheet.getCellRangeByPosition(2, first, 2, last).HoriJustify = CENTER
     for k, (_, template, code, _) in enumerate(LOG_COLUMNS):
         col = 3 + k
         fill_formulas(sheet, col, first, last, template)
         format_range(sheet, col, first, last, number_format(doc, code))
+        if code == "@":  # ISO and sexagesimal text lines up with the numbers beside it
+            sheet.getCellRangeByPosition(col, first, col, last).HoriJustify = RIGHT
     widths(sheet, [1.2, 4.0, 2.4] + [c[3] for c in LOG_COLUMNS])
 
 
@@ -124,7 +129,10 @@ def column_form(doc, sheet, rows):
     note(sheet, 0,
          "The same log computed in whole-column form: each column is ONE array formula "
          "over the times on the Observing log sheet (select the range, type the formula, "
-         "Ctrl+Shift+Enter). Faster for long logs; a bad row shows its own message.", 8)
+         "Ctrl+Shift+Enter). Faster for long logs; a bad row shows its own message. Uses "
+         "SKY.JD, SKY.MJD, SKY.OBLIQUITY, SKY.OBLIQUITY.TRUE and SKY.NUTATION.LON on ranges.",
+         8)
+    sheet.getRows().getByIndex(0).Height = 1900  # three lines of note
     header(sheet, 1, ["Time (UTC)", "JD (TT)", "MJD (UTC)", "Mean obliquity (deg)",
                       "True obliquity (deg)", 'Nutation in longitude (")'])
     first, last = 2, 2 + rows - 1
@@ -181,12 +189,17 @@ def time_scales(doc, sheet):
         ('=SKY.TEXT.ISO(A{r};B{r};"TDB";C{r};6)', "@"),
         ("=SKY.DELTAT(A{r};B{r};C{r})", "0.000"),
     ]
+    format_range(sheet, 2, first, last, number_format(doc, "0.0"))
+    sheet.getCellRangeByPosition(2, first, 2, last).HoriJustify = CENTER  # DUT1
     for k, (t, code) in enumerate(templates):
         fill_formulas(sheet, 4 + k, first, last, t)
         format_range(sheet, 4 + k, first, last, number_format(doc, code))
+        if code == "@":
+            sheet.getCellRangeByPosition(4 + k, first, 4 + k, last).HoriJustify = RIGHT
     sheet.getCellByPosition(0, last + 2).setString("Computed by")
     sheet.getCellByPosition(1, last + 2).setFormula("=SKY.VERSION()")
-    widths(sheet, [5.2, 1.4, 1.6, 7.4, 3.6, 3.6, 4.8, 4.8, 5.4, 2.4])
+    # JD to nine decimals needs 4.4 cm: narrower, Calc shows ### at some zooms.
+    widths(sheet, [5.2, 1.4, 1.6, 8.8, 4.4, 4.2, 4.8, 4.8, 5.4, 2.4])
 
 
 # Invented comparison fields of the circle's programme (names and places made up).
@@ -207,8 +220,8 @@ def angles(doc, sheet):
          "write them, read into degrees and written back. Uses SKY.ANGLE.HOURS, "
          "SKY.ANGLE, SKY.TEXT.HMS, SKY.TEXT.DMS, SKY.WRAP.360 and SKY.WRAP.180.", 9)
     header(sheet, 1, ["Field", "RA as typed", "Dec as typed", "RA (deg)", "Dec (deg)",
-                      "RA (HMS)", "Dec (DMS)", "RA + 200 deg, wrapped to 0-360",
-                      "RA wrapped to -180..180"])
+                      "RA (HMS)", "Dec (DMS)", "RA + 200 deg, wrapped to 0-360 (deg)",
+                      "RA wrapped to -180..180 (deg)"])
     first = 2
     last = first + len(TARGETS) - 1
     sheet.getCellRangeByPosition(0, first, 2, last).setDataArray(tuple(TARGETS))
@@ -223,6 +236,8 @@ def angles(doc, sheet):
     for k, (t, code) in enumerate(templates):
         fill_formulas(sheet, 3 + k, first, last, t)
         format_range(sheet, 3 + k, first, last, number_format(doc, code))
+        if code == "@":  # sexagesimal text lines up with the degrees beside it
+            sheet.getCellRangeByPosition(3 + k, first, 3 + k, last).HoriJustify = RIGHT
     widths(sheet, [2.4, 3.2, 3.2, 3.0, 3.0, 3.4, 3.4, 4.0, 4.0])
 
 
@@ -235,7 +250,7 @@ def obliquity_models(doc, sheet):
          "(where all five are valid), in arcseconds and as differences from IAU 2006. Epochs are Julian "
          "years of TT given as MJD text. Uses SKY.OBLIQUITY with its model and unit "
          "arguments.", 11)
-    header(sheet, 1, ["Year (TT)", "Time"] + [f'{m} (")' for m in MODELS]
+    header(sheet, 1, ["Year (TT)", "Time (TT, as MJD text)"] + [f'{m} (")' for m in MODELS]
            + [f"{m} - IAU2006 (\")" for m in MODELS[1:]])
     years = list(range(1000, 2901, 100))  # where all five formulas are valid
     first = 2
@@ -245,6 +260,7 @@ def obliquity_models(doc, sheet):
         mjd = 51544.5 + (y - 2000) * 365.25
         rows.append((float(y), f"MJD {mjd:.2f}"))
     sheet.getCellRangeByPosition(0, first, 1, last).setDataArray(tuple(rows))
+    sheet.getCellRangeByPosition(1, first, 1, last).HoriJustify = RIGHT
     for k, m in enumerate(MODELS):
         fill_formulas(sheet, 2 + k, first, last, f'=SKY.OBLIQUITY(B{{r}};"TT";"{m}";"ARCSEC")')
         format_range(sheet, 2 + k, first, last, number_format(doc, "0.000"))
@@ -257,20 +273,21 @@ def obliquity_models(doc, sheet):
     start = last + 3
     sheet.getCellByPosition(0, start - 1).setString(
         "Long-term formulas only (the IAU polynomials are not valid this far out):")
-    header(sheet, start, ["Year (TT)", "Time", 'LASKAR1986 (")', 'VONDRAK2011 (")',
-                          'VONDRAK2011 - LASKAR1986 (")', "VONDRAK2011 (deg)"])
+    header(sheet, start, ["Year (TT)", "Time (TT, as MJD text)", 'LASKAR1986 (")',
+                          'VONDRAK2011 (")', 'VONDRAK2011 - LASKAR1986 (")', "VONDRAK2011 (deg)"])
     long_years = list(range(-8000, 12001, 1000))
     lf, ll = start + 1, start + len(long_years)
     sheet.getCellRangeByPosition(0, lf, 1, ll).setDataArray(
         tuple((float(y), f"MJD {51544.5 + (y - 2000) * 365.25:.2f}") for y in long_years)
     )
+    sheet.getCellRangeByPosition(1, lf, 1, ll).HoriJustify = RIGHT
     fill_formulas(sheet, 2, lf, ll, '=SKY.OBLIQUITY(B{r};"TT";"LASKAR1986";"ARCSEC")')
     fill_formulas(sheet, 3, lf, ll, '=SKY.OBLIQUITY(B{r};"TT";"VONDRAK2011";"ARCSEC")')
     fill_formulas(sheet, 4, lf, ll, "=D{r}-C{r}")
     fill_formulas(sheet, 5, lf, ll, '=SKY.OBLIQUITY(B{r};"TT";"VONDRAK2011")')
     for col, code in ((2, "0.000"), (3, "0.000"), (4, "0.000"), (5, "0.000000")):
         format_range(sheet, col, lf, ll, number_format(doc, code))
-    widths(sheet, [2.2, 3.4] + [3.0] * 9)
+    widths(sheet, [2.2, 3.4] + [3.2] * 9)  # room for VONDRAK2011 in a header
 
 
 BAD_INPUT = [
@@ -290,7 +307,8 @@ BAD_INPUT = [
 def bad_input(doc, sheet):
     note(sheet, 0,
          "What a cell says when the input is wrong: a short text starting with #SKY: that "
-         "names the problem and what is accepted. The other rows and cells keep working.", 3)
+         "names the problem and what is accepted. The other rows and cells keep working. "
+         "Uses SKY.JD, SKY.OBLIQUITY, SKY.ANGLE and SKY.TEXT.DMS.", 3)
     header(sheet, 1, ["Formula", "Why it cannot be computed", "What the cell shows"])
     sheet.getCellByPosition(1, 1).setString("Why it cannot be computed")
     for k, (formula, why) in enumerate(BAD_INPUT):
@@ -298,7 +316,7 @@ def bad_input(doc, sheet):
         sheet.getCellByPosition(0, r).setString(formula)
         sheet.getCellByPosition(1, r).setString(why)
         sheet.getCellByPosition(2, r).setFormula(formula)
-    widths(sheet, [7.0, 7.5, 22.0])
+    widths(sheet, [7.0, 9.0, 22.0])
 
 
 def landscape_fit_to_width(doc):
@@ -387,6 +405,7 @@ def site_sheet(doc, sheet):
          "SiteLat, SiteLon, SiteHeight and NightDate here: change them and the whole workbook "
          "follows. Uses SKY.TEXT.DMS, SKY.TEXT.ISO, SKY.SIDEREAL (GAST, GMST, ERA), "
          "SKY.TEXT.HMS and SKY.VERSION.", 4)
+    sheet.getRows().getByIndex(0).Height = 1900  # three lines of note
     header(sheet, 1, ["Item", "Value", "As written", "About it"])
     rows = [
         ("Site", SITE_NAME, "", "an invented field site of the circle"),
@@ -426,6 +445,8 @@ def site_sheet(doc, sheet):
                     (6, "YYYY-MM-DD HH:MM:SS"), (7, "YYYY-MM-DD HH:MM:SS"), (8, "0.000000"),
                     (9, "0.000000"), (10, "0.000000"), (11, "0.00000"), (12, "+0.000;-0.000")):
         sheet.getCellByPosition(1, r).NumberFormat = number_format(doc, code)
+    # Centred, so the text stands apart from the number before it and the words after it.
+    sheet.getCellRangeByPosition(2, 2, 2, 2 + len(rows) - 1).HoriJustify = CENTER
     widths(sheet, [7.2, 5.0, 5.4, 16.0])
     origin = uno.createUnoStruct("com.sun.star.table.CellAddress")
     for name, row in SITE_NAMES.items():
@@ -701,6 +722,7 @@ def night_sheet(doc, sheet, night):
     format_range(sheet, 1, first, last, number_format(doc, "YYYY-MM-DD HH:MM:SS"))
     format_range(sheet, 6, first, last, number_format(doc, "0.0"))
     format_range(sheet, 7, first, last, number_format(doc, "+0.0;-0.0"))
+    sheet.getCellRangeByPosition(2, first, 2, last).HoriJustify = CENTER  # observer
     table = f"$Targets.$A${TARGET_FIRST + 1}:$E${TARGET_FIRST + len(FIELDS)}"
     _columns(doc, sheet, first, last, 4, [
         (f"=VLOOKUP(D{{r}};{table};4;0)", "0.000000"),
@@ -806,6 +828,8 @@ def chronicle_sheet(doc, sheet):
     sheet.getCellRangeByPosition(0, first, 3, last).setDataArray(
         tuple((float(k + 1),) + entry for k, entry in enumerate(CHRONICLE)))
     _wrapped(sheet, 3, first, last)
+    # Centred: right-aligned, entry 1 before "44 BC ..." read as "144 BC".
+    sheet.getCellRangeByPosition(0, first, 0, last).HoriJustify = CENTER
     _columns(doc, sheet, first, last, 4, [
         ('=SKY.JD(B{r};C{r};"TT")', "0.00000"),
         ('=SKY.JD(B{r};C{r};"UT")', "0.00000"),
@@ -817,6 +841,10 @@ def chronicle_sheet(doc, sheet):
         ("=SKY.TEXT.DATE(B{r};C{r})", "@"),
         ('=SKY.TEXT.ISO(B{r};C{r};"TT";;0)', "@"),
     ], right=False)
+    # Indented 2 mm: flush against the day count before it, "0.0000" and "44 BC" ran together.
+    dates = sheet.getCellRangeByPosition(7, first, 8, last)
+    dates.HoriJustify = uno.Enum("com.sun.star.table.CellHoriJustify", "LEFT")  # indent needs it
+    dates.ParaIndent = 200
     sheet.getCellRangeByPosition(0, first, cols - 1, last).VertJustify = TOP
     widths(sheet, [1.0, 7.6, 2.2, 9.6, 3.2, 3.2, 3.0, 6.0, 6.8])
 
@@ -840,6 +868,7 @@ def calendars_sheet(doc, sheet):
     _columns(doc, sheet, first, last, 0, [
         ("=$Chronicle.A{t}", "0"), ("=$Chronicle.B{t}", "@"), ("=$Chronicle.C{t}", "@"),
     ], source_first=CHRONICLE_FIRST, right=False)
+    sheet.getCellRangeByPosition(0, first, 0, last).HoriJustify = CENTER  # as on Chronicle
     _columns(doc, sheet, first, last, 3, [
         ('=SKY.TEXT.DATE(B{r};C{r};"UT";"JULIAN")', "@"),
         ('=SKY.TEXT.DATE(B{r};C{r};"UT";"GREGORIAN")', "@"),
@@ -879,6 +908,7 @@ def deltat_sheet(doc, sheet):
         ("=$Chronicle.A{t}", "0"), ("=$Chronicle.B{t}", "@"), ("=$Chronicle.C{t}", "@"),
         ("=2000+($Chronicle.E{t}-2451545)/365.25", "0.0"),
     ], source_first=CHRONICLE_FIRST, right=False)
+    sheet.getCellRangeByPosition(0, first, 0, last).HoriJustify = CENTER  # as on Chronicle
     none = '"none published"'
     _columns(doc, sheet, first, last, 4, [
         ("=SKY.DELTAT(B{r};C{r})", "#,##0.0"),
@@ -939,6 +969,7 @@ def utc_1960s_sheet(doc, sheet):
          "step itself (the change over the last day, less the day's drift before it). "
          "Uses SKY.LEAPSECONDS, SKY.LEAPSECONDS.UNTIL, SKY.TEXT.ISO and SKY.DELTAT "
          "(DUT1 taken as 0).", cols)
+    sheet.getRows().getByIndex(0).Height = 1900  # three lines of note
     header(sheet, 1, [
         "Date of the change (UTC, 00:00)", "What changed", "TAI - UTC two days before (s)",
         "TAI - UTC one day before (s)", "TAI - UTC on the day (s)", "Drift per day before (s)",
@@ -950,6 +981,7 @@ def utc_1960s_sheet(doc, sheet):
     sheet.getCellRangeByPosition(0, first, 1, last).setDataArray(
         tuple((_serial(day), what) for day, what in UTC_STEPS))
     format_range(sheet, 0, first, last, number_format(doc, "YYYY-MM-DD"))
+    sheet.getCellRangeByPosition(0, first, 0, last).HoriJustify = CENTER  # apart from column B
     _columns(doc, sheet, first, last, 2, [
         ("=SKY.LEAPSECONDS(A{r}-2)", "0.0000000"),
         ("=SKY.LEAPSECONDS(A{r}-1)", "0.0000000"),
@@ -976,7 +1008,7 @@ def utc_1960s_sheet(doc, sheet):
         cell.setFormula(formula)
         cell.NumberFormat = number_format(doc, code)
         cell.HoriJustify = RIGHT
-    widths(sheet, [3.0, 6.8, 3.0, 3.0, 3.0, 2.8, 2.8, 6.2, 3.0, 2.4])
+    widths(sheet, [3.0, 8.0, 3.0, 3.0, 3.0, 2.8, 2.8, 6.2, 3.0, 2.4])
 
 
 def historical_record_book(office, out_dir):
@@ -1424,10 +1456,10 @@ TIMING_COLUMNS = [
     ("HJD_TT (JD)", "=SKY.HJD.TT(A{r};E{r};F{r})", "0.000000", 3.2),
     ("BJD_TDB - HJD_UTC (s): never mix them", "=(H{r}-I{r})*86400", "0.000", 3.4),
     ("UTC back from BJD_TDB", '=SKY.BJD.TDB.DATETIME(G{r};E{r};F{r};"MJD")',
-     "YYYY-MM-DD HH:MM:SS.000", 4.4),
-    ("Round trip (us)", "=(L{r}-A{r})*86400000000", "0.000", 2.4),
+     "YYYY-MM-DD HH:MM:SS.000", 5.0),
+    ("Round trip (µs)", "=(L{r}-A{r})*86400000000", "0.000", 2.4),
     ("UTC back from HJD_UTC", "=SKY.HJD.UTC.DATETIME(I{r};E{r};F{r})",
-     "YYYY-MM-DD HH:MM:SS.000", 4.4),
+     "YYYY-MM-DD HH:MM:SS.000", 5.0),
 ]
 
 
@@ -1438,26 +1470,29 @@ def timing_sheet(doc, sheet):
          "HJD on UTC and TT, and back. Uses SKY.BJD.TDB, SKY.HJD.UTC, SKY.HJD.TT, "
          "SKY.BJD.TDB.DATETIME and SKY.HJD.UTC.DATETIME. Light-time delay to first order "
          "(Roemer) from the Earth's centre.", 12)
+    sheet.getRows().getByIndex(0).Height = 1900  # three lines of note
     header(sheet, 1, ["Mid-exposure (UTC)", "Field", "RA (text)", "Dec (text)"]
            + [c[0] for c in TIMING_COLUMNS])
     rows = invented_timing()
     first, last = 2, 2 + len(rows) - 1
     sheet.getCellRangeByPosition(0, first, 3, last).setDataArray(tuple(rows))
     format_range(sheet, 0, first, last, number_format(doc, "YYYY-MM-DD HH:MM:SS.0"))
+    sheet.getCellRangeByPosition(1, first, 1, last).HoriJustify = CENTER  # field
+    sheet.getCellRangeByPosition(2, first, 3, last).HoriJustify = RIGHT  # sexagesimal text
     for k, (_, template, code, _) in enumerate(TIMING_COLUMNS):
         fill_formulas(sheet, 4 + k, first, last, template)
         format_range(sheet, 4 + k, first, last, number_format(doc, code))
-    widths(sheet, [4.4, 2.4, 2.8, 2.8] + [c[3] for c in TIMING_COLUMNS])
+    widths(sheet, [4.8, 2.4, 2.8, 2.8] + [c[3] for c in TIMING_COLUMNS])
 
 
 MOON_COLUMNS = [
     ("Instant (UTC)", '=SKY.MOON.PHASE.NEXT(A{r};;B{r})', "YYYY-MM-DD HH:MM:SS", 4.0),
     ("Moon's latitude (deg)", "=SKY.MOON.LAT(C{r})", "+0.0000;-0.0000", 2.6),
     ("Sun from the node (deg)", "=SKY.ECLIPSE.NODE.DISTANCE(C{r})", "0.00", 2.6),
-    ("Eclipse?", '=IF(OR(B{r}="NEW";B{r}="FULL");SKY.ECLIPSE.POSSIBLE(C{r});"")', "@", 3.6),
-    ("Illuminated", "=SKY.MOON.ILLUMINATED(C{r})", "0.0000", 2.2),
+    ("Eclipse?", '=IF(OR(B{r}="NEW";B{r}="FULL");SKY.ECLIPSE.POSSIBLE(C{r});"")', "@", 4.6),
+    ("Illuminated (fraction)", "=SKY.MOON.ILLUMINATED(C{r})", "0.0000", 2.6),
     ("Phase angle (deg)", "=SKY.MOON.PHASE.ANGLE(C{r})", "0.00", 2.2),
-    ("Elongation (deg)", "=SKY.MOON.ELONGATION(C{r})", "0.000", 2.2),
+    ("Elongation (deg)", "=SKY.MOON.ELONGATION(C{r})", "0.000", 2.6),
     ("Age (days)", "=SKY.MOON.AGE(C{r})", "0.00", 2.0),
     ("Longitude (deg)", "=SKY.MOON.LON(C{r})", "0.0000", 2.4),
     ("RA (HMS)", "=SKY.TEXT.HMS(SKY.MOON.RA(C{r});1)", "@", 2.8),
@@ -1476,6 +1511,7 @@ def moon_sheet(doc, sheet):
          "Uses SKY.MOON.PHASE.NEXT, SKY.ECLIPSE.NODE.DISTANCE, SKY.ECLIPSE.POSSIBLE and the "
          "other SKY.MOON functions. Never look at a solar eclipse without a proper solar "
          "filter made for that purpose.", 12)
+    sheet.getRows().getByIndex(0).Height = 1900  # the caution is the note's last line
     header(sheet, 1, ["Search from", "Phase"] + [c[0] for c in MOON_COLUMNS])
     rows, t = [], 46387.0  # 2026-12-31
     for k in range(50):
@@ -1483,9 +1519,14 @@ def moon_sheet(doc, sheet):
     first, last = 2, 2 + len(rows) - 1
     sheet.getCellRangeByPosition(0, first, 1, last).setDataArray(tuple(rows))
     format_range(sheet, 0, first, last, number_format(doc, "YYYY-MM-DD"))
-    for k, (_, template, code, _) in enumerate(MOON_COLUMNS):
+    sheet.getCellRangeByPosition(1, first, 1, last).HoriJustify = CENTER  # phase
+    for k, (title, template, code, _) in enumerate(MOON_COLUMNS):
         fill_formulas(sheet, 2 + k, first, last, template)
         format_range(sheet, 2 + k, first, last, number_format(doc, code))
+        if title.endswith(("(HMS)", "(DMS)")):  # lines up with the numbers beside it
+            sheet.getCellRangeByPosition(2 + k, first, 2 + k, last).HoriJustify = RIGHT
+        elif code == "@":  # words: centred, apart from the number before them
+            sheet.getCellRangeByPosition(2 + k, first, 2 + k, last).HoriJustify = CENTER
     widths(sheet, [2.6, 1.6] + [c[3] for c in MOON_COLUMNS])
 
 

@@ -83,11 +83,14 @@ def install_extension(oxt, profile):
 
 
 class Office:
-    """A headless office with its own fresh profile, ended on exit."""
+    """A headless office with its own fresh profile, ended on exit.  ``visible=True``
+    starts the ordinary windowed office instead (on the display in ``env``, e.g. Xvfb)
+    and opens documents in windows."""
 
-    def __init__(self, oxt=None, profile=None, keep_profile=False, env=None):
+    def __init__(self, oxt=None, profile=None, keep_profile=False, env=None, visible=False):
         self.oxt = oxt
         self.env = env
+        self.visible = visible
         self._own_profile = profile is None
         self.profile = profile or tempfile.mkdtemp(prefix="eclipsheet-profile-")
         self.keep_profile = keep_profile or not self._own_profile
@@ -109,9 +112,8 @@ class Office:
     def start(self, timeout=90):
         port = _free_port()
         self.process = subprocess.Popen(
-            [
-                SOFFICE, "--headless", "--invisible", "--norestore", "--nologo",
-                "--nodefault", "--nolockcheck",
+            [SOFFICE] + ([] if self.visible else ["--headless", "--invisible"]) + [
+                "--norestore", "--nologo", "--nodefault", "--nolockcheck",
                 f"-env:UserInstallation={file_url(self.profile)}",
                 f"--accept=socket,host=127.0.0.1,port={port};urp;StarOffice.ComponentContext",
             ],
@@ -157,12 +159,12 @@ class Office:
 
     def new_sheet(self):
         return self.desktop.loadComponentFromURL(
-            "private:factory/scalc", "_blank", 0, _props(Hidden=True)
+            "private:factory/scalc", "_blank", 0, _props(Hidden=not self.visible)
         )
 
     def open(self, path):
         doc = self.desktop.loadComponentFromURL(
-            file_url(path), "_blank", 0, _props(Hidden=True)
+            file_url(path), "_blank", 0, _props(Hidden=not self.visible)
         )
         if doc is None:
             raise RuntimeError(f"the office could not open {path}")

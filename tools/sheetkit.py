@@ -28,6 +28,9 @@ def note(sheet, row, text, width_cols=8):
     cell = sheet.getCellByPosition(0, row)
     cell.setString(text)
     cell.IsTextWrapped = True
+    # From the top: at the default (bottom) alignment LibreOffice 7.4 cut the last line
+    # of a wrapped note in a merged cell even where the row had room for it.
+    cell.VertJustify = 1  # com.sun.star.table.CellVertJustify.TOP
     merged = sheet.getCellRangeByPosition(0, row, width_cols - 1, row)
     merged.merge(True)
     sheet.getRows().getByIndex(row).Height = 1500
