@@ -20,8 +20,9 @@ from .timescales import _SCALE_WORDS, Instants, check_scale
 
 _IMPLS = {}
 _NULL_JDS = {}
-# Calc recomputes every cell of a sheet on load and on each full recalculation, and
-# the answer of a single cell depends only on its arguments: keep recent answers.
+# Calc recomputes every cell of a sheet on each hard recalculation (and on load when so
+# set), and the answer of a single cell depends only on its arguments: keep recent
+# answers.
 # When full, the newest entry makes room (dict.popitem), so a sheet larger than the
 # cache still finds its first 200,000 cells on every recalculation instead of none, as
 # a least-recently-used policy would on a top-to-bottom pass.
