@@ -69,30 +69,32 @@ def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extre
     # Bisection until the bracket is short, then false-position steps: on an hour-long
     # bracket a smooth function is a straight line to far below the tolerance, so two
     # or three steps replace the twenty-odd bisections that would remain.
-    while lo.size and np.max(hi - lo) > max(tolerance, SHORT_BRACKET_DAYS):
-        mid = 0.5 * (lo + hi)
-        f_mid = f(np.full(mid.shape, base), mid)
-        same = np.sign(f_mid) == np.sign(f_lo)
-        lo = np.where(same, mid, lo)
-        f_lo = np.where(same, f_mid, f_lo)
-        hi = np.where(same, hi, mid)
-        f_hi = np.where(same, f_hi, f_mid)
+    bracket = (lo, hi, f_lo, f_hi)
+    while lo.size and np.max(bracket[1] - bracket[0]) > max(tolerance, SHORT_BRACKET_DAYS):
+        mid = 0.5 * (bracket[0] + bracket[1])
+        bracket = _keep_sign_change(bracket, mid, f(np.full(mid.shape, base), mid))
+    lo, hi, f_lo, f_hi = bracket
     x = 0.5 * (lo + hi)
     if lo.size and np.max(hi - lo) > tolerance:
         for _ in range(6):
+            lo, hi, f_lo, f_hi = bracket
             slope = np.where(f_hi != f_lo, (hi - lo) / (f_hi - f_lo), 0.0)
             new = np.clip(lo - f_lo * slope, lo, hi)
             settled = np.max(np.abs(new - x)) < 0.1 * tolerance
             x = new
             if settled:
                 break
-            f_x = f(np.full(x.shape, base), x)
-            same = np.sign(f_x) == np.sign(f_lo)
-            lo = np.where(same, x, lo)
-            f_lo = np.where(same, f_x, f_lo)
-            hi = np.where(same, hi, x)
-            f_hi = np.where(same, f_hi, f_x)
-    return np.full(lo.shape, base), x
+            bracket = _keep_sign_change(bracket, x, f(np.full(x.shape, base), x))
+    return np.full(x.shape, base), x
+
+
+def _keep_sign_change(bracket, x, f_x):
+    """The half of each bracket (lo, hi, f_lo, f_hi) split at x that still holds the
+    sign change."""
+    lo, hi, f_lo, f_hi = bracket
+    same = np.sign(f_x) == np.sign(f_lo)
+    return (np.where(same, x, lo), np.where(same, hi, x),
+            np.where(same, f_x, f_lo), np.where(same, f_hi, f_x))
 
 
 def wrap180(degrees):
