@@ -497,3 +497,26 @@ def test_greatest_elongations(sky, body, start, event, day, degrees):
 def test_greatest_elongation_is_refused_for_an_outer_planet():
     got = evaluate("SKY.PLANET.EVENT.NEXT", ["MARS", "2024-01-01", "UTC", "GREATEST EAST"])
     assert got.startswith("#SKY: greatest elongations are for Mercury and Venus")
+
+
+def test_heliocentric_on_the_mean_ecliptic_of_date_against_skyfield(sky):
+    # skyfield 1.55 + DE440: the mean ecliptic and equinox of date built from skyfield's
+    # own matrices, R1(mean obliquity) P B (framelib.ICRS_to_J2000 is the frame bias B,
+    # Time.P its precession, nutationlib.mean_obliquity the IAU 2006 formula).  0.01".
+    from skyfield import nutationlib
+    from skyfield.framelib import ICRS_to_J2000
+
+    tt = _dates(40, 14)
+    t = sky["ts"].tt_jd(tt)
+    eph = sky["eph"]
+    helio = (eph["saturn barycenter"] - eph["sun"]).at(t).position.au
+    eps = np.radians(nutationlib.mean_obliquity(t.tdb) / 3600.0)
+    col = _tt_column(tt)
+    ours_lon = _flat(evaluate("SKY.PLANET.HELIO.LON", ["SATURN", col, "TT", "DATE", DE440]))
+    ours_lat = _flat(evaluate("SKY.PLANET.HELIO.LAT", ["SATURN", col, "TT", "DATE", DE440]))
+    for k in range(tt.size):
+        v = _rot(1, eps[k]) @ t.P[:, :, k] @ ICRS_to_J2000 @ helio[:, k]
+        lon = np.degrees(np.arctan2(v[1], v[0])) % 360.0
+        lat = np.degrees(np.arcsin(v[2] / np.linalg.norm(v)))
+        assert abs(_angle_diff(ours_lon[k], lon)) * ARCSEC < 0.01
+        assert abs(ours_lat[k] - lat) * ARCSEC < 0.01
