@@ -366,7 +366,8 @@ def _oxt_arguments(argv):
     parser.add_argument("--version", default=__version__,
                         help=f"version number to build under (default {__version__})")
     parser.add_argument("--bundle", action="store_true",
-                        help="put numpy and pyerfa wheels inside (a self-contained build)")
+                        help="put numpy, pyerfa and jplephem wheels inside (a self-contained "
+                             "build)")
     parser.add_argument("--platform",
                         help="wheel platform tag, e.g. manylinux_2_28_x86_64, win_amd64, "
                              "macosx_11_0_arm64 (default: this machine's office)")
@@ -409,7 +410,8 @@ def main(argv):
                 here_platform, here_python = bundle.machine_target(find_office())
                 platform, python_version = platform or here_platform, python_version or here_python
             bundle_target = (platform, python_version,
-                             {"numpy": args.numpy, "pyerfa": args.pyerfa})
+                             {**bundle.pinned_versions(), "numpy": args.numpy,
+                              "pyerfa": args.pyerfa})
             token = bundle.office_platform_token(platform)
             name = f"eclipsheet-{args.version}-{token}-py{python_version}.oxt"
         target = args.target or os.path.join(ROOT, "dist", name)
