@@ -520,3 +520,19 @@ def test_heliocentric_on_the_mean_ecliptic_of_date_against_skyfield(sky):
         lat = np.degrees(np.arcsin(v[2] / np.linalg.norm(v)))
         assert abs(_angle_diff(ours_lon[k], lon)) * ARCSEC < 0.01
         assert abs(ours_lat[k] - lat) * ARCSEC < 0.01
+
+
+def test_venus_apparent_place_against_the_worked_example():
+    # Meeus, Astronomical Algorithms (2nd ed.), example 33.a (values from memory): Venus
+    # on 1992 December 20, 0h TD, apparent RA 21h04m41.454s, Dec -18 53' 16.84",
+    # distance 0.910947 au, light time 0.0052612 day.  With DE440 to within three units
+    # of the printed last digit in RA (Meeus's VSOP87 truncation), one in the rest.
+    when = ["VENUS", "JD 2448976.5", "TDB"]
+    ra = evaluate("SKY.PLANET.RA", when + ["TRUE", "APPARENT", DE440])
+    dec = evaluate("SKY.PLANET.DEC", when + ["TRUE", "APPARENT", DE440])
+    ra_ref = (21 + 4 / 60 + 41.454 / 3600) * 15.0
+    dec_ref = -(18 + 53 / 60 + 16.84 / 3600)
+    assert abs(ra - ra_ref) * 240.0 < 0.004  # seconds of time
+    assert abs(dec - dec_ref) * ARCSEC < 0.01
+    assert abs(evaluate("SKY.PLANET.DIST", when + [DE440]) - 0.910947) < 1e-6
+    assert abs(evaluate("SKY.PLANET.LIGHTTIME", when + [DE440]) / 1440.0 - 0.0052612) < 1e-7
