@@ -27,23 +27,36 @@ def _unit(v):
 class Place:
     """The geocentric place of a body at some instants, and what it was made from."""
 
-    __slots__ = ("direction", "distance", "helio", "earth_helio", "sun_direction")
+    __slots__ = ("direction", "distance", "helio", "earth_helio", "_states", "_sun")
 
-    def __init__(self, direction, distance, helio, earth_helio, sun_direction):
+    def __init__(self, direction, distance, helio, earth_helio, states):
         self.direction = direction      # unit vectors, GCRS axes, of the requested kind
         self.distance = distance        # au: |body(t - tau) - Earth(t)| ("true" distance)
         self.helio = helio              # heliocentric body at t - tau (au)
         self.earth_helio = earth_helio  # heliocentric Earth at t (au)
-        self.sun_direction = sun_direction  # apparent Sun, unit vectors (for elongation)
+        self._states = states           # barycentric (p, v) of the Earth and the Sun at t
+        self._sun = None
+
+    @property
+    def sun_direction(self):
+        """The apparent Sun (unit vectors), for elongations; made when first asked."""
+        if self._sun is None:
+            self._sun = _sun_geocentric(*self._states, "APPARENT")[0]
+        return self._sun
 
 
-def _sun_apparent(earth_b, sun_b, tdb):
-    """Apparent direction of the Sun (light time, aberration) from the states at t."""
+def _sun_geocentric(earth_b, sun_b, kind):
+    """(unit vectors, geometric distance) of the Sun from the barycentric states at t:
+    the light time (about 499 s) from the Sun's slow barycentric motion, then for
+    APPARENT the annual aberration (the Sun's own light is not deflected)."""
     (ep, ev), (sp, sv) = earth_b, sun_b
     geometric = sp - ep
-    tau = np.linalg.norm(geometric, axis=-1) * LIGHT_DAYS_PER_AU
-    astrometric = geometric - tau[..., None] * sv  # the Sun's barycentric motion is slow
-    return _aberrate(_unit(astrometric), ev, np.linalg.norm(geometric, axis=-1))
+    distance = np.linalg.norm(geometric, axis=-1)
+    if kind == "GEOMETRIC":
+        return geometric / distance[..., None], distance
+    tau = distance * LIGHT_DAYS_PER_AU
+    u = _unit(geometric - tau[..., None] * sv)
+    return (_aberrate(u, ev, distance) if kind == "APPARENT" else u), distance
 
 
 def _aberrate(u, earth_v, sun_distance):
@@ -53,19 +66,20 @@ def _aberrate(u, earth_v, sun_distance):
 
 
 def place(body, tdb1, tdb2, kind="APPARENT", source=ephemeris.BUILTIN):
-    """The ``Place`` of ``body`` (SUN, MOON or a planet) at TDB instants."""
+    """The ``Place`` of ``body`` (SUN, MOON or a planet) at the source's argument times
+    (ephemeris.times_for)."""
     src = ephemeris.get(source)
     tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
     earth_b, sun_b = src.earth_and_sun(tdb1, tdb2)
     (ep, ev), (sp, sv) = earth_b, sun_b
     earth_helio = ep - sp
+    if body == "SUN":
+        u, distance = _sun_geocentric(earth_b, sun_b, kind)
+        return Place(u, distance, np.zeros_like(ep), earth_helio, (earth_b, sun_b))
     em = np.linalg.norm(earth_helio, axis=-1)
-    sun_direction = _sun_apparent(earth_b, sun_b, (tdb1, tdb2))
     near = (earth_helio, ev - sv, (tdb1, tdb2))
 
     def helio_at(tau):
-        if body == "SUN":
-            return np.zeros(tdb1.shape + (3,))
         return src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
 
     def geocentric(helio, tau):
@@ -83,12 +97,9 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=ephemeris.BUILTIN):
     distance = np.linalg.norm(vector, axis=-1)
     u = vector / distance[..., None]
     if kind == "APPARENT":
-        if body != "SUN":
-            q = _unit(helio)
-            e = earth_helio / em[..., None]
-            u = erfa.ld(1.0, u, q, e, em, 1e-9)
-        u = _aberrate(u, ev, em)
-    return Place(u, distance, helio, earth_helio, sun_direction)
+        e = earth_helio / em[..., None]
+        u = _aberrate(erfa.ld(1.0, u, _unit(helio), e, em, 1e-9), ev, em)
+    return Place(u, distance, helio, earth_helio, (earth_b, sun_b))
 
 
 def heliocentric(body, tdb1, tdb2, source=ephemeris.BUILTIN):

@@ -184,6 +184,9 @@ def _read_texts(values, what):
     return values.copy(), messages
 
 
+_NOT_GIVEN = {"time": "JD 2451545.0", "number": 0.0, "angle": 0.0}
+
+
 def _passed_on(values):
     """Messages for rows whose input is itself a #SKY: message from another cell: the
     first problem is passed on as it is, instead of 'is not an angle'."""
@@ -231,20 +234,15 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
         if spread:
             values = values[:1]
         msgs_passed = _passed_on(values)
-        if arg.optional and arg.kind in ("number", "angle") and arg.default is None:
-            # Left out means "not given" (a site that is the geocentre): the core gets
-            # the mask, and the rows a placeholder it never uses.
+        if arg.optional and arg.default is None:
+            # Left out means "not given" (a time only some systems need, a site that is
+            # the geocentre): the core gets the mask and refuses rows where it matters;
+            # the rows compute on a placeholder (J2000.0, or 0).
             given = np.array([v is not None for v in values], dtype=bool)
             columns[arg.name + "_given"] = given
-            values = np.where(given, values, 0.0)
-        elif arg.optional and arg.kind in ("number", "angle", "text"):
+            values = np.where(given, values, _NOT_GIVEN[arg.kind])
+        elif arg.optional:
             values = np.array([arg.default if v is None else v for v in values], dtype=object)
-        if arg.kind == "time" and arg.optional:
-            # A time only some systems need: rows without one compute at J2000.0 and the
-            # core refuses them where the time matters (it gets the mask).
-            given = np.array([v is not None for v in values], dtype=bool)
-            columns[arg.name + "_given"] = given
-            values = np.where(given, values, "JD 2451545.0")
         if arg.kind == "time":
             jd1, jd2, msgs = read_times(
                 values, options.get("scale", "UTC"), null_jd, options.get("dut1", 0.0)

@@ -59,7 +59,6 @@ def _calendar(jd):
 
 class Builtin:
     name = BUILTIN
-    bodies = ("SUN", "EARTH", "MOON") + PLANETS[:-1]
 
     # ICRS from the J2000.0 mean equator and equinox that plan94 refers to (the 23 mas
     # frame bias, far below the theory's error, applied anyway so that every source
@@ -128,7 +127,6 @@ class Kernel:
         self.segments = {}
         for seg in self.spk.segments:
             self.segments.setdefault(seg.target, []).append(seg)
-        self.bodies = tuple(b for b in ("SUN", "EARTH", "MOON") + PLANETS if self._code(b))
 
     def describe(self):
         spans = {(s.start_jd, s.end_jd) for segs in self.segments.values() for s in segs}
@@ -254,6 +252,17 @@ def get(source):
 
 
 _BUILTIN = Builtin()
+
+
+def times_for(source, tt1, tt2):
+    """The TT instants as the source's argument: TDB for a kernel; the built-in theories
+    take TT as it is (under 2 ms from TDB, 60 m of the Earth's motion), which spares
+    ERFA dtdb in event searches that evaluate a place many times."""
+    if source == BUILTIN:
+        return tt1, tt2
+    from .timescales import _tt_to_tdb
+
+    return _tt_to_tdb(tt1, tt2)
 
 
 def describe_cells(source):

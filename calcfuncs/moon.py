@@ -10,10 +10,10 @@ light deflection and annual aberration); the Sun from sun.py.
 import erfa
 import numpy as np
 
-from . import frames
+from . import ephemeris, frames
 from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
-from .sun import _FRAME_TO_ECLIPTIC, _FRAME_TO_EQUATORIAL, _as_result, _check_years, _rows
+from .sun import _as_result, _check_years, _rows, place_cells
 from .sun import sun_in
 from .timescales import _quiet
 
@@ -40,12 +40,11 @@ def moon_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
     distance is that of the kind asked for (for APPARENT and ASTROMETRIC to where the
     light left the Moon: tens of metres from the geometric one)."""
     from .bodies import place
-    from .timescales import _tt_to_tdb
 
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
     if source == "BUILTIN":
         _check_years(tt1, tt2)
-    p = place("MOON", *_tt_to_tdb(tt1, tt2), kind, source)
+    p = place("MOON", *ephemeris.times_for(source, tt1, tt2), kind, source)
     return p.direction, p.distance
 
 
@@ -83,20 +82,7 @@ def _phase_angle_rad(tt1, tt2, source="BUILTIN"):
 # ---- cell functions: place -------------------------------------------------------------
 
 
-def lon_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[0]
-
-
-def lat_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[1]
-
-
-def ra_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[0]
-
-
-def dec_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(moon_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[1]
+lon_cells, lat_cells, ra_cells, dec_cells = place_cells(moon_in)
 
 
 def distance_cells(time, unit="KM", source="BUILTIN"):

@@ -17,7 +17,7 @@ import numpy as np
 from . import ephemeris, frames
 from .errors import rows_failing
 from .sun import _check_years
-from .timescales import Instants, _quiet, _tt_to_tdb
+from .timescales import Instants, _quiet
 
 LIGHT_DAYS_PER_AU = erfa.AULT / erfa.DAYSEC
 MJD_ZERO = 2400000.5
@@ -49,12 +49,9 @@ def _observer(instants, centre, source, site):
     """Position (au, ICRS axes) of the observer from the barycentre or the Sun."""
     tt1, tt2 = instants.tt()
     _check_years(tt1, tt2)
-    if source == ephemeris.BUILTIN:
-        pvh, pvb = _quiet(erfa.epv00, tt1, tt2)  # TT for TDB: 2 ms moves the Earth 60 m
-        r = pvb["p"] if centre == "BARYCENTRE" else pvh["p"]
-    else:
-        (ep, _), (sp, _) = ephemeris.get(source).earth_and_sun(*_tt_to_tdb(tt1, tt2))
-        r = ep if centre == "BARYCENTRE" else ep - sp
+    earth_and_sun = ephemeris.get(source).earth_and_sun
+    (ep, _), (sp, _) = earth_and_sun(*ephemeris.times_for(source, tt1, tt2))
+    r = ep if centre == "BARYCENTRE" else ep - sp
     if site is not None:
         r = r + _site_gcrs(instants, site)
     return r

@@ -12,7 +12,7 @@ Greatest elongations (Mercury, Venus) are the maxima of the apparent elongation,
 
 import numpy as np
 
-from . import bodies, frames
+from . import bodies, ephemeris, frames
 from .errors import SkyError
 from .events import crossings, wrap180
 from .sun import _FRAME_TO_ECLIPTIC, _FRAME_TO_EQUATORIAL, _as_result, _rows
@@ -22,22 +22,20 @@ INNER = ("MERCURY", "VENUS")
 # of one kind, so a search over a little more than one always finds the next.
 SYNODIC_DAYS = {"MERCURY": 115.88, "VENUS": 583.92, "MARS": 779.94, "JUPITER": 398.88,
                 "SATURN": 378.09, "URANUS": 369.66, "NEPTUNE": 367.49, "PLUTO": 366.73}
-EVENTS = ("OPPOSITION", "CONJUNCTION", "INFERIOR", "SUPERIOR", "GREATEST EAST",
-          "GREATEST WEST")
 _DERIVATIVE_STEP_DAYS = 0.02  # half-width of the central difference for elongation's rate
 
 
-def _tdb_tt(time):
-    tdb = time.to("TDB")
+def _tdb_tt(time, source):
+    """The source's argument times (ephemeris.times_for) and TT, for the frames."""
     tt1, tt2 = time.tt()
-    return tdb.jd1, tdb.jd2, tt1, tt2
+    return (*ephemeris.times_for(source, tt1, tt2), tt1, tt2)
 
 
 # ---- heliocentric ----------------------------------------------------------------------
 
 
 def _helio_ecliptic(body, time, frame, source):
-    tdb1, tdb2, tt1, tt2 = _tdb_tt(time)
+    tdb1, tdb2, tt1, tt2 = _tdb_tt(time, source)
     p = bodies.heliocentric(body, tdb1, tdb2, source)
     return bodies.in_system(p, _FRAME_TO_ECLIPTIC[frame], tt1, tt2)
 
@@ -51,7 +49,7 @@ def helio_lat_cells(body, time, frame="DATE", source="BUILTIN"):
 
 
 def helio_dist_cells(body, time, source="BUILTIN"):
-    tdb1, tdb2, _, _ = _tdb_tt(time)
+    tdb1, tdb2, _, _ = _tdb_tt(time, source)
     return np.linalg.norm(bodies.heliocentric(body, tdb1, tdb2, source), axis=-1)
 
 
@@ -71,7 +69,7 @@ def helio_z_cells(body, time, frame="DATE", source="BUILTIN"):
 
 
 def _place(body, time, kind, source):
-    tdb1, tdb2, tt1, tt2 = _tdb_tt(time)
+    tdb1, tdb2, tt1, tt2 = _tdb_tt(time, source)
     return bodies.place(body, tdb1, tdb2, kind, source), tt1, tt2
 
 
@@ -124,7 +122,10 @@ def illuminated_cells(body, time, source="BUILTIN"):
 def longitude_from_sun(body, tt1, tt2, source="BUILTIN"):
     """Apparent ecliptic longitude of the planet minus the Sun's, degrees in [-180, 180).
     (Searches take TT for TDB: 2 ms, far below what moves an event.)"""
-    p = bodies.place(body, tt1, tt2, "APPARENT", source)
+    return _longitude_difference(bodies.place(body, tt1, tt2, "APPARENT", source), tt1, tt2)
+
+
+def _longitude_difference(p, tt1, tt2):
     # The same on the true and the mean ecliptic of date: nutation turns the frame
     # about the ecliptic's pole, and the mean frame's matrix is far cheaper.
     m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
@@ -142,48 +143,50 @@ def _elongation_rate(body, source, sign):
         before = bodies.place(body, jd1, jd2 - h, "APPARENT", source)
         after = bodies.place(body, jd1, jd2 + h, "APPARENT", source)
         rate = np.degrees(bodies.elongation(after) - bodies.elongation(before)) / (2.0 * h)
-        side = np.sign(longitude_from_sun(body, jd1, jd2, source))
+        # The side changes only at conjunctions, weeks from a greatest elongation.
+        side = np.sign(_longitude_difference(after, jd1, jd2 + h))
         return np.where(side == sign, rate, 1.0)
 
     return f
 
 
-def _event_rule(body, event):
-    """(offset in degrees, direction of the crossing) of an event, or a SkyError."""
-    if event.startswith("GREATEST") and body not in INNER:
-        raise SkyError("greatest elongations are for Mercury and Venus; an outer planet's "
-                       "elongation is greatest at opposition")
+def _event_search(body, event, source):
+    """(function of TT whose zero is the event, direction of the crossing), or a
+    SkyError for an event the planet does not have."""
     if event.startswith("GREATEST"):
-        return 0.0, -1
+        if body not in INNER:
+            raise SkyError("greatest elongations are for Mercury and Venus; an outer "
+                           "planet's elongation is greatest at opposition")
+        # The elongation's maximum on one side of the Sun: its rate falls through zero.
+        return _elongation_rate(body, source, +1 if event.endswith("EAST") else -1), -1
     if body in INNER:
         if event == "OPPOSITION":
             raise SkyError(f"{body.capitalize()} never comes to opposition; use INFERIOR, "
                            "SUPERIOR or CONJUNCTION (either)")
         # The difference falls through 0 at inferior conjunction (the planet retrograde)
         # and rises through it at superior conjunction.
-        return 0.0, {"INFERIOR": -1, "SUPERIOR": +1, "CONJUNCTION": 0}[event]
-    if event in ("INFERIOR", "SUPERIOR"):
+        offset, direction = 0.0, {"INFERIOR": -1, "SUPERIOR": +1, "CONJUNCTION": 0}[event]
+    elif event in ("INFERIOR", "SUPERIOR"):
         raise SkyError("only Mercury and Venus have inferior and superior conjunctions; use "
                        "CONJUNCTION or OPPOSITION")
-    # An outer planet falls behind the Sun: the difference always decreases.
-    return (180.0 if event == "OPPOSITION" else 0.0), -1
-
-
-def next_event_cells(body, time, null_jd, event="OPPOSITION", result_scale=None,
-                     source="BUILTIN"):
-    """The first instant after ``time`` of a conjunction or opposition with the Sun."""
-    offset, direction = _event_rule(body, event)
-    tt1, tt2 = time.tt()
-    jd = np.ravel(tt1 + tt2)
-    window = SYNODIC_DAYS[body] * 1.1 + 5.0
+    else:
+        # An outer planet falls behind the Sun: the difference always decreases.
+        offset, direction = (180.0 if event == "OPPOSITION" else 0.0), -1
 
     def f(jd1, jd2):
         return wrap180(longitude_from_sun(body, jd1, jd2, source) - offset)
 
-    if event.startswith("GREATEST"):
-        # The elongation's maximum on one side of the Sun: its rate falls through zero.
-        f = _elongation_rate(body, source, +1 if event.endswith("EAST") else -1)
-        direction = -1
+    return f, direction
+
+
+def next_event_cells(body, time, null_jd, event="OPPOSITION", result_scale=None,
+                     source="BUILTIN"):
+    """The first instant after ``time`` of an opposition, a conjunction with the Sun or a
+    greatest elongation."""
+    f, direction = _event_search(body, event, source)
+    tt1, tt2 = time.tt()
+    jd = np.ravel(tt1 + tt2)
+    window = SYNODIC_DAYS[body] * 1.1 + 5.0
 
     def one(k):
         # Five-day samples: the difference moves under 3 degrees a day for every planet,

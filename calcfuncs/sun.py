@@ -16,14 +16,13 @@ equinox of date) or TRUE (true equinox, nutation in longitude included).
 import erfa
 import numpy as np
 
-from . import frames
+from . import ephemeris, frames
 from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
-from .timescales import Instants, _quiet
+from .timescales import Instants
 
 KINDS = ("APPARENT", "ASTROMETRIC", "GEOMETRIC")
 SUN_YEARS = (1000.0, 3000.0)
-LIGHT_DAYS_PER_AU = erfa.AULT / erfa.DAYSEC
 
 
 def _check_years(tt1, tt2):
@@ -35,31 +34,15 @@ def _check_years(tt1, tt2):
 
 
 def sun_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
-    """(unit vectors, distance in au) of the geocentric Sun on the GCRS axes."""
-    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
-    if source != "BUILTIN":  # a JPL kernel: the general pipeline, at TDB
-        from .bodies import place
-        from .timescales import _tt_to_tdb
+    """(unit vectors, distance in au) of the geocentric Sun on the GCRS axes, from the
+    one pipeline of bodies.py."""
+    from .bodies import place
 
-        p = place("SUN", *_tt_to_tdb(tt1, tt2), kind, source)
-        return p.direction, p.distance
-    _check_years(tt1, tt2)
-    # epv00 wants TDB; TT differs by under 2 ms, which moves the Sun by 0.00008".
-    pvh, pvb = _quiet(erfa.epv00, tt1, tt2)  # it warns outside its 1900-2100 fit
-    earth_helio = pvh["p"]
-    sun_bary_v = pvb["v"] - pvh["v"]
-    geometric = -earth_helio
-    distance = np.linalg.norm(geometric, axis=-1)
-    if kind == "GEOMETRIC":
-        return geometric / distance[..., None], distance
-    tau = distance * LIGHT_DAYS_PER_AU
-    astrometric = geometric - tau[..., None] * sun_bary_v
-    u = astrometric / np.linalg.norm(astrometric, axis=-1)[..., None]
-    if kind == "ASTROMETRIC":
-        return u, distance
-    v = pvb["v"] * LIGHT_DAYS_PER_AU  # the Earth's barycentric velocity in units of c
-    bm1 = np.sqrt(1.0 - np.sum(v * v, axis=-1))
-    return erfa.ab(u, v, distance, bm1), distance
+    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    if source == "BUILTIN":
+        _check_years(tt1, tt2)
+    p = place("SUN", *ephemeris.times_for(source, tt1, tt2), kind, source)
+    return p.direction, p.distance
 
 
 def sun_in(tt1, tt2, system, kind="APPARENT", source="BUILTIN"):
@@ -82,20 +65,20 @@ def sun_longitude(tt1, tt2, frame="TRUE", kind="APPARENT"):
 # ---- cell functions: position ---------------------------------------------------------
 
 
-def lon_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[0]
+def place_cells(place_in):
+    """The cell functions (lon, lat, ra, dec) of a body whose unit vectors in a system of
+    frames.py are ``place_in(tt1, tt2, system, kind, source)``: ecliptic J2000, DATE or
+    TRUE, equatorial the same or ICRS."""
+    def component(systems, index):
+        def cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
+            return frames.spherical(place_in(*time.tt(), systems[frame], kind, source))[index]
+        return cells
+
+    return (component(_FRAME_TO_ECLIPTIC, 0), component(_FRAME_TO_ECLIPTIC, 1),
+            component(_FRAME_TO_EQUATORIAL, 0), component(_FRAME_TO_EQUATORIAL, 1))
 
 
-def lat_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_ECLIPTIC[frame], kind, source))[1]
-
-
-def ra_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[0]
-
-
-def dec_cells(time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return frames.spherical(sun_in(*time.tt(), _FRAME_TO_EQUATORIAL[frame], kind, source))[1]
+lon_cells, lat_cells, ra_cells, dec_cells = place_cells(sun_in)
 
 
 def distance_cells(time, source="BUILTIN"):

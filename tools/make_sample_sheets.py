@@ -42,6 +42,7 @@ from sheetkit import (  # noqa: E402
     fill_formulas,
     format_range,
     header,
+    landscape_fit_to_width,
     note,
     number_format,
     widths,
@@ -317,16 +318,6 @@ def bad_input(doc, sheet):
         sheet.getCellByPosition(1, r).setString(why)
         sheet.getCellByPosition(2, r).setFormula(formula)
     widths(sheet, [7.0, 9.0, 22.0])
-
-
-def landscape_fit_to_width(doc):
-    """Print every sheet landscape, one page wide, so the PDF reads like the sheet."""
-    style = doc.StyleFamilies.getByName("PageStyles").getByName("Default")
-    width, height = style.Width, style.Height
-    style.IsLandscape = True
-    style.Width, style.Height = max(width, height), min(width, height)
-    style.ScaleToPagesX = 1
-    style.ScaleToPagesY = 0
 
 
 # ---- target_list.ods: the circle's fields on one night at Curlew Staithe ---------------

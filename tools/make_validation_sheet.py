@@ -347,15 +347,6 @@ def validation_sheet(doc, sheet):
     widths(sheet, WIDTHS_CM)
 
 
-def landscape(doc):
-    style = doc.StyleFamilies.getByName("PageStyles").getByName("Default")
-    width, height = style.Width, style.Height
-    style.IsLandscape = True
-    style.Width, style.Height = max(width, height), min(width, height)
-    style.ScaleToPagesX = 1
-    style.ScaleToPagesY = 0
-
-
 FIXED_ZIP_TIME = (1980, 1, 1, 0, 0, 0)  # the earliest a zip entry can hold
 
 
@@ -387,6 +378,7 @@ def build(oxt, out_dir, office=None):
     """Write validation.ods into ``out_dir`` (atomically); returns its path."""
     sys.path.insert(0, HERE)
     import officekit
+    from sheetkit import landscape_fit_to_width
 
     os.makedirs(out_dir, exist_ok=True)
     if office is None:
@@ -397,7 +389,7 @@ def build(oxt, out_dir, office=None):
         sheet = doc.Sheets.getByIndex(0)
         sheet.setName(SHEET_NAME)
         validation_sheet(doc, sheet)
-        landscape(doc)
+        landscape_fit_to_width(doc)
         doc.calculateAll()
         # Saved beside the target and normalised there, then moved into place.
         staged = office.save(doc, os.path.join(out_dir, ".staged-" + FILE_NAME))

@@ -62,7 +62,7 @@ SUN_CAUTION = (
 )
 
 
-def _source_rows(sheet, doc):
+def _source_rows(sheet):
     sheet.getCellByPosition(0, 2).setString("Ephemeris source")
     sheet.getCellByPosition(1, 2).setString("BUILTIN")
     sheet.getCellByPosition(2, 2).setFormula(f"=SKY.EPHEMERIS({SOURCE_CELL})")
@@ -79,7 +79,7 @@ def planet_calendar_sheet(doc, sheet):
          "left in 2027), with the planet's elongation, distance, place and phase at the "
          "instant; below, each planet on the first of each month. Uses SKY.PLANET.EVENT.NEXT, "
          "SKY.PLANET.* and SKY.EPHEMERIS. " + SUN_CAUTION, 12)
-    _source_rows(sheet, doc)
+    _source_rows(sheet)
     top = 5
     header(sheet, top, ["Planet", "Event", "Search from (UTC)", "Instant (UTC)"]
            + [c[0] for c in EVENT_COLUMNS[1:]])
@@ -159,7 +159,7 @@ def archive_sheet(doc, sheet):
          "the site adds the site's offset from the Earth's centre (up to 21 ms). Uses "
          "SKY.HJD.TO.BJD.TDB, SKY.BJD.TDB.TO.HJD, SKY.HJD.UTC.DATETIME, SKY.BJD.TDB with a "
          "site and SKY.BJD.TDB.DATETIME.", 12)
-    _source_rows(sheet, doc)
+    _source_rows(sheet)
     header(sheet, 4, ["Site (invented)", "Latitude (deg)", "Longitude E (deg)", "Height (m)"])
     sheet.getCellByPosition(0, 5).setString("Saltmarsh circle")
     sheet.getCellRangeByPosition(1, 5, 3, 5).setDataArray((SITE,))

@@ -59,3 +59,13 @@ def column_letter(col):
         col, rem = divmod(col - 1, 26)
         letters = chr(65 + rem) + letters
     return letters
+
+
+def landscape_fit_to_width(doc):
+    """Print every sheet landscape, one page wide, so the PDF reads like the sheet."""
+    style = doc.StyleFamilies.getByName("PageStyles").getByName("Default")
+    width, height = style.Width, style.Height
+    style.IsLandscape = True
+    style.Width, style.Height = max(width, height), min(width, height)
+    style.ScaleToPagesX = 1
+    style.ScaleToPagesY = 0
