@@ -228,9 +228,13 @@ def check_source(value):
     if path.startswith("file://"):
         from urllib.parse import unquote, urlparse
         path = unquote(urlparse(path).path)
-    path = os.path.abspath(os.path.expanduser(path))
+    path = os.path.expanduser(path)
     if not path.lower().endswith(".bsp"):
         raise SkyError(f'unknown ephemeris source "{text}"; use ' + SOURCE_WORDS)
+    if not os.path.isabs(path):
+        # Relative to what? The office's working folder is not the sheet's.
+        raise SkyError(f'give the full path of the kernel file, not "{text}"')
+    path = os.path.normpath(path)
     get(path)  # opens it now, so a bad path is reported once for the whole column
     return path
 

