@@ -1,12 +1,16 @@
-"""The planet-watch workbook (invented scenario): the Saltmarsh circle's planet calendar
-for 2027 and its archive of heliocentric timings carried over to BJD_TDB.
+"""planet_watch.ods (invented scenario): the Saltmarsh circle's planet calendar for 2027
+and its archive of heliocentric timings carried over to BJD_TDB (the planets family).
 
 Written by tools/make_sample_sheets.py; every number is a live SKY. formula.
 """
 
 import datetime
 
-from sheetkit import fill_formulas, format_range, header, note, number_format, widths
+from sheetkit import format_range, header, note, number_format, widths
+
+from .common import fill_columns, sheet_at
+
+FILE_NAME = "planet_watch.ods"
 
 SOURCE_CELL = "$B$3"  # one cell chooses the ephemeris for the whole sheet
 YEAR_START = 46388.0  # 2027-01-01 00:00 UTC as a date-time serial (null date 1899-12-30)
@@ -55,7 +59,7 @@ MONTHLY_COLUMNS = [
     ("Elongation (deg)", f"=SKY.PLANET.ELONGATION(B{{r}};A{{r}};;{SOURCE_CELL})", "0.0", 2.2),
 ]
 
-SUN_CAUTION = (
+CONJUNCTION_CAUTION = (
     "Caution: near a conjunction a planet is close to the Sun in the sky. Never look at the "
     "Sun, or point binoculars, a telescope or a camera at or near it, without a proper "
     "solar filter made for that purpose."
@@ -78,7 +82,7 @@ def planet_calendar_sheet(doc, sheet):
          "the previous one; an event that falls in 2028 shows that there is none of its kind "
          "left in 2027), with the planet's elongation, distance, place and phase at the "
          "instant; below, each planet on the first of each month. Uses SKY.PLANET.EVENT.NEXT, "
-         "SKY.PLANET.* and SKY.EPHEMERIS. " + SUN_CAUTION, 12)
+         "SKY.PLANET.* and SKY.EPHEMERIS. " + CONJUNCTION_CAUTION, 12)
     _source_rows(sheet)
     top = 5
     header(sheet, top, ["Planet", "Event", "Search from (UTC)", "Instant (UTC)"]
@@ -97,9 +101,7 @@ def planet_calendar_sheet(doc, sheet):
             sheet.getCellByPosition(2, row).setValue(YEAR_START)
         previous[key] = row
     format_range(sheet, 2, first, last, number_format(doc, "YYYY-MM-DD HH:MM"))
-    for k, (_, template, code, _) in enumerate(EVENT_COLUMNS):
-        fill_formulas(sheet, 3 + k, first, last, template)
-        format_range(sheet, 3 + k, first, last, number_format(doc, code))
+    fill_columns(doc, sheet, first, last, 3, [c[1:3] for c in EVENT_COLUMNS], right=False)
 
     mt = last + 2
     header(sheet, mt, ["Date (UTC)", "Planet"] + [c[0] for c in MONTHLY_COLUMNS])
@@ -115,9 +117,7 @@ def planet_calendar_sheet(doc, sheet):
         sheet.getCellByPosition(0, row).setValue(float(first_of_month.days))
         sheet.getCellByPosition(1, row).setString(planet)
     format_range(sheet, 0, mfirst, mlast, number_format(doc, "YYYY-MM-DD"))
-    for k, (_, template, code, _) in enumerate(MONTHLY_COLUMNS):
-        fill_formulas(sheet, 2 + k, mfirst, mlast, template)
-        format_range(sheet, 2 + k, mfirst, mlast, number_format(doc, code))
+    fill_columns(doc, sheet, mfirst, mlast, 2, [c[1:3] for c in MONTHLY_COLUMNS], right=False)
     widths(sheet, [2.6, 2.4, 3.4] + [c[3] for c in EVENT_COLUMNS] + [2.6] * 3)
 
 
@@ -170,24 +170,10 @@ def archive_sheet(doc, sheet):
     last = first + len(ARCHIVE) - 1
     sheet.getCellRangeByPosition(0, first, 3, last).setDataArray(tuple(ARCHIVE))
     format_range(sheet, 3, first, last, number_format(doc, "0.00000"))
-    for k, (_, template, code, _) in enumerate(ARCHIVE_COLUMNS):
-        fill_formulas(sheet, 4 + k, first, last, template)
-        format_range(sheet, 4 + k, first, last, number_format(doc, code))
+    fill_columns(doc, sheet, first, last, 4, [c[1:3] for c in ARCHIVE_COLUMNS], right=False)
     widths(sheet, [3.0, 2.2, 2.2, 3.0] + [c[3] for c in ARCHIVE_COLUMNS])
 
 
-def planet_watch_book(office, out_dir, save):
-    doc = office.new_sheet()
-    try:
-        sheets = doc.Sheets
-        sheets.getByIndex(0).setName("Planet calendar")
-        planet_calendar_sheet(doc, sheets.getByIndex(0))
-        sheets.insertNewByName("HJD archive", 1)
-        archive_sheet(doc, sheets.getByName("HJD archive"))
-        return save(office, doc, out_dir, "planet_watch.ods")
-    finally:
-        doc.close(True)
-
-
-if __name__ == "__main__":  # pragma: no cover - run through make_sample_sheets.py
-    raise SystemExit("run tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt")
+def fill(doc):
+    planet_calendar_sheet(doc, sheet_at(doc, 0, "Planet calendar"))
+    archive_sheet(doc, sheet_at(doc, 1, "HJD archive"))
