@@ -15,8 +15,9 @@ import numpy as np
 from . import ephemeris, registry
 from .angles import parse_angle
 from .errors import PREFIX, RowErrors, SkyError
-from .timeinput import null_date_jd, read_times
-from .timescales import _SCALE_WORDS, Instants, check_scale
+from .timeinput import null_date_jd, read_times, to_serial
+from .timescales import DateTimes, Instants, check_scale
+from .vocabulary import SCALE_WORDS
 
 _IMPLS = {}
 _NULL_JDS = {}
@@ -79,12 +80,12 @@ def _read_option(arg, value):
         if _is_blank(value) or (type(value) is float and value == 0.0):
             return arg.default
         if not isinstance(value, str):
-            raise SkyError(f"{arg.name} must be a time scale: " + _SCALE_WORDS)
+            raise SkyError(f"{arg.name} must be a time scale: " + SCALE_WORDS)
         try:
             return check_scale(value)
         except SkyError as err:
             if str(err).startswith("unknown time scale"):
-                raise SkyError(f'unknown {arg.name} "{value}"; use ' + _SCALE_WORDS) from None
+                raise SkyError(f'unknown {arg.name} "{value}"; use ' + SCALE_WORDS) from None
             raise
     if arg.kind == "source":
         if _is_blank(value) or (type(value) is float and value == 0.0):
@@ -208,6 +209,27 @@ def _merge(messages, new):
 # ---- evaluation ---------------------------------------------------------------------
 
 
+LEAP_SECOND_MESSAGE = ("this instant is inside a leap second (23:59:60), which a date-time "
+                       "cell cannot show; use SKY.TEXT.ISO")
+
+
+def _date_time_values(result, null_jd):
+    """Calc date-time values (days since the document's null date) of a ``DateTimes``,
+    with its words in the rows that have no instant, and the mask of rows that fall
+    inside a leap second (a Calc day has 86,400 seconds)."""
+    serial, in_leap = to_serial(result.instants, null_jd)
+    serial = np.reshape(serial + result.offset_days, -1)
+    in_leap = np.broadcast_to(in_leap, serial.shape)
+    if result.words is None:
+        return serial, in_leap
+    words = np.reshape(result.words, -1)
+    values = np.empty(serial.size, dtype=object)
+    values[:] = serial.tolist()
+    has_words = np.not_equal(words, None)
+    values[has_words] = words[has_words]
+    return values, in_leap & ~has_words
+
+
 def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
     """Results (object array) for rows that share their options.
 
@@ -221,7 +243,10 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
         if "null_jd" in params:
             kwargs["null_jd"] = null_jd
         try:
-            return np.asarray(func(**kwargs), dtype=object).reshape(-1)[:1].repeat(n)
+            out = func(**kwargs)
+            if isinstance(out, DateTimes):
+                out = _date_time_values(out, null_jd)[0]
+            return np.asarray(out, dtype=object).reshape(-1)[:1].repeat(n)
         except SkyError as err:
             return np.full(n, PREFIX + str(err), dtype=object)
     messages = np.full(n, None, dtype=object)
@@ -289,7 +314,11 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
                     )
                 else:
                     kwargs[arg.name] = col[idx]
-            out = np.asarray(func(**kwargs))
+            out = func(**kwargs)
+            if isinstance(out, DateTimes):
+                out, leap = _date_time_values(out, null_jd)
+                messages[idx[leap]] = LEAP_SECOND_MESSAGE
+            out = np.asarray(out)
         except RowErrors as err:
             row_messages = err.messages.ravel()
             if row_messages.size != idx.size:  # not row-aligned: the whole group fails
@@ -303,7 +332,7 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
             break
         out = out.reshape(-1)
         if out.dtype.kind == "f":
-            finite = np.isfinite(out)
+            finite = np.isfinite(out) | np.not_equal(messages[idx], None)
             as_objects = np.empty(out.size, dtype=object)
             as_objects[:] = out.tolist()  # Python floats, as UNO wants them
             results[idx[finite]] = as_objects[finite]
@@ -327,7 +356,7 @@ def _evaluate_single(fn, raw_args, null_date):
             column = np.empty(1, dtype=object)
             column[0] = raw
             rows[a.name] = column
-    null_jd = _null_jd(null_date) if fn.has_time or "null_jd" in _impl(fn)[1] else None
+    null_jd = _null_jd(null_date)
     return _compute_group(fn, rows, options, null_jd)[0]
 
 
@@ -402,7 +431,7 @@ def _evaluate(fn, raw_args, null_date):
             continue
         groups.setdefault(tuple(key), []).append(i)
 
-    null_jd = _null_jd(null_date) if fn.has_time or "null_jd" in _impl(fn)[1] else None
+    null_jd = _null_jd(null_date)
     for key, members in groups.items():
         members = np.array(members)
         options = {a.name: key[k] for k, a in enumerate(fn.args) if a.kind in registry.OPTION_KINDS}

@@ -25,8 +25,9 @@ import threading
 import erfa
 import numpy as np
 
+from . import vectors
 from .errors import SkyError, rows_failing
-from .timescales import _quiet
+from .timescales import erfa_quietly
 
 BUILTIN = "BUILTIN"
 PLANETS = ("MERCURY", "VENUS", "MARS", "JUPITER", "SATURN", "URANUS", "NEPTUNE", "PLUTO")
@@ -79,7 +80,7 @@ class Builtin:
     def earth_and_sun(self, tdb1, tdb2):
         """Barycentric (p, v) of the Earth and of the Sun."""
         self._check(tdb1, tdb2)
-        pvh, pvb = _quiet(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
+        pvh, pvb = erfa_quietly(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
         return (pvb["p"], pvb["v"]), (pvb["p"] - pvh["p"], pvb["v"] - pvh["v"])
 
     def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
@@ -91,17 +92,21 @@ class Builtin:
             raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
                            "DE440 or a .bsp path)")
         if body == "MOON":
-            pv = _quiet(erfa.moon98, tdb1, tdb2)
+            pv = erfa_quietly(erfa.moon98, tdb1, tdb2)
             if earth_helio is None:
-                pvh, _ = _quiet(erfa.epv00, tdb1, tdb2)
+                pvh, _ = erfa_quietly(erfa.epv00, tdb1, tdb2)
                 ep, ev = pvh["p"], pvh["v"]
             else:
                 p0, v0, (j1, j2) = earth_helio
                 dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
                 ep, ev = p0 + dt * v0, v0
             return pv["p"] + ep, pv["v"] + ev
-        pv = _quiet(erfa.plan94, tdb1, tdb2, PLAN94_NUMBERS[body])
-        return pv["p"] @ self._bias, pv["v"] @ self._bias  # = bias^T applied to each row
+        pv = erfa_quietly(erfa.plan94, tdb1, tdb2, PLAN94_NUMBERS[body])
+        # bias^T applied to each row, with the same arithmetic however many rows there are
+        # (a matrix product takes other BLAS paths for one row and for several, which
+        # moved the last bit of a cell between a single formula and a column).
+        return (vectors.apply_transposed(self._bias, pv["p"]),
+                vectors.apply_transposed(self._bias, pv["v"]))
 
 
 # ---- JPL kernels -------------------------------------------------------------------------
@@ -264,9 +269,9 @@ def times_for(source, tt1, tt2):
     ERFA dtdb in event searches that evaluate a place many times."""
     if source == BUILTIN:
         return tt1, tt2
-    from .timescales import _tt_to_tdb
+    from .timescales import tt_to_tdb
 
-    return _tt_to_tdb(tt1, tt2)
+    return tt_to_tdb(tt1, tt2)
 
 
 def describe_cells(source):

@@ -32,3 +32,21 @@ def rows_failing(mask, message):
     messages = np.full(mask.shape, None, dtype=object)
     messages[mask] = message
     return RowErrors(messages)
+
+
+def per_row(n, compute):
+    """``[compute(0), ..., compute(n - 1)]`` for work that has no array form; rows whose
+    computation raises a ``SkyError`` get its message, raised together as a row-aligned
+    ``RowErrors`` once every row has been tried."""
+    import numpy as np
+
+    results = [None] * n
+    messages = np.full(n, None, dtype=object)
+    for k in range(n):
+        try:
+            results[k] = compute(k)
+        except SkyError as err:
+            messages[k] = str(err)
+    if any(m is not None for m in messages):
+        raise RowErrors(messages)
+    return results

@@ -17,7 +17,7 @@ import numpy as np
 
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
-from .timescales import _quiet
+from .timescales import erfa_quietly
 
 WAVELENGTH_UM = 0.55
 # ERFA's refraction (refco: A tan z + B tan^3 z) is good to about zenith distance 85
@@ -100,7 +100,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
     dut1 = time.dut1
     rc, dc = np.radians(ra), np.radians(dec)
     if frame == "ICRS":
-        aob, zob, hob, dob, _, _ = _quiet(
+        aob, zob, hob, dob, _, _ = erfa_quietly(
             erfa.atco13, rc, dc, 0.0, 0.0, 0.0, 0.0, utc1, utc2, dut1, elong, phi, hm,
             0.0, 0.0, phpa, tc, HUMIDITY, WAVELENGTH_UM)
         _check_refraction_range(phpa, 90.0 - np.degrees(zob))
@@ -109,7 +109,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
     # takes is larger by the equation of the origins.
     tt = time.to("TT")
     ri = rc + erfa.eo06a(tt.jd1, tt.jd2)
-    astrom = _quiet(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
+    astrom = erfa_quietly(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
                        HUMIDITY, WAVELENGTH_UM)
     aob, zob, hob, dob, _ = erfa.atioq(ri, dc, astrom)
     _check_refraction_range(phpa, 90.0 - np.degrees(zob))
@@ -140,9 +140,9 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
     _check_refraction_range(phpa, alt)
     z = np.radians(90.0 - np.asarray(alt, dtype=float))
     if frame == "ICRS":
-        return _quiet(erfa.atoc13, "A", a, z, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0,
+        return erfa_quietly(erfa.atoc13, "A", a, z, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0,
                       phpa, tc, HUMIDITY, WAVELENGTH_UM)
-    astrom = _quiet(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
+    astrom = erfa_quietly(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
                        HUMIDITY, WAVELENGTH_UM)
     ri, di = erfa.atoiq("A", a, z, astrom)
     tt = time.to("TT")

@@ -15,7 +15,7 @@ from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
 from .sun import _as_result, _check_years, _rows, place_cells
 from .sun import sun_in
-from .timescales import _quiet
+from .timescales import erfa_quietly
 
 EARTH_RADIUS_KM = 6378.1366  # IERS 2010 equatorial radius (common practice)
 AU_KM = erfa.DAU / 1000.0
@@ -131,7 +131,7 @@ def node_cells(time, kind="TRUE"):
         return frames.degrees_360(erfa.faom03(t))
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
     _check_years(tt1, tt2)
-    pv = _quiet(erfa.moon98, tt1, tt2)
+    pv = erfa_quietly(erfa.moon98, tt1, tt2)
     m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
     r = np.einsum("...ij,...j->...i", m, pv["p"])
     v = np.einsum("...ij,...j->...i", m, pv["v"])

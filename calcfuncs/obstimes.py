@@ -17,7 +17,7 @@ import numpy as np
 from . import ephemeris, frames
 from .errors import rows_failing
 from .sun import _check_years
-from .timescales import Instants, _quiet
+from .timescales import Instants, erfa_quietly
 
 LIGHT_DAYS_PER_AU = erfa.AULT / erfa.DAYSEC
 MJD_ZERO = 2400000.5
@@ -34,13 +34,13 @@ def _site_gcrs(instants, site):
     ut = instants.to("UT")
     lat, lon, h = np.broadcast_arrays(np.radians(latitude), np.radians(longitude),
                                       np.asarray(height, float))
-    itrs = _quiet(erfa.gd2gc, 1, lon, lat, h) / erfa.DAU
-    gst = _quiet(erfa.gst00b, ut.jd1, ut.jd2)
+    itrs = erfa_quietly(erfa.gd2gc, 1, lon, lat, h) / erfa.DAU
+    gst = erfa_quietly(erfa.gst00b, ut.jd1, ut.jd2)
     c, s = np.cos(gst), np.sin(gst)
     # Terrestrial to the true equator and equinox of date: a turn of -GAST about z.
     true_eq = np.stack([c * itrs[..., 0] - s * itrs[..., 1],
                         s * itrs[..., 0] + c * itrs[..., 1], itrs[..., 2]], axis=-1)
-    npb = _quiet(erfa.pnm00b, tt1, tt2)
+    npb = erfa_quietly(erfa.pnm00b, tt1, tt2)
     gcrs = np.einsum("...ji,...j->...i", npb, true_eq)  # NPB^T: back to the GCRS axes
     return gcrs * np.asarray(given, float)[..., None]
 

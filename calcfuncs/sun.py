@@ -253,9 +253,9 @@ def sun_altitude(tt1, tt2, latitude, longitude, scale="UTC", dut1=0.0):
 
 def _local_day(time, utc_offset):
     """TT (start, end) of the local calendar day that contains the given date."""
-    from .timeinput import _days_and_seconds
+    from .timeinput import days_and_seconds
 
-    start, _, _ = _days_and_seconds(time)  # 0h of the given date on its own scale
+    start, _, _ = days_and_seconds(time)  # 0h of the given date on its own scale
     day0 = Instants(start - utc_offset / 24.0, np.zeros_like(start), time.scale, time.dut1)
     tt = day0.to("TT")
     return tt.jd1 + tt.jd2

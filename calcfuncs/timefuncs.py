@@ -12,7 +12,7 @@ from .timescales import (
     universal_of,
     MJD_ZERO,
     Instants,
-    _decimal_year,
+    julian_year,
     seconds_between,
     split_days,
 )
@@ -90,7 +90,7 @@ def delta_t(time, model="AUTO"):
 def delta_t_uncertainty(time):
     """Published standard error of Delta T at the instant's date, in seconds."""
     ut = time.to("UT")
-    return deltat.uncertainty(_decimal_year(ut.jd1, ut.jd2))
+    return deltat.uncertainty(julian_year(ut.jd1, ut.jd2))
 
 
 def tai_minus_utc(time):
@@ -99,14 +99,14 @@ def tai_minus_utc(time):
     import erfa
 
     from .calendars import GREGORIAN, calendar_date
-    from .timeinput import _days_and_seconds
-    from .timescales import _quiet
+    from .timeinput import days_and_seconds
+    from .timescales import erfa_quietly
 
-    start, seconds, _ = _days_and_seconds(time.to("UTC"))
+    start, seconds, _ = days_and_seconds(time.to("UTC"))
     out = []
     for day, sec in zip(np.ravel(start), np.ravel(seconds)):
         y, m, d = calendar_date(int(day + 0.5), GREGORIAN)
-        out.append(_quiet(erfa.dat, y, m, d, min(sec, 86399.999999) / 86400.0))
+        out.append(erfa_quietly(erfa.dat, y, m, d, min(sec, 86399.999999) / 86400.0))
     return np.array(out, dtype=float)
 
 

@@ -29,7 +29,7 @@ from .timescales import (
     MJD_ZERO,
     UTC_START_JD,
     Instants,
-    _quiet,
+    erfa_quietly,
     split_days,
 )
 
@@ -118,7 +118,7 @@ def _text_calendar(text, scale):
                 f'"{text}" has second 60 where there is no leap second; leap seconds are '
                 "the last second (23:59:60) of some June 30 and December 31 since 1972"
             )
-        jd1, jd2 = _quiet(erfa.dtf2d, "UTC", gy, gm, gd, int(hh), int(mi), sec)
+        jd1, jd2 = erfa_quietly(erfa.dtf2d, "UTC", gy, gm, gd, int(hh), int(mi), sec)
         return float(jd1), float(jd2)
     if sec >= 60.0:
         raise SkyError(
@@ -132,8 +132,8 @@ def _leap_second_day(y, mo, d):
     """True when TAI - UTC grows by a whole second at the end of this UTC day."""
     jd = sum(erfa.cal2jd(y, mo, d))
     ny, nm, nd, _ = erfa.jd2cal(jd + 1.0, 0.0)
-    before = _quiet(erfa.dat, y, mo, d, 0.0)
-    after = _quiet(erfa.dat, int(ny), int(nm), int(nd), 0.0)
+    before = erfa_quietly(erfa.dat, y, mo, d, 0.0)
+    after = erfa_quietly(erfa.dat, int(ny), int(nm), int(nd), 0.0)
     return y >= 1972 and abs((after - before) - 1.0) < 1e-9
 
 
@@ -219,7 +219,7 @@ def _serial_pairs(serials, scale, null_jd):
         hours = np.floor(seconds / 3600.0)
         minutes = np.floor((seconds - hours * 3600.0) / 60.0)
         secs = seconds - hours * 3600.0 - minutes * 60.0
-        a, b = _quiet(erfa.dtf2d, "UTC", iy, im, iday, hours.astype(int), minutes.astype(int), secs)
+        a, b = erfa_quietly(erfa.dtf2d, "UTC", iy, im, iday, hours.astype(int), minutes.astype(int), secs)
         jd1 = jd1.copy()
         jd2 = jd2.copy()
         jd1[stepping], jd2[stepping] = a, b
@@ -329,9 +329,9 @@ def _utc_clock(jd1, jd2):
     day0, day1 = erfa.cal2jd(iy, im, iday)
     start = day0 + day1
     ny, nm, nd, _ = erfa.jd2cal(start, 1.0)
-    dat0 = _quiet(erfa.dat, iy, im, iday, 0.0)
-    dat12 = _quiet(erfa.dat, iy, im, iday, 0.5)
-    dat24 = _quiet(erfa.dat, ny, nm, nd, 0.0)
+    dat0 = erfa_quietly(erfa.dat, iy, im, iday, 0.0)
+    dat12 = erfa_quietly(erfa.dat, iy, im, iday, 0.5)
+    dat24 = erfa_quietly(erfa.dat, ny, nm, nd, 0.0)
     length = 86400.0 + (dat24 - (2.0 * dat12 - dat0))
     return start, fd * length, length
 
@@ -371,7 +371,7 @@ def _clock_text(seconds, length, decimals):
     return text, False
 
 
-def _days_and_seconds(inst):
+def days_and_seconds(inst):
     """Per instant: JD at 0h of its day, seconds into the day, and the day's length
     (86400 s but on a UTC day that ends in a step)."""
     if inst.scale == "UTC":
@@ -387,7 +387,7 @@ def iso_text(inst, decimals=3):
     ISO 8601 dates are Gregorian with astronomical year numbering; before the reform
     the text says " Gregorian" so that it reads back as the same day here.
     """
-    start, seconds, length = _days_and_seconds(inst)
+    start, seconds, length = days_and_seconds(inst)
     out = []
     for day, sec, day_len in zip(np.ravel(start), np.ravel(seconds), np.ravel(length)):
         clock, next_day = _clock_text(float(sec), float(day_len), decimals)
@@ -403,7 +403,7 @@ def date_text(inst, calendar="AUTO", numbering="HISTORICAL", decimals=0):
     """Calendar text of instants on their own scale, in the Julian or Gregorian calendar
     (AUTO: Julian before 1582-10-15) and historical (44 BC) or astronomical (-0043)
     year numbering; a calendar other than AUTO's choice is named in the text."""
-    start, seconds, length = _days_and_seconds(inst)
+    start, seconds, length = days_and_seconds(inst)
     out = []
     for day, sec in zip(np.ravel(start), np.ravel(seconds)):
         number = int(day + 0.5)

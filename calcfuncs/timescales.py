@@ -11,28 +11,20 @@ Scales and their links (each link one ERFA routine):
 """
 
 import warnings
+from functools import lru_cache
 
 import erfa
 import numpy as np
 
 from .errors import SkyError, rows_failing
+from .vocabulary import (DELTA_T_MODELS, ERFA_SCALES, J2000_JD, JULIAN_YEAR_DAYS, MJD_ZERO,
+                         SCALE_WORDS, UTC_START_JD, years_text)
 
-SCALES = ("UTC", "TAI", "TT", "TDB", "UT1", "UT", "LMT")
-DELTA_T_MODELS = ("SMH2016", "ESPENAK2006")
-_SCALE_WORDS = (
-    "UTC, TAI, TT, TDB, UT1, UT (universal time at any date, through Delta T; add a "
-    "model, SMH2016 or ESPENAK2006, or a Delta T in seconds: UT ESPENAK2006, UT 10850) "
-    "or LMT with an east longitude (local mean time: LMT 12.4964, LMT 12.4964 ESPENAK2006)"
-)
-
-# UTC as ERFA's table defines it starts on 1960 January 1; UT1 is reached through it.
-UTC_START_JD = 2436934.5
 # Gregorian calendar reform: 1582 October 15 (Gregorian) is JD 2299160.5.
 GREGORIAN_START_JD = 2299160.5
 # JD text on TT/TDB/TAI is taken at any date, but not at absurd ones: about +-2.7
 # million years, far beyond every model the functions offer.
 JD_LIMIT = 1.0e9
-MJD_ZERO = 2400000.5
 DUT1_LIMIT = 1.0
 
 
@@ -42,10 +34,22 @@ def check_scale(scale):
     Besides the five of ERFA: "UT" for universal time at any date, reached through
     Delta T (the default model, a named one, or a value in seconds), and "LMT <east
     longitude>" for local mean time, which is UT plus longitude / 15 hours.
+    A word is read once and remembered: searches make many instants on one scale.
     """
+    if type(scale) is not str:
+        return _parse_scale(scale)
+    return _canonical_scale(scale)
+
+
+@lru_cache(maxsize=256)
+def _canonical_scale(scale):
+    return _parse_scale(scale)
+
+
+def _parse_scale(scale):
     words = str(scale).replace(",", " ").split()
     name = words[0].upper() if words else ""
-    if name in ("UTC", "TAI", "TT", "TDB", "UT1") and len(words) == 1:
+    if name in ERFA_SCALES and len(words) == 1:
         return name
     if name in ("UT", "LMT"):
         rest = words[1:]
@@ -67,16 +71,16 @@ def check_scale(scale):
                     raise SkyError(f'"{scale}": Delta T must be a number of seconds below 1e7')
                 parts.append(repr(float(value)))
         if rest:
-            raise SkyError(f'unknown time scale "{scale}"; use ' + _SCALE_WORDS)
+            raise SkyError(f'unknown time scale "{scale}"; use ' + SCALE_WORDS)
         return " ".join(parts)
-    raise SkyError(f'unknown time scale "{scale}"; use ' + _SCALE_WORDS)
+    raise SkyError(f'unknown time scale "{scale}"; use ' + SCALE_WORDS)
 
 
 def _number(word, scale):
     try:
         return float(word)
     except ValueError:
-        raise SkyError(f'unknown time scale "{scale}"; use ' + _SCALE_WORDS) from None
+        raise SkyError(f'unknown time scale "{scale}"; use ' + SCALE_WORDS) from None
 
 
 def _universal(scale):
@@ -98,8 +102,19 @@ def universal_of(scale):
     return "UT"
 
 
-def _decimal_year(jd1, jd2):
-    return 2000.0 + ((jd1 - 2451545.0) + jd2) / 365.25
+def julian_year(jd1, jd2):
+    """The Julian epoch (2000.0 at J2000) of two-part JDs: the year count in which every
+    model's validity is stated."""
+    return 2000.0 + ((jd1 - J2000_JD) + jd2) / JULIAN_YEAR_DAYS
+
+
+def check_years(jd1, jd2, span, what):
+    """Refuse the rows whose Julian year lies outside ``span`` (first, last), with one
+    wording for every model: "<what> is valid for 1000 to 3000"."""
+    years = julian_year(np.asarray(jd1, dtype=float), np.asarray(jd2, dtype=float))
+    outside = (years < span[0]) | (years > span[1])
+    if np.any(outside):
+        raise rows_failing(outside, f"{what} is valid for {years_text(span)}")
 
 
 def _delta_t_days(jd1, jd2, rule):
@@ -107,10 +122,10 @@ def _delta_t_days(jd1, jd2, rule):
 
     if isinstance(rule, float):
         return np.full(np.shape(jd1), rule / 86400.0)
-    return deltat.model_delta_t(_decimal_year(jd1, jd2), rule or "SMH2016") / 86400.0
+    return deltat.model_delta_t(julian_year(jd1, jd2), rule or "SMH2016") / 86400.0
 
 
-def _quiet(func, *args):
+def erfa_quietly(func, *args):
     """Call an ERFA routine, keeping its 'dubious year' warning out of the cell.
 
     ERFA warns for UTC dates a few years past its leap-second table's release; the
@@ -122,15 +137,20 @@ def _quiet(func, *args):
 
 
 class Instants:
-    """An array of instants on one time scale, held as two-part JDs."""
+    """An array of instants on one time scale, held as two-part JDs.
 
-    __slots__ = ("jd1", "jd2", "scale", "dut1")
+    What is derived from them (the same instants on another scale, the Julian year,
+    the matrices of a coordinate system at those instants) is kept once made: one
+    cell's computation asks for TT and UT several times over."""
+
+    __slots__ = ("jd1", "jd2", "scale", "dut1", "_derived")
 
     def __init__(self, jd1, jd2, scale, dut1=0.0):
         self.jd1 = np.asarray(jd1, dtype=float)
         self.jd2 = np.asarray(jd2, dtype=float)
         self.scale = check_scale(scale)
         self.dut1 = dut1
+        self._derived = {}
         if abs(dut1) > DUT1_LIMIT:
             raise SkyError(f"DUT1 of {dut1} s is outside -1 to +1 s")
         if self.scale in ("UTC", "UT1"):
@@ -150,13 +170,19 @@ class Instants:
         scale = check_scale(scale)
         if scale == self.scale:
             return self
+        found = self._derived.get(scale)
+        if found is None:
+            found = self._derived[scale] = self._convert(scale)
+        return found
+
+    def _convert(self, scale):
         # UTC <-> UT1 directly: a detour through TAI can land a hair before midnight
         # and pick up the previous day's TAI - UTC on a 1960s step day.
         # (UT with the default Delta T is UT1 from 1960, which is all of UTC's range.)
         if self.scale == "UTC" and scale in ("UT1", "UT"):
-            return Instants(*_quiet(erfa.utcut1, self.jd1, self.jd2, self.dut1), scale, self.dut1)
+            return Instants(*erfa_quietly(erfa.utcut1, self.jd1, self.jd2, self.dut1), scale, self.dut1)
         if self.scale in ("UT1", "UT") and scale == "UTC":
-            return Instants(*_quiet(erfa.ut1utc, self.jd1, self.jd2, self.dut1), "UTC", self.dut1)
+            return Instants(*erfa_quietly(erfa.ut1utc, self.jd1, self.jd2, self.dut1), "UTC", self.dut1)
         tai1, tai2 = self._to_tai()
         return Instants._from_tai(tai1, tai2, scale, self.dut1)
 
@@ -164,6 +190,24 @@ class Instants:
         """The instants as a TT two-part JD, the argument of the IAU models."""
         tt = self.to("TT")
         return tt.jd1, tt.jd2
+
+    def julian_year(self):
+        """Julian epochs (TT) of the instants."""
+        found = self._derived.get("julian year")
+        if found is None:
+            found = self._derived["julian year"] = julian_year(*self.tt())
+        return found
+
+    def matrix(self, system):
+        """Rotations from the ICRS axes to a coordinate system at these instants (TT),
+        made once per system (frames.system_matrix)."""
+        key = ("matrix", system)
+        found = self._derived.get(key)
+        if found is None:
+            from .frames import system_matrix
+
+            found = self._derived[key] = system_matrix(system, *self.tt())
+        return found
 
     def _to_tai(self):
         s = self.scale
@@ -174,13 +218,13 @@ class Instants:
         if s == "TT":
             return erfa.tttai(self.jd1, self.jd2)
         if s == "TDB":
-            tt1, tt2 = _tdb_to_tt(self.jd1, self.jd2)
+            tt1, tt2 = tdb_to_tt(self.jd1, self.jd2)
             return erfa.tttai(tt1, tt2)
         if s == "UTC":
-            return _quiet(erfa.utctai, self.jd1, self.jd2)
+            return erfa_quietly(erfa.utctai, self.jd1, self.jd2)
         # UT1
-        utc1, utc2 = _quiet(erfa.ut1utc, self.jd1, self.jd2, self.dut1)
-        return _quiet(erfa.utctai, utc1, utc2)
+        utc1, utc2 = erfa_quietly(erfa.ut1utc, self.jd1, self.jd2, self.dut1)
+        return erfa_quietly(erfa.utctai, utc1, utc2)
 
     def _universal_to_tai(self):
         """UT (or LMT) to TAI: through DUT1 and the leap seconds from 1960 when no
@@ -191,8 +235,8 @@ class Instants:
         measured = ((ut1 + ut2) >= UTC_START_JD) if rule is None else np.zeros(np.shape(ut1), bool)
         if np.any(measured):
             ut1m, ut2m = np.broadcast_arrays(ut1, ut2)
-            utc = _quiet(erfa.ut1utc, ut1m[measured], ut2m[measured], self.dut1)
-            a, b = _quiet(erfa.utctai, *utc)
+            utc = erfa_quietly(erfa.ut1utc, ut1m[measured], ut2m[measured], self.dut1)
+            a, b = erfa_quietly(erfa.utctai, *utc)
             tai1[measured], tai2[measured] = a, b
         modelled = ~measured
         if np.any(modelled):
@@ -210,9 +254,9 @@ class Instants:
         ut1, ut2 = tt1.copy(), tt2.copy()
         measured = ((tt1 + tt2) >= UTC_START_JD + 50.0 / 86400.0) if rule is None else np.zeros(tt1.shape, bool)
         if np.any(measured):
-            utc = _quiet(erfa.taiutc, np.broadcast_to(tai1, tt1.shape)[measured],
+            utc = erfa_quietly(erfa.taiutc, np.broadcast_to(tai1, tt1.shape)[measured],
                          np.broadcast_to(tai2, tt1.shape)[measured])
-            a, b = _quiet(erfa.utcut1, *utc, dut1)
+            a, b = erfa_quietly(erfa.utcut1, *utc, dut1)
             ut1[measured], ut2[measured] = a, b
         modelled = ~measured
         if np.any(modelled):
@@ -234,14 +278,14 @@ class Instants:
             tt1, tt2 = erfa.taitt(tai1, tai2)
             if scale == "TT":
                 return Instants(tt1, tt2, "TT", dut1)
-            return Instants(*_tt_to_tdb(tt1, tt2), "TDB", dut1)
+            return Instants(*tt_to_tdb(tt1, tt2), "TDB", dut1)
         early = (tai1 + tai2) < UTC_START_JD
         if np.any(early):
             raise rows_failing(early, before_1960_message(scale))
-        utc1, utc2 = _quiet(erfa.taiutc, tai1, tai2)
+        utc1, utc2 = erfa_quietly(erfa.taiutc, tai1, tai2)
         if scale == "UTC":
             return Instants(utc1, utc2, "UTC", dut1)
-        return Instants(*_quiet(erfa.utcut1, utc1, utc2, dut1), "UT1", dut1)
+        return Instants(*erfa_quietly(erfa.utcut1, utc1, utc2, dut1), "UT1", dut1)
 
 
 # TDB - TT is periodic and under 2 ms, but ERFA dtdb's series (Fairhead and Bretagnon
@@ -271,11 +315,11 @@ def _tdb_minus_tt(jd1, jd2):
     return out
 
 
-def _tt_to_tdb(tt1, tt2):
+def tt_to_tdb(tt1, tt2):
     return erfa.tttdb(tt1, tt2, _tdb_minus_tt(tt1, tt2))
 
 
-def _tdb_to_tt(tdb1, tdb2):
+def tdb_to_tt(tdb1, tdb2):
     # TDB - TT varies by under 2 ms, so evaluating it at the TDB date is exact enough
     # (the error is the derivative, 1e-8, times 2 ms: far below a nanosecond).
     return erfa.tdbtt(tdb1, tdb2, _tdb_minus_tt(tdb1, tdb2))
@@ -299,3 +343,27 @@ def split_days(whole, fraction=0.0):
 def seconds_between(later, earlier):
     """``later - earlier`` in seconds, keeping the two parts apart for precision."""
     return ((later.jd1 - earlier.jd1) + (later.jd2 - earlier.jd2)) * 86400.0
+
+
+class DateTimes:
+    """Instants that a cell shows as date-time values: the result of every function whose
+    registry result kind is "datetime".
+
+    The core says which instants, on which scale (``instants``), plus an offset in days
+    for a local clock (a UTC offset, a longitude's hours, the equation of time), and
+    per-row ``words`` where there is no instant to show (a polar night, a day without a
+    transit); those rows' instants are placeholders.  Only the cell layer turns them into
+    days since the document's null date (cells.py), so the core never meets the sheet's
+    conventions."""
+
+    __slots__ = ("instants", "offset_days", "words")
+
+    def __init__(self, instants, offset_days=0.0, words=None):
+        self.instants = instants
+        self.offset_days = offset_days
+        self.words = words
+
+    @staticmethod
+    def of_tt(tt1, tt2, scale, offset_days=0.0, words=None):
+        """From two-part TT JDs (an event search's answers), shown on ``scale``."""
+        return DateTimes(Instants(tt1, tt2, "TT").to(scale), offset_days, words)
