@@ -108,13 +108,14 @@ def julian_year(jd1, jd2):
     return 2000.0 + ((jd1 - J2000_JD) + jd2) / JULIAN_YEAR_DAYS
 
 
-def check_years(jd1, jd2, span, what):
-    """Refuse the rows whose Julian year lies outside ``span`` (first, last), with one
-    wording for every model: "<what> is valid for 1000 to 3000"."""
+def check_years(jd1, jd2, span, what, hint=""):
+    """Refuse the rows whose Julian year lies outside ``span`` (first, last), worded one
+    way for every model and source: "<what>, valid 1000 to 3000[; <hint>]"."""
     years = julian_year(np.asarray(jd1, dtype=float), np.asarray(jd2, dtype=float))
     outside = (years < span[0]) | (years > span[1])
     if np.any(outside):
-        raise rows_failing(outside, f"{what} is valid for {years_text(span)}")
+        raise rows_failing(outside, f"{what}, valid {years_text(span)}"
+                                    + (f"; {hint}" if hint else ""))
 
 
 def _delta_t_days(jd1, jd2, rule):
