@@ -13,9 +13,7 @@ beside its target and moved into place, and an existing target is refused unless
 
 import argparse
 import os
-import shutil
 import sys
-import tempfile
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, os.path.dirname(HERE))
@@ -92,19 +90,11 @@ def freeze(source, target, oxt, replace=False):
         raise SystemExit("the target is the input itself; give another file name")
     if os.path.exists(target) and not replace:
         raise SystemExit(f"{target} exists; give --replace to write over it")
-    with officekit.Office(oxt=oxt) as office:
-        with tempfile.TemporaryDirectory() as tmp:
-            copy = os.path.join(tmp, os.path.basename(source))
-            shutil.copyfile(source, copy)
-            doc = office.open(copy)
-            try:
-                doc.calculateAll()
-                version = _version(doc)
-                replaced = freeze_document(doc)
-                _list_sheet(doc, replaced, version)
-                office.save(doc, target, "calc8")
-            finally:
-                doc.close(True)
+    with officekit.Office(oxt=oxt) as office, office.calculated_copy(source) as doc:
+        version = _version(doc)
+        replaced = freeze_document(doc)
+        _list_sheet(doc, replaced, version)
+        office.save(doc, target, "calc8")
     return replaced
 
 

@@ -355,8 +355,10 @@ def normalise(path):
     stamps the save time into meta.xml (dc:date, editing-duration) and into every zip
     entry; those are set to fixed values, everything else is kept in order and kind
     (mimetype first and stored, as ODF requires).  Rewritten beside, then moved into place."""
-    partial = os.path.join(os.path.dirname(path), ".partial-" + os.path.basename(path))
-    with zipfile.ZipFile(path) as src, zipfile.ZipFile(partial, "w") as dst:
+    from officekit import written_beside
+
+    with written_beside(path) as partial, zipfile.ZipFile(path) as src, \
+            zipfile.ZipFile(partial, "w") as dst:
         for info in src.infolist():
             data = src.read(info.filename)
             if info.filename == "meta.xml":
@@ -370,7 +372,6 @@ def normalise(path):
             entry.external_attr = info.external_attr
             entry.create_system = 3  # Unix, whatever made the input
             dst.writestr(entry, data)
-    os.replace(partial, path)
     return path
 
 

@@ -1,6 +1,7 @@
 """Drive a real headless LibreOffice: a fresh profile, the extension installed, UNO calls.
 
-Used by the office tests, the headless recompute command and the benchmark.  Runs in
+Used by the office tests, the tools (recompute, freeze, the sheet makers, the screenshot)
+and the benchmark.  Runs in
 a Python that can ``import uno`` (Debian's python3, or a venv made from it with
 ``--system-site-packages``).
 
@@ -9,6 +10,7 @@ a Python that can ``import uno`` (Debian's python3, or a venv made from it with
         ...
 """
 
+import contextlib
 import os
 import pwd
 import shutil
@@ -36,6 +38,16 @@ def _props(**kw):
 
 def file_url(path):
     return uno.systemPathToFileUrl(os.path.abspath(path))
+
+
+@contextlib.contextmanager
+def written_beside(path):
+    """Yield a path beside ``path`` to write the file to; when the block ends without an
+    error it is moved into place, so that no reader ever sees it half-written."""
+    path = os.path.abspath(path)
+    partial = os.path.join(os.path.dirname(path), ".partial-" + os.path.basename(path))
+    yield partial
+    os.replace(partial, path)
 
 
 def _free_port():
@@ -170,14 +182,33 @@ class Office:
             raise RuntimeError(f"the office could not open {path}")
         return doc
 
+    def open_copy(self, path, folder):
+        """Open a copy of the document at ``path``, made in ``folder``: the office may
+        touch a file it has open (lock files), so the original is never written."""
+        copy = os.path.join(folder, os.path.basename(path))
+        shutil.copyfile(path, copy)
+        return self.open(copy)
+
+    @contextlib.contextmanager
+    def calculated_copy(self, path):
+        """The document at ``path``, opened as a copy in a temporary folder with every
+        formula computed again (a hard recalculation); closed and removed after the
+        block.  The original is never written."""
+        with tempfile.TemporaryDirectory() as tmp:
+            doc = self.open_copy(path, tmp)
+            try:
+                doc.calculateAll()
+                yield doc
+            finally:
+                doc.close(True)
+
     @staticmethod
     def save(doc, path, filter_name="calc8", **options):
         """Store a copy of ``doc`` at ``path`` (written beside, then moved into place)."""
-        path = os.path.abspath(path)
-        partial = os.path.join(os.path.dirname(path), ".partial-" + os.path.basename(path))
-        doc.storeToURL(file_url(partial), _props(FilterName=filter_name, Overwrite=True, **options))
-        os.replace(partial, path)
-        return path
+        with written_beside(path) as partial:
+            doc.storeToURL(file_url(partial),
+                           _props(FilterName=filter_name, Overwrite=True, **options))
+        return os.path.abspath(path)
 
     def install_with_extension_manager(self, oxt):
         """Install as the Extension Manager dialog does: the deployment API, user scope,

@@ -14,7 +14,6 @@ cell shows an error or a message, except messages on sheets named with
 
 import argparse
 import os
-import shutil
 import sys
 import tempfile
 
@@ -82,21 +81,13 @@ def recompute(paths, oxt, out_dir, messages_expected=()):
     rows, failed = [], False
     with officekit.Office(oxt=oxt) as office:
         for source in sources:
-            # Work on a copy: the office may touch the file it has open (lock files).
-            with tempfile.TemporaryDirectory() as tmp:
-                copy = os.path.join(tmp, os.path.basename(source))
-                shutil.copyfile(source, copy)
-                doc = office.open(copy)
-                try:
-                    doc.calculateAll()
-                    for name, n, messages, errors in survey(doc):
-                        expected = name in messages_expected
-                        if errors or (messages and not expected):
-                            failed = True
-                        rows.append((os.path.basename(source), name, n, messages, errors, expected))
-                    written = export(office, doc, source, out_dir)
-                finally:
-                    doc.close(True)
+            with office.calculated_copy(source) as doc:
+                for name, n, messages, errors in survey(doc):
+                    expected = name in messages_expected
+                    if errors or (messages and not expected):
+                        failed = True
+                    rows.append((os.path.basename(source), name, n, messages, errors, expected))
+                written = export(office, doc, source, out_dir)
             for w in written:
                 print("wrote", os.path.relpath(w))
     _print_table(rows)

@@ -206,12 +206,12 @@ def png_bytes(rgb, lossless=False):
 
 def write_png(path, rgb, lossless=False):
     """Write beside the target, then move into place."""
+    from officekit import written_beside
+
     path = os.path.abspath(path)
     os.makedirs(os.path.dirname(path), exist_ok=True)
-    partial = os.path.join(os.path.dirname(path), ".partial-" + os.path.basename(path))
-    with open(partial, "wb") as f:
+    with written_beside(path) as partial, open(partial, "wb") as f:
         f.write(png_bytes(rgb, lossless))
-    os.replace(partial, path)
     return path
 
 
@@ -228,9 +228,7 @@ def visible_office(oxt, screen):
 def open_in_window(office, screen, path, sheet_name, scratch):
     """Open a copy of ``path`` (made in the folder ``scratch``, so the original is never
     locked or written) in a window filling the screen, on the sheet ``sheet_name``."""
-    copy = os.path.join(scratch, os.path.basename(path))
-    shutil.copyfile(path, copy)
-    doc = office.open(copy)
+    doc = office.open_copy(path, scratch)
     window = doc.CurrentController.Frame.ContainerWindow
     window.setPosSize(0, 0, screen.width, screen.height, 15)  # PosSize.POSSIZE
     controller = doc.CurrentController

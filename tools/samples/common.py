@@ -43,6 +43,15 @@ def caution(sheet, row, cols):
     sheet.getCellByPosition(0, row).CharWeight = 150.0
 
 
+def sun_heading(sheet, cols, text, height=None):
+    """The first rows of a sheet about the Sun: the note saying what it does (row 1,
+    ``height`` tall where the note needs more lines) and the Sun caution (row 2)."""
+    note(sheet, 0, text, cols)
+    if height is not None:
+        sheet.getRows().getByIndex(0).Height = height
+    caution(sheet, 1, cols)
+
+
 def serial(moment):
     """A Calc date-time value (days since the default null date) of a UTC datetime."""
     return (moment - NULL_DATE).total_seconds() / 86400.0

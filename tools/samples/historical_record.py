@@ -8,7 +8,7 @@ import datetime
 import uno
 from sheetkit import format_range, header, note, number_format, widths
 
-from .common import CENTER, RIGHT, caution, fill_columns, fill_shifted, serial, sheet_at
+from .common import CENTER, RIGHT, fill_columns, fill_shifted, serial, sheet_at, sun_heading
 
 FILE_NAME = "historical_record.ods"
 
@@ -66,18 +66,17 @@ def _wrapped(sheet, col, first, last):
 
 def chronicle_sheet(doc, sheet):
     cols = 9
-    note(sheet, 0,
-         "The Annals of Holmwray Abbey: an INVENTED chronicle (abbey, places, correspondents "
-         "and entries are made up; the dates show the ways dates are written, they are not "
-         "historical observations). Each entry's date is typed as its writer wrote it, with "
-         "the time scale beside it: UT (universal time through Delta T) or LMT and the east "
-         "longitude of the writer's place (local mean time). Dates before 1582-10-15 are "
-         "read in the Julian calendar unless the text says Gregorian; \"Julian\" or "
-         "\"cutover 1752-09-14\" in the text choose the calendar. Uses SKY.JD on TT and UT, "
-         "SKY.TEXT.DATE (read back on the entry's own scale) and SKY.TEXT.ISO; the Calendars "
-         "sheet writes the same instants in both calendars and both year numberings.", cols)
-    sheet.getRows().getByIndex(0).Height = 1900
-    caution(sheet, 1, cols)
+    sun_heading(
+        sheet, cols,
+        "The Annals of Holmwray Abbey: an INVENTED chronicle (abbey, places, correspondents "
+        "and entries are made up; the dates show the ways dates are written, they are not "
+        "historical observations). Each entry's date is typed as its writer wrote it, with "
+        "the time scale beside it: UT (universal time through Delta T) or LMT and the east "
+        "longitude of the writer's place (local mean time). Dates before 1582-10-15 are "
+        "read in the Julian calendar unless the text says Gregorian; \"Julian\" or "
+        "\"cutover 1752-09-14\" in the text choose the calendar. Uses SKY.JD on TT and UT, "
+        "SKY.TEXT.DATE (read back on the entry's own scale) and SKY.TEXT.ISO; the Calendars "
+        "sheet writes the same instants in both calendars and both year numberings.", 1900)
     sheet.getCellByPosition(0, 2).setString(
         "The abbey (invented) lies at east longitude 9.62 deg (LMT 9.62); its correspondents "
         "at -1.25 (a western port, LMT -1.25) and 18.05 (a town in the east, LMT 18.05).")
@@ -144,19 +143,18 @@ def calendars_sheet(doc, sheet):
 
 def deltat_sheet(doc, sheet):
     cols = 16
-    note(sheet, 0,
-         "The chronicle's entries (Chronicle sheet) with what it takes to turn their clock "
-         "times into instants: Delta T = TT - UT by the model of record (AUTO: Stephenson, "
-         "Morrison and Hohenkerk 2016 before 1960) and by Espenak and Meeus 2006, and how far "
-         "they differ; the published standard error of Delta T where there is one (Morrison "
-         "and Stephenson 2004 for 1000 BC to AD 1200; 1700, 1800, 1900) and the uncertainty "
-         "it gives a clock time and the longitude of an eclipse track; the mean obliquity of "
-         "the ecliptic by the long-term formulas (Laskar 1986, Vondrak et al. 2011); and the "
-         "Sun's apparent longitude (computed for 1000 to 3000 only). Uses SKY.DELTAT (models "
-         "AUTO, SMH2016, ESPENAK2006), SKY.DELTAT.UNCERTAINTY, SKY.OBLIQUITY (LASKAR1986, "
-         "VONDRAK2011), SKY.TEXT.DMS and SKY.SUN.LON.", cols)
-    sheet.getRows().getByIndex(0).Height = 2300
-    caution(sheet, 1, cols)
+    sun_heading(
+        sheet, cols,
+        "The chronicle's entries (Chronicle sheet) with what it takes to turn their clock "
+        "times into instants: Delta T = TT - UT by the model of record (AUTO: Stephenson, "
+        "Morrison and Hohenkerk 2016 before 1960) and by Espenak and Meeus 2006, and how far "
+        "they differ; the published standard error of Delta T where there is one (Morrison "
+        "and Stephenson 2004 for 1000 BC to AD 1200; 1700, 1800, 1900) and the uncertainty "
+        "it gives a clock time and the longitude of an eclipse track; the mean obliquity of "
+        "the ecliptic by the long-term formulas (Laskar 1986, Vondrak et al. 2011); and the "
+        "Sun's apparent longitude (computed for 1000 to 3000 only). Uses SKY.DELTAT (models "
+        "AUTO, SMH2016, ESPENAK2006), SKY.DELTAT.UNCERTAINTY, SKY.OBLIQUITY (LASKAR1986, "
+        "VONDRAK2011), SKY.TEXT.DMS and SKY.SUN.LON.", 2300)
     header(sheet, 2, [
         "No.", "Date as the source writes it", "Scale", "Year (TT, decimal)",
         "Delta T, AUTO (s)", "Delta T, SMH2016 (s)", "Delta T, ESPENAK2006 (s)",

@@ -7,9 +7,9 @@ import datetime
 import random
 
 import uno
-from sheetkit import column_letter, format_range, header, note, number_format, widths
+from sheetkit import column_letter, format_range, header, number_format, widths
 
-from .common import CENTER, caution, fill_columns, serial, sheet_at
+from .common import CENTER, fill_columns, serial, sheet_at, sun_heading
 
 FILE_NAME = "meteor_watch.ods"
 
@@ -71,16 +71,15 @@ def invented_watches(seed=20260812):
 def watch_log_sheet(doc, sheet):
     watches = invented_watches()
     cols = 20
-    note(sheet, 0,
-         f"{CLUB} (an INVENTED club; observers, watches and counts are made up): the 2026 "
-         "watch log, times in UTC, reduced to solar longitude as meteor work indexes showers "
-         "(the Sun's apparent longitude on the ecliptic and equinox of J2000.0), and the "
-         "instant next year when the Sun is back at the same solar longitude (the same point "
-         "of the shower's year). Uses SKY.SUN.SOLARLON, SKY.SUN.REACHES, SKY.WRAP.180 and "
-         "SKY.TEXT.ISO. Rates are plain counts per hour of watching (no correction for the "
-         "radiant's altitude or the sky's limiting magnitude).", cols)
-    sheet.getRows().getByIndex(0).Height = 1900
-    caution(sheet, 1, cols)
+    sun_heading(
+        sheet, cols,
+        f"{CLUB} (an INVENTED club; observers, watches and counts are made up): the 2026 "
+        "watch log, times in UTC, reduced to solar longitude as meteor work indexes showers "
+        "(the Sun's apparent longitude on the ecliptic and equinox of J2000.0), and the "
+        "instant next year when the Sun is back at the same solar longitude (the same point "
+        "of the shower's year). Uses SKY.SUN.SOLARLON, SKY.SUN.REACHES, SKY.WRAP.180 and "
+        "SKY.TEXT.ISO. Rates are plain counts per hour of watching (no correction for the "
+        "radiant's altitude or the sky's limiting magnitude).", 1900)
     header(sheet, 2, [
         "No.", "Start (UTC)", "End (UTC)", "Observer", "Shower", "Shower meteors",
         "Sporadic meteors", "Watch (h)", "Shower meteors per hour", "Mid-time (UTC)",
@@ -149,20 +148,19 @@ NIGHTS_FIRST = 7  # 0-based row of January 1 on the Year of nights sheet
 
 def year_of_nights_sheet(doc, sheet):
     cols = 12
-    note(sheet, 0,
-         f"Every night of {NIGHTS_YEAR} at the section's {WATCH_SITE} site (an INVENTED site "
-         "and coordinates: SiteLat, SiteLon and UtcOffset are the named cells below; change "
-         "them and the sheet follows). Times are UTC (offset 0): sunset and sunrise (upper "
-         "limb on the horizon, standard refraction), the end and start of astronomical "
-         "twilight (Sun 18 degrees below the horizon), the dark hours between them, the day "
-         "length, the Sun's transit (local apparent noon) and the equation of time then, and "
-         "the sundial (local apparent) time at sunset and at the transit, where it is 12:00 "
-         "by definition (shown as the difference in seconds). In summer the Sun does not get 18 degrees "
-         "below the horizon here: those cells say so in words and the night has no dark "
-         "hours. Uses SKY.SUN.SET, SKY.SUN.RISE (events SUNRISE and ASTRONOMICAL), "
-         "SKY.SUN.DAYLENGTH, SKY.SUN.TRANSIT, SKY.SUN.EQTIME and SKY.SUN.SUNDIAL.", cols)
-    sheet.getRows().getByIndex(0).Height = 2300
-    caution(sheet, 1, cols)
+    sun_heading(
+        sheet, cols,
+        f"Every night of {NIGHTS_YEAR} at the section's {WATCH_SITE} site (an INVENTED site "
+        "and coordinates: SiteLat, SiteLon and UtcOffset are the named cells below; change "
+        "them and the sheet follows). Times are UTC (offset 0): sunset and sunrise (upper "
+        "limb on the horizon, standard refraction), the end and start of astronomical "
+        "twilight (Sun 18 degrees below the horizon), the dark hours between them, the day "
+        "length, the Sun's transit (local apparent noon) and the equation of time then, and "
+        "the sundial (local apparent) time at sunset and at the transit, where it is 12:00 "
+        "by definition (shown as the difference in seconds). In summer the Sun does not get 18 degrees "
+        "below the horizon here: those cells say so in words and the night has no dark "
+        "hours. Uses SKY.SUN.SET, SKY.SUN.RISE (events SUNRISE and ASTRONOMICAL), "
+        "SKY.SUN.DAYLENGTH, SKY.SUN.TRANSIT, SKY.SUN.EQTIME and SKY.SUN.SUNDIAL.", 2300)
     params = [
         ("Latitude (deg, north +), invented  [SiteLat]", WATCH_LATITUDE, "+0.0000;-0.0000"),
         ("Longitude (deg, east +), invented  [SiteLon]", WATCH_LONGITUDE, "+0.0000;-0.0000"),
@@ -233,13 +231,13 @@ def year_of_nights_sheet(doc, sheet):
 
 def seasons_sheet(doc, sheet):
     cols = 14
-    note(sheet, 0,
-         "Equinoxes and solstices of 2020 to 2035 (when the Sun's apparent longitude, true "
-         "equinox of date, is 0, 90, 180 and 270 degrees), in UTC, and the lengths of the "
-         "seasons they open (northern-hemisphere names). Uses SKY.SEASON (on UTC and TT), "
-         "SKY.SEASON.LENGTH and SKY.SUN.LON (the Sun's longitude at the June solstice, "
-         "90 degrees by definition).", cols)
-    caution(sheet, 1, cols)
+    sun_heading(
+        sheet, cols,
+        "Equinoxes and solstices of 2020 to 2035 (when the Sun's apparent longitude, true "
+        "equinox of date, is 0, 90, 180 and 270 degrees), in UTC, and the lengths of the "
+        "seasons they open (northern-hemisphere names). Uses SKY.SEASON (on UTC and TT), "
+        "SKY.SEASON.LENGTH and SKY.SUN.LON (the Sun's longitude at the June solstice, "
+        "90 degrees by definition).")
     header(sheet, 2, [
         "Year", "March equinox (UTC)", "June solstice (UTC)", "September equinox (UTC)",
         "December solstice (UTC)", "Spring, March to June (d)", "Summer, June to September (d)",
@@ -283,19 +281,18 @@ SUN_MONTH = (NIGHTS_YEAR, 3)
 
 def sun_sheet(doc, sheet):
     cols = 22
-    note(sheet, 0,
-         f"The Sun at 00:00 UTC on each day of March {SUN_MONTH[0]}, geocentric: ecliptic "
-         "longitude and latitude, right ascension and declination in the frames TRUE (true "
-         "equator and equinox of date, as almanacs give apparent places), DATE (mean equinox "
-         "of date) and J2000, and the kinds APPARENT (light time and aberration), ASTROMETRIC "
-         "(light time only) and GEOMETRIC; what each step changes; and the distance. Below: "
-         "three invented marker directions, their elongation from the Sun and their "
-         "Sun-centred ecliptic longitude and latitude (mean ecliptic of date) over the month. "
-         "Uses SKY.SUN.LON, SKY.SUN.LAT, SKY.SUN.RA, SKY.SUN.DEC, SKY.SUN.DIST, "
-         "SKY.SUN.ELONGATION, SKY.SUN.RELATIVE.LON, SKY.SUN.RELATIVE.LAT, SKY.WRAP.180, "
-         "SKY.TEXT.HMS, SKY.TEXT.DMS, SKY.ANGLE.HOURS and SKY.ANGLE.", cols)
-    sheet.getRows().getByIndex(0).Height = 1900
-    caution(sheet, 1, cols)
+    sun_heading(
+        sheet, cols,
+        f"The Sun at 00:00 UTC on each day of March {SUN_MONTH[0]}, geocentric: ecliptic "
+        "longitude and latitude, right ascension and declination in the frames TRUE (true "
+        "equator and equinox of date, as almanacs give apparent places), DATE (mean equinox "
+        "of date) and J2000, and the kinds APPARENT (light time and aberration), ASTROMETRIC "
+        "(light time only) and GEOMETRIC; what each step changes; and the distance. Below: "
+        "three invented marker directions, their elongation from the Sun and their "
+        "Sun-centred ecliptic longitude and latitude (mean ecliptic of date) over the month. "
+        "Uses SKY.SUN.LON, SKY.SUN.LAT, SKY.SUN.RA, SKY.SUN.DEC, SKY.SUN.DIST, "
+        "SKY.SUN.ELONGATION, SKY.SUN.RELATIVE.LON, SKY.SUN.RELATIVE.LAT, SKY.WRAP.180, "
+        "SKY.TEXT.HMS, SKY.TEXT.DMS, SKY.ANGLE.HOURS and SKY.ANGLE.", 1900)
     header(sheet, 2, [
         "Date (UTC)", "Lon, TRUE, APPARENT (deg)", "Lon, DATE, APPARENT (deg)",
         "Lon, J2000, APPARENT (deg)", "Lon, TRUE, GEOMETRIC (deg)",
