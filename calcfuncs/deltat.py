@@ -20,10 +20,9 @@ the telescopic-era values of Stephenson and Houlden (1986): 5 s in 1700, 1 s in 
 
 import numpy as np
 
+from .vocabulary import DELTA_T_MODELS
 from .errors import SkyError, rows_failing
 
-MODELS = ("AUTO", "MEASURED", "SMH2016", "ESPENAK2006")
-DEFAULT = "AUTO"
 
 # Table S15 (v. 2020): rows of (K_i, K_i+1, a0, a1, a2, a3); Delta T in seconds is
 # a0 + a1 t + a2 t^2 + a3 t^3 with t = (Y - K_i) / (K_i+1 - K_i).
@@ -177,7 +176,7 @@ def model_delta_t(year, model):
         return smh2016(year)
     if model == "ESPENAK2006":
         return espenak2006(year)
-    raise SkyError(f'unknown Delta T model "{model}"; use ' + ", ".join(MODELS))
+    raise SkyError(f'unknown Delta T model "{model}"; use ' + ", ".join(DELTA_T_MODELS))
 
 
 def uncertainty(year):

@@ -26,30 +26,19 @@ from functools import lru_cache
 import erfa
 import numpy as np
 
+from . import vectors
 from .errors import SkyError, rows_failing
-from .obliquity import julian_epoch
+from .timescales import check_years, julian_year
+from .vocabulary import (DATED_SYSTEMS, IAU2006_YEARS, J2000_JD, SYSTEM_ALIASES,
+                         SYSTEMS, VONDRAK_YEARS, years_text)
 
-SYSTEMS = (
-    "ICRS",
-    "EQUATORIAL J2000",
-    "EQUATORIAL DATE",
-    "EQUATORIAL TRUE",
-    "ECLIPTIC J2000",
-    "ECLIPTIC DATE",
-    "ECLIPTIC TRUE",
-    "GALACTIC",
-    "INVARIABLE",
-)
-DATED = {"EQUATORIAL DATE", "EQUATORIAL TRUE", "ECLIPTIC DATE", "ECLIPTIC TRUE"}
-
-# Validity of the IAU 2006/2000A matrices of date, in Julian years (as the obliquity).
-IAU2006_YEARS = (1000.0, 3000.0)
-VONDRAK_YEARS = (-198000.0, 202000.0)
+DATED = frozenset(DATED_SYSTEMS)
+_ALIASES = dict(SYSTEM_ALIASES)
 
 INVARIABLE_INCLINATION_DEG = 1.0 + 34.0 / 60.0 + 43.3 / 3600.0
 INVARIABLE_NODE_DEG = 107.0 + 34.0 / 60.0 + 56.0 / 3600.0
 
-J2000 = (2451545.0, 0.0)
+J2000 = (J2000_JD, 0.0)
 
 
 def _rot_x(angle):
@@ -113,10 +102,7 @@ def _dated_one(system, jd1, jd2):
 
 def check_system(name):
     word = " ".join(str(name).replace("_", " ").replace(".", " ").split()).upper()
-    word = {"EQ J2000": "EQUATORIAL J2000", "EQ DATE": "EQUATORIAL DATE",
-            "EQ TRUE": "EQUATORIAL TRUE", "ECL J2000": "ECLIPTIC J2000",
-            "ECL DATE": "ECLIPTIC DATE", "ECL TRUE": "ECLIPTIC TRUE",
-            "GAL": "GALACTIC"}.get(word, word)
+    word = _ALIASES.get(word, word)
     if word not in SYSTEMS:
         raise SkyError(f'unknown coordinate system "{name}"; use ' + ", ".join(SYSTEMS))
     return word
@@ -131,14 +117,8 @@ def system_matrix(system, jd1=None, jd2=None, given=None):
     jd2 = np.asarray(jd2, dtype=float)
     if given is not None and not np.all(given):
         raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
-    years = julian_epoch(jd1, jd2)
-    outside = (years < IAU2006_YEARS[0]) | (years > IAU2006_YEARS[1])
-    if np.any(outside):
-        raise rows_failing(
-            outside,
-            f"{system} uses IAU 2006/2000A, valid 1000 to 3000; for other dates precess "
-            "with SKY.PRECESS.RA/DEC and model VONDRAK2011",
-        )
+    check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
+                "for other dates precess with SKY.PRECESS.RA/DEC and model VONDRAK2011")
     if jd1.size == 1 or (np.all(jd1 == jd1.flat[0]) and np.all(jd2 == jd2.flat[0])):
         # One date for every row (a single cell against a column): one matrix.
         m = _dated_one(system, float(jd1.ravel()[0]), float(jd2.ravel()[0]))
@@ -146,10 +126,9 @@ def system_matrix(system, jd1=None, jd2=None, given=None):
     return _dated(system, jd1, jd2)
 
 
-def rotate(vectors, m_from, m_to):
+def rotate(v, m_from, m_to):
     """Vectors (..., 3) from one system to another: M_to M_from^T v."""
-    m = np.einsum("...ij,...kj->...ik", m_to, m_from)
-    return np.einsum("...ij,...j->...i", m, vectors)
+    return vectors.apply(vectors.compose(m_to, m_from), v)
 
 
 def unit_vectors(lon_deg, lat_deg):
@@ -241,23 +220,19 @@ def rect_dist_cells(x, y, z):
 
 # ---- precession ---------------------------------------------------------------------
 
-PRECESSION_MODELS = ("AUTO", "IAU2006", "VONDRAK2011")
-
 
 def precession_matrices(jd1, jd2, model):
     """Rotations from ICRS axes to the mean equator and equinox of each TT date."""
-    years = julian_epoch(jd1, jd2)
     if model == "IAU2006":
-        outside = (years < IAU2006_YEARS[0]) | (years > IAU2006_YEARS[1])
-        if np.any(outside):
-            raise rows_failing(outside, "the epoch is outside IAU2006 precession (valid 1000 "
-                                        "to 3000); use VONDRAK2011 (-198000 to 202000)")
+        check_years(jd1, jd2, IAU2006_YEARS, "the epoch is outside IAU2006 precession",
+                    f"use VONDRAK2011 ({years_text(VONDRAK_YEARS)})")
         return erfa.pmat06(jd1, jd2)
-    outside = (years < VONDRAK_YEARS[0]) | (years > VONDRAK_YEARS[1])
-    if np.any(outside):
-        raise rows_failing(outside, "the epoch is outside VONDRAK2011 precession (valid "
-                                    "-198000 to 202000)")
-    return erfa.ltpb(years)
+    check_years(jd1, jd2, VONDRAK_YEARS, "the epoch is outside VONDRAK2011 precession")
+    return erfa.ltpb(julian_year(jd1, jd2))
+
+
+def _within(years, span):
+    return (years >= span[0]) & (years <= span[1])
 
 
 def precess(ra, dec, from_epoch, to_epoch, model="AUTO"):
@@ -271,8 +246,8 @@ def precess(ra, dec, from_epoch, to_epoch, model="AUTO"):
     t1, t2 = to_epoch.tt()
     f1, f2, t1, t2 = np.broadcast_arrays(f1, f2, t1, t2)
     if model == "AUTO":
-        inside = ((julian_epoch(f1, f2) >= IAU2006_YEARS[0]) & (julian_epoch(f1, f2) <= IAU2006_YEARS[1])
-                  & (julian_epoch(t1, t2) >= IAU2006_YEARS[0]) & (julian_epoch(t1, t2) <= IAU2006_YEARS[1]))
+        inside = _within(julian_year(f1, f2), IAU2006_YEARS) & _within(julian_year(t1, t2),
+                                                                       IAU2006_YEARS)
         m_from = np.empty(f1.shape + (3, 3))
         m_to = np.empty(f1.shape + (3, 3))
         for mask, name in ((inside, "IAU2006"), (~inside, "VONDRAK2011")):

@@ -17,7 +17,8 @@ import numpy as np
 
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
-from .timescales import erfa_quietly
+from .timescales import check_years, erfa_quietly
+from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
 # ERFA's refraction (refco: A tan z + B tan^3 z) is good to about zenith distance 85
@@ -25,21 +26,12 @@ WAVELENGTH_UM = 0.55
 # rather than answered with a refraction that is minutes of arc too small.
 REFRACTION_MIN_ALTITUDE = 5.0
 HUMIDITY = 0.5
-SIDEREAL_KINDS = ("GAST", "GMST", "ERA")
-HORIZON_FRAMES = ("ICRS", "TRUE")
-AIRMASS_MODELS = ("KASTENYOUNG1989", "PICKERING2002", "SECZ")
-
-
-IAU2006_YEARS = (1000.0, 3000.0)
 
 
 def _check_years(time, what):
-    tt = time.to("TT")
-    years = 2000.0 + ((tt.jd1 - 2451545.0) + tt.jd2) / 365.25
-    outside = (years < IAU2006_YEARS[0]) | (years > IAU2006_YEARS[1])
-    if np.any(outside):
-        raise rows_failing(outside, f"{what} uses IAU 2006/2000A precession-nutation, valid "
-                                    "1000 to 3000; outside, the cell says so (ERA has no limit)")
+    tt1, tt2 = time.tt()
+    check_years(tt1, tt2, IAU2006_YEARS, f"{what} uses IAU 2006/2000A precession-nutation",
+                "outside, the cell says so (ERA has no limit)")
 
 
 def _ut_tt(time):

@@ -22,26 +22,12 @@ from functools import lru_cache
 import erfa
 import numpy as np
 
+from . import vectors
 from .errors import SkyError, rows_failing
+from .timescales import julian_year
+from .vocabulary import NUTATION_VALIDITY, OBLIQUITY_VALIDITY  # validity: see there
 
 ARCSEC = np.pi / (180.0 * 3600.0)
-
-# Validity in Julian epochs (years of TT).  The IAU polynomials are fits for a few
-# centuries around their epoch; the ranges below are the customary +-10 centuries
-# (from memory of the papers' own statements).  Laskar states +-10,000 years around
-# J2000, Vondrak et al. +-200,000 years.
-OBLIQUITY_VALIDITY = {
-    "IAU2006": (1000.0, 3000.0),
-    "IAU1980": (1000.0, 3000.0),
-    "NEWCOMB": (900.0, 2900.0),
-    "LASKAR1986": (-8000.0, 12000.0),
-    "VONDRAK2011": (-198000.0, 202000.0),
-}
-NUTATION_VALIDITY = {
-    "IAU2000A": (1000.0, 3000.0),
-    "IAU2000B": (1000.0, 3000.0),
-    "IAU1980": (1000.0, 3000.0),
-}
 
 # Newcomb's obliquity: 23°27'08.26" - 46.845" T - 0.0059" T^2 + 0.00181" T^3.
 NEWCOMB_COEFFS_ARCSEC = (84428.26, -46.845, -0.0059, 0.00181)
@@ -56,11 +42,6 @@ LASKAR_COEFFS_ARCSEC = (
 )
 
 UNIT_FACTORS = {"DEG": 180.0 / np.pi, "ARCSEC": 180.0 * 3600.0 / np.pi, "RAD": 1.0}
-
-
-def julian_epoch(jd1, jd2):
-    """Julian epoch (e.g. 2000.0) of a two-part JD."""
-    return 2000.0 + ((jd1 - 2451545.0) + jd2) / 365.25
 
 
 def _check_model(model, table, kind):
@@ -93,7 +74,7 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
     model = _check_model(model, OBLIQUITY_VALIDITY, "")
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
-    epochs = julian_epoch(jd1, jd2)
+    epochs = julian_year(jd1, jd2)
     _check_validity(model, OBLIQUITY_VALIDITY, epochs, "obliquity")
     if model == "IAU2006":
         return erfa.obl06(jd1, jd2)
@@ -106,13 +87,7 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
         u = ((jd1 - 2451545.0) + jd2) / 3652500.0
         return np.polynomial.polynomial.polyval(u, LASKAR_COEFFS_ARCSEC) * ARCSEC
     # VONDRAK2011: the mean obliquity is the angle between the two poles of date.
-    return _angle_between(erfa.ltpequ(epochs), erfa.ltpecl(epochs))
-
-
-def _angle_between(a, b):
-    # atan2 of |a x b| and a . b stays accurate at every angle, unlike acos.
-    cross = np.linalg.norm(np.cross(a, b), axis=-1)
-    return np.arctan2(cross, np.sum(a * b, axis=-1))
+    return vectors.angle_between(erfa.ltpequ(epochs), erfa.ltpecl(epochs))
 
 
 @lru_cache(maxsize=4096)
@@ -130,7 +105,7 @@ def nutation_angles(jd1, jd2, model="IAU2000A"):
     model = _check_model(model, NUTATION_VALIDITY, "nutation ")
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
-    _check_validity(model, NUTATION_VALIDITY, julian_epoch(jd1, jd2), "nutation")
+    _check_validity(model, NUTATION_VALIDITY, julian_year(jd1, jd2), "nutation")
     if jd1.size == 1:
         dpsi, deps = _nutation_one(float(jd1.ravel()[0]), float(jd2.ravel()[0]), model)
         return np.full(jd1.shape, dpsi), np.full(jd1.shape, deps)

@@ -1,12 +1,12 @@
 """Pairs of directions, and a star's motion between epochs."""
 
-import warnings
-
 import erfa
 import numpy as np
 
 from .errors import rows_failing
 from .frames import check_latitudes, degrees_360
+from .timescales import erfa_quietly
+from .vocabulary import JULIAN_YEAR_DAYS
 
 MAS = np.pi / (180.0 * 3600.0 * 1000.0)
 
@@ -57,14 +57,12 @@ def _propagate(ra, dec, pmra, pmdec, from_epoch, to_epoch, parallax, rv):
     dec_out = b(dec_r).astype(float).copy()
     known = b(px > 0.0)
     if np.any(known):
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore", erfa.ErfaWarning)
-            out = erfa.pmsafe(b(ra_r)[known], b(dec_r)[known], b(pmra / np.cos(dec_r))[known],
-                              b(pmd)[known], b(px / 1000.0)[known], b(np.asarray(rv, float))[known],
-                              b(f.jd1)[known], b(f.jd2)[known], b(t.jd1)[known], b(t.jd2)[known])
+        out = erfa_quietly(erfa.pmsafe, b(ra_r)[known], b(dec_r)[known], b(pmra / np.cos(dec_r))[known],
+                           b(pmd)[known], b(px / 1000.0)[known], b(np.asarray(rv, float))[known],
+                           b(f.jd1)[known], b(f.jd2)[known], b(t.jd1)[known], b(t.jd2)[known])
         ra_out[known], dec_out[known] = out[0], out[1]
     if not np.all(known):
-        years = ((t.jd1 - f.jd1) + (t.jd2 - f.jd2)) / 365.25
+        years = ((t.jd1 - f.jd1) + (t.jd2 - f.jd2)) / JULIAN_YEAR_DAYS
         u0 = erfa.s2c(ra_r, dec_r)
         east = np.stack([-np.sin(ra_r), np.cos(ra_r), np.zeros_like(ra_r)], axis=-1)
         north = np.stack([-np.sin(dec_r) * np.cos(ra_r), -np.sin(dec_r) * np.sin(ra_r),

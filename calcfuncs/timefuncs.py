@@ -6,16 +6,18 @@ from .errors import SkyError, rows_failing
 from . import deltat
 from .timeinput import date_text
 from .timeinput import iso_text as _iso_text
-from .timeinput import to_serial
+from .timeinput import days_and_seconds
 from .timescales import (
     JD_LIMIT,
-    universal_of,
-    MJD_ZERO,
+    DateTimes,
     Instants,
+    erfa_quietly,
     julian_year,
     seconds_between,
     split_days,
+    universal_of,
 )
+from .vocabulary import MJD_ZERO
 
 
 def _on(time, result_scale):
@@ -34,16 +36,10 @@ def modified_julian_date(time, result_scale=None):
     return (out.jd1 - MJD_ZERO) + out.jd2
 
 
-def calc_datetime(time, null_jd, result_scale=None):
-    """Calc date-time value of the instant on ``result_scale``."""
-    serial, in_leap = to_serial(_on(time, result_scale), null_jd)
-    if np.any(in_leap):
-        raise rows_failing(
-            in_leap,
-            "this instant is inside a leap second (23:59:60), which a date-time cell "
-            "cannot show; use SKY.TEXT.ISO",
-        )
-    return serial
+def calc_datetime(time, result_scale=None):
+    """The instant on ``result_scale``, shown as a date-time value (the cell layer
+    refuses an instant inside a leap second, which a date-time cell cannot show)."""
+    return DateTimes(_on(time, result_scale))
 
 
 def _instants_from_day_numbers(days, zero, scale, dut1):
@@ -56,16 +52,16 @@ def _instants_from_day_numbers(days, zero, scale, dut1):
     return Instants(jd1, jd2, scale, dut1)
 
 
-def calc_datetime_from_jd(jd, null_jd, scale="UTC", result_scale=None, dut1=0.0):
-    """Calc date-time value from a JD number on ``scale``."""
+def calc_datetime_from_jd(jd, scale="UTC", result_scale=None, dut1=0.0):
+    """Date-time value from a JD number on ``scale``."""
     time = _instants_from_day_numbers(jd, 0.0, scale, dut1)
-    return calc_datetime(time, null_jd, result_scale)
+    return calc_datetime(time, result_scale)
 
 
-def calc_datetime_from_mjd(mjd, null_jd, scale="UTC", result_scale=None, dut1=0.0):
-    """Calc date-time value from an MJD number on ``scale``."""
+def calc_datetime_from_mjd(mjd, scale="UTC", result_scale=None, dut1=0.0):
+    """Date-time value from an MJD number on ``scale``."""
     time = _instants_from_day_numbers(mjd, MJD_ZERO, scale, dut1)
-    return calc_datetime(time, null_jd, result_scale)
+    return calc_datetime(time, result_scale)
 
 
 def iso_text(time, result_scale=None, decimals=3):
@@ -99,8 +95,6 @@ def tai_minus_utc(time):
     import erfa
 
     from .calendars import GREGORIAN, calendar_date
-    from .timeinput import days_and_seconds
-    from .timescales import erfa_quietly
 
     start, seconds, _ = days_and_seconds(time.to("UTC"))
     out = []
@@ -110,8 +104,8 @@ def tai_minus_utc(time):
     return np.array(out, dtype=float)
 
 
-def leap_table_valid_until(null_jd):
-    """Calc date-time value of the last day ERFA vouches for its leap-second table."""
+def leap_table_valid_until():
+    """The last day ERFA vouches for its leap-second table, as a date-time value."""
     import warnings
 
     import erfa
@@ -125,8 +119,8 @@ def leap_table_valid_until(null_jd):
             except erfa.ErfaWarning:
                 break
             year += 1
-    last_day = sum(erfa.cal2jd(year, 12, 31))
-    return np.array([last_day - null_jd])
+    day1, day2 = erfa.cal2jd(year, 12, 31)
+    return DateTimes(Instants(np.array([day1]), np.array([day2]), "UTC"))
 
 
 def calendar_date_text(time, result_scale=None, calendar="AUTO", numbering="HISTORICAL",

@@ -23,15 +23,14 @@ from .calendars import (
 )
 from .errors import SkyError
 from .timescales import (
-    before_1960_message,
     GREGORIAN_START_JD,
     JD_LIMIT,
-    MJD_ZERO,
-    UTC_START_JD,
     Instants,
+    before_1960_message,
     erfa_quietly,
     split_days,
 )
+from .vocabulary import J2000_JD, MJD_ZERO, UTC_START_JD
 
 DEFAULT_NULL_DATE = (1899, 12, 30)
 
@@ -251,7 +250,7 @@ def read_times(values, scale, null_jd, dut1=0.0):
     """
     values = np.asarray(values, dtype=object).ravel()
     n = values.size
-    jd1 = np.full(n, 2451545.0)
+    jd1 = np.full(n, J2000_JD)
     jd2 = np.zeros(n)
     messages = np.full(n, None, dtype=object)
 

@@ -104,9 +104,11 @@ SOURCE_WORDS = ('BUILTIN (default: ERFA\'s theories), DE440 (the JPL kernel of t
 # ---- physical constants ---------------------------------------------------------------
 
 # IAU 2012 Resolution B2: the astronomical unit is 149,597,870,700 m exactly (ERFA DAU).
-AU_KM = 149597870.7
-# Light time for one au, seconds (IERS Conventions 2010; ERFA AULT).
-AU_LIGHT_SECONDS = 499.004782
+AU_M = 149597870700.0
+AU_KM = AU_M / 1000.0
+# The speed of light, m/s (SI definition), and the light time for one au (ERFA AULT).
+SPEED_OF_LIGHT_M_S = 299792458.0
+AU_LIGHT_SECONDS = AU_M / SPEED_OF_LIGHT_M_S
 LIGHT_DAYS_PER_AU = AU_LIGHT_SECONDS / DAY_SECONDS
 # IERS Conventions 2010 equatorial radius of the Earth, km (common practice for the
 # Moon's distance in Earth radii).
