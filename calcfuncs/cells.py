@@ -137,11 +137,13 @@ def _all_floats(values):
     return None
 
 
-def _read_numbers(values, what):
+def _read_floats(values, what, finite_words, parse_text):
+    """Numbers of a column: floats as they are, texts through ``parse_text`` (which
+    raises a ``SkyError`` worded for the cell), each bad row with its own message."""
     fast = _all_floats(values)
     if fast is not None:
         messages = np.full(values.size, None, dtype=object)
-        messages[~np.isfinite(fast)] = f"{what} must be a finite number"
+        messages[~np.isfinite(fast)] = f"{what} must be a finite {finite_words}"
         return fast, messages
     out = np.zeros(values.size)
     messages = np.full(values.size, None, dtype=object)
@@ -149,35 +151,27 @@ def _read_numbers(values, what):
         if isinstance(v, (float, int)) and not isinstance(v, bool):
             out[i] = v
             if not np.isfinite(v):
-                messages[i] = f"{what} must be a finite number"
-        elif v is None:
-            messages[i] = f"{what} is missing"
-        else:
-            messages[i] = f'{what} must be a number, not "{v}"'
-    return out, messages
-
-
-def _read_angles(values, what):
-    fast = _all_floats(values)
-    if fast is not None:
-        messages = np.full(values.size, None, dtype=object)
-        messages[~np.isfinite(fast)] = f"{what} must be a finite number of degrees"
-        return fast, messages
-    out = np.zeros(values.size)
-    messages = np.full(values.size, None, dtype=object)
-    for i, v in enumerate(values):
-        if isinstance(v, (float, int)) and not isinstance(v, bool):
-            out[i] = v
-            if not np.isfinite(v):
-                messages[i] = f"{what} must be a finite number of degrees"
+                messages[i] = f"{what} must be a finite {finite_words}"
         elif v is None:
             messages[i] = f"{what} is missing"
         else:
             try:
-                out[i] = parse_angle(v)
+                out[i] = parse_text(v, what)
             except SkyError as err:
                 messages[i] = str(err)
     return out, messages
+
+
+def _refuse_text(value, what):
+    raise SkyError(f'{what} must be a number, not "{value}"')
+
+
+def _read_numbers(values, what):
+    return _read_floats(values, what, "number", _refuse_text)
+
+
+def _read_angles(values, what):
+    return _read_floats(values, what, "number of degrees", lambda v, _what: parse_angle(v))
 
 
 def _read_texts(values, what):

@@ -76,20 +76,22 @@ def _atmosphere(pressure, temperature):
     return pressure, temperature
 
 
-def _utc(time):
+def _observer(time, latitude, longitude, height, pressure, temperature):
+    """What ERFA's observed-place chain takes besides the direction: the site (radians,
+    metres), the atmosphere (hPa, degrees C), UTC and DUT1; every input checked."""
+    _check_years(time, "the observed place")
+    elong, phi, hm = _site(latitude, longitude, height)
+    phpa, tc = _atmosphere(pressure, temperature)
     utc = time.to("UTC")
-    return utc.jd1, utc.jd2
+    return elong, phi, hm, phpa, tc, utc.jd1, utc.jd2, time.dut1
 
 
 def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
              temperature=10.0, frame="ICRS"):
     """(azimuth, zenith distance, hour angle, declination) observed, in radians."""
     check_latitudes(dec, "declination")
-    _check_years(time, "the observed place")
-    elong, phi, hm = _site(latitude, longitude, height)
-    phpa, tc = _atmosphere(pressure, temperature)
-    utc1, utc2 = _utc(time)
-    dut1 = time.dut1
+    elong, phi, hm, phpa, tc, utc1, utc2, dut1 = _observer(time, latitude, longitude, height,
+                                                           pressure, temperature)
     rc, dc = np.radians(ra), np.radians(dec)
     if frame == "ICRS":
         aob, zob, hob, dob, _, _ = erfa_quietly(
@@ -123,11 +125,8 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     """(RA, Dec) in radians from observed azimuth and altitude (degrees)."""
     check_latitudes(alt, "altitude")
-    _check_years(time, "the observed place")
-    elong, phi, hm = _site(latitude, longitude, height)
-    phpa, tc = _atmosphere(pressure, temperature)
-    utc1, utc2 = _utc(time)
-    dut1 = time.dut1
+    elong, phi, hm, phpa, tc, utc1, utc2, dut1 = _observer(time, latitude, longitude, height,
+                                                           pressure, temperature)
     a = np.radians(az)
     _check_refraction_range(phpa, alt)
     z = np.radians(90.0 - np.asarray(alt, dtype=float))
