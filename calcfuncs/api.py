@@ -49,8 +49,8 @@ def python_name(display_name):
 
 def returns_datetime(fn):
     """Whether a cell function's result is a date-time value (days since the null
-    date), as its registry result text says."""
-    return "date-time value" in fn.result
+    date): its registry ``result_kind`` is "datetime"."""
+    return fn.returns_datetime
 
 
 def datetime_from_serial(serial, null_date=DEFAULT_NULL_DATE):

@@ -66,12 +66,11 @@ def _parser():
 
 def list_text():
     lines = []
-    for family, title in registry.FAMILIES.items():
-        members = [f for f in registry.FUNCTIONS if f.family == family]
-        if not members:
+    for family in registry.FAMILY_ORDER:
+        if not family.functions:
             continue
-        lines.append(title)
-        for f in members:
+        lines.append(family.title)
+        for f in family.functions:
             lines.append(f"  {f.name:<26} {api.python_name(f.name):<22} {f.summary}")
         lines.append("")
     return "\n".join(lines)

@@ -8,7 +8,7 @@
                                    [--numpy V] [--pyerfa V] [--codesign ID] [OUT.oxt]
                                           # self-contained: numpy and pyerfa inside
 
-Generated from ``calcfuncs/registry.py`` alone: the IDL, ``CalcAddIns.xcu`` (Function
+Generated from the registry (``calcfuncs/registry/``) alone: the IDL, ``CalcAddIns.xcu`` (Function
 Wizard texts), the ``.components`` file, ``description.xml``, the manifest,
 ``docs/functions.md``, and the icon (``extension/icon.py``).  The type library is
 compiled with the SDK's ``unoidl-write``.
@@ -64,7 +64,7 @@ OFFICE_DIRS = ("/usr/lib/libreoffice", "/opt/libreoffice", "/usr/local/lib/libre
 def idl_text():
     mod = registry.INTERFACE_MODULE
     lines = [
-        "// Generated from calcfuncs/registry.py by extension/build.py: do not edit.",
+        "// Generated from calcfuncs/registry/ by extension/build.py: do not edit.",
         "#include <com/sun/star/uno/XInterface.idl>",
         "#include <com/sun/star/beans/XPropertySet.idl>",
         "",
@@ -96,7 +96,7 @@ def _wizard_arg_text(arg):
 def xcu_text():
     out = [
         '<?xml version="1.0" encoding="UTF-8"?>',
-        "<!-- Generated from calcfuncs/registry.py by extension/build.py: do not edit. -->",
+        "<!-- Generated from calcfuncs/registry/ by extension/build.py: do not edit. -->",
         '<oor:component-data xmlns:oor="http://openoffice.org/2001/registry" '
         'xmlns:xs="http://www.w3.org/2001/XMLSchema" oor:name="CalcAddIns" '
         'oor:package="org.openoffice.Office">',
@@ -128,7 +128,7 @@ def components_text():
     services = "".join(f'\n      <service name="{s}"/>' for s in registry.SERVICE_NAMES)
     return (
         '<?xml version="1.0" encoding="UTF-8"?>\n'
-        "<!-- Generated from calcfuncs/registry.py by extension/build.py: do not edit. -->\n"
+        "<!-- Generated from calcfuncs/registry/ by extension/build.py: do not edit. -->\n"
         '<components xmlns="http://openoffice.org/2010/uno-components">\n'
         f'  <component loader="com.sun.star.loader.Python" uri="{ADAPTER}">\n'
         f'    <implementation name="{registry.IMPLEMENTATION_NAME}">{services}\n'
@@ -144,7 +144,7 @@ def description_text(version=__version__, platform="all"):
     not ask every user again) and not again on an update."""
     return (
         '<?xml version="1.0" encoding="UTF-8"?>\n'
-        "<!-- Generated from calcfuncs/registry.py by extension/build.py: do not edit. -->\n"
+        "<!-- Generated from calcfuncs/registry/ by extension/build.py: do not edit. -->\n"
         '<description xmlns="http://openoffice.org/extensions/description/2006"\n'
         '             xmlns:d="http://openoffice.org/extensions/description/2006"\n'
         '             xmlns:lo="http://libreoffice.org/extensions/description/2011"\n'
@@ -206,7 +206,7 @@ def functions_md_text():
     out = [
         "# Eclipsheet function reference",
         "",
-        "Generated from `calcfuncs/registry.py` by `extension/build.py`: do not edit.",
+        "Generated from `calcfuncs/registry/` by `extension/build.py`: do not edit.",
         "",
         "Every function accepts a range in any argument and then returns an array of the "
         "same shape (enter it as an array formula, Ctrl+Shift+Enter); single cells in "
@@ -217,11 +217,9 @@ def functions_md_text():
         "method names below never change.",
         "",
     ]
-    for family, title in registry.FAMILIES.items():
-        out += [f"## {title}", ""]
-        for fn in registry.FUNCTIONS:
-            if fn.family != family:
-                continue
+    for family in registry.FAMILY_ORDER:
+        out += [f"## {family.title}", ""]
+        for fn in family.functions:
             sig = "; ".join(f"[{a.name}]" if a.optional else a.name for a in fn.args)
             out += [
                 f"### {fn.name}({sig})",
@@ -306,10 +304,22 @@ def compile_rdb(idl_path, rdb_path):
     )
 
 
+def _core_modules():
+    """The core's modules, subpackages (the registry) included: paths relative to
+    ``calcfuncs/``, with forward slashes, sorted."""
+    core = os.path.join(ROOT, "calcfuncs")
+    found = []
+    for dirpath, dirs, files in os.walk(core):
+        dirs[:] = sorted(d for d in dirs if d != "__pycache__")
+        found += [os.path.relpath(os.path.join(dirpath, f), core).replace(os.sep, "/")
+                  for f in files if f.endswith(".py")]
+    return sorted(found)
+
+
 def _core_source(name, version):
     """A core module's text as it goes into the .oxt; under ``--version`` the package's
     version line says the same number as description.xml."""
-    with open(os.path.join(ROOT, "calcfuncs", name), encoding="utf-8") as f:
+    with open(os.path.join(ROOT, "calcfuncs", *name.split("/")), encoding="utf-8") as f:
         text = f.read()
     if name == "__init__.py" and version != __version__:
         line = f'__version__ = "{__version__}"'
@@ -347,10 +357,8 @@ def build_oxt(target, version=__version__, bundle_target=None, codesign=None, lo
             z.write(os.path.join(GENERATED, "icon.png"), ICON_IN_OXT)
             z.write(os.path.join(HERE, RELEASE_NOTES), RELEASE_NOTES)
             z.writestr(SUMMARY_IN_OXT, SUMMARY)
-            core = os.path.join(ROOT, "calcfuncs")
-            for name in sorted(os.listdir(core)):
-                if name.endswith(".py"):
-                    z.writestr(f"pythonpath/calcfuncs/{name}", _core_source(name, version))
+            for name in _core_modules():
+                z.writestr(f"pythonpath/calcfuncs/{name}", _core_source(name, version))
             for dirpath, dirs, files in os.walk(bundled):
                 dirs.sort()
                 for name in sorted(files):

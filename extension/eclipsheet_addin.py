@@ -73,12 +73,15 @@ def _call(fn, doc_settings, args):
     """Methods return sequence<sequence<any>>: Calc shows a 1x1 result in a plain cell
     and fills an array formula with a larger one (an ``any`` return type cannot carry
     an array from Python).  Functions whose result is a text return a plain ``any``
-    instead, one value per cell (see registry.CellFunction.returns_text)."""
+    instead, one value per cell (see registry.CellFunction.returns_text: a
+    function whose result_kind is "text")."""
     core = _load_core()
     if core is None:
         return _core_problem if fn.returns_text else ((_core_problem,),)
     try:
-        null_date = _null_date(doc_settings) if fn.has_time else (1899, 12, 30)
+        # Read from the document whenever a date-time cell comes in or a date-time
+        # value goes out (SKY.SEASON takes a year, yet answers a date-time value).
+        null_date = _null_date(doc_settings) if fn.uses_null_date else (1899, 12, 30)
         result = core.evaluate(fn, args, null_date)
     except Exception as err:  # never let a defect reach the office as an exception
         result = f"#SKY: internal error ({type(err).__name__}: {err}); please report it"

@@ -232,10 +232,14 @@ def test_idl_declares_every_method_with_hidden_settings_first():
 
 def test_core_package_never_imports_the_office_bridge():
     core = os.path.join(ROOT, "calcfuncs")
-    for name in os.listdir(core):
-        if name.endswith(".py"):
-            text = open(os.path.join(core, name), encoding="utf-8").read()
-            assert not re.search(r"^\s*(import|from)\s+uno\b", text, re.M), name
+    checked = 0
+    for dirpath, _, files in os.walk(core):
+        for name in files:
+            if name.endswith(".py"):
+                text = open(os.path.join(dirpath, name), encoding="utf-8").read()
+                assert not re.search(r"^\s*(import|from)\s+uno\b", text, re.M), name
+                checked += 1
+    assert checked > 20  # the registry's modules included
 
 
 def test_registry_import_is_light():
@@ -249,3 +253,93 @@ def test_registry_import_is_light():
 
     done = subprocess.run([sys.executable, "-c", code], cwd=ROOT)
     assert done.returncode == 0
+
+
+# The frozen methods in the order the interface has always declared them (the IDL, the
+# xcu and the reference follow it).  New functions may come anywhere; these keep their
+# order relative to each other.
+DECLARED_ORDER = (
+    "skyJd skyMjd skyDatetime skyJdDatetime skyMjdDatetime skyTextIso skyDeltaT "
+    "skyDeltaTUncertainty skyLeapseconds skyLeapsecondsUntil skyTextDate skyAngle "
+    "skyAngleHours skyTextDms skyTextHms skyWrap360 skyWrap180 skyObliquity "
+    "skyObliquityTrue skyNutationLon skyNutationObl skyVersion skyCoordLon skyCoordLat "
+    "skyCoordX skyCoordY skyCoordZ skyRectLon skyRectLat skyRectDist skyPrecessRa "
+    "skyPrecessDec skyProperRa skyProperDec skySeparation skyPositionAngle skySidereal "
+    "skyHourangle skyHorizonAlt skyHorizonAz skyHorizonRa skyHorizonDec skyParallactic "
+    "skyAirmass skySunLon skySunLat skySunRa skySunDec skySunDist skySunSolarlon "
+    "skySunEqtime skySunSundial skySeason skySeasonLength skySunReaches skySunRise "
+    "skySunSet skySunDaylength skySunTransit skySunElongation skySunRelativeLon "
+    "skySunRelativeLat skyMoonLon skyMoonLat skyMoonRa skyMoonDec skyMoonDist "
+    "skyMoonElongation skyMoonPhaseAngle skyMoonIlluminated skyMoonAge skyMoonNode "
+    "skyMoonPhaseNext skyEclipseNodeDistance skyEclipsePossible skyBjdTdb skyHjdUtc "
+    "skyHjdTt skyBjdTdbDatetime skyHjdUtcDatetime skyHjdToBjdTdb skyBjdTdbToHjd "
+    "skyPlanetHelioLon skyPlanetHelioLat skyPlanetHelioDist skyPlanetHelioX "
+    "skyPlanetHelioY skyPlanetHelioZ skyPlanetLon skyPlanetLat skyPlanetRa skyPlanetDec "
+    "skyPlanetDist skyPlanetLighttime skyPlanetElongation skyPlanetPhaseAngle "
+    "skyPlanetIlluminated skyPlanetEventNext skyEphemeris"
+).split()
+
+
+def test_the_declared_order_is_kept():
+    assert sorted(DECLARED_ORDER) == sorted(FROZEN_METHODS)
+    declared = [f.method for f in registry.FUNCTIONS if f.method in FROZEN_METHODS]
+    assert declared == DECLARED_ORDER
+
+
+def test_each_family_is_said_once_and_lists_its_functions_together():
+    assert list(registry.FAMILIES) == [f.name for f in registry.FAMILY_ORDER]
+    seen = []
+    for fn in registry.FUNCTIONS:
+        if not seen or seen[-1] != fn.family:
+            assert fn.family not in seen, f"{fn.name}: family {fn.family} is split"
+            seen.append(fn.family)
+    for family in registry.FAMILY_ORDER:
+        assert family.functions and all(f.family == family.name for f in family.functions)
+    assert sum(len(f.functions) for f in registry.FAMILY_ORDER) == len(registry.FUNCTIONS)
+
+
+@pytest.mark.parametrize("fn", registry.FUNCTIONS, ids=lambda f: f.name)
+def test_the_result_kind_is_what_the_words_say(fn):
+    # The kind drives the adapter, the cells and the API; the words are what the user
+    # reads.  They must not disagree.
+    assert fn.result_kind in registry.RESULT_KINDS
+    says_datetime = "date-time value" in fn.result
+    says_text = fn.result.startswith("text")
+    assert says_datetime == (fn.result_kind == "datetime"), fn.result
+    assert says_text == (fn.result_kind == "text"), fn.result
+    assert fn.returns_text == (fn.result_kind == "text")
+    if fn.result_kind == "datetime":
+        assert fn.uses_null_date  # the adapter reads the document's null date for it
+
+
+def test_result_kinds_of_known_functions():
+    kinds = {f.name: f.result_kind for f in registry.FUNCTIONS}
+    assert kinds["SKY.JD"] == "number"
+    assert kinds["SKY.SEASON"] == "datetime"  # a year in, a date-time value out
+    assert kinds["SKY.SUN.RISE"] == "datetime"  # words where the Sun does not rise
+    assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
+    assert sorted(n for n, k in kinds.items() if k == "text") == [
+        "SKY.ECLIPSE.POSSIBLE", "SKY.EPHEMERIS", "SKY.TEXT.DATE", "SKY.TEXT.DMS",
+        "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
+
+
+def test_every_argument_has_a_noun_for_its_messages():
+    for fn in registry.FUNCTIONS:
+        for a in fn.args:
+            assert a.noun and a.name.replace("_", " ") in a.noun.replace("_", " ") \
+                or a.name == "nutation", (fn.name, a.name, a.noun)
+    nutation = registry.BY_NAME["SKY.OBLIQUITY.TRUE"].args[3]
+    assert (nutation.name, nutation.noun) == ("nutation", "nutation model")
+
+
+def test_no_declaration_rebinds_or_reads_another():
+    # The registry reads like a table: no FUNCTIONS = FUNCTIONS + ..., no declaration
+    # built from its neighbour (FUNCTIONS[-1]), no family= repeated per function.
+    folder = os.path.join(ROOT, "calcfuncs", "registry")
+    for name in sorted(os.listdir(folder)):
+        if not name.endswith(".py"):
+            continue
+        text = open(os.path.join(folder, name), encoding="utf-8").read()
+        assert not re.search(r"^(\w+) = \1 \+", text, re.M), name
+        assert not re.search(r"FUNCTIONS\[-?\d+\]|functions\[-?\d+\]", text), name
+        assert "family=" not in text.replace("family=self.name", ""), name
