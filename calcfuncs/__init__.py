@@ -9,12 +9,15 @@ install.
 __version__ = "0.1.0"
 
 
-def call(name, *args, null_date=(1899, 12, 30)):
-    """Evaluate one cell function by display name, as a cell would, from Python.
+def call(name, *args, null_date=(1899, 12, 30), **kwargs):
+    """Evaluate one cell function from Python, as a cell would: the short name of
+    ``calcfuncs.api.call``, which says the rest.
 
-    Unlike a cell, a problem raises ``ValueError`` with the same text the cell would
-    show.  Ranges are tuples of row tuples and give tuples back.
+    ``name`` is a display name (``"SKY.JD"``) or an API name (``"jd"``); the arguments
+    are the cell's, by position or keyword.  A problem raises ``calcfuncs.api.SkyError``
+    (a ``ValueError``) with the text the cell would show.  A list or tuple is a column
+    and gives a list back (rows of values give a list of rows).
     """
-    from . import cells
+    from . import api
 
-    return cells.call_strict(name, args, null_date)
+    return api.call(name, *args, null_date=null_date, **kwargs)

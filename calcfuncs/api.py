@@ -180,7 +180,8 @@ del _fn, _name
 
 
 def call(name, *args, null_date=DEFAULT_NULL_DATE, on_error="raise", **kwargs):
-    """Call a cell function by display name (``"SKY.JD"``) or API name (``"jd"``)."""
+    """Call a cell function by display name (``"SKY.JD"``) or API name (``"jd"``).
+    ``calcfuncs.call`` is the same call."""
     return lookup(name)(*args, null_date=null_date, on_error=on_error, **kwargs)
 
 

@@ -72,6 +72,31 @@ def test_an_unknown_keyword_is_a_python_error_not_a_cell_message():
         api.call("SKY.NO.SUCH")
 
 
+def test_calcfuncs_call_is_the_api_call():
+    import calcfuncs
+
+    args = ("2024-03-20T03:06:00Z", "UTC", "TT")
+    want = evaluate("SKY.JD", args)
+    assert calcfuncs.call("SKY.JD", *args) == api.call("jd", *args) == want
+    assert calcfuncs.call("jd", "2024-03-20T03:06:00Z", result_scale="TT") == want
+    rows = ((45371.5,), (45372.5,))  # a range: rows in, a list of rows out
+    assert calcfuncs.call("SKY.JD", rows) == [list(r) for r in evaluate("SKY.JD", (rows,))]
+    bad = ("2024-01-01", None, "IAU2007")
+    with pytest.raises(api.SkyError) as caught:
+        calcfuncs.call("SKY.OBLIQUITY", *bad)
+    assert PREFIX + str(caught.value) == evaluate("SKY.OBLIQUITY", bad)
+    assert calcfuncs.call("SKY.OBLIQUITY", *bad, on_error="text") == evaluate("SKY.OBLIQUITY", bad)
+    with pytest.raises(ValueError, match="unknown function"):
+        calcfuncs.call("SKY.NO.SUCH")
+
+
+def test_returns_datetime_follows_the_result_kind():
+    assert [f.name for f in registry.FUNCTIONS if api.returns_datetime(f)] == [
+        f.name for f in registry.FUNCTIONS if f.result_kind == "datetime"]
+    assert api.returns_datetime(registry.BY_NAME["SKY.SEASON"])
+    assert not api.returns_datetime(registry.BY_NAME["SKY.JD"])
+
+
 # ---- values and messages identical to the cells -----------------------------------------
 
 # (function, cell arguments as Calc hands them over, same as keywords for the API)
