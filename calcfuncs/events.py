@@ -1,100 +1,257 @@
 """One search for every event: the instants where a smooth function of time crosses zero.
 
 An event (an equinox, the Sun reaching a longitude, sunrise, a transit) is a function
-f(tt1, tt2) of TT two-part JDs, sampled on a grid fine enough that it crosses zero at
-most once between neighbours; each crossing is then narrowed by bisection.  Every event
-in the add-in is a few lines on top of ``crossings``.
+``f(jd1, jd2, row)`` of TT two-part JDs, where ``row`` says which search each instant
+belongs to (so that per-row parameters, a site's latitude or a target longitude, are
+taken as ``latitude[row]``).  Every search of a call is done in one pass over arrays:
+all rows' windows are sampled together, on a grid fine enough that the function crosses
+zero at most once between neighbours, in one call of ``f``; every sign change is
+bracketed at once; all brackets are narrowed together, by bisection and then false
+position.  The answers stay two-part JDs to the end.  Every event in the add-in is a few
+lines on top of ``crossings``.
 """
 
 import numpy as np
 
+from .errors import RowErrors
+
 SHORT_BRACKET_DAYS = 0.04  # about an hour
 
 
-def _extremum_samples(offsets, values, f, base):
+class Roots:
+    """Instants found by a search: TT two-part JDs ``jd1 + jd2`` and the ``row`` (the
+    search) each belongs to, ordered by row and, within a row, by time."""
+
+    __slots__ = ("jd1", "jd2", "row")
+
+    def __init__(self, jd1, jd2, row):
+        self.jd1, self.jd2, self.row = jd1, jd2, row
+
+    def __len__(self):
+        return self.row.size
+
+    def subset(self, keep):
+        return Roots(self.jd1[keep], self.jd2[keep], self.row[keep])
+
+    def after(self, jd1, jd2):
+        """Mask of the roots later than per-row instants (two-part, indexed by row)."""
+        return ((self.jd1 - jd1[self.row]) + (self.jd2 - jd2[self.row])) > 0.0
+
+    def first(self, n, keep=None, last=False):
+        """Per row of ``n``: (jd1, jd2, found) of the row's first root (``last``: its
+        last) among those where ``keep`` holds; rows without one are not ``found`` and
+        hold NaN."""
+        idx = np.arange(self.row.size) if keep is None else np.flatnonzero(keep)
+        if last:
+            idx = idx[::-1]
+        rows, at = np.unique(self.row[idx], return_index=True)
+        jd1, jd2 = np.full(n, np.nan), np.full(n, np.nan)
+        found = np.zeros(n, dtype=bool)
+        jd1[rows], jd2[rows], found[rows] = self.jd1[idx[at]], self.jd2[idx[at]], True
+        return jd1, jd2, found
+
+    def count(self, n, keep=None):
+        """Per row of ``n``: how many roots (where ``keep`` holds)."""
+        rows = self.row if keep is None else self.row[keep]
+        return np.bincount(rows, minlength=n)
+
+
+class Grid:
+    """Samples of ``f`` over every row's window, flattened row after row: ``row``,
+    ``offsets`` from the row's ``base`` (a JD at 0h, so ``base + offset`` is a two-part
+    JD), ``values``; ``at_start`` is each row's value at its window's start."""
+
+    __slots__ = ("base", "row", "offsets", "values", "at_start")
+
+    def __init__(self, base, row, offsets, values, at_start):
+        self.base, self.row, self.offsets, self.values = base, row, offsets, values
+        self.at_start = at_start
+
+
+def evaluate(f, jd1, jd2, row, n):
+    """``f(jd1, jd2, row)`` as floats; a ``RowErrors`` aligned with the samples becomes
+    one aligned with the ``n`` rows (each row gets its first sample's message)."""
+    try:
+        return np.asarray(f(jd1, jd2, row), dtype=float)
+    except RowErrors as err:
+        messages = np.ravel(err.messages)
+        if messages.size != row.size:
+            raise
+        bad = np.flatnonzero(np.not_equal(messages, None))
+        rows, at = np.unique(row[bad], return_index=True)
+        out = np.full(n, None, dtype=object)
+        out[rows] = messages[bad[at]]
+        raise RowErrors(out) from None
+
+
+def sample(f, start, end, step, extrema=False):
+    """A ``Grid`` of ``f`` over the windows [start, end] (TT JDs, one per row), with
+    samples ``step`` days apart or closer (the same count of even steps per row as the
+    window holds whole steps, ends included)."""
+    start, end = np.broadcast_arrays(np.atleast_1d(np.asarray(start, dtype=float)),
+                                     np.asarray(end, dtype=float))
+    start, end = start.ravel(), end.ravel()
+    n = start.size
+    counts = np.maximum(2, np.ceil((end - start) / step).astype(int) + 1)
+    base = np.floor(start) + 0.5
+    lo, hi = start - base, end - base
+    row = np.repeat(np.arange(n), counts)
+    first = np.cumsum(counts) - counts
+    # Even spacing as numpy's linspace makes it, step index times spacing plus the start,
+    # the end itself last: the same grid in a column as in a single cell.
+    index = (np.arange(row.size) - first[row]).astype(float)
+    offsets = index * ((hi - lo) / (counts - 1))[row] + lo[row]
+    offsets[first + counts - 1] = hi
+    values = evaluate(f, base[row], offsets, row, n)
+    grid = Grid(base, row, offsets, values, values[first])
+    if extrema:
+        _add_extremum_samples(grid, f)
+    return grid
+
+
+def _add_extremum_samples(grid, f):
     """Extra sample points at interior extrema whose neighbours share their sign.
 
     A function that pokes above zero for less than a step (the Sun just clearing the
     horizon near the polar night) leaves every sample on one side.  Where three samples
-    make a peak or a trough, the vertex of the parabola through them is sampled too;
-    if the function changes sign there, the crossings on both sides get brackets."""
+    of a row make a peak or a trough, the vertex of the parabola through them is sampled
+    too; if the function changes sign there, the crossings on both sides get brackets."""
+    offsets, values, row = grid.offsets, grid.values, grid.row
     a, b, c = values[:-2], values[1:-1], values[2:]
     peak = ((b >= a) & (b >= c)) | ((b <= a) & (b <= c))
     same = (np.sign(a) == np.sign(b)) & (np.sign(b) == np.sign(c))
-    idx = np.flatnonzero(peak & same & (a - 2.0 * b + c != 0.0))
+    idx = np.flatnonzero((row[:-2] == row[2:]) & peak & same & (a - 2.0 * b + c != 0.0))
     if not idx.size:
-        return offsets, values
+        return
     h = offsets[idx + 2] - offsets[idx + 1]
     curvature = a[idx] - 2.0 * b[idx] + c[idx]
     shift = 0.5 * (a[idx] - c[idx]) / curvature * h
     vertex = offsets[idx + 1] + np.clip(shift, -h, h)
-    f_vertex = f(np.full(vertex.shape, base), vertex)
+    vertex_row = row[idx + 1]
+    f_vertex = evaluate(f, grid.base[vertex_row], vertex, vertex_row, grid.base.size)
     flips = np.sign(f_vertex) != np.sign(b[idx])
     if not np.any(flips):
-        return offsets, values
+        return
     merged = np.concatenate([offsets, vertex[flips]])
+    rows = np.concatenate([row, vertex_row[flips]])
+    # By time within each row, a vertex after an equal sample (both sorts stable).
     order = np.argsort(merged, kind="stable")
-    return merged[order], np.concatenate([values, f_vertex[flips]])[order]
+    order = order[np.argsort(rows[order], kind="stable")]
+    grid.offsets, grid.row = merged[order], rows[order]
+    grid.values = np.concatenate([values, f_vertex[flips]])[order]
 
 
-def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extrema=False):
-    """TT JDs (as (jd1, jd2) arrays) where ``f`` changes sign in [start, end].
+class Brackets:
+    """Intervals [lo, hi] (offsets from ``base`` of their row) over which the function
+    changes sign, with its values at both ends."""
 
-    ``start`` and ``end`` are TT JDs (floats, one search) and ``step`` the sampling in
-    days.  ``direction`` +1 keeps rising crossings only, -1 falling, 0 both.  For
-    angle-like functions, ``jump`` rejects sign changes where the function leaps by more
-    than that (a wrap from +180 to -180 is not a crossing).  The bisection stops when
-    the bracket is under ``tolerance`` days (1e-8 day is under a millisecond).
-    ``extrema`` also samples the vertices of sampled peaks and troughs, so that a brief
-    excursion to the other side of zero between two samples is not missed.
-    """
-    n = max(2, int(np.ceil((end - start) / step)) + 1)
-    base = np.floor(start) + 0.5
-    offsets = np.linspace(start - base, end - base, n)
-    values = f(np.full(n, base), offsets)
-    if extrema and n >= 3:
-        offsets, values = _extremum_samples(offsets, values, f, base)
-    a, b = values[:-1], values[1:]
-    change = (np.sign(a) != np.sign(b)) & (a != 0.0)
+    __slots__ = ("base", "row", "lo", "hi", "f_lo", "f_hi")
+
+    def __init__(self, base, row, lo, hi, f_lo, f_hi):
+        self.base, self.row = base, row
+        self.lo, self.hi, self.f_lo, self.f_hi = lo, hi, f_lo, f_hi
+
+
+def brackets(grid, direction=0, jump=None):
+    """The sign changes between neighbouring samples of a row.  ``direction`` +1 keeps
+    rising crossings only, -1 falling, 0 both; ``jump`` rejects changes where the
+    function leaps by more than that (a wrap of an angle from +180 to -180)."""
+    a, b = grid.values[:-1], grid.values[1:]
+    change = (grid.row[:-1] == grid.row[1:]) & (np.sign(a) != np.sign(b)) & (a != 0.0)
     if direction > 0:
         change &= b > a
     elif direction < 0:
         change &= b < a
     if jump is not None:
         change &= np.abs(b - a) < jump
-    lo = offsets[:-1][change]
-    hi = offsets[1:][change]
-    f_lo = a[change]
-    f_hi = b[change]
+    return Brackets(grid.base, grid.row[:-1][change], grid.offsets[:-1][change],
+                    grid.offsets[1:][change], a[change], b[change])
+
+
+def _group_max(values, group, n_groups):
+    """Per element: the largest of ``values`` over the element's group."""
+    top = np.full(n_groups, -np.inf)
+    np.maximum.at(top, group, values)
+    return top[group]
+
+
+def refine(f, found, tolerance=1e-8, groups=None):
+    """``Roots`` inside the ``Brackets``: bisection until every bracket of a group (a
+    row, unless ``groups`` says otherwise) is under an hour, then false-position steps
+    until the group's roots move by under a tenth of ``tolerance`` days (1e-8 day is
+    under a millisecond).  A group's brackets take the same steps together, so an answer
+    does not depend on what other rows are searched in the same call."""
+    lo, hi, f_lo, f_hi = (np.array(v, dtype=float) for v in
+                          (found.lo, found.hi, found.f_lo, found.f_hi))
+    row = found.row
+    base = found.base[row]
+    n = found.base.size
+    _, group = np.unique(row if groups is None else groups, return_inverse=True)
+    n_groups = int(group.max()) + 1 if group.size else 0
+
+    def split(active, x):
+        """Keep the half of each active bracket, split at x, that holds the sign change."""
+        f_x = evaluate(f, base[active], x, row[active], n)
+        same = np.sign(f_x) == np.sign(f_lo[active])
+        lo[active] = np.where(same, x, lo[active])
+        hi[active] = np.where(same, hi[active], x)
+        f_lo[active] = np.where(same, f_x, f_lo[active])
+        f_hi[active] = np.where(same, f_hi[active], f_x)
+
     # Bisection until the bracket is short, then false-position steps: on an hour-long
     # bracket a smooth function is a straight line to far below the tolerance, so two
     # or three steps replace the twenty-odd bisections that would remain.
-    bracket = (lo, hi, f_lo, f_hi)
-    while lo.size and np.max(bracket[1] - bracket[0]) > max(tolerance, SHORT_BRACKET_DAYS):
-        mid = 0.5 * (bracket[0] + bracket[1])
-        bracket = _keep_sign_change(bracket, mid, f(np.full(mid.shape, base), mid))
-    lo, hi, f_lo, f_hi = bracket
+    short = max(tolerance, SHORT_BRACKET_DAYS)
+    while True:
+        active = _group_max(hi - lo, group, n_groups) > short
+        if not np.any(active):
+            break
+        split(active, 0.5 * (lo[active] + hi[active]))
     x = 0.5 * (lo + hi)
-    if lo.size and np.max(hi - lo) > tolerance:
-        for _ in range(6):
-            lo, hi, f_lo, f_hi = bracket
-            slope = np.where(f_hi != f_lo, (hi - lo) / (f_hi - f_lo), 0.0)
-            new = np.clip(lo - f_lo * slope, lo, hi)
-            settled = np.max(np.abs(new - x)) < 0.1 * tolerance
-            x = new
-            if settled:
-                break
-            bracket = _keep_sign_change(bracket, x, f(np.full(x.shape, base), x))
-    return np.full(x.shape, base), x
+    active = _group_max(hi - lo, group, n_groups) > tolerance
+    for _ in range(6):
+        if not np.any(active):
+            break
+        with np.errstate(divide="ignore", invalid="ignore"):
+            slope = np.where(f_hi[active] != f_lo[active],
+                             (hi[active] - lo[active]) / (f_hi[active] - f_lo[active]), 0.0)
+        new = np.clip(lo[active] - f_lo[active] * slope, lo[active], hi[active])
+        moved = np.zeros(x.shape)
+        moved[active] = np.abs(new - x[active])
+        settled = _group_max(moved, group, n_groups) < 0.1 * tolerance
+        x[active] = new
+        active &= ~settled
+        if np.any(active):
+            split(active, x[active])
+    return Roots(base, x, row)
 
 
-def _keep_sign_change(bracket, x, f_x):
-    """The half of each bracket (lo, hi, f_lo, f_hi) split at x that still holds the
-    sign change."""
-    lo, hi, f_lo, f_hi = bracket
-    same = np.sign(f_x) == np.sign(f_lo)
-    return (np.where(same, x, lo), np.where(same, hi, x),
-            np.where(same, f_x, f_lo), np.where(same, f_hi, f_x))
+def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extrema=False):
+    """``Roots`` (TT two-part JDs and rows) where ``f(jd1, jd2, row)`` changes sign in
+    each row's window [start, end] (TT JDs, arrays: one search per row).
+
+    ``step`` is the sampling in days; ``direction`` +1 keeps rising crossings only, -1
+    falling, 0 both.  For angle-like functions, ``jump`` rejects sign changes where the
+    function leaps by more than that (a wrap from +180 to -180 is not a crossing).
+    ``extrema`` also samples the vertices of sampled peaks and troughs, so that a brief
+    excursion to the other side of zero between two samples is not missed.
+    """
+    grid = sample(f, start, end, step, extrema)
+    return refine(f, brackets(grid, direction, jump), tolerance)
+
+
+def rising_and_falling(f, start, end, step, tolerance=1e-8, jump=None, extrema=False):
+    """(rising ``Roots``, falling ``Roots``, each row's value at its window's start) from
+    one sampling: the same answers as two ``crossings`` calls with ``direction`` +1 and
+    -1 (each direction's brackets of a row are refined as a group of their own)."""
+    grid = sample(f, start, end, step, extrema)
+    up, down = brackets(grid, +1, jump), brackets(grid, -1, jump)
+    both = Brackets(grid.base, *(np.concatenate([getattr(up, k), getattr(down, k)])
+                                 for k in ("row", "lo", "hi", "f_lo", "f_hi")))
+    groups = np.concatenate([2 * up.row + 1, 2 * down.row])
+    roots = refine(f, both, tolerance, groups)
+    rising = np.arange(len(roots)) < up.row.size
+    return roots.subset(rising), roots.subset(~rising), grid.at_start
 
 
 def wrap180(degrees):

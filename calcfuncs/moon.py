@@ -10,15 +10,13 @@ light deflection and annual aberration); the Sun from sun.py.
 import erfa
 import numpy as np
 
-from . import ephemeris, frames
-from .errors import SkyError, rows_failing
+from . import bodies, ephemeris, frames, vectors
+from .errors import rows_failing
 from .events import crossings, wrap180
-from .sun import _as_result, _check_years, _rows, place_cells
-from .sun import sun_in
-from .timescales import erfa_quietly
+from .sun import sun_gcrs, sun_in
+from .timescales import DateTimes, erfa_quietly
+from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM
 
-EARTH_RADIUS_KM = 6378.1366  # IERS 2010 equatorial radius (common practice)
-AU_KM = erfa.DAU / 1000.0
 PHASES = {"NEW": 0.0, "FIRST": 90.0, "FULL": 180.0, "LAST": 270.0}
 # Ecliptic limits (common practice, e.g. the Explanatory Supplement): at new Moon a solar
 # eclipse is possible when the Sun is within 18.5 degrees of a node; at full Moon a lunar
@@ -29,7 +27,7 @@ LUNAR_LIMIT_DEG = 12.2
 SYNODIC_DAYS = 29.530589
 
 
-def moon_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
+def moon_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
     """(unit vectors, distance in au) of the Moon on the GCRS axes.
 
     Through the one pipeline of bodies.py for every source: the astrometric place is
@@ -39,67 +37,51 @@ def moon_gcrs(tt1, tt2, kind="APPARENT", source="BUILTIN"):
     the geocentric place instead counts the Earth's orbital motion twice.  The
     distance is that of the kind asked for (for APPARENT and ASTROMETRIC to where the
     light left the Moon: tens of metres from the geometric one)."""
-    from .bodies import place
-
-    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
-    if source == "BUILTIN":
-        _check_years(tt1, tt2)
-    p = place("MOON", *ephemeris.times_for(source, tt1, tt2), kind, source)
-    return p.direction, p.distance
+    return bodies.geocentric("MOON", tt1, tt2, kind, source)
 
 
-def moon_in(tt1, tt2, system, kind="APPARENT", source="BUILTIN"):
-    u, _ = moon_gcrs(tt1, tt2, kind, source)
-    m = frames.system_matrix(system, tt1, tt2)
-    return np.einsum("...ij,...j->...i", m, u)
+def moon_in(tt1, tt2, system, kind="APPARENT", source=BUILTIN):
+    return bodies.body_in("MOON", tt1, tt2, system, kind, source)
 
 
-def elongation_lon(tt1, tt2, source="BUILTIN"):
+def elongation_lon(tt1, tt2, source=BUILTIN):
     """Apparent ecliptic longitude of the Moon minus the Sun's (true equinox), degrees
-    in [0, 360): 0 new, 90 first quarter, 180 full, 270 last quarter."""
-    # Nutation turns the true ecliptic frame about the ecliptic's own pole (the plane
-    # does not nutate), so a difference of longitudes is the same on the mean ecliptic
-    # of date, whose matrix costs a hundredth as much.
-    moon = frames.spherical(moon_in(tt1, tt2, "ECLIPTIC DATE", "APPARENT", source))[0]
-    sun = frames.spherical(sun_in(tt1, tt2, "ECLIPTIC DATE", "APPARENT", source))[0]
-    return np.mod(moon - sun, 360.0)
+    in [0, 360): 0 new, 90 first quarter, 180 full, 270 last quarter.  The apparent
+    Sun comes from the same ephemeris states as the Moon."""
+    p = bodies.place_at_tt("MOON", tt1, tt2, "APPARENT", source)
+    return np.mod(bodies.longitude_from_sun(p, tt1, tt2), 360.0)
 
 
-def _phase_angle_rad(tt1, tt2, source="BUILTIN"):
+def _phase_angle_rad(tt1, tt2, source=BUILTIN):
     """Sun-Moon-Earth angle, from the geocentric Sun and Moon vectors."""
-    from .sun import sun_gcrs
-
     um, dm = moon_gcrs(tt1, tt2, "APPARENT", source)
     us, ds = sun_gcrs(tt1, tt2, "APPARENT", source)
     moon = um * dm[..., None]
     sun = us * ds[..., None]
-    to_earth = -moon
-    to_sun = sun - moon
-    cross = np.linalg.norm(np.cross(to_earth, to_sun), axis=-1)
-    return np.arctan2(cross, np.sum(to_earth * to_sun, axis=-1))
+    return vectors.angle_between(-moon, sun - moon)
 
 
 # ---- cell functions: place -------------------------------------------------------------
 
 
-lon_cells, lat_cells, ra_cells, dec_cells = place_cells(moon_in)
+lon_cells, lat_cells, ra_cells, dec_cells = bodies.place_cells(moon_in)
 
 
-def distance_cells(time, unit="KM", source="BUILTIN"):
+def distance_cells(time, unit="KM", source=BUILTIN):
     d = moon_gcrs(*time.tt(), "GEOMETRIC", source)[1] * AU_KM
     return d / EARTH_RADIUS_KM if unit == "EARTH_RADII" else d
 
 
-def phase_angle_cells(time, source="BUILTIN"):
+def phase_angle_cells(time, source=BUILTIN):
     return np.degrees(_phase_angle_rad(*time.tt(), source))
 
 
-def illuminated_cells(time, source="BUILTIN"):
+def illuminated_cells(time, source=BUILTIN):
     """Illuminated fraction of the disc, (1 + cos phase angle) / 2."""
     return 0.5 * (1.0 + np.cos(_phase_angle_rad(*time.tt(), source)))
 
 
-def elongation_cells(time, source="BUILTIN"):
+def elongation_cells(time, source=BUILTIN):
     """Moon minus Sun apparent ecliptic longitude, degrees in [0, 360)."""
     return elongation_lon(*time.tt(), source)
 
@@ -107,16 +89,13 @@ def elongation_cells(time, source="BUILTIN"):
 def age_cells(time):
     """Days since the last new Moon."""
     tt1, tt2 = time.tt()
-    jd = np.ravel(tt1 + tt2)
-
-    def one(k):
-        found = _phase_crossings(0.0, jd[k] - 31.0, jd[k])
-        before = found[found <= jd[k]]
-        if not before.size:
-            raise SkyError("no new Moon found in the month before")
-        return jd[k] - before[-1]
-
-    return np.array(_rows(jd.size, one))
+    tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
+    jd = tt1 + tt2  # where the sampling starts: the ages keep two parts
+    roots = _phase_crossings(PHASES["NEW"], jd - 31.0, jd)
+    new1, new2, found = roots.first(jd.size, ~roots.after(tt1, tt2), last=True)
+    if not np.all(found):
+        raise rows_failing(~found, "no new Moon found in the month before")
+    return (tt1 - new1) + (tt2 - new2)
 
 
 def node_cells(time, kind="TRUE"):
@@ -130,11 +109,10 @@ def node_cells(time, kind="TRUE"):
         t = ((tt1 - 2451545.0) + tt2) / 36525.0
         return frames.degrees_360(erfa.faom03(t))
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
-    _check_years(tt1, tt2)
+    ephemeris.check_builtin_years(tt1, tt2)
     pv = erfa_quietly(erfa.moon98, tt1, tt2)
-    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
-    r = np.einsum("...ij,...j->...i", m, pv["p"])
-    v = np.einsum("...ij,...j->...i", m, pv["v"])
+    r = bodies.in_system(pv["p"], "ECLIPTIC DATE", tt1, tt2)
+    v = bodies.in_system(pv["v"], "ECLIPTIC DATE", tt1, tt2)
     h = np.cross(r, v)
     node = np.stack([-h[..., 1], h[..., 0], np.zeros_like(h[..., 0])], axis=-1)  # z x h
     return frames.spherical(node)[0]
@@ -143,31 +121,27 @@ def node_cells(time, kind="TRUE"):
 # ---- the phases and eclipse seasons -----------------------------------------------------
 
 
-def _phase_crossings(target, start, end, source="BUILTIN"):
-    def f(jd1, jd2):
+def _phase_crossings(target, start, end, source=BUILTIN):
+    """``events.Roots`` of the Moon reaching a phase (elongation ``target``) in each
+    row's window [start, end]."""
+    def f(jd1, jd2, row):
         return wrap180(elongation_lon(jd1, jd2, source) - target)
 
     # The elongation grows 10 to 15 degrees a day and a phase comes once a month:
     # daily samples never hold two crossings, and never leap 90 degrees.
-    a, b = crossings(f, start, end, 1.0, direction=+1, jump=90.0)
-    return a + b
+    return crossings(f, start, end, 1.0, direction=+1, jump=90.0)
 
 
-def next_phase_cells(time, null_jd, phase="NEW", result_scale=None, source="BUILTIN"):
+def next_phase_cells(time, phase="NEW", result_scale=None, source=BUILTIN):
     """The first instant after ``time`` of a phase of the Moon."""
     tt1, tt2 = time.tt()
-    jd = np.ravel(tt1 + tt2)
-
-    def one(k):
-        found = _phase_crossings(PHASES[phase], jd[k], jd[k] + 32.0, source)
-        after = found[found > jd[k]]
-        if not after.size:
-            raise SkyError("no such phase found in the month after")
-        return after[0]
-
-    found = np.array(_rows(jd.size, one))
-    base = np.floor(found) + 0.5
-    return _as_result(base, found - base, result_scale or time.scale, null_jd)
+    tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
+    jd = tt1 + tt2  # where the sampling starts: the answers keep two parts
+    roots = _phase_crossings(PHASES[phase], jd, jd + 32.0, source)
+    jd1, jd2, found = roots.first(jd.size, roots.after(tt1, tt2))
+    if not np.all(found):
+        raise rows_failing(~found, "no such phase found in the month after")
+    return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)
 
 
 def node_distance_cells(time):

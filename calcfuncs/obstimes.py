@@ -14,13 +14,10 @@ in HJD and BJD, so converting one into the other needs no site.
 import erfa
 import numpy as np
 
-from . import ephemeris, frames
+from . import ephemeris, frames, vectors
 from .errors import rows_failing
-from .sun import _check_years
-from .timescales import Instants, erfa_quietly
-
-LIGHT_DAYS_PER_AU = erfa.AULT / erfa.DAYSEC
-MJD_ZERO = 2400000.5
+from .timescales import DateTimes, Instants, erfa_quietly
+from .vocabulary import BUILTIN, LIGHT_DAYS_PER_AU, MJD_ZERO
 
 
 def _site_gcrs(instants, site):
@@ -41,14 +38,14 @@ def _site_gcrs(instants, site):
     true_eq = np.stack([c * itrs[..., 0] - s * itrs[..., 1],
                         s * itrs[..., 0] + c * itrs[..., 1], itrs[..., 2]], axis=-1)
     npb = erfa_quietly(erfa.pnm00b, tt1, tt2)
-    gcrs = np.einsum("...ji,...j->...i", npb, true_eq)  # NPB^T: back to the GCRS axes
+    gcrs = vectors.apply_transposed(npb, true_eq)  # NPB^T: back to the GCRS axes
     return gcrs * np.asarray(given, float)[..., None]
 
 
 def _observer(instants, centre, source, site):
-    """Position (au, ICRS axes) of the observer from the barycentre or the Sun."""
+    """Position (au, ICRS axes) of the observer from the barycentre or the Sun (the
+    source checks its own range of dates)."""
     tt1, tt2 = instants.tt()
-    _check_years(tt1, tt2)
     earth_and_sun = ephemeris.get(source).earth_and_sun
     (ep, _), (sp, _) = earth_and_sun(*ephemeris.times_for(source, tt1, tt2))
     r = ep if centre == "BARYCENTRE" else ep - sp
@@ -57,13 +54,13 @@ def _observer(instants, centre, source, site):
     return r
 
 
-def _delay_days(instants, ra, dec, centre, source="BUILTIN", site=None):
+def _delay_days(instants, ra, dec, centre, source=BUILTIN, site=None):
     """Light-time delay in days from the observer to the plane through the centre
     (barycentre or Sun) perpendicular to the target direction."""
     frames.check_latitudes(dec, "declination")
     r = _observer(instants, centre, source, site)
     n = frames.unit_vectors(ra, dec)
-    return np.sum(r * n, axis=-1) * LIGHT_DAYS_PER_AU
+    return vectors.dot(r, n) * LIGHT_DAYS_PER_AU
 
 
 def _site(latitude, longitude, height, latitude_given, longitude_given):
@@ -86,7 +83,7 @@ def _as_form(jd1, jd2, form):
 
 
 def bjd_tdb_cells(time, ra, dec, form="JD", latitude=None, longitude=None, height=0.0,
-                  latitude_given=None, longitude_given=None, source="BUILTIN"):
+                  latitude_given=None, longitude_given=None, source=BUILTIN):
     """BJD on TDB of an instant for a target."""
     site = _site(latitude, longitude, height, latitude_given, longitude_given)
     tdb = time.to("TDB")
@@ -100,13 +97,13 @@ def _hjd(time, ra, dec, on, form, site, source):
 
 
 def hjd_utc_cells(time, ra, dec, form="JD", latitude=None, longitude=None, height=0.0,
-                  latitude_given=None, longitude_given=None, source="BUILTIN"):
+                  latitude_given=None, longitude_given=None, source=BUILTIN):
     site = _site(latitude, longitude, height, latitude_given, longitude_given)
     return _hjd(time, ra, dec, "UTC", form, site, source)
 
 
 def hjd_tt_cells(time, ra, dec, form="JD", latitude=None, longitude=None, height=0.0,
-                 latitude_given=None, longitude_given=None, source="BUILTIN"):
+                 latitude_given=None, longitude_given=None, source=BUILTIN):
     site = _site(latitude, longitude, height, latitude_given, longitude_given)
     return _hjd(time, ra, dec, "TT", form, site, source)
 
@@ -123,7 +120,7 @@ def _split(value, form):
     return whole, value - whole
 
 
-def _geocentric_instant(value, ra, dec, scale, centre, form, source="BUILTIN", site=None):
+def _geocentric_instant(value, ra, dec, scale, centre, form, source=BUILTIN, site=None):
     """The instant of observation whose corrected JD (on ``scale``) is ``value``.
 
     The delay changes by under 0.3 ms an hour, so a few rounds of fixed-point
@@ -135,36 +132,33 @@ def _geocentric_instant(value, ra, dec, scale, centre, form, source="BUILTIN", s
     return Instants(whole, guess, scale)
 
 
-def _invert(value, ra, dec, scale, centre, null_jd, form, source, site):
-    from .timeinput import to_serial
-
-    utc = _geocentric_instant(value, ra, dec, scale, centre, form, source, site).to("UTC")
-    serial, _ = to_serial(utc, null_jd)
-    return serial
+def _invert(value, ra, dec, scale, centre, form, source, site):
+    return DateTimes(_geocentric_instant(value, ra, dec, scale, centre, form, source,
+                                         site).to("UTC"))
 
 
-def bjd_tdb_datetime_cells(bjd, ra, dec, null_jd, form="JD", latitude=None, longitude=None,
+def bjd_tdb_datetime_cells(bjd, ra, dec, form="JD", latitude=None, longitude=None,
                            height=0.0, latitude_given=None, longitude_given=None,
-                           source="BUILTIN"):
+                           source=BUILTIN):
     site = _site(latitude, longitude, height, latitude_given, longitude_given)
-    return _invert(bjd, ra, dec, "TDB", "BARYCENTRE", null_jd, form, source, site)
+    return _invert(bjd, ra, dec, "TDB", "BARYCENTRE", form, source, site)
 
 
-def hjd_utc_datetime_cells(hjd, ra, dec, null_jd, form="JD", latitude=None, longitude=None,
+def hjd_utc_datetime_cells(hjd, ra, dec, form="JD", latitude=None, longitude=None,
                            height=0.0, latitude_given=None, longitude_given=None,
-                           source="BUILTIN"):
+                           source=BUILTIN):
     site = _site(latitude, longitude, height, latitude_given, longitude_given)
-    return _invert(hjd, ra, dec, "UTC", "SUN", null_jd, form, source, site)
+    return _invert(hjd, ra, dec, "UTC", "SUN", form, source, site)
 
 
-def hjd_to_bjd_cells(hjd, ra, dec, hjd_scale="UTC", form="JD", source="BUILTIN"):
+def hjd_to_bjd_cells(hjd, ra, dec, hjd_scale="UTC", form="JD", source=BUILTIN):
     """BJD_TDB of the observation whose HJD (on UTC or TT) is given."""
     inst = _geocentric_instant(hjd, ra, dec, hjd_scale, "SUN", form, source)
     tdb = inst.to("TDB")
     return _as_form(tdb.jd1, tdb.jd2 + _delay_days(inst, ra, dec, "BARYCENTRE", source), form)
 
 
-def bjd_to_hjd_cells(bjd, ra, dec, hjd_scale="UTC", form="JD", source="BUILTIN"):
+def bjd_to_hjd_cells(bjd, ra, dec, hjd_scale="UTC", form="JD", source=BUILTIN):
     """HJD (on UTC or TT) of the observation whose BJD_TDB is given."""
     inst = _geocentric_instant(bjd, ra, dec, "TDB", "BARYCENTRE", form, source)
     clock = inst.to(hjd_scale)

@@ -12,10 +12,11 @@ Greatest elongations (Mercury, Venus) are the maxima of the apparent elongation,
 
 import numpy as np
 
-from . import bodies, ephemeris, frames
-from .errors import SkyError
+from . import bodies, ephemeris, frames, vectors
+from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
-from .sun import _FRAME_TO_ECLIPTIC, _FRAME_TO_EQUATORIAL, _as_result, _rows
+from .timescales import DateTimes
+from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 INNER = ("MERCURY", "VENUS")
 # Mean synodic periods in days (common practice): the longest gap between two events
@@ -37,31 +38,31 @@ def _tdb_tt(time, source):
 def _helio_ecliptic(body, time, frame, source):
     tdb1, tdb2, tt1, tt2 = _tdb_tt(time, source)
     p = bodies.heliocentric(body, tdb1, tdb2, source)
-    return bodies.in_system(p, _FRAME_TO_ECLIPTIC[frame], tt1, tt2)
+    return bodies.in_system(p, ECLIPTIC_OF_FRAME[frame], tt1, tt2)
 
 
-def helio_lon_cells(body, time, frame="DATE", source="BUILTIN"):
+def helio_lon_cells(body, time, frame="DATE", source=BUILTIN):
     return frames.spherical(_helio_ecliptic(body, time, frame, source))[0]
 
 
-def helio_lat_cells(body, time, frame="DATE", source="BUILTIN"):
+def helio_lat_cells(body, time, frame="DATE", source=BUILTIN):
     return frames.spherical(_helio_ecliptic(body, time, frame, source))[1]
 
 
-def helio_dist_cells(body, time, source="BUILTIN"):
+def helio_dist_cells(body, time, source=BUILTIN):
     tdb1, tdb2, _, _ = _tdb_tt(time, source)
-    return np.linalg.norm(bodies.heliocentric(body, tdb1, tdb2, source), axis=-1)
+    return vectors.norm(bodies.heliocentric(body, tdb1, tdb2, source))
 
 
-def helio_x_cells(body, time, frame="DATE", source="BUILTIN"):
+def helio_x_cells(body, time, frame="DATE", source=BUILTIN):
     return _helio_ecliptic(body, time, frame, source)[..., 0]
 
 
-def helio_y_cells(body, time, frame="DATE", source="BUILTIN"):
+def helio_y_cells(body, time, frame="DATE", source=BUILTIN):
     return _helio_ecliptic(body, time, frame, source)[..., 1]
 
 
-def helio_z_cells(body, time, frame="DATE", source="BUILTIN"):
+def helio_z_cells(body, time, frame="DATE", source=BUILTIN):
     return _helio_ecliptic(body, time, frame, source)[..., 2]
 
 
@@ -78,60 +79,55 @@ def _spherical_in(body, time, system, kind, source):
     return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
 
 
-def lon_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return _spherical_in(body, time, _FRAME_TO_ECLIPTIC[frame], kind, source)[0]
+def lon_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source)[0]
 
 
-def lat_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return _spherical_in(body, time, _FRAME_TO_ECLIPTIC[frame], kind, source)[1]
+def lat_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source)[1]
 
 
-def ra_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return _spherical_in(body, time, _FRAME_TO_EQUATORIAL[frame], kind, source)[0]
+def ra_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source)[0]
 
 
-def dec_cells(body, time, frame="TRUE", kind="APPARENT", source="BUILTIN"):
-    return _spherical_in(body, time, _FRAME_TO_EQUATORIAL[frame], kind, source)[1]
+def dec_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source)[1]
 
 
-def dist_cells(body, time, source="BUILTIN"):
+def dist_cells(body, time, source=BUILTIN):
     """True geocentric distance: from the Earth at t to the body where the light left it."""
     return _place(body, time, "ASTROMETRIC", source)[0].distance
 
 
-def light_time_cells(body, time, source="BUILTIN"):
+def light_time_cells(body, time, source=BUILTIN):
     """Light time from the body to the Earth's centre, minutes."""
-    return dist_cells(body, time, source) * bodies.LIGHT_DAYS_PER_AU * 1440.0
+    return dist_cells(body, time, source) * LIGHT_DAYS_PER_AU * 1440.0
 
 
-def elongation_cells(body, time, source="BUILTIN"):
+def elongation_cells(body, time, source=BUILTIN):
     return np.degrees(bodies.elongation(_place(body, time, "APPARENT", source)[0]))
 
 
-def phase_angle_cells(body, time, source="BUILTIN"):
+def phase_angle_cells(body, time, source=BUILTIN):
     return np.degrees(bodies.phase_angle(_place(body, time, "APPARENT", source)[0]))
 
 
-def illuminated_cells(body, time, source="BUILTIN"):
+def illuminated_cells(body, time, source=BUILTIN):
     return 0.5 * (1.0 + np.cos(bodies.phase_angle(_place(body, time, "APPARENT", source)[0])))
 
 
 # ---- conjunctions and oppositions ------------------------------------------------------
 
 
-def longitude_from_sun(body, tt1, tt2, source="BUILTIN"):
+def longitude_from_sun(body, tt1, tt2, source=BUILTIN):
     """Apparent ecliptic longitude of the planet minus the Sun's, degrees in [-180, 180).
     (Searches take TT for TDB: 2 ms, far below what moves an event.)"""
     return _longitude_difference(bodies.place(body, tt1, tt2, "APPARENT", source), tt1, tt2)
 
 
 def _longitude_difference(p, tt1, tt2):
-    # The same on the true and the mean ecliptic of date: nutation turns the frame
-    # about the ecliptic's pole, and the mean frame's matrix is far cheaper.
-    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
-    planet = frames.spherical(np.einsum("...ij,...j->...i", m, p.direction))[0]
-    sun = frames.spherical(np.einsum("...ij,...j->...i", m, p.sun_direction))[0]
-    return wrap180(planet - sun)
+    return wrap180(bodies.longitude_from_sun(p, tt1, tt2))
 
 
 def _elongation_rate(body, source, sign):
@@ -139,7 +135,7 @@ def _elongation_rate(body, source, sign):
     the Sun (+1 east, -1 west); on the other side a constant, so it never crosses."""
     h = _DERIVATIVE_STEP_DAYS
 
-    def f(jd1, jd2):
+    def f(jd1, jd2, row=None):
         before = bodies.place(body, jd1, jd2 - h, "APPARENT", source)
         after = bodies.place(body, jd1, jd2 + h, "APPARENT", source)
         rate = np.degrees(bodies.elongation(after) - bodies.elongation(before)) / (2.0 * h)
@@ -173,31 +169,24 @@ def _event_search(body, event, source):
         # An outer planet falls behind the Sun: the difference always decreases.
         offset, direction = (180.0 if event == "OPPOSITION" else 0.0), -1
 
-    def f(jd1, jd2):
+    def f(jd1, jd2, row=None):
         return wrap180(longitude_from_sun(body, jd1, jd2, source) - offset)
 
     return f, direction
 
 
-def next_event_cells(body, time, null_jd, event="OPPOSITION", result_scale=None,
-                     source="BUILTIN"):
+def next_event_cells(body, time, event="OPPOSITION", result_scale=None, source=BUILTIN):
     """The first instant after ``time`` of an opposition, a conjunction with the Sun or a
     greatest elongation."""
     f, direction = _event_search(body, event, source)
     tt1, tt2 = time.tt()
-    jd = np.ravel(tt1 + tt2)
+    tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
+    jd = tt1 + tt2  # where the sampling starts: the answers keep two parts
     window = SYNODIC_DAYS[body] * 1.1 + 5.0
-
-    def one(k):
-        # Five-day samples: the difference moves under 3 degrees a day for every planet,
-        # and its zeros are weeks apart (Mercury's conjunctions at least 40 days).
-        a, b = crossings(f, jd[k], jd[k] + window, 5.0, direction=direction, jump=90.0)
-        found = a + b
-        after = found[found > jd[k]]
-        if not after.size:
-            raise SkyError(f"no {event.lower()} found in the {window:.0f} days after")
-        return after[0]
-
-    found = np.array(_rows(jd.size, one))
-    base = np.floor(found) + 0.5
-    return _as_result(base, found - base, result_scale or time.scale, null_jd)
+    # Five-day samples: the difference moves under 3 degrees a day for every planet,
+    # and its zeros are weeks apart (Mercury's conjunctions at least 40 days).
+    roots = crossings(f, jd, jd + window, 5.0, direction=direction, jump=90.0)
+    jd1, jd2, found = roots.first(jd.size, roots.after(tt1, tt2))
+    if not np.all(found):
+        raise rows_failing(~found, f"no {event.lower()} found in the {window:.0f} days after")
+    return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)
