@@ -1,7 +1,7 @@
 """Sidereal time and the horizon: hour angle, altitude and azimuth, air mass."""
 
 from .. import vocabulary as vocab
-from .common import (DUT1, HEIGHT, LATITUDE, LONGITUDE, SCALE, Arg, CellFunction, Family,
+from .common import (DUT1, HEIGHT, INSTANT, LATITUDE, LONGITUDE, SCALE, Arg, CellFunction, Family,
                      angle_arg, choices_text, span_text)
 
 _IAU2006 = span_text(vocab.IAU2006_YEARS)
@@ -52,7 +52,7 @@ FAMILY = Family("horizon", "Sidereal time and the horizon", (
         summary="Sidereal time or Earth rotation angle at Greenwich, or at a longitude "
         "(local sidereal time).",
         args=(
-            Arg("time", "time", "The instant (as for SKY.JD)."),
+            INSTANT,
             SCALE,
             Arg("kind", "choice", choices_text(vocab.SIDEREAL_KINDS, {
                 "GAST": "default: apparent sidereal time, IAU 2006/2000A",
