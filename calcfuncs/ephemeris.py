@@ -28,7 +28,7 @@ import numpy as np
 from . import vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .timescales import check_years, erfa_quietly, tt_to_tdb
-from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, PLANETS, SOURCE_WORDS
+from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, PLANETS, SOURCE_WORDS
 
 # NAIF integer codes (an open standard): centres 199 ... 999, system barycentres 1 ... 9.
 NAIF_CODES = {"SUN": 10, "MERCURY": 199, "VENUS": 299, "EARTH": 399, "MOON": 301,
@@ -60,7 +60,7 @@ class Builtin:
     # ICRS from the J2000.0 mean equator and equinox that plan94 refers to (the 23 mas
     # frame bias, far below the theory's error, applied anyway so that every source
     # shares one set of axes).
-    _bias = erfa.bp06(2451545.0, 0.0)[0]
+    _bias = erfa.bp06(J2000_JD, 0.0)[0]
 
     def describe(self):
         return ("built in: ERFA epv00 (Earth, Sun), plan94 (Mercury to Neptune), moon98 "

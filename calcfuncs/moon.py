@@ -15,7 +15,7 @@ from .errors import rows_failing
 from .events import crossings, wrap180
 from .sun import sun_gcrs, sun_in
 from .timescales import DateTimes, erfa_quietly
-from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM
+from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM, J2000_JD
 
 PHASES = {"NEW": 0.0, "FIRST": 90.0, "FULL": 180.0, "LAST": 270.0}
 # Ecliptic limits (common practice, e.g. the Explanatory Supplement): at new Moon a solar
@@ -106,7 +106,7 @@ def node_cells(time, kind="TRUE"):
     """
     tt1, tt2 = time.tt()
     if kind == "MEAN":
-        t = ((tt1 - 2451545.0) + tt2) / 36525.0
+        t = ((tt1 - J2000_JD) + tt2) / 36525.0  # Julian centuries (TT)
         return frames.degrees_360(erfa.faom03(t))
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
     ephemeris.check_builtin_years(tt1, tt2)
