@@ -17,7 +17,7 @@ from .angles import parse_angle
 from .errors import PREFIX, RowErrors, SkyError
 from .timeinput import null_date_jd, read_times, to_serial
 from .timescales import DateTimes, Instants, check_scale
-from .vocabulary import SCALE_WORDS
+from .vocabulary import SCALE_WORDS, SOURCE_WORDS
 
 _IMPLS = {}
 _NULL_JDS = {}
@@ -91,7 +91,7 @@ def _read_option(arg, value):
         if _is_blank(value) or (type(value) is float and value == 0.0):
             return arg.default
         if not isinstance(value, str):
-            raise SkyError(f"{arg.name} must be a text: " + ephemeris.SOURCE_WORDS)
+            raise SkyError(f"{arg.name} must be a text: " + SOURCE_WORDS)
         return ephemeris.check_source(value)
     if arg.kind == "choice":
         # An empty cell arrives as 0.0 when referenced directly: it means the default.
@@ -106,8 +106,7 @@ def _read_option(arg, value):
         # Choices are matched with spaces and underscores alike (EARTH_RADII, EARTH RADII).
         word = {c.replace("_", " "): c for c in arg.choices}.get(word, word)
         if word not in arg.choices:
-            noun = "nutation model" if arg.name == "nutation" else arg.name
-            raise SkyError(f'unknown {noun} "{value}"; use ' + ", ".join(arg.choices))
+            raise SkyError(f'unknown {arg.noun} "{value}"; use ' + ", ".join(arg.choices))
         return word
     if _is_blank(value):
         return arg.default

@@ -88,9 +88,12 @@ def _dated(system, jd1, jd2):
     if system == "ECLIPTIC DATE":
         return erfa.ecm06(jd1, jd2)
     # ECLIPTIC TRUE: the true equator of date, turned about the true equinox by the true
-    # obliquity (mean IAU 2006 obliquity plus the nutation in obliquity).
-    _, deps = erfa.nut06a(jd1, jd2)
-    return erfa.rx(erfa.obl06(jd1, jd2) + deps, erfa.pnm06a(jd1, jd2))
+    # obliquity (mean IAU 2006 obliquity plus the nutation in obliquity).  Built from the
+    # steps of ERFA pnm06a (Fukushima-Williams angles, nutation, fw2m), so that the IAU
+    # 2000A series, the costly part, is evaluated once for both; pfw06's epsa is obl06.
+    gamb, phib, psib, epsa = erfa.pfw06(jd1, jd2)
+    dpsi, deps = erfa.nut06a(jd1, jd2)
+    return erfa.rx(epsa + deps, erfa.fw2m(gamb, phib, psib + dpsi, epsa + deps))
 
 
 @lru_cache(maxsize=2048)

@@ -175,6 +175,43 @@ def test_null_date_1904_gives_the_same_instants(office):
     assert all(abs(d * 86400 - 37.0) < 1e-5 for _, d in jd_a)
 
 
+# Date-time results of functions that take no time argument (a year, a JD number, a
+# BJD): the serial must still count from the document's null date.
+NULL_DATE_RESULTS = (
+    '=SKY.SEASON(2027;"JUNE")',
+    '=SKY.JD.DATETIME(2461000.5;"UTC")',
+    '=SKY.MJD.DATETIME(60000.25;"UTC")',
+    '=SKY.BJD.TDB.DATETIME(2460000.5;83.6;22.0)',
+    '=SKY.HJD.UTC.DATETIME(2460000.5;83.6;22.0)',
+    "=SKY.LEAPSECONDS.UNTIL()",
+    '=SKY.SUN.RISE("2027-06-21";47.38;8.05)',
+)
+
+
+def test_null_date_1904_moves_every_date_time_result(office):
+    import officekit
+
+    values = {}
+    for null_date in ((1899, 12, 30), (1904, 1, 1)):
+        doc = office.new_sheet()
+        try:
+            officekit.set_null_date(doc, *null_date)
+            sheet = doc.Sheets.getByIndex(0)
+            for row, formula in enumerate(NULL_DATE_RESULTS):
+                sheet.getCellByPosition(0, row).setFormula(formula)
+            doc.calculateAll()
+            cells = [sheet.getCellByPosition(0, row) for row in range(len(NULL_DATE_RESULTS))]
+            assert [c.getError() for c in cells] == [0] * len(cells)
+            assert not any(c.getString().startswith("#") for c in cells)
+            values[null_date] = [c.getValue() for c in cells]
+        finally:
+            doc.close(True)
+    # Common practice: 1904-01-01 is 1462 days after 1899-12-30, so the same instant is a
+    # serial 1462 smaller in a 1904 document.
+    for formula, a, b in zip(NULL_DATE_RESULTS, values[(1899, 12, 30)], values[(1904, 1, 1)]):
+        assert abs((a - b) - 1462.0) < 1e-9, formula
+
+
 def test_saved_sheet_reopens_in_a_fresh_office_with_formulas_and_values(office, oxt, tmp_path):
     import officekit
 
