@@ -308,6 +308,7 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
                 else:
                     kwargs[arg.name] = col[idx]
             out = func(**kwargs)
+            leap = None
             if isinstance(out, DateTimes):
                 out, leap = _date_time_values(out, null_jd)
                 messages[idx[leap]] = LEAP_SECOND_MESSAGE
@@ -325,7 +326,9 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
             break
         out = out.reshape(-1)
         if out.dtype.kind == "f":
-            finite = np.isfinite(out) | np.not_equal(messages[idx], None)
+            finite = np.isfinite(out)
+            if leap is not None:
+                finite |= leap  # their NaN is explained by the leap-second message
             as_objects = np.empty(out.size, dtype=object)
             as_objects[:] = out.tolist()  # Python floats, as UNO wants them
             results[idx[finite]] = as_objects[finite]
