@@ -17,7 +17,7 @@ from .angles import parse_angle
 from .errors import PREFIX, RowErrors, SkyError
 from .timeinput import null_date_jd, read_times, to_serial
 from .timescales import DateTimes, Instants, check_scale
-from .vocabulary import SCALE_WORDS, SOURCE_WORDS
+from .vocabulary import J2000_JD, SCALE_WORDS, SOURCE_WORDS
 
 _IMPLS = {}
 _NULL_JDS = {}
@@ -178,7 +178,7 @@ def _read_texts(values, what):
     return values.copy(), messages
 
 
-_NOT_GIVEN = {"time": "JD 2451545.0", "number": 0.0, "angle": 0.0}
+_NOT_GIVEN = {"time": f"JD {J2000_JD}", "number": 0.0, "angle": 0.0}
 
 
 def _passed_on(values):

@@ -25,7 +25,8 @@ import numpy as np
 from . import vectors
 from .errors import SkyError, rows_failing
 from .timescales import julian_year
-from .vocabulary import NUTATION_VALIDITY, OBLIQUITY_VALIDITY  # validity: see there
+from .vocabulary import (J2000_JD, JULIAN_YEAR_DAYS, NUTATION_VALIDITY,  # validity: see there
+                         OBLIQUITY_VALIDITY)
 
 ARCSEC = np.pi / (180.0 * 3600.0)
 
@@ -84,7 +85,7 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
         t = ((jd1 - B1900_JD) + jd2) / TROPICAL_CENTURY_DAYS
         return np.polynomial.polynomial.polyval(t, NEWCOMB_COEFFS_ARCSEC) * ARCSEC
     if model == "LASKAR1986":
-        u = ((jd1 - 2451545.0) + jd2) / 3652500.0
+        u = ((jd1 - J2000_JD) + jd2) / (10000.0 * JULIAN_YEAR_DAYS)
         return np.polynomial.polynomial.polyval(u, LASKAR_COEFFS_ARCSEC) * ARCSEC
     # VONDRAK2011: the mean obliquity is the angle between the two poles of date.
     return vectors.angle_between(erfa.ltpequ(epochs), erfa.ltpecl(epochs))

@@ -17,7 +17,7 @@ import numpy as np
 from . import ephemeris, frames, vectors
 from .errors import rows_failing
 from .timescales import DateTimes, Instants, erfa_quietly
-from .vocabulary import BUILTIN, LIGHT_DAYS_PER_AU, MJD_ZERO
+from .vocabulary import AU_M, BUILTIN, LIGHT_DAYS_PER_AU, MJD_ZERO
 
 
 def _site_gcrs(instants, site):
@@ -31,7 +31,7 @@ def _site_gcrs(instants, site):
     ut = instants.to("UT")
     lat, lon, h = np.broadcast_arrays(np.radians(latitude), np.radians(longitude),
                                       np.asarray(height, float))
-    itrs = erfa_quietly(erfa.gd2gc, 1, lon, lat, h) / erfa.DAU
+    itrs = erfa_quietly(erfa.gd2gc, 1, lon, lat, h) / AU_M
     gst = erfa_quietly(erfa.gst00b, ut.jd1, ut.jd2)
     c, s = np.cos(gst), np.sin(gst)
     # Terrestrial to the true equator and equinox of date: a turn of -GAST about z.

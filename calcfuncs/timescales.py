@@ -311,7 +311,7 @@ def _tdb_minus_tt(jd1, jd2):
         a, b = np.broadcast_arrays(jd1, jd2)
         out[inside] = erfa.dtdb(a[inside], b[inside], np.mod(jd[inside] + 0.5, 1.0), 0.0, 0.0, 0.0)
     if not np.all(inside):
-        g = np.radians(357.53 + 0.98560028 * (jd[~inside] - 2451545.0))
+        g = np.radians(357.53 + 0.98560028 * (jd[~inside] - J2000_JD))
         out[~inside] = 0.001657 * np.sin(g) + 0.000014 * np.sin(2.0 * g)
     return out
 
