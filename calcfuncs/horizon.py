@@ -4,11 +4,13 @@ Site: geodetic latitude and longitude in degrees (longitude east-positive), heig
 metres above the WGS84 ellipsoid.  Azimuth counts from north through east (N = 0,
 E = 90).  Polar motion is taken as zero (under 0.5", and not known ahead).
 
-From a catalogue (ICRS astrometric) place the whole chain is ERFA atco13: light
+From a catalogue (ICRS astrometric) place the whole chain is that of ERFA atco13: light
 deflection, annual and diurnal aberration, IAU 2006/2000A precession-nutation, Earth
 rotation, and refraction when a pressure is given.  From an apparent place of date
-(TRUE: true equator and equinox) it is ERFA apio13 + atioq, the same chain from the
-apparent place on.  Refraction follows ERFA's model (refco), for optical light
+(TRUE: true equator and equinox) it is that of ERFA apio13 + atioq, the same chain from
+the apparent place on.  The steps are taken one by one (apco or apio, then atciq and
+atioq) with our own TT and UT1, so that dates before UTC (1960) are reached through
+Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit.  Refraction follows ERFA's model (refco), for optical light
 (0.55 um, relative humidity 0.5); pressure 0 gives the geometric (unrefracted) place.
 """
 
@@ -28,10 +30,10 @@ REFRACTION_MIN_ALTITUDE = 5.0
 HUMIDITY = 0.5
 
 
-def _check_years(time, what):
+def _check_years(time, what, hint=""):
     tt1, tt2 = time.tt()
     check_years(tt1, tt2, IAU2006_YEARS, f"{what} uses IAU 2006/2000A precession-nutation",
-                "outside, the cell says so (ERA has no limit)")
+                hint)
 
 
 def _ut_tt(time):
@@ -45,7 +47,7 @@ def sidereal_angle(time, kind="GAST"):
     (GMST, IAU 2006, ERFA gmst06) sidereal time, or the Earth rotation angle (ERA,
     IAU 2000, ERFA era00)."""
     if kind != "ERA":
-        _check_years(time, kind)
+        _check_years(time, kind, "the Earth rotation angle (ERA) has no such limit")
     u1, u2, t1, t2 = _ut_tt(time)
     if kind == "ERA":
         return erfa.era00(u1, u2)
@@ -76,36 +78,46 @@ def _atmosphere(pressure, temperature):
     return pressure, temperature
 
 
-def _observer(time, latitude, longitude, height, pressure, temperature):
-    """What ERFA's observed-place chain takes besides the direction: the site (radians,
-    metres), the atmosphere (hPa, degrees C), UTC and DUT1; every input checked."""
+def _observer(time, latitude, longitude, height, pressure, temperature, frame):
+    """ERFA's star-independent astrometry parameters for the observed place at a site:
+    for ICRS places the whole chain from the catalogue (ERFA apco: Earth's barycentric
+    state from epv00, IAU 2006/2000A CIP and CIO locator, Earth rotation angle, refraction
+    constants), for TRUE places the Earth-rotation part only (ERFA apio).
+
+    These are the steps of ERFA apco13 and apio13, taken with our own TT and UT1, so that
+    the observed place is computed at any date in its stated span: through UTC and DUT1
+    from 1960 (exactly as apco13 does), through Delta T before.  Every input is checked."""
     _check_years(time, "the observed place")
     elong, phi, hm = _site(latitude, longitude, height)
     phpa, tc = _atmosphere(pressure, temperature)
-    utc = time.to("UTC")
-    return elong, phi, hm, phpa, tc, utc.jd1, utc.jd2, time.dut1
+    tt1, tt2 = time.tt()
+    ut = time.to("UT")
+    theta = erfa.era00(ut.jd1, ut.jd2)
+    sp = erfa.sp00(tt1, tt2)
+    refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
+    if frame != "ICRS":
+        return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb), phpa
+    pvh, pvb = erfa_quietly(erfa.epv00, tt1, tt2)  # it warns outside its 1900-2100 fit
+    x, y = erfa.bpn2xy(erfa.pnm06a(tt1, tt2))
+    s = erfa.s06(tt1, tt2, x, y)
+    return erfa.apco(tt1, tt2, pvb, pvh["p"], x, y, s, theta, elong, phi, hm, 0.0, 0.0, sp,
+                     refa, refb), phpa
 
 
 def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
              temperature=10.0, frame="ICRS"):
     """(azimuth, zenith distance, hour angle, declination) observed, in radians."""
     check_latitudes(dec, "declination")
-    elong, phi, hm, phpa, tc, utc1, utc2, dut1 = _observer(time, latitude, longitude, height,
-                                                           pressure, temperature)
+    astrom, phpa = _observer(time, latitude, longitude, height, pressure, temperature, frame)
     rc, dc = np.radians(ra), np.radians(dec)
     if frame == "ICRS":
-        aob, zob, hob, dob, _, _ = erfa_quietly(
-            erfa.atco13, rc, dc, 0.0, 0.0, 0.0, 0.0, utc1, utc2, dut1, elong, phi, hm,
-            0.0, 0.0, phpa, tc, HUMIDITY, WAVELENGTH_UM)
-        _check_refraction_range(phpa, 90.0 - np.degrees(zob))
-        return aob, zob, hob, dob
-    # TRUE: apparent RA on the equinox; the CIO-based RA that ERFA's observed chain
-    # takes is larger by the equation of the origins.
-    tt = time.to("TT")
-    ri = rc + erfa.eo06a(tt.jd1, tt.jd2)
-    astrom = erfa_quietly(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
-                       HUMIDITY, WAVELENGTH_UM)
-    aob, zob, hob, dob, _ = erfa.atioq(ri, dc, astrom)
+        ri, di = erfa.atciq(rc, dc, 0.0, 0.0, 0.0, 0.0, astrom)
+    else:
+        # TRUE: apparent RA on the equinox; the CIO-based RA that ERFA's observed chain
+        # takes is larger by the equation of the origins.
+        tt1, tt2 = time.tt()
+        ri, di = rc + erfa.eo06a(tt1, tt2), dc
+    aob, zob, hob, dob, _ = erfa.atioq(ri, di, astrom)
     _check_refraction_range(phpa, 90.0 - np.degrees(zob))
     return aob, zob, hob, dob
 
@@ -125,19 +137,15 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     """(RA, Dec) in radians from observed azimuth and altitude (degrees)."""
     check_latitudes(alt, "altitude")
-    elong, phi, hm, phpa, tc, utc1, utc2, dut1 = _observer(time, latitude, longitude, height,
-                                                           pressure, temperature)
+    astrom, phpa = _observer(time, latitude, longitude, height, pressure, temperature, frame)
     a = np.radians(az)
     _check_refraction_range(phpa, alt)
     z = np.radians(90.0 - np.asarray(alt, dtype=float))
-    if frame == "ICRS":
-        return erfa_quietly(erfa.atoc13, "A", a, z, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0,
-                      phpa, tc, HUMIDITY, WAVELENGTH_UM)
-    astrom = erfa_quietly(erfa.apio13, utc1, utc2, dut1, elong, phi, hm, 0.0, 0.0, phpa, tc,
-                       HUMIDITY, WAVELENGTH_UM)
     ri, di = erfa.atoiq("A", a, z, astrom)
-    tt = time.to("TT")
-    return ri - erfa.eo06a(tt.jd1, tt.jd2), di
+    if frame == "ICRS":
+        return erfa.aticq(ri, di, astrom)
+    tt1, tt2 = time.tt()
+    return ri - erfa.eo06a(tt1, tt2), di
 
 
 def _deg180(rad):

@@ -399,6 +399,33 @@ def test_horizon_round_trip_with_refraction(lowest, tol_mas, measured, az, fract
     assert _round_trip(az, alt, when, site, frame, pressure, temperature, 0.0) < tol_mas
 
 
+@pytest.mark.parametrize("year", [1600, 1750, 1850, 1955])
+def test_alt_az_before_utc_match_skyfield(skyfield_setup, year):
+    # skyfield 1.55 + DE440 (which spans 1550-2650), as above, at instants given on TT
+    # before UTC began (1960): both reach UT1 through Delta T from the same table of
+    # Stephenson, Morrison and Hohenkerk (2016); from TT, skyfield evaluates it at the TT
+    # year and we at the UT year, a minute apart, so the two UT1s agree to far below a
+    # millisecond. 1 mas, as the comparison after 1960 (Earth's own light bending, which
+    # skyfield applies and ERFA does not); measured 0.39 mas.
+    # Proleptic Gregorian dates on both sides (our text says "Gregorian" for 1600).
+    from skyfield.api import Star, wgs84
+
+    eph, ts = skyfield_setup
+    earth = eph["earth"]
+    rng = np.random.default_rng(year)
+    lat, lon = 41.5, -110.0
+    ra, dec = rng.uniform(0, 360, 30), np.degrees(np.arcsin(rng.uniform(-0.9, 0.9, 30)))
+    t = ts.tt(year, 7, 4, 22, 15, 30.0)
+    star = Star(ra_hours=ra / 15.0, dec_degrees=dec)
+    alt, az, _ = (earth + wgs84.latlon(lat, lon)).at(t).observe(star).apparent().altaz()
+    when = f"{year}-07-04T22:15:30" + (" Gregorian" if year < 1583 else "")
+    args = [col(ra), col(dec), when, lat, lon, "TT"]
+    got = sep_mas(flat(evaluate("SKY.HORIZON.AZ", args)), flat(evaluate("SKY.HORIZON.ALT", args)),
+                  az.degrees, alt.degrees)
+    print(f"skyfield altaz on TT, {year}: max {got.max():.3g} mas")
+    assert got.max() < 1.0
+
+
 # ---- bad input: a #SKY: message in the cell, never an exception ----------------------------------------
 
 WHEN = "2024-03-20T03:06:00"
@@ -406,7 +433,9 @@ BAD = [
     ("SKY.HORIZON.ALT", [10, 91, WHEN, 40, 0], "declination must be within"),
     ("SKY.HORIZON.ALT", [10, 10, WHEN, 91, 0], "latitude must be within"),
     ("SKY.HORIZON.AZ", [10, 10, "1959-12-31T00:00:00", 40, 0], "from 1960"),
-    ("SKY.HORIZON.ALT", [10, 10, "JD 2433282.5", 40, 0, "TT"], "from 1960 on"),
+    # UTC itself begins in 1960 (on UT or TT the horizon reaches back to 1000).
+    ("SKY.HORIZON.ALT", [10, 10, "JD 2433282.5", 40, 0, "UTC"], "from 1960 on"),
+    ("SKY.HORIZON.ALT", [10, 10, "0999-12-01T00:00", 40, 0, "UT"], "valid 1000 to 3000"),
     ("SKY.HORIZON.RA", [10, 100, WHEN, 40, 0], "altitude must be within"),
     ("SKY.HORIZON.DEC", [10, 10, WHEN, 40, 0, "UTC", 0, 0, 10, "GALACTIC"], 'unknown frame "GALACTIC"'),
     ("SKY.HORIZON.ALT", [10, 10, WHEN, 40, 0, "UTC", 0, -5], "pressure"),

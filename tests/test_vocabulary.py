@@ -149,10 +149,6 @@ def test_horizon_span_stated_and_enforced(name):
         assert value.startswith(PREFIX) and vocabulary.years_text(span) in value, value
 
 
-@pytest.mark.xfail(strict=True, reason="the observed place goes through ERFA atco13/apio13, "
-                   "which take UTC: before 1960 every scale is refused ('UTC is defined from "
-                   "1960 on; ... use the scale UT ... or TT', and TT is refused too), though "
-                   "the text says Valid 1000-3000; reported, not changed here")
 @pytest.mark.parametrize("name", HORIZON_FUNCTIONS)
 def test_horizon_computes_early_in_its_stated_span(name):
     assert isinstance(evaluate(name, _at_site(vocabulary.IAU2006_YEARS[0] + STEP)), float)

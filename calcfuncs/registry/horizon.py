@@ -22,13 +22,14 @@ _HORIZON_FRAME = Arg(
 )
 _HORIZON_MODEL = (
     "Site longitude east-positive; azimuth from north through east (N 0, E 90, S 180, "
-    "W 270). From an ICRS place: ERFA atco13 (light deflection, annual and diurnal "
-    "aberration, IAU 2006/2000A precession-nutation, Earth rotation, refraction); from a "
-    "TRUE place: ERFA apio13 and atioq. Refraction: ERFA refco model at 0.55 um, humidity "
+    "W 270). From an ICRS place: the chain of ERFA atco13 (light deflection, annual and "
+    "diurnal aberration, IAU 2006/2000A precession-nutation, Earth rotation, refraction: "
+    "ERFA apco, atciq, atioq); from a TRUE place: ERFA apio and atioq. Refraction: ERFA refco model at 0.55 um, humidity "
     "0.5, only when a pressure is given, and only above 5 degrees altitude (lower, the "
     "cell says so). The target is taken at infinite distance: no parallax (up to 9\" for "
     f"the Sun and planets, 1 degree for the Moon). Valid {_IAU2006}. Polar motion taken "
-    "as zero. UTC from 1960 on; DUT1 default 0 (up to 0.9 s, about 14\" in hour angle)."
+    "as zero. Times on UTC from 1960 on; before, give them on UT (universal time through "
+    "Delta T) or TT. DUT1 default 0 (up to 0.9 s, about 14\" in hour angle)."
 )
 _TARGET = (angle_arg("ra", "RA of the target"), angle_arg("dec", "Dec of the target"))
 _SEEN = (angle_arg("az", "Azimuth, from north through east"),
