@@ -61,11 +61,12 @@ class Grid:
     ``offsets`` from the row's ``base`` (a JD at 0h, so ``base + offset`` is a two-part
     JD), ``values``; ``at_start`` is each row's value at its window's start."""
 
-    __slots__ = ("base", "row", "offsets", "values", "at_start")
+    __slots__ = ("base", "row", "offsets", "values", "at_start", "segment")
 
     def __init__(self, base, row, offsets, values, at_start):
         self.base, self.row, self.offsets, self.values = base, row, offsets, values
         self.at_start = at_start
+        self.segment = None  # runs of neighbouring samples: the rows, unless sampled near
 
 
 def evaluate(f, jd1, jd2, row, n):
@@ -84,29 +85,94 @@ def evaluate(f, jd1, jd2, row, n):
         raise RowErrors(out) from None
 
 
-def sample(f, start, end, step, extrema=False):
-    """A ``Grid`` of ``f`` over the windows [start, end] (TT JDs, one per row), with
-    samples ``step`` days apart or closer (the same count of even steps per row as the
-    window holds whole steps, ends included)."""
+def _grid_points(start, end, step):
+    """Every row's sample points: (base, row, offsets, first, counts), ``base`` a JD at 0h
+    per row, ``offsets`` from it, ``first`` the index of each row's first point."""
     start, end = np.broadcast_arrays(np.atleast_1d(np.asarray(start, dtype=float)),
                                      np.asarray(end, dtype=float))
     start, end = start.ravel(), end.ravel()
-    n = start.size
     counts = np.maximum(2, np.ceil((end - start) / step).astype(int) + 1)
     base = np.floor(start) + 0.5
     lo, hi = start - base, end - base
-    row = np.repeat(np.arange(n), counts)
+    row = np.repeat(np.arange(start.size), counts)
     first = np.cumsum(counts) - counts
     # Even spacing as numpy's linspace makes it, step index times spacing plus the start,
     # the end itself last: the same grid in a column as in a single cell.
     index = (np.arange(row.size) - first[row]).astype(float)
     offsets = index * ((hi - lo) / (counts - 1))[row] + lo[row]
     offsets[first + counts - 1] = hi
-    values = evaluate(f, base[row], offsets, row, n)
+    return base, row, offsets, first, counts, start, end
+
+
+def sample(f, start, end, step, extrema=False):
+    """A ``Grid`` of ``f`` over the windows [start, end] (TT JDs, one per row), with
+    samples ``step`` days apart or closer (the same count of even steps per row as the
+    window holds whole steps, ends included)."""
+    base, row, offsets, first, *_ = _grid_points(start, end, step)
+    values = evaluate(f, base[row], offsets, row, base.size)
     grid = Grid(base, row, offsets, values, values[first])
     if extrema:
         _add_extremum_samples(grid, f)
     return grid
+
+
+def sample_near(f, estimate, start, end, step, direction=0, jump=None, margin=2):
+    """The part of ``sample``'s grid that matters: ``estimate`` (a cheap function with the
+    same zeros to well within a step) is evaluated on every point, and ``f`` only on the
+    points within ``margin`` steps of the estimate's sign changes.  The points are those
+    of the full grid, so the brackets, and the roots refined from them, are the same as
+    from the full grid whenever the estimate is right about where the sign changes are.
+    It is checked: a row whose clusters of samples do not show ``f`` with the estimate's
+    sign at both ends is sampled in full instead.  Each cluster is a segment of its own,
+    so no bracket spans the unsampled gap between two clusters."""
+    base, row, offsets, _first, _counts, start, end = _grid_points(start, end, step)
+    n = base.size
+    cheap = evaluate(estimate, base[row], offsets, row, n)
+    a, b = cheap[:-1], cheap[1:]
+    change = (row[:-1] == row[1:]) & (np.sign(a) != np.sign(b))
+    if jump is not None:
+        change &= np.abs(b - a) < jump
+    keep = np.zeros(row.size, dtype=bool)
+    for k in range(-margin, margin + 2):
+        idx = np.flatnonzero(change) + k
+        idx = idx[(idx >= 0) & (idx < row.size)]
+        keep[idx[row[idx] == row[np.clip(idx - k, 0, row.size - 1)]]] = True
+    # A cluster begins where a kept point follows a dropped one or starts its row.
+    starts_segment = keep & (np.r_[True, ~keep[:-1]] | np.r_[True, row[1:] != row[:-1]])
+    segment = np.cumsum(starts_segment)
+    pick = np.flatnonzero(keep)
+    values = evaluate(f, base[row[pick]], offsets[pick], row[pick], n)
+    seg = segment[pick]
+    ends = np.r_[True, seg[1:] != seg[:-1]] | np.r_[seg[:-1] != seg[1:], True]
+    wrong = ends & (np.sign(values) != np.sign(cheap[pick]))
+    bad_rows = np.unique(row[pick][wrong])
+    grid = Grid(base, row[pick], offsets[pick], values, np.full(n, np.nan))
+    grid.segment = seg
+    if bad_rows.size:
+        # The estimate misled on these rows: their full grids replace their clusters.
+        try:
+            full = sample(lambda j1, j2, r: f(j1, j2, bad_rows[r]), start[bad_rows],
+                          end[bad_rows], step)
+        except RowErrors as err:  # aligned with the rows sampled again: with all rows
+            messages = np.full(n, None, dtype=object)
+            messages[bad_rows] = np.ravel(err.messages)
+            raise RowErrors(messages) from None
+        full.row = bad_rows[full.row]
+        grid = _merge_rows(grid, full, bad_rows)
+    return grid
+
+
+def _merge_rows(grid, full, rows):
+    """``grid`` with the points of ``rows`` replaced by those of ``full``."""
+    mine = ~np.isin(grid.row, rows)
+    row = np.concatenate([grid.row[mine], full.row])
+    offsets = np.concatenate([grid.offsets[mine], full.offsets])
+    values = np.concatenate([grid.values[mine], full.values])
+    segment = np.concatenate([grid.segment[mine], -1 - full.row])
+    order = np.lexsort((offsets, row))
+    merged = Grid(grid.base, row[order], offsets[order], values[order], grid.at_start)
+    merged.segment = segment[order]
+    return merged
 
 
 def _add_extremum_samples(grid, f):
@@ -157,7 +223,8 @@ def brackets(grid, direction=0, jump=None):
     rising crossings only, -1 falling, 0 both; ``jump`` rejects changes where the
     function leaps by more than that (a wrap of an angle from +180 to -180)."""
     a, b = grid.values[:-1], grid.values[1:]
-    change = (grid.row[:-1] == grid.row[1:]) & (np.sign(a) != np.sign(b)) & (a != 0.0)
+    runs = grid.row if grid.segment is None else grid.segment
+    change = (runs[:-1] == runs[1:]) & (np.sign(a) != np.sign(b)) & (a != 0.0)
     if direction > 0:
         change &= b > a
     elif direction < 0:
@@ -226,7 +293,8 @@ def refine(f, found, tolerance=1e-8, groups=None):
     return Roots(base, x, row)
 
 
-def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extrema=False):
+def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extrema=False,
+              estimate=None):
     """``Roots`` (TT two-part JDs and rows) where ``f(jd1, jd2, row)`` changes sign in
     each row's window [start, end] (TT JDs, arrays: one search per row).
 
@@ -235,8 +303,13 @@ def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extre
     function leaps by more than that (a wrap from +180 to -180 is not a crossing).
     ``extrema`` also samples the vertices of sampled peaks and troughs, so that a brief
     excursion to the other side of zero between two samples is not missed.
+    ``estimate``, a cheap function with the same zeros to well within a step, spares
+    evaluating ``f`` away from them (``sample_near``); the roots are the same.
     """
-    grid = sample(f, start, end, step, extrema)
+    if estimate is not None and not extrema:
+        grid = sample_near(f, estimate, start, end, step, direction, jump)
+    else:
+        grid = sample(f, start, end, step, extrema)
     return refine(f, brackets(grid, direction, jump), tolerance)
 
 

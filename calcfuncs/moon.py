@@ -121,15 +121,37 @@ def node_cells(time, kind="TRUE"):
 # ---- the phases and eclipse seasons -----------------------------------------------------
 
 
+def rough_elongation(tt1, tt2):
+    """The Moon's elongation in longitude from the Sun to about half a degree: the mean
+    elongation D and the largest periodic terms of the Moon's longitude (equation of the
+    centre, evection, variation, the annual equation, reduction to the ecliptic) less
+    the Sun's equation of the centre, with the fundamental arguments and coefficients
+    of Meeus (Astronomical Algorithms, ch. 47 and 25).  For locating phases only: the
+    search then refines with the full theory."""
+    t = ((tt1 - J2000_JD) + tt2) / 36525.0
+    d = np.radians(297.8501921 + 445267.1114034 * t)
+    m = np.radians(357.5291092 + 35999.0502909 * t)
+    mp = np.radians(134.9633964 + 477198.8675055 * t)
+    f = np.radians(93.2720950 + 483202.0175233 * t)
+    moon = (6.288774 * np.sin(mp) + 1.274027 * np.sin(2.0 * d - mp) + 0.658314 * np.sin(2.0 * d)
+            + 0.213618 * np.sin(2.0 * mp) - 0.185116 * np.sin(m) - 0.114332 * np.sin(2.0 * f))
+    sun = 1.914602 * np.sin(m) + 0.019993 * np.sin(2.0 * m)
+    return np.degrees(d) + moon - sun
+
+
 def _phase_crossings(target, start, end, source=BUILTIN):
     """``events.Roots`` of the Moon reaching a phase (elongation ``target``) in each
     row's window [start, end]."""
     def f(jd1, jd2, row):
         return wrap180(elongation_lon(jd1, jd2, source) - target)
 
+    def rough(jd1, jd2, row):
+        return wrap180(rough_elongation(jd1, jd2) - target)
+
     # The elongation grows 10 to 15 degrees a day and a phase comes once a month:
-    # daily samples never hold two crossings, and never leap 90 degrees.
-    return crossings(f, start, end, 1.0, direction=+1, jump=90.0)
+    # daily samples never hold two crossings, and never leap 90 degrees; the rough
+    # elongation, off by under a degree, tells which days to sample.
+    return crossings(f, start, end, 1.0, direction=+1, jump=90.0, estimate=rough)
 
 
 def next_phase_cells(time, phase="NEW", result_scale=None, source=BUILTIN):

@@ -10,12 +10,13 @@ Greatest elongations (Mercury, Venus) are the maxima of the apparent elongation,
 (evening sky) or west (morning sky) of the Sun.
 """
 
+import erfa
 import numpy as np
 
 from . import bodies, ephemeris, frames, vectors
 from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
-from .timescales import DateTimes
+from .timescales import DateTimes, erfa_quietly
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 INNER = ("MERCURY", "VENUS")
@@ -146,15 +147,47 @@ def _elongation_rate(body, source, sign):
     return f
 
 
+def _rough_places(body, tt1, tt2):
+    """Geometric geocentric vectors of the planet and of the Sun (au, ecliptic J2000), from
+    ERFA plan94 alone (the Earth-Moon barycentre for the Earth, no light time, no
+    aberration): within a few hundredths of a degree of the apparent places in longitude
+    difference and elongation.  For locating events only."""
+    planet = erfa_quietly(erfa.plan94, tt1, tt2, ephemeris.PLAN94_NUMBERS[body])["p"]
+    earth = erfa_quietly(erfa.plan94, tt1, tt2, 3)["p"]
+    to_ecliptic = frames.system_matrix("ECLIPTIC J2000")
+    return vectors.apply(to_ecliptic, planet - earth), vectors.apply(to_ecliptic, -earth)
+
+
+def _rough_longitude_from_sun(body, offset):
+    def rough(jd1, jd2, row=None):
+        planet, sun = _rough_places(body, jd1, jd2)
+        return wrap180(frames.spherical(planet)[0] - frames.spherical(sun)[0] - offset)
+
+    return rough
+
+
+def _rough_elongation_rate(body, sign):
+    h = _DERIVATIVE_STEP_DAYS
+
+    def rough(jd1, jd2, row=None):
+        before, after = _rough_places(body, jd1, jd2 - h), _rough_places(body, jd1, jd2 + h)
+        rate = np.degrees(vectors.angle_between(*after) - vectors.angle_between(*before)) / (2.0 * h)
+        side = np.sign(wrap180(frames.spherical(after[0])[0] - frames.spherical(after[1])[0]))
+        return np.where(side == sign, rate, 1.0)
+
+    return rough
+
+
 def _event_search(body, event, source):
-    """(function of TT whose zero is the event, direction of the crossing), or a
-    SkyError for an event the planet does not have."""
+    """(function of TT whose zero is the event, a cheap estimate of it, direction of the
+    crossing), or a SkyError for an event the planet does not have."""
     if event.startswith("GREATEST"):
         if body not in INNER:
             raise SkyError("greatest elongations are for Mercury and Venus; an outer "
                            "planet's elongation is greatest at opposition")
         # The elongation's maximum on one side of the Sun: its rate falls through zero.
-        return _elongation_rate(body, source, +1 if event.endswith("EAST") else -1), -1
+        sign = +1 if event.endswith("EAST") else -1
+        return _elongation_rate(body, source, sign), _rough_elongation_rate(body, sign), -1
     if body in INNER:
         if event == "OPPOSITION":
             raise SkyError(f"{body.capitalize()} never comes to opposition; use INFERIOR, "
@@ -172,20 +205,23 @@ def _event_search(body, event, source):
     def f(jd1, jd2, row=None):
         return wrap180(longitude_from_sun(body, jd1, jd2, source) - offset)
 
-    return f, direction
+    # plan94 has no Pluto: its events are searched without an estimate.
+    rough = _rough_longitude_from_sun(body, offset) if body in ephemeris.PLAN94_NUMBERS else None
+    return f, rough, direction
 
 
 def next_event_cells(body, time, event="OPPOSITION", result_scale=None, source=BUILTIN):
     """The first instant after ``time`` of an opposition, a conjunction with the Sun or a
     greatest elongation."""
-    f, direction = _event_search(body, event, source)
+    f, rough, direction = _event_search(body, event, source)
     tt1, tt2 = time.tt()
     tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
     jd = tt1 + tt2  # where the sampling starts: the answers keep two parts
     window = SYNODIC_DAYS[body] * 1.1 + 5.0
     # Five-day samples: the difference moves under 3 degrees a day for every planet,
-    # and its zeros are weeks apart (Mercury's conjunctions at least 40 days).
-    roots = crossings(f, jd, jd + window, 5.0, direction=direction, jump=90.0)
+    # and its zeros are weeks apart (Mercury's conjunctions at least 40 days); the rough
+    # places tell which samples to take.
+    roots = crossings(f, jd, jd + window, 5.0, direction=direction, jump=90.0, estimate=rough)
     jd1, jd2, found = roots.first(jd.size, roots.after(tt1, tt2))
     if not np.all(found):
         raise rows_failing(~found, f"no {event.lower()} found in the {window:.0f} days after")

@@ -19,11 +19,11 @@ at once (events.py).
 import erfa
 import numpy as np
 
-from . import bodies, events, frames, vectors
+from . import bodies, ephemeris, events, frames, vectors
 from .errors import RowErrors, rows_failing
 from .events import crossings, wrap180
 from .timescales import DateTimes, Instants
-from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME
+from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, J2000_JD
 
 
 def sun_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
@@ -93,6 +93,25 @@ SEASONS = {"MARCH": 0.0, "JUNE": 90.0, "SEPTEMBER": 180.0, "DECEMBER": 270.0}
 FIRST_YEAR, LAST_YEAR = 1000, 2999  # whole years inside the position's 1000-3000
 
 
+def rough_longitude(tt1, tt2, frame="TRUE"):
+    """The Sun's apparent longitude to about 0.01 degree near 2000 and a few hundredths
+    over 1000-3000, from the low-precision formulas of the Astronomical Almanac as Meeus
+    gives them (Astronomical Algorithms, ch. 25: mean longitude, equation of the centre,
+    aberration and the main nutation term), on the J2000 ecliptic less the general
+    precession in longitude (IAU 1976, 5029.0966" a century).  For locating events
+    only: the search then refines with the full theory."""
+    t = ((tt1 - J2000_JD) + tt2) / 36525.0
+    mean = 280.46646 + t * (36000.76983 + t * 0.0003032)
+    m = np.radians(357.52911 + t * (35999.05029 - t * 0.0001537))
+    centre = ((1.914602 - t * (0.004817 + t * 0.000014)) * np.sin(m)
+              + (0.019993 - t * 0.000101) * np.sin(2.0 * m) + 0.000289 * np.sin(3.0 * m))
+    node = np.radians(125.04 - 1934.136 * t)
+    apparent = mean + centre - 0.00569 - 0.00478 * np.sin(node)
+    if frame == "J2000":
+        apparent = apparent - t * (1.396971 + t * 0.0003086)
+    return apparent
+
+
 def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
     """``events.Roots``: per row, the TT instants in [start, end] when the Sun's apparent
     longitude reaches that row's target (degrees)."""
@@ -101,8 +120,12 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
     def f(jd1, jd2, row):
         return wrap180(sun_longitude(jd1, jd2, frame) - target[row])
 
-    # The Sun moves about 1 degree a day: 1-day samples never skip a crossing.
-    return crossings(f, start_tt, end_tt, 1.0, direction=+1, jump=90.0)
+    def rough(jd1, jd2, row):
+        return wrap180(rough_longitude(jd1, jd2, frame) - target[row])
+
+    # The Sun moves about 1 degree a day: 1-day samples never skip a crossing, and the
+    # rough longitude, off by well under a degree, tells which days to sample.
+    return crossings(f, start_tt, end_tt, 1.0, direction=+1, jump=90.0, estimate=rough)
 
 
 def _year_start_tt(year):
@@ -162,6 +185,7 @@ def reaches_cells(longitude, time, frame="J2000", result_scale=None):
     lon, tt1, tt2 = lon.ravel(), tt1.ravel(), tt2.ravel()
     start = tt1 + tt2  # where the sampling starts: the answers keep two parts
     last = _year_start_tt(LAST_YEAR + 1) + 0.5  # the search stays inside the position's range
+    ephemeris.check_builtin_years(tt1, tt2)  # a start outside it is refused as such
     roots = longitude_crossings(lon, start, np.minimum(start + 367.0, last), frame)
     jd1, jd2, found = roots.first(lon.size, roots.after(tt1, tt2))
     if not np.all(found):

@@ -210,3 +210,92 @@ def test_a_failing_row_is_reported_on_that_row_only():
         events.crossings(f, J0 + np.array([0.5, 10.0, 20.0]), J0 + np.array([4.0, 14.0, 24.0]),
                          0.5)
     assert list(err.value.messages) == [None, "outside the range", None]
+
+
+# ---- sampling near an estimate -------------------------------------------------------------
+
+
+def _counting(f):
+    """``f`` that also counts how many instants it was asked for."""
+    def g(jd1, jd2, row):
+        g.calls += np.size(jd1)
+        return f(jd1, jd2, row)
+    g.calls = 0
+    return g
+
+
+def _same_roots(a, b):
+    return (np.array_equal(a.row, b.row) and np.array_equal(a.jd1, b.jd1)
+            and np.array_equal(a.jd2, b.jd2))
+
+
+def test_an_estimate_gives_the_same_roots_with_far_fewer_evaluations():
+    # 30 rows of a year each: sin(2 pi (t - r) / 365.25), rising once a year at r[k]
+    # (closed form), daily samples.  A good estimate (the same function shifted by two
+    # hours) leads the search to the same brackets: the roots are bit-identical to those
+    # of the full grid, found from a few samples a row instead of 371.
+    rng = np.random.default_rng(11)
+    n = 30
+    start = J0 + rng.uniform(0.0, 1000.0, n)
+    r = (start - J0) + rng.uniform(5.0, 360.0, n)
+
+    def f(jd1, jd2, row):
+        return np.sin(2.0 * np.pi * (days(jd1, jd2) - r[row]) / 365.25)
+
+    def estimate(jd1, jd2, row):
+        return np.sin(2.0 * np.pi * (days(jd1, jd2) - r[row] - 2.0 / 24.0) / 365.25)
+
+    full, near = _counting(f), _counting(f)
+    expected = events.crossings(full, start, start + 370.0, 1.0, direction=+1)
+    got = events.crossings(near, start, start + 370.0, 1.0, direction=+1, estimate=estimate)
+    assert _same_roots(got, expected)
+    np.testing.assert_allclose(days(*got.first(n)[:2]), r, rtol=0, atol=TOL)
+    assert near.calls < full.calls / 10
+
+
+def test_a_wrong_estimate_falls_back_to_the_full_grid_for_its_rows():
+    # The estimate is right for even rows and 40 days off for odd rows: the clusters of
+    # samples around the wrong places show f with the other sign at their ends, so those
+    # rows are sampled in full; every row's roots equal the full grid's.
+    rng = np.random.default_rng(12)
+    n = 12
+    start = J0 + rng.uniform(0.0, 1000.0, n)
+    r = (start - J0) + rng.uniform(60.0, 300.0, n)
+    shift = np.where(np.arange(n) % 2 == 1, 40.0, 0.1)
+
+    def f(jd1, jd2, row):
+        return np.sin(2.0 * np.pi * (days(jd1, jd2) - r[row]) / 365.25)
+
+    def estimate(jd1, jd2, row):
+        return np.sin(2.0 * np.pi * (days(jd1, jd2) - r[row] - shift[row]) / 365.25)
+
+    expected = events.crossings(f, start, start + 370.0, 1.0, direction=+1)
+    counted = _counting(f)
+    got = events.crossings(counted, start, start + 370.0, 1.0, direction=+1, estimate=estimate)
+    assert _same_roots(got, expected)
+    # The six misled rows were sampled in full (371 days each), the others were not.
+    assert 6 * 371 < counted.calls < 7 * 371
+
+
+def test_an_estimate_with_no_sign_change_finds_nothing_and_an_error_keeps_its_row():
+    # No zero in the estimate's window: nothing is sampled and nothing found.  A row whose
+    # instants the function refuses keeps its message on that row.
+    start = J0 + np.array([0.0, 100.0, 200.0])
+
+    def f(jd1, jd2, row):
+        t = days(jd1, jd2)
+        bad = (row == 2)
+        if np.any(bad):
+            raise rows_failing(bad, "row two is refused")
+        return t - (start[row] - J0) - 5.5
+
+    def estimate(jd1, jd2, row):
+        return np.where(row == 0, 1.0, days(jd1, jd2) - (start[row] - J0) - 5.4)
+
+    with pytest.raises(RowErrors) as err:
+        events.crossings(f, start, start + 10.0, 1.0, estimate=estimate)
+    assert list(err.value.messages) == [None, None, "row two is refused"]
+    roots = events.crossings(f, start[:2], start[:2] + 10.0, 1.0, estimate=lambda a, b, row:
+                             estimate(a, b, row))
+    assert list(roots.row) == [1]
+    np.testing.assert_allclose(root_days(roots), [105.5], rtol=0, atol=TOL)
