@@ -247,11 +247,7 @@ class SunOverDays:
         nodes = self.origin[:, None] + self.SPACING * np.arange(self.NODES)
         unique, self.index = np.unique(nodes, return_inverse=True)
         self.index = self.index.reshape(nodes.shape)
-        zero = np.zeros(unique.shape)  # half-day marks are exact in one double
-        ra, dec, gast = sun_and_sidereal(unique, zero, Instants(unique, zero, "TT", dut1).to("UT"))
-        ut = Instants(unique, zero, "TT", dut1).to("UT")
-        origins = wrap180(np.degrees(gast - erfa.era00(ut.jd1, ut.jd2)))
-        self.values = np.concatenate([frames.unit_vectors(ra, dec), origins[:, None]], axis=1)
+        self.values = _node_values(unique)
         steps = np.arange(self.NODES, dtype=float)
         self._denominators = np.array([np.prod([k - j for j in steps if j != k]) for k in steps])
 
@@ -309,6 +305,40 @@ class _DayEvents:
         self.ups, self.downs, at_start = events.rising_and_falling(
             f, self.start, self.start + 1.0, 1.0 / 24.0, extrema=True)
         self.up_at_start = at_start > 0
+
+
+# The node values depend on TT alone (the built-in Sun, and GAST - ERA, which is minus the
+# equation of the origins): kept across calls, so that cells filled down a column of
+# days, each computed on its own, share them as a whole-column call does.  Bounded: at
+# most NODE_CACHE_SIZE nodes (about 27 years of half days, 1.3 MB), the oldest dropped.
+NODE_CACHE_SIZE = 20_000
+_NODE_CACHE = {}
+
+
+def _node_values(tt):
+    """Per TT instant (half-day marks, exact in one double): the apparent Sun's unit
+    vector on the true equator and equinox of date and GAST - ERA in degrees."""
+    out = np.empty((tt.size, 4))
+    missing = []
+    for k, t in enumerate(tt.tolist()):
+        found = _NODE_CACHE.get(t)
+        if found is None:
+            missing.append(k)
+        else:
+            out[k] = found
+    if missing:
+        todo = tt[missing]
+        zero = np.zeros(todo.shape)
+        ut = Instants(todo, zero, "TT").to("UT")
+        ra, dec, gast = sun_and_sidereal(todo, zero, ut)
+        origins = wrap180(np.degrees(gast - erfa.era00(ut.jd1, ut.jd2)))
+        fresh = np.concatenate([frames.unit_vectors(ra, dec), origins[:, None]], axis=1)
+        out[missing] = fresh
+        for t, v in zip(todo.tolist(), fresh):
+            if len(_NODE_CACHE) >= NODE_CACHE_SIZE:
+                del _NODE_CACHE[next(iter(_NODE_CACHE))]
+            _NODE_CACHE[t] = v
+    return out
 
 
 def _no_event_text(up_at_start, other_found, event, rising):

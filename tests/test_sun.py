@@ -931,3 +931,24 @@ def test_interpolated_sun_over_days_matches_the_direct_computation():
     assert np.max(np.abs((ra - ra0 + 180.0) % 360.0 - 180.0) * np.cos(np.radians(dec0))) * uas < 5.0
     assert np.max(np.abs(dec - dec0)) * uas < 5.0
     assert np.max(np.abs((gast - gast0 + np.pi) % (2.0 * np.pi) - np.pi)) * np.degrees(1.0) * uas < 5.0
+
+
+def test_the_node_cache_stays_bounded_and_never_changes_an_answer(monkeypatch):
+    # The exact values at half-day nodes are kept across calls (they depend on TT alone).
+    # With the cache cut to 50 nodes, a year of sunrises, computed cell by cell and then
+    # again as one column, stays within the bound, and every answer equals the one
+    # computed with an empty cache (no stale node can move an answer).
+    days = [45300.0 + i for i in range(0, 365, 7)]
+    monkeypatch.setattr(sun, "_NODE_CACHE", {})
+    fresh = [evaluate("SKY.SUN.RISE", [d, 47.38, 8.05, "UTC", 1.0, "SUNRISE", 455.0]) for d in days]
+    monkeypatch.setattr(sun, "NODE_CACHE_SIZE", 50)
+    monkeypatch.setattr(sun, "_NODE_CACHE", {})
+    from calcfuncs import cells
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    cell_by_cell = [evaluate("SKY.SUN.RISE", [d, 47.38, 8.05, "UTC", 1.0, "SUNRISE", 455.0])
+                    for d in days]
+    assert len(sun._NODE_CACHE) <= 50
+    column = evaluate("SKY.SUN.RISE", [tuple((d,) for d in days), 47.38, 8.05, "UTC", 1.0,
+                                       "SUNRISE", 455.0])
+    assert len(sun._NODE_CACHE) <= 50
+    assert cell_by_cell == fresh == [row[0] for row in column]
