@@ -92,6 +92,13 @@ def _observer(time, latitude, longitude, height, pressure, temperature, frame):
     phpa, tc = _atmosphere(pressure, temperature)
     tt1, tt2 = time.tt()
     ut = time.to("UT")
+    if _all_one(tt1, tt2, ut.jd1, ut.jd2, elong, phi, hm):
+        # One instant at one site for every row (a column of targets): the parameters
+        # are made once and serve every row.
+        tt1, tt2, ut1, ut2, elong, phi, hm = (np.ravel(v)[:1] for v in
+                                               (tt1, tt2, ut.jd1, ut.jd2, elong, phi, hm))
+        from .timescales import Instants
+        ut = Instants(ut1, ut2, ut.scale, ut.dut1)
     theta = erfa.era00(ut.jd1, ut.jd2)
     sp = erfa.sp00(tt1, tt2)
     refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
@@ -102,6 +109,20 @@ def _observer(time, latitude, longitude, height, pressure, temperature, frame):
     s = erfa.s06(tt1, tt2, x, y)
     return erfa.apco(tt1, tt2, pvb, pvh["p"], x, y, s, theta, elong, phi, hm, 0.0, 0.0, sp,
                      refa, refb), phpa
+
+
+def _equation_of_origins(time):
+    """ERFA eo06a at the instants (once for a column that shares one instant)."""
+    tt1, tt2 = time.tt()
+    if _all_one(tt1, tt2):
+        return erfa.eo06a(np.ravel(tt1)[:1], np.ravel(tt2)[:1])
+    return erfa.eo06a(tt1, tt2)
+
+
+def _all_one(*arrays):
+    """Whether every array holds one value repeated (and more than one row)."""
+    flat = [np.ravel(a) for a in arrays]
+    return max(a.size for a in flat) > 1 and all(np.all(a == a[0]) for a in flat)
 
 
 def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
@@ -115,8 +136,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
     else:
         # TRUE: apparent RA on the equinox; the CIO-based RA that ERFA's observed chain
         # takes is larger by the equation of the origins.
-        tt1, tt2 = time.tt()
-        ri, di = rc + erfa.eo06a(tt1, tt2), dc
+        ri, di = rc + _equation_of_origins(time), dc
     aob, zob, hob, dob, _ = erfa.atioq(ri, di, astrom)
     _check_refraction_range(phpa, 90.0 - np.degrees(zob))
     return aob, zob, hob, dob
@@ -144,8 +164,7 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
     ri, di = erfa.atoiq("A", a, z, astrom)
     if frame == "ICRS":
         return erfa.aticq(ri, di, astrom)
-    tt1, tt2 = time.tt()
-    return ri - erfa.eo06a(tt1, tt2), di
+    return ri - _equation_of_origins(time), di
 
 
 def _deg180(rad):

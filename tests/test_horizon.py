@@ -496,3 +496,18 @@ def test_nutation_refuses_the_dates_below(when, scale):
 def test_dates_outside_the_models_are_refused(fn, args):
     got = evaluate(fn, args)
     assert isinstance(got, str) and got.startswith("#SKY: "), got
+
+
+@pytest.mark.parametrize("frame, pressure", [("ICRS", 0.0), ("ICRS", 1013.25), ("TRUE", 0.0)])
+def test_a_column_of_targets_at_one_instant_equals_each_target_alone(frame, pressure):
+    # A column of targets at one instant and site makes ERFA's astrometry parameters
+    # once; every row must still be what the target gives alone, to the last bit
+    # (refusals below 5 degrees with a pressure included).
+    rng = np.random.default_rng(200)
+    ra, dec = rng.uniform(0, 360, 200), np.degrees(np.arcsin(rng.uniform(-1, 1, 200)))
+    extra = [40.0, 0.0, "UTC", 800.0, pressure, 5.0, frame]
+    for name in ("SKY.HORIZON.ALT", "SKY.HORIZON.AZ"):
+        column = [row[0] for row in evaluate(name, [col(ra), col(dec), WHEN] + extra)]
+        alone = [evaluate(name, [float(r), float(d), WHEN] + extra) for r, d in zip(ra, dec)]
+        assert column == alone
+        assert sum(isinstance(c, float) for c in column) > 50
