@@ -222,6 +222,11 @@ def _altitude(ra, dec, gast, latitude, longitude):
     return np.degrees(el)
 
 
+# TT - UT changes smoothly but at a step of UTC: over half-day nodes its second
+# differences stay under a microsecond even where Delta T changes fastest.
+SMOOTH_DAYS = 1e-11
+
+
 class SunOverDays:
     """The apparent Sun (RA and Dec on the true equator and equinox of date) and
     Greenwich apparent sidereal time over windows of about a day, one per row, for the
@@ -232,8 +237,9 @@ class SunOverDays:
     a period of 13.7 days) and GAST minus the Earth rotation angle (minus the equation of
     the origins, a function of TT alone), at nodes half a day apart on TT half-day marks
     (so that rows of neighbouring days share them), six nodes around each window, by the
-    polynomial through them (Lagrange).  UT, and with it the Earth rotation angle, is
-    computed exactly at every instant: it holds the leap seconds and DUT1.  The
+    polynomial through them (Lagrange).  TT - UT is interpolated the same way where it
+    is smooth, and UT computed exactly at every instant where a leap second or a step of
+    UTC falls among a row's nodes.  The
     interpolation stays within microarcseconds of the direct computation (tested against
     it over dense random instants)."""
 
@@ -247,23 +253,38 @@ class SunOverDays:
         nodes = self.origin[:, None] + self.SPACING * np.arange(self.NODES)
         unique, self.index = np.unique(nodes, return_inverse=True)
         self.index = self.index.reshape(nodes.shape)
-        self.values = _node_values(unique)
+        # TT - UT (days) at the nodes, interpolated too where it is smooth over the
+        # row's nodes; a leap second or a 1960s step of UTC (a jump in UT1 = UTC + DUT1)
+        # shows in its second differences, and such rows take UT exactly everywhere.
+        ut = Instants(unique, np.zeros(unique.shape), "TT", dut1).to("UT")
+        tt_minus_ut = ((unique - ut.jd1) - ut.jd2)[self.index]
+        self.smooth = np.all(np.abs(np.diff(tt_minus_ut, n=2, axis=1)) < SMOOTH_DAYS, axis=1)
+        self.values = np.concatenate([_node_values(unique), ((unique - ut.jd1) - ut.jd2)[:, None]],
+                                     axis=1)
         steps = np.arange(self.NODES, dtype=float)
         self._denominators = np.array([np.prod([k - j for j in steps if j != k]) for k in steps])
 
+    def _weights(self, x):
+        """Lagrange weights of the nodes at ``x`` (in node steps): for each node the
+        product of the gaps to the other nodes, over the node's own denominator."""
+        gaps = x[:, None] - np.arange(self.NODES, dtype=float)[None, :]
+        before = np.ones((x.size, self.NODES + 1))
+        after = np.ones((x.size, self.NODES + 1))
+        before[:, 1:] = np.cumprod(gaps, axis=1)
+        after[:, :-1] = np.cumprod(gaps[:, ::-1], axis=1)[:, ::-1]
+        return before[:, :-1] * after[:, 1:] / self._denominators
+
     def at(self, jd1, jd2, row):
         """(RA, Dec in degrees, GAST in radians) at TT instants of the rows' windows."""
-        x = ((jd1 - self.origin[row]) + jd2) / self.SPACING
-        steps = np.arange(self.NODES, dtype=float)
-        gaps = x[:, None] - steps[None, :]
-        # Lagrange weights: the product of the other gaps over the node's denominator.
-        weights = np.empty_like(gaps)
-        for k in range(self.NODES):
-            weights[:, k] = np.prod(np.delete(gaps, k, axis=1), axis=1) / self._denominators[k]
+        weights = self._weights(((jd1 - self.origin[row]) + jd2) / self.SPACING)
         values = np.einsum("mk,mkc->mc", weights, self.values[self.index[row]])
         ra, dec = frames.spherical(values[:, :3])
-        ut = Instants(jd1, jd2, "TT", self.dut1).to("UT")
-        gast = erfa.era00(ut.jd1, ut.jd2) + np.radians(values[:, 3])
+        ut1, ut2 = np.broadcast_to(jd1, ra.shape).copy(), jd2 - values[:, 4]
+        exact = ~self.smooth[row]
+        if np.any(exact):
+            ut = Instants(ut1[exact], jd2[exact], "TT", self.dut1).to("UT")
+            ut1[exact], ut2[exact] = ut.jd1, ut.jd2
+        gast = erfa.era00(ut1, ut2) + np.radians(values[:, 3])
         return ra, dec, gast
 
 
