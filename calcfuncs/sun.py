@@ -251,6 +251,7 @@ class SunOverDays:
         self.dut1 = dut1
         self.origin = np.floor(start / self.SPACING) * self.SPACING - self.SPACING
         nodes = self.origin[:, None] + self.SPACING * np.arange(self.NODES)
+        _check_rows_of_nodes(nodes)
         unique, self.index = np.unique(nodes, return_inverse=True)
         self.index = self.index.reshape(nodes.shape)
         # TT - UT (days) at the nodes, interpolated too where it is smooth over the
@@ -326,6 +327,18 @@ class _DayEvents:
         self.ups, self.downs, at_start = events.rising_and_falling(
             f, self.start, self.start + 1.0, 1.0 / 24.0, extrema=True)
         self.up_at_start = at_start > 0
+
+
+def _check_rows_of_nodes(nodes):
+    """The built-in theories' years, checked for every node of every row (rows x nodes):
+    a row with a node outside gets the message (the last day or two of the range, whose
+    nodes reach past it, included)."""
+    try:
+        ephemeris.check_builtin_years(nodes, np.zeros(nodes.shape))
+    except RowErrors as err:
+        per_row = np.reshape(err.messages, nodes.shape)
+        first = [next((m for m in r if m is not None), None) for r in per_row]
+        raise RowErrors(np.array(first, dtype=object)) from None
 
 
 # The node values depend on TT alone (the built-in Sun, and GAST - ERA, which is minus the
