@@ -33,8 +33,12 @@ test-core: setup
 demo: oxt
 	$(PY) tools/recompute.py --oxt $(OXT) --out out --messages-expected "Bad input" sample_sheets
 
+# Every benchmark in one run; the figures also go to out/bench-*.json.
 bench: oxt
-	$(PY) bench/bench_recalc.py --oxt $(OXT)
+	mkdir -p out
+	$(PY) bench/bench_core.py --json out/bench-core.json
+	$(PY) bench/bench_libraries.py --json out/bench-libraries.json
+	$(PY) bench/bench_recalc.py --oxt $(OXT) --json out/bench-recalc.json
 
 clean:
 	rm -rf build dist out .pytest_cache

@@ -20,7 +20,7 @@ import erfa
 import numpy as np
 
 from . import bodies, ephemeris, events, frames, vectors
-from .errors import RowErrors, rows_failing
+from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
 from .timescales import DateTimes, Instants
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, J2000_JD
@@ -289,12 +289,13 @@ class SunOverDays:
         return ra, dec, gast
 
 
-def _local_day(time, utc_offset):
+def _local_day(time, utc_offset, ahead=0.0):
     """TT JD (one float per row) of the start of the local calendar day that contains
-    the given date."""
+    the given date, or of the day ``ahead`` days after it (whole days, per row)."""
     from .timeinput import days_and_seconds
 
     start, _, _ = days_and_seconds(time)  # 0h of the given date on its own scale
+    start = np.ravel(start) + ahead
     day0 = Instants(start - utc_offset / 24.0, np.zeros_like(start), time.scale, time.dut1)
     tt = day0.to("TT")
     return np.ravel(tt.jd1 + tt.jd2)
@@ -303,6 +304,42 @@ def _local_day(time, utc_offset):
 def _row_values(value, n):
     return np.broadcast_to(np.asarray(value, dtype=float), (n,)) if np.ndim(value) == 0 \
         else np.ravel(np.asarray(value, dtype=float))
+
+
+# The crossings of a local day at a site, kept across calls.  A sheet asks for one day
+# per cell, down a column of days; a cell that finds its day missing computes the next
+# DAYS_AHEAD days too, in the same one search, so the cells below find theirs.  A day is
+# keyed by everything that moves its crossings: the TT instant of its local 0h (the date,
+# the UTC offset and the time scale), the site, the altitude sought (event and height)
+# and DUT1.  Bounded: at most DAY_CACHE_SIZE days (about 10 MB), the oldest dropped.
+DAYS_AHEAD = 31
+DAY_CACHE_SIZE = 50_000
+_DAY_CACHE = {}
+
+
+def _search_days(start, lat, lon, h0, dut1):
+    """Per row: (rising jd1, jd2, falling jd1, jd2, Sun above at 0h), one search."""
+    n = start.size
+    sun = SunOverDays(start, dut1)
+
+    def f(jd1, jd2, row):
+        ra, dec, gast = sun.at(jd1, jd2, row)
+        return _altitude(ra, dec, gast, lat[row], lon[row]) - h0[row]
+
+    # Hourly samples, and the vertices of their peaks and troughs: near the polar
+    # night the Sun may clear the horizon for minutes around noon only.
+    ups, downs, at_start = events.rising_and_falling(f, start, start + 1.0, 1.0 / 24.0,
+                                                     extrema=True)
+    up_rows = [np.flatnonzero(ups.row == k) for k in range(n)]
+    down_rows = [np.flatnonzero(downs.row == k) for k in range(n)]
+    return [(ups.jd1[u], ups.jd2[u], downs.jd1[d], downs.jd2[d], bool(at_start[k] > 0))
+            for k, (u, d) in enumerate(zip(up_rows, down_rows))]
+
+
+def _remember(key, day):
+    if len(_DAY_CACHE) >= DAY_CACHE_SIZE:
+        del _DAY_CACHE[next(iter(_DAY_CACHE))]
+    _DAY_CACHE[key] = day
 
 
 class _DayEvents:
@@ -315,18 +352,65 @@ class _DayEvents:
         n = self.start.size
         lat, lon = _row_values(latitude, n), _row_values(longitude, n)
         h0 = _row_values(_threshold(event, np.asarray(height, dtype=float)), n)
+        offset = _row_values(utc_offset, n)
+        keys = [(s, a, b, c, time.dut1) for s, a, b, c in
+                zip(self.start.tolist(), lat.tolist(), lon.tolist(), h0.tolist())]
+        # What is kept is taken now: storing the missing days may push older ones out.
+        self._fresh = {key: _DAY_CACHE[key] for key in keys if key in _DAY_CACHE}
+        missing = np.array([k for k, key in enumerate(keys) if key not in self._fresh], dtype=int)
+        if missing.size:
+            try:
+                self._compute(time, missing, keys, lat, lon, h0, offset)
+            except RowErrors as err:  # aligned with the missing rows: with all rows
+                messages = np.full(n, None, dtype=object)
+                messages[missing] = np.ravel(err.messages)
+                raise RowErrors(messages) from None
+        days = [self._fresh[key] for key in keys]
+        self.ups = events.Roots(*_stack([(d[0], d[1]) for d in days]))
+        self.downs = events.Roots(*_stack([(d[2], d[3]) for d in days]))
+        self.up_at_start = np.array([d[4] for d in days], dtype=bool)
 
-        sun = SunOverDays(self.start, time.dut1)
+    def _compute(self, time, missing, keys, lat, lon, h0, offset):
+        """Search the missing rows' days, and the days after a lone missing day (the
+        cell of a column filled down); keep them all."""
+        start, la, lo, h = self.start[missing], lat[missing], lon[missing], h0[missing]
+        extra = ()
+        if missing.size == 1:
+            k = missing[0]
+            ahead = np.arange(1.0, DAYS_AHEAD + 1.0)
+            one = Instants(np.ravel(time.jd1)[k:k + 1], np.ravel(time.jd2)[k:k + 1],
+                           time.scale, time.dut1)
+            try:
+                extra = _local_day(one, offset[k], ahead)
+            except SkyError:
+                extra = ()  # days beyond the scale's range: the lone day alone
+        if len(extra):
+            both = np.concatenate([start, extra])
+            fill = lambda v: np.concatenate([v, np.full(len(extra), v[0])])  # noqa: E731
+            try:
+                found = _search_days(both, fill(la), fill(lo), fill(h), time.dut1)
+                ahead_keys = [(s, la[0], lo[0], h[0], time.dut1) for s in extra.tolist()]
+                for key, day in zip(ahead_keys, found[1:]):
+                    _remember(key, day)
+                found = found[:1]
+            except SkyError:  # a day ahead outside the years: the lone day alone
+                found = None
+            if found is None:
+                found = _search_days(start, la, lo, h, time.dut1)
+        else:
+            found = _search_days(start, la, lo, h, time.dut1)
+        for k, day in zip(missing, found):
+            _remember(keys[k], day)
+            self._fresh[keys[k]] = day
 
-        def f(jd1, jd2, row):
-            ra, dec, gast = sun.at(jd1, jd2, row)
-            return _altitude(ra, dec, gast, lat[row], lon[row]) - h0[row]
 
-        # Hourly samples, and the vertices of their peaks and troughs: near the polar
-        # night the Sun may clear the horizon for minutes around noon only.
-        self.ups, self.downs, at_start = events.rising_and_falling(
-            f, self.start, self.start + 1.0, 1.0 / 24.0, extrema=True)
-        self.up_at_start = at_start > 0
+def _stack(pairs):
+    """``Roots`` arguments (jd1, jd2, row) from per-row (jd1, jd2) arrays."""
+    jd1 = np.concatenate([p[0] for p in pairs] + [np.zeros(0)])
+    jd2 = np.concatenate([p[1] for p in pairs] + [np.zeros(0)])
+    row = np.concatenate([np.full(p[0].size, k, dtype=int) for k, p in enumerate(pairs)]
+                         + [np.zeros(0, dtype=int)])
+    return jd1, jd2, row
 
 
 def _check_rows_of_nodes(nodes):

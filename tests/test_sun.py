@@ -952,3 +952,62 @@ def test_the_node_cache_stays_bounded_and_never_changes_an_answer(monkeypatch):
                                        "SUNRISE", 455.0])
     assert len(sun._NODE_CACHE) <= 50
     assert cell_by_cell == fresh == [row[0] for row in column]
+
+
+def test_days_kept_for_a_filled_down_column_are_never_stale(monkeypatch):
+    # A cell computes its day and the next DAYS_AHEAD days at its site and keeps them.
+    # Every argument that moves the answer must miss that store: the site, the event,
+    # the height, the UTC offset, the scale, DUT1 and the document's null date.  Each
+    # answer is compared with one computed with empty stores (nothing kept).
+    from calcfuncs import cells
+
+    base = ["2025-03-10", 47.38, 8.05, "UTC", 1.0, "SUNRISE", 455.0]
+    variants = [
+        base,
+        ["2025-03-11"] + base[1:],
+        ["2025-03-10", 47.40] + base[2:],
+        base[:2] + [8.10] + base[3:],
+        base[:3] + ["TT"] + base[4:],
+        base[:4] + [2.0] + base[5:],
+        base[:5] + ["CIVIL", 455.0],
+        base[:6] + [0.0],
+    ]
+
+    def fresh(args, null_date=(1899, 12, 30), name="SKY.SUN.RISE"):
+        monkeypatch.setattr(sun, "_DAY_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        return cells.evaluate(name, args, null_date)
+
+    expected = [fresh(a) for a in variants]
+    expected_1904 = fresh(base, (1904, 1, 1))
+    expected_set = fresh(base, name="SKY.SUN.SET")
+    # Now with the stores shared: the first call fills them for 31 days ahead.
+    monkeypatch.setattr(sun, "_DAY_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    got = [cells.evaluate("SKY.SUN.RISE", a) for a in variants]
+    assert got == expected
+    assert len(set(got)) == len(got)  # every variant moves the answer
+    assert cells.evaluate("SKY.SUN.RISE", base, (1904, 1, 1)) == expected_1904
+    assert cells.evaluate("SKY.SUN.SET", base) == expected_set
+    # DUT1 is not an argument of SKY.SUN.RISE: UT1 - UTC is 0 there, and it is in the key.
+    assert all(key[4] == 0.0 for key in sun._DAY_CACHE)
+
+
+def test_a_column_filled_down_cell_by_cell_equals_the_column_and_stays_bounded(monkeypatch):
+    # 120 days cell by cell (each missing cell computing 31 days ahead) against one
+    # column call and against the direct search of each day alone; the store of days
+    # cut to 40 entries stays within it.
+    from calcfuncs import cells
+
+    days = [45650.0 + i for i in range(120)]
+    monkeypatch.setattr(sun, "DAY_CACHE_SIZE", 40)
+    monkeypatch.setattr(sun, "_DAY_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    by_cell = [cells.evaluate("SKY.SUN.SET", [d, -33.9, 18.4, "UTC", 2.0]) for d in days]
+    assert len(sun._DAY_CACHE) <= 40
+    column = cells.evaluate("SKY.SUN.SET", [tuple((d,) for d in days), -33.9, 18.4, "UTC", 2.0])
+    assert by_cell == [row[0] for row in column]
+    for d, value in zip(days[::17], by_cell[::17]):
+        monkeypatch.setattr(sun, "_DAY_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        assert cells.evaluate("SKY.SUN.SET", [d, -33.9, 18.4, "UTC", 2.0]) == value
