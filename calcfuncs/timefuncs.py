@@ -2,11 +2,9 @@
 
 import numpy as np
 
+from . import deltat, timeinput
 from .errors import SkyError, rows_failing
-from . import deltat
-from .timeinput import date_text
-from .timeinput import iso_text as _iso_text
-from .timeinput import days_and_seconds
+from .timeinput import date_text, days_and_seconds
 from .timescales import (
     JD_LIMIT,
     DateTimes,
@@ -68,7 +66,7 @@ def iso_text(time, result_scale=None, decimals=3):
     """ISO 8601 text of the instant on ``result_scale``."""
     if not 0 <= decimals <= 9:
         raise SkyError(f"decimals must be 0 to 9, not {decimals}")
-    return _iso_text(_on(time, result_scale), decimals)
+    return timeinput.iso_text(_on(time, result_scale), decimals)
 
 
 def delta_t(time, model="AUTO"):

@@ -56,6 +56,10 @@ def _borrowed_private_names(text, relpath):
                 if (alias.name.startswith("_") and not alias.name.startswith("__")
                         and source != me):
                     found.append((node.lineno, f"from {source} import {alias.name}"))
+                elif (alias.asname or "").startswith("_") and source != me:
+                    # A public name renamed private: one name for one thing.
+                    found.append((node.lineno, f"from {source} import {alias.name} as "
+                                               f"{alias.asname}"))
                 # "from . import sun": the name may be a module of the core.
                 aliases[alias.asname or alias.name] = f"{source}.{alias.name}"
         elif isinstance(node, ast.Import):
@@ -87,6 +91,9 @@ def test_the_check_sees_a_borrowed_name():
              "x = sun._check_years\ny = sun.place\n")
     found = [text for _, text in _borrowed_private_names(probe, "calcfuncs/zz_probe.py")]
     assert found == ["from calcfuncs.sun import _rows", "sun._check_years"]
+    renamed = [text for _, text in _borrowed_private_names(
+        "from .timeinput import iso_text as _iso_text\n", "calcfuncs/zz_probe.py")]
+    assert renamed == ["from calcfuncs.timeinput import iso_text as _iso_text"]
     in_package = "from .. import _private\nfrom .common import _shared\n"
     found = [text for _, text in
              _borrowed_private_names(in_package, "calcfuncs/registry/__init__.py")]
