@@ -233,8 +233,6 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
     n = len(next(iter(rows.values()))) if rows else 1
     if not any(a.kind in registry.ROW_KINDS for a in fn.args):
         kwargs = {k: v for k, v in options.items() if k in params}
-        if "null_jd" in params:
-            kwargs["null_jd"] = null_jd
         try:
             out = func(**kwargs)
             if isinstance(out, DateTimes):
@@ -291,8 +289,6 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
         if idx.size == 0:
             break
         kwargs = {k: v for k, v in options.items() if k in params}
-        if "null_jd" in params:
-            kwargs["null_jd"] = null_jd
         try:
             for arg in fn.args:
                 if arg.kind not in registry.ROW_KINDS:

@@ -19,7 +19,7 @@ import numpy as np
 
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
-from .timescales import check_years, erfa_quietly
+from .timescales import Instants, check_years, erfa_quietly
 from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
@@ -97,7 +97,6 @@ def _observer(time, latitude, longitude, height, pressure, temperature, frame):
         # are made once and serve every row.
         tt1, tt2, ut1, ut2, elong, phi, hm = (np.ravel(v)[:1] for v in
                                                (tt1, tt2, ut.jd1, ut.jd2, elong, phi, hm))
-        from .timescales import Instants
         ut = Instants(ut1, ut2, ut.scale, ut.dut1)
     theta = erfa.era00(ut.jd1, ut.jd2)
     sp = erfa.sp00(tt1, tt2)

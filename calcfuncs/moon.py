@@ -24,7 +24,6 @@ PHASES = {"NEW": 0.0, "FIRST": 90.0, "FULL": 180.0, "LAST": 270.0}
 # is needed when the Moon is near apogee.
 SOLAR_LIMIT_DEG = 18.5
 LUNAR_LIMIT_DEG = 12.2
-SYNODIC_DAYS = 29.530589
 
 
 def moon_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):

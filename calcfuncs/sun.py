@@ -209,14 +209,9 @@ def _threshold(event, height):
     return h0
 
 
-def sun_altitude(tt1, tt2, latitude, longitude, dut1=0.0):
+def _altitude(ra, dec, gast, latitude, longitude):
     """Geocentric apparent altitude of the Sun's centre in degrees (refraction not
     applied; diurnal parallax, under 9", neglected)."""
-    ra, dec, gast = sun_and_sidereal(tt1, tt2, Instants(tt1, tt2, "TT", dut1).to("UT"))
-    return _altitude(ra, dec, gast, latitude, longitude)
-
-
-def _altitude(ra, dec, gast, latitude, longitude):
     ha = gast + np.radians(longitude) - np.radians(ra)
     _, el = erfa.hd2ae(ha, np.radians(dec), np.radians(latitude))
     return np.degrees(el)
@@ -225,6 +220,9 @@ def _altitude(ra, dec, gast, latitude, longitude):
 # TT - UT changes smoothly but at a step of UTC: over half-day nodes its second
 # differences stay under a microsecond even where Delta T changes fastest.
 SMOOTH_DAYS = 1e-11
+
+
+_NODES = 6
 
 
 class SunOverDays:
@@ -244,7 +242,7 @@ class SunOverDays:
     it over dense random instants)."""
 
     SPACING = 0.5  # days between nodes
-    NODES = 6      # the window [start, start + 1] lies between the second and fifth
+    NODES = _NODES  # the window [start, start + 1] lies between the second and fifth
 
     def __init__(self, start, dut1=0.0):
         start = np.ravel(np.asarray(start, dtype=float))
@@ -262,8 +260,10 @@ class SunOverDays:
         self.smooth = np.all(np.abs(np.diff(tt_minus_ut, n=2, axis=1)) < SMOOTH_DAYS, axis=1)
         self.values = np.concatenate([_node_values(unique), ((unique - ut.jd1) - ut.jd2)[:, None]],
                                      axis=1)
-        steps = np.arange(self.NODES, dtype=float)
-        self._denominators = np.array([np.prod([k - j for j in steps if j != k]) for k in steps])
+
+    # Each node's Lagrange denominator: the product of its distances to the others.
+    _DENOMINATORS = np.array([np.prod([k - j for j in range(_NODES) if j != k])
+                              for k in range(_NODES)], dtype=float)
 
     def _weights(self, x):
         """Lagrange weights of the nodes at ``x`` (in node steps): for each node the
@@ -273,7 +273,7 @@ class SunOverDays:
         after = np.ones((x.size, self.NODES + 1))
         before[:, 1:] = np.cumprod(gaps, axis=1)
         after[:, :-1] = np.cumprod(gaps[:, ::-1], axis=1)[:, ::-1]
-        return before[:, :-1] * after[:, 1:] / self._denominators
+        return before[:, :-1] * after[:, 1:] / self._DENOMINATORS
 
     def at(self, jd1, jd2, row):
         """(RA, Dec in degrees, GAST in radians) at TT instants of the rows' windows."""
@@ -330,10 +330,12 @@ def _search_days(start, lat, lon, h0, dut1):
     # night the Sun may clear the horizon for minutes around noon only.
     ups, downs, at_start = events.rising_and_falling(f, start, start + 1.0, 1.0 / 24.0,
                                                      extrema=True)
-    up_rows = [np.flatnonzero(ups.row == k) for k in range(n)]
-    down_rows = [np.flatnonzero(downs.row == k) for k in range(n)]
-    return [(ups.jd1[u], ups.jd2[u], downs.jd1[d], downs.jd2[d], bool(at_start[k] > 0))
-            for k, (u, d) in enumerate(zip(up_rows, down_rows))]
+    # Roots come ordered by row: each row's are one slice.
+    up = np.searchsorted(ups.row, np.arange(n + 1))
+    down = np.searchsorted(downs.row, np.arange(n + 1))
+    return [(ups.jd1[up[k]:up[k + 1]], ups.jd2[up[k]:up[k + 1]],
+             downs.jd1[down[k]:down[k + 1]], downs.jd2[down[k]:down[k + 1]],
+             bool(at_start[k] > 0)) for k in range(n)]
 
 
 def _remember(key, day):
@@ -572,10 +574,9 @@ def transit_cells(date, latitude, longitude, utc_offset=0.0):
 def _target_and_sun(ra, dec, time, system):
     """Target (catalogue, ICRS) and the astrometric Sun, both in ``system``."""
     frames.check_latitudes(dec, "declination")
-    tt1, tt2 = time.tt()
-    target = bodies.in_system(frames.unit_vectors(ra, dec), system, tt1, tt2)
-    sun = sun_in(tt1, tt2, system, "ASTROMETRIC")
-    return target, sun
+    m = time.matrix(system)  # one rotation for both
+    sun = sun_gcrs(*time.tt(), "ASTROMETRIC")[0]
+    return vectors.apply(m, frames.unit_vectors(ra, dec)), vectors.apply(m, sun)
 
 
 def elongation_cells(ra, dec, time):

@@ -140,9 +140,9 @@ def erfa_quietly(func, *args):
 class Instants:
     """An array of instants on one time scale, held as two-part JDs.
 
-    What is derived from them (the same instants on another scale, the Julian year,
-    the matrices of a coordinate system at those instants) is kept once made: one
-    cell's computation asks for TT and UT several times over."""
+    What is derived from them (the same instants on another scale, the matrices of a
+    coordinate system at those instants) is kept once made: one cell's computation asks
+    for TT and UT several times over."""
 
     __slots__ = ("jd1", "jd2", "scale", "dut1", "_derived")
 
@@ -191,13 +191,6 @@ class Instants:
         """The instants as a TT two-part JD, the argument of the IAU models."""
         tt = self.to("TT")
         return tt.jd1, tt.jd2
-
-    def julian_year(self):
-        """Julian epochs (TT) of the instants."""
-        found = self._derived.get("julian year")
-        if found is None:
-            found = self._derived["julian year"] = julian_year(*self.tt())
-        return found
 
     def matrix(self, system):
         """Rotations from the ICRS axes to a coordinate system at these instants (TT),
