@@ -120,8 +120,10 @@ def _equation_of_origins(time):
 
 def _all_one(*arrays):
     """Whether every array holds one value repeated (and more than one row)."""
+    if max(np.size(a) for a in arrays) < 2:  # one cell: nothing to share
+        return False
     flat = [np.ravel(a) for a in arrays]
-    return max(a.size for a in flat) > 1 and all(np.all(a == a[0]) for a in flat)
+    return all(np.all(a == a[0]) for a in flat)
 
 
 def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
