@@ -143,8 +143,17 @@ def sunrise(eph, ts, report):
     from skyfield import almanac
     from skyfield.api import wgs84
 
+    from calcfuncs import sun
+
     days = 45658.0 + np.arange(365.0)  # 2025-01-01 ...
-    t_ours, rise = best(lambda: ours("SKY.SUN.RISE", [column(days), SITE[0], SITE[1]]))
+
+    def mine():
+        # Cold every time: the kept days and nodes of the Sun would make repeats free.
+        sun._DAY_CACHE.clear()
+        sun._NODE_CACHE.clear()
+        return ours("SKY.SUN.RISE", [column(days), SITE[0], SITE[1]])
+
+    t_ours, rise = best(mine)
     observer = eph["earth"] + wgs84.latlon(*SITE)
     t0, t1 = ts.utc(2025, 1, 1), ts.utc(2026, 1, 1)
 
