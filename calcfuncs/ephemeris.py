@@ -25,7 +25,7 @@ import threading
 import erfa
 import numpy as np
 
-from . import vectors
+from . import nodes, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .timescales import check_years, erfa_quietly, tt_to_tdb
 from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, PLANETS, SOURCE_WORDS
@@ -54,6 +54,14 @@ def _calendar(jd):
 # ---- the built-in theories ---------------------------------------------------------------
 
 
+def _earth_and_sun_states(tdb1, tdb2):
+    """Barycentric p and v of the Earth, then of the Sun (..., 12), from ERFA epv00."""
+    pvh, pvb = erfa_quietly(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
+    return np.concatenate([pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]],
+                          axis=-1)
+
+
+
 class Builtin:
     name = BUILTIN
 
@@ -69,8 +77,10 @@ class Builtin:
     def earth_and_sun(self, tdb1, tdb2):
         """Barycentric (p, v) of the Earth and of the Sun."""
         check_builtin_years(tdb1, tdb2)
-        pvh, pvb = erfa_quietly(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
-        return (pvb["p"], pvb["v"]), (pvb["p"] - pvh["p"], pvb["v"] - pvh["v"])
+        # A dense column takes the states interpolated over half-day nodes (nodes.py:
+        # within 0.5 m and 3 um/s of the series, which is good to kilometres).
+        s = nodes.over_nodes(_earth_and_sun_states, tdb1, tdb2)
+        return (s[..., 0:3], s[..., 3:6]), (s[..., 6:9], s[..., 9:12])
 
     def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
         """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of

@@ -26,7 +26,7 @@ from functools import lru_cache
 import erfa
 import numpy as np
 
-from . import vectors
+from . import nodes, vectors
 from .errors import SkyError, rows_failing
 from .timescales import check_years, julian_year
 from .vocabulary import (DATED_SYSTEMS, IAU2006_YEARS, J2000_JD, SYSTEM_ALIASES,
@@ -80,20 +80,32 @@ def _fixed(system):
     return _FIXED[system]
 
 
-def _dated(system, jd1, jd2):
+def _nutation(jd1, jd2):
+    """IAU 2000A nutation (dpsi, deps, radians) adjusted to IAU 2006: ERFA nut06a."""
+    return erfa.nut06a(jd1, jd2)
+
+
+def nutation_over_nodes(jd1, jd2):
+    """The same, interpolated over half-day nodes for a dense column (nodes.py: within
+    1.5 uas of the series), computed directly otherwise."""
+    both = nodes.over_nodes(lambda j1, j2: np.stack(_nutation(j1, j2), axis=-1), jd1, jd2)
+    return both[..., 0], both[..., 1]
+
+
+def _dated(system, jd1, jd2, nutation=_nutation):
     if system == "EQUATORIAL DATE":
         return erfa.bp06(jd1, jd2)[2]
-    if system == "EQUATORIAL TRUE":
-        return erfa.pnm06a(jd1, jd2)
     if system == "ECLIPTIC DATE":
         return erfa.ecm06(jd1, jd2)
-    # ECLIPTIC TRUE: the true equator of date, turned about the true equinox by the true
-    # obliquity (mean IAU 2006 obliquity plus the nutation in obliquity).  Built from the
-    # steps of ERFA pnm06a (Fukushima-Williams angles, nutation, fw2m), so that the IAU
-    # 2000A series, the costly part, is evaluated once for both; pfw06's epsa is obl06.
+    # The true systems from the steps of ERFA pnm06a (Fukushima-Williams angles, the
+    # nutation, fw2m), so that the IAU 2000A series, the costly part, is evaluated once
+    # (or interpolated) for both.  EQUATORIAL TRUE is pnm06a itself, to the bit; ECLIPTIC
+    # TRUE turns the true equator about the true equinox by the true obliquity (the mean
+    # IAU 2006 obliquity, pfw06's epsa, plus the nutation in obliquity).
     gamb, phib, psib, epsa = erfa.pfw06(jd1, jd2)
-    dpsi, deps = erfa.nut06a(jd1, jd2)
-    return erfa.rx(epsa + deps, erfa.fw2m(gamb, phib, psib + dpsi, epsa + deps))
+    dpsi, deps = nutation(jd1, jd2)
+    m = erfa.fw2m(gamb, phib, psib + dpsi, epsa + deps)
+    return m if system == "EQUATORIAL TRUE" else erfa.rx(epsa + deps, m)
 
 
 @lru_cache(maxsize=2048)
@@ -111,8 +123,11 @@ def check_system(name):
     return word
 
 
-def system_matrix(system, jd1=None, jd2=None, given=None):
-    """Rotation(s) from ICRS axes to ``system`` at TT dates (arrays, or None if fixed)."""
+def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False):
+    """Rotation(s) from ICRS axes to ``system`` at TT dates (arrays, or None if fixed).
+    ``smooth``: the nutation may be interpolated over nodes in a dense column (for the
+    places of bodies, whose own theories are far coarser than the interpolation; a
+    conversion of the user's coordinates keeps the series itself)."""
     system = check_system(system)
     if system not in DATED:
         return _fixed(system)
@@ -126,7 +141,7 @@ def system_matrix(system, jd1=None, jd2=None, given=None):
         # One date for every row (a single cell against a column): one matrix.
         m = _dated_one(system, float(jd1.ravel()[0]), float(jd2.ravel()[0]))
         return np.broadcast_to(m, jd1.shape + (3, 3))
-    return _dated(system, jd1, jd2)
+    return _dated(system, jd1, jd2, nutation_over_nodes if smooth else _nutation)
 
 
 def rotate(v, m_from, m_to):

@@ -19,7 +19,7 @@ at once (events.py).
 import erfa
 import numpy as np
 
-from . import bodies, ephemeris, events, frames, vectors
+from . import bodies, ephemeris, events, frames, nodes, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
 from .timescales import DateTimes, Instants
@@ -222,9 +222,6 @@ def _altitude(ra, dec, gast, latitude, longitude):
 SMOOTH_DAYS = 1e-11
 
 
-_NODES = 6
-
-
 class SunOverDays:
     """The apparent Sun (RA and Dec on the true equator and equinox of date) and
     Greenwich apparent sidereal time over windows of about a day, one per row, for the
@@ -241,17 +238,17 @@ class SunOverDays:
     interpolation stays within microarcseconds of the direct computation (tested against
     it over dense random instants)."""
 
-    SPACING = 0.5  # days between nodes
-    NODES = _NODES  # the window [start, start + 1] lies between the second and fifth
+    SPACING = nodes.SPACING  # days between nodes
+    NODES = nodes.NODES  # the window [start, start + 1] lies between the second and fifth
 
     def __init__(self, start, dut1=0.0):
         start = np.ravel(np.asarray(start, dtype=float))
         self.dut1 = dut1
         self.origin = np.floor(start / self.SPACING) * self.SPACING - self.SPACING
-        nodes = self.origin[:, None] + self.SPACING * np.arange(self.NODES)
-        _check_rows_of_nodes(nodes)
-        unique, self.index = np.unique(nodes, return_inverse=True)
-        self.index = self.index.reshape(nodes.shape)
+        grid = self.origin[:, None] + self.SPACING * np.arange(self.NODES)
+        _check_rows_of_nodes(grid)
+        unique, self.index = np.unique(grid, return_inverse=True)
+        self.index = self.index.reshape(grid.shape)
         # TT - UT (days) at the nodes, interpolated too where it is smooth over the
         # row's nodes; a leap second or a 1960s step of UTC (a jump in UT1 = UTC + DUT1)
         # shows in its second differences, and such rows take UT exactly everywhere.
@@ -261,23 +258,9 @@ class SunOverDays:
         self.values = np.concatenate([_node_values(unique), ((unique - ut.jd1) - ut.jd2)[:, None]],
                                      axis=1)
 
-    # Each node's Lagrange denominator: the product of its distances to the others.
-    _DENOMINATORS = np.array([np.prod([k - j for j in range(_NODES) if j != k])
-                              for k in range(_NODES)], dtype=float)
-
-    def _weights(self, x):
-        """Lagrange weights of the nodes at ``x`` (in node steps): for each node the
-        product of the gaps to the other nodes, over the node's own denominator."""
-        gaps = x[:, None] - np.arange(self.NODES, dtype=float)[None, :]
-        before = np.ones((x.size, self.NODES + 1))
-        after = np.ones((x.size, self.NODES + 1))
-        before[:, 1:] = np.cumprod(gaps, axis=1)
-        after[:, :-1] = np.cumprod(gaps[:, ::-1], axis=1)[:, ::-1]
-        return before[:, :-1] * after[:, 1:] / self._DENOMINATORS
-
     def at(self, jd1, jd2, row):
         """(RA, Dec in degrees, GAST in radians) at TT instants of the rows' windows."""
-        weights = self._weights(((jd1 - self.origin[row]) + jd2) / self.SPACING)
+        weights = nodes.weights(((jd1 - self.origin[row]) + jd2) / self.SPACING)
         values = np.einsum("mk,mkc->mc", weights, self.values[self.index[row]])
         ra, dec = frames.spherical(values[:, :3])
         ut1, ut2 = np.broadcast_to(jd1, ra.shape).copy(), jd2 - values[:, 4]
@@ -415,14 +398,14 @@ def _stack(pairs):
     return jd1, jd2, row
 
 
-def _check_rows_of_nodes(nodes):
-    """The built-in theories' years, checked for every node of every row (rows x nodes):
+def _check_rows_of_nodes(grid):
+    """The built-in theories' years, checked for every node of every row (rows x grid):
     a row with a node outside gets the message (the last day or two of the range, whose
-    nodes reach past it, included)."""
+    grid reach past it, included)."""
     try:
-        ephemeris.check_builtin_years(nodes, np.zeros(nodes.shape))
+        ephemeris.check_builtin_years(grid, np.zeros(grid.shape))
     except RowErrors as err:
-        per_row = np.reshape(err.messages, nodes.shape)
+        per_row = np.reshape(err.messages, grid.shape)
         first = [next((m for m in r if m is not None), None) for r in per_row]
         raise RowErrors(np.array(first, dtype=object)) from None
 
