@@ -131,7 +131,7 @@ def _read_option(arg, value):
 def _all_floats(values):
     """The values as a float array when every one is a Python float (the usual column
     of numbers from Calc), else None."""
-    if values.size > 1 and all(type(v) is float for v in values):
+    if values.size > 1 and set(map(type, values)) == {float}:  # the type walk in C
         return values.astype(float)
     return None
 
@@ -185,7 +185,7 @@ def _passed_on(values):
     """Messages for rows whose input is itself a #SKY: message from another cell: the
     first problem is passed on as it is, instead of 'is not an angle'."""
     out = np.full(len(values), None, dtype=object)
-    if not any(type(v) is str for v in values):
+    if str not in set(map(type, values)):  # the type walk in C
         return out
     for i, v in enumerate(values):
         if type(v) is str and v.startswith(PREFIX):
@@ -468,10 +468,62 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         result = f"{PREFIX}internal error ({type(err).__name__}: {err}); please report it"
         key = None
     if key is not None:
-        if len(_SINGLE_CELL_CACHE) >= _SINGLE_CELL_CACHE_SIZE:
-            _SINGLE_CELL_CACHE.popitem()
-        _SINGLE_CELL_CACHE[key] = result
+        _keep(key, result)
+        if fn.fills_down:
+            _fill_down(fn, raw_args, null_date, key)
     return result
+
+
+def _keep(key, result):
+    if len(_SINGLE_CELL_CACHE) >= _SINGLE_CELL_CACHE_SIZE:
+        _SINGLE_CELL_CACHE.popitem()
+    _SINGLE_CELL_CACHE[key] = result
+
+
+# A formula filled down a column of days (=SKY.SUN.SET(A5;...) with A5 = A4+1) asks for
+# one day per cell, each a call of its own with the fixed cost of a whole event search.
+# When a cell finds the day before (or after) its own already answered with the same
+# other arguments, the sheet is stepping through days: the next FILL_AHEAD days are
+# computed in one column call and kept, so the cells below find their answers.  A
+# column call gives each row the value it gives that row alone (tests/test_column_form),
+# and the keys are those of the cells to come: the same arguments, the day moved by
+# one, as Calc's own addition moves it.
+FILL_AHEAD = 31
+
+
+def _fill_down(fn, raw_args, null_date, key):
+    k = next(i for i, a in enumerate(fn.args) if a.name == fn.fills_down)
+    if k >= len(raw_args) or type(raw_args[k]) is not float:
+        return
+    typed = list(key[1])
+
+    def key_at(value):
+        typed[k] = (float, value)
+        return (key[0], tuple(typed), key[2])
+
+    here = raw_args[k]
+    if key_at(here - 1.0) in _SINGLE_CELL_CACHE:
+        step = 1.0
+    elif key_at(here + 1.0) in _SINGLE_CELL_CACHE:
+        step = -1.0
+    else:
+        return
+    ahead, value = [], here
+    for _ in range(FILL_AHEAD):
+        value = value + step
+        if key_at(value) not in _SINGLE_CELL_CACHE:
+            ahead.append(value)
+    if len(ahead) < 2:
+        return
+    args = list(raw_args)
+    args[k] = tuple((v,) for v in ahead)
+    try:
+        with np.errstate(all="ignore"):
+            found = _evaluate(fn, args, null_date)
+    except Exception:  # noqa: BLE001 - the cells themselves will say what is wrong
+        return
+    for value, (result,) in zip(ahead, found):
+        _keep(key_at(value), result)
 
 
 def call_strict(name, args, null_date=(1899, 12, 30)):

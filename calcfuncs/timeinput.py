@@ -254,7 +254,7 @@ def read_times(values, scale, null_jd, dut1=0.0):
     jd2 = np.zeros(n)
     messages = np.full(n, None, dtype=object)
 
-    if n > 1 and all(type(v) is float for v in values):
+    if n > 1 and set(map(type, values)) == {float}:  # the type walk in C
         # The usual column of date-time cells: checked and converted in one go.
         serials = values.astype(float)
         with np.errstate(invalid="ignore"):

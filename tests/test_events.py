@@ -299,3 +299,30 @@ def test_an_estimate_with_no_sign_change_finds_nothing_and_an_error_keeps_its_ro
                              estimate(a, b, row))
     assert list(roots.row) == [1]
     np.testing.assert_allclose(root_days(roots), [105.5], rtol=0, atol=TOL)
+
+
+def test_polish_takes_near_guesses_to_the_roots_of_the_full_function():
+    # The zeros of sin(2 pi t / 7.3) at k * 3.65 (closed form), from guesses off by up
+    # to an hour with the sine's slope at the root off by 5 per cent: Newton then secant
+    # steps settle each one within the tolerance.
+    k = np.arange(1, 6)
+    truth = 3.65 * k
+    rng = np.random.default_rng(3)
+    guesses = events.Roots(np.full(k.size, J0), truth + rng.uniform(-0.04, 0.04, k.size),
+                           np.arange(k.size))
+    slope = 1.05 * 2.0 * np.pi / 7.3 * np.cos(np.pi * k)
+    found, settled = events.polish(sine(7.3), guesses, slope, k.size)
+    assert settled.all()
+    assert np.max(np.abs(root_days(found) - truth)) < TOL
+
+
+def test_polish_leaves_a_guess_that_runs_away_to_the_caller():
+    # A guess at the top of the sine (slope zero, closed form) is thrown far away by a
+    # Newton step with the true slope; it is reported as not settled, and the row's
+    # other guess, near a root, settles.
+    guesses = events.Roots(np.full(2, J0), np.array([7.3 / 4.0 + 1e-7, 3.65 + 0.01]),
+                           np.array([0, 1]))
+    slope = 2.0 * np.pi / 7.3 * np.cos(2.0 * np.pi * guesses.jd2 / 7.3)
+    found, settled = events.polish(sine(7.3), guesses, slope, 2)
+    assert list(settled) == [False, True]
+    assert abs(root_days(found)[1] - 3.65) < TOL

@@ -1011,3 +1011,22 @@ def test_a_column_filled_down_cell_by_cell_equals_the_column_and_stays_bounded(m
         monkeypatch.setattr(sun, "_DAY_CACHE", {})
         monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
         assert cells.evaluate("SKY.SUN.SET", [d, -33.9, 18.4, "UTC", 2.0]) == value
+
+
+def test_a_season_whose_polish_goes_astray_is_found_by_brackets(monkeypatch):
+    # The instants come from Newton steps on the rough longitude's crossings; a row
+    # whose steps do not settle is searched again by brackets on the full theory.  The
+    # same instants (within the search's 1e-8 day) either way.
+    from calcfuncs import events
+
+    years = np.arange(2020, 2030)
+    j1, j2 = sun.season_instant(years, "SEPTEMBER")
+    real = events.polish
+
+    def astray(f, guesses, slope, n, **kw):
+        found, settled = real(f, guesses, slope, n, **kw)
+        return found, settled & (guesses.row % 3 != 1)
+
+    monkeypatch.setattr(events, "polish", astray)
+    k1, k2 = sun.season_instant(years, "SEPTEMBER")
+    assert np.max(np.abs((k1 - j1) + (k2 - j2))) < 1e-8

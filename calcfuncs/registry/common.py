@@ -71,7 +71,10 @@ class CellFunction:
 
     ``result`` is the Wizard's words for the result; ``result_kind`` (one of
     RESULT_KINDS) is what the adapter, the cell layer and the API act on.  ``family``
-    is filled in by the ``Family`` that lists the function."""
+    is filled in by the ``Family`` that lists the function.  ``fills_down`` names the
+    argument that a sheet steps by one (a day, a year) from row to row when the formula
+    is filled down a column of days or years: the cell layer then computes the rows
+    ahead in one call (cells.py)."""
 
     name: str
     method: str
@@ -82,11 +85,14 @@ class CellFunction:
     model: str = ""
     result_kind: str = "number"
     family: str = ""
+    fills_down: str = ""
 
     def __post_init__(self):
         if self.result_kind not in RESULT_KINDS:
             raise ValueError(f"{self.name}: result_kind {self.result_kind!r} is not one of "
                              f"{RESULT_KINDS}")
+        if self.fills_down and self.fills_down not in [a.name for a in self.args]:
+            raise ValueError(f"{self.name}: fills_down {self.fills_down!r} is not an argument")
 
     @property
     def returns_text(self):

@@ -55,7 +55,8 @@ def _sun_place(name, method, summary, result, impl, args=_PLACE_ARGS):
 def _rise_fn(name, method, summary, impl):
     return CellFunction(name=name, method=method, summary=summary, args=_RISE_ARGS,
                         result="a date-time value (local), or a text when it does not happen",
-                        result_kind="datetime", impl=impl, model=_RISE_MODEL)
+                        result_kind="datetime", impl=impl, model=_RISE_MODEL,
+                        fills_down="date")
 
 
 FAMILY = Family("sun", f"The Sun and the year ({vocab.SUN_CAUTION_SHORT})", (
@@ -105,13 +106,14 @@ FAMILY = Family("sun", f"The Sun and the year ({vocab.SUN_CAUTION_SHORT})", (
                   choices=SCALES)),
         result="a date-time value on the result scale",
         result_kind="datetime",
-        impl="sun:season_cells", model=_SEASON_MODEL,
+        impl="sun:season_cells", model=_SEASON_MODEL, fills_down="year",
     ),
     CellFunction(
         name="SKY.SEASON.LENGTH", method="skySeasonLength",
         summary="Length of the season that an equinox or solstice opens, to the next one.",
         args=(_YEAR, _SEASON_EVENT),
         result="days", impl="sun:season_length_cells", model=_SEASON_MODEL,
+        fills_down="year",
     ),
     CellFunction(
         name="SKY.SUN.REACHES", method="skySunReaches",
@@ -138,14 +140,14 @@ FAMILY = Family("sun", f"The Sun and the year ({vocab.SUN_CAUTION_SHORT})", (
         summary="Hours of the local day with the Sun above the horizon (or above a "
         "twilight altitude): 24 in polar day, 0 in polar night.",
         args=_RISE_ARGS,
-        result="hours", impl="sun:daylength_cells", model=_RISE_MODEL,
+        result="hours", impl="sun:daylength_cells", model=_RISE_MODEL, fills_down="date",
     ),
     CellFunction(
         name="SKY.SUN.TRANSIT", method="skySunTransit",
         summary="Local time of the Sun's transit of the meridian (local apparent noon).",
         args=_DAY_AT_SITE,
         result="a date-time value (local)", result_kind="datetime",
-        impl="sun:transit_cells", model=_RISE_MODEL,
+        impl="sun:transit_cells", model=_RISE_MODEL, fills_down="date",
     ),
     CellFunction(
         name="SKY.SUN.ELONGATION", method="skySunElongation",

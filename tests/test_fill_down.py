@@ -1,0 +1,92 @@
+"""Cells filled down a column of days: the rows ahead computed in one call and kept
+(cells.py, FILL_AHEAD) must give every cell the value it gives alone, and a changed
+argument must never find a kept answer of other arguments.
+
+The reference for each value is the same function evaluated for that cell alone with
+every cache emptied (its accuracy is checked against almanacs and skyfield elsewhere).
+"""
+
+import numpy as np
+import pytest
+
+from calcfuncs import cells, registry, sun
+
+FILLS_DOWN = [f for f in registry.FUNCTIONS if f.fills_down]
+SITE = (47.3814, 8.0542)  # an invented hill station
+
+
+def forget():
+    cells._SINGLE_CELL_CACHE.clear()
+    sun._DAY_CACHE.clear()
+    sun._NODE_CACHE.clear()
+
+
+def args_for(fn, value, latitude=SITE[0]):
+    if fn.fills_down == "year":
+        return [value, "JUNE"]
+    return [value, latitude, SITE[1], None, 1.0]
+
+
+def alone(fn, value, **kw):
+    forget()
+    return cells.evaluate(fn, args_for(fn, value, **kw))
+
+
+def test_the_functions_that_fill_down():
+    names = {f.name for f in FILLS_DOWN}
+    assert names == {"SKY.SUN.RISE", "SKY.SUN.SET", "SKY.SUN.DAYLENGTH", "SKY.SUN.TRANSIT",
+                     "SKY.SEASON", "SKY.SEASON.LENGTH"}
+
+
+@pytest.mark.parametrize("fn", FILLS_DOWN, ids=lambda f: f.name)
+@pytest.mark.parametrize("step", [1.0, -1.0])
+def test_filled_down_cells_equal_each_cell_alone(fn, step):
+    start = 2020.0 if fn.fills_down == "year" else 46023.0  # 2026-01-01
+    values = [start + step * k for k in range(40)]
+    forget()
+    filled = [cells.evaluate(fn, args_for(fn, v)) for v in values]
+    # After the second cell the next ones were computed ahead and kept.
+    assert all(isinstance(v, (float, str)) for v in filled)
+    for v, got in zip(values[::7], filled[::7]):
+        assert got == alone(fn, v), (fn.name, v)
+
+
+def test_rows_ahead_are_kept_after_two_neighbouring_cells():
+    fn = registry.BY_NAME["SKY.SUN.SET"]
+    forget()
+    cells.evaluate(fn, args_for(fn, 46023.0))
+    before = len(cells._SINGLE_CELL_CACHE)
+    cells.evaluate(fn, args_for(fn, 46024.0))
+    assert len(cells._SINGLE_CELL_CACHE) == before + 1 + cells.FILL_AHEAD
+
+
+def test_a_changed_site_never_finds_the_other_sites_days():
+    fn = registry.BY_NAME["SKY.SUN.SET"]
+    forget()
+    first = [cells.evaluate(fn, args_for(fn, 46023.0 + k)) for k in range(10)]
+    moved = [cells.evaluate(fn, args_for(fn, 46023.0 + k, latitude=60.0)) for k in range(10)]
+    assert all(a != b for a, b in zip(first, moved))
+    for k in (2, 5, 9):
+        assert moved[k] == alone(fn, 46023.0 + k, latitude=60.0)
+
+
+def test_another_null_date_is_another_answer():
+    fn = registry.BY_NAME["SKY.SUN.RISE"]
+    forget()
+    for k in range(5):
+        cells.evaluate(fn, args_for(fn, 46023.0 + k))
+    other = cells.evaluate(fn, args_for(fn, 46026.0), null_date=(1904, 1, 1))
+    forget()
+    assert other == cells.evaluate(fn, args_for(fn, 46026.0), null_date=(1904, 1, 1))
+    # The same serial is another date under the 1904 null date (2030 instead of 2026):
+    # another sunrise, though at nearly the same time of day.
+    assert other != cells.evaluate(fn, args_for(fn, 46026.0))
+
+
+def test_steps_other_than_a_day_compute_nothing_ahead():
+    fn = registry.BY_NAME["SKY.SUN.SET"]
+    forget()
+    for k in range(4):
+        cells.evaluate(fn, args_for(fn, 46023.0 + 7.0 * k))
+    assert len(cells._SINGLE_CELL_CACHE) == 4
+    assert np.isfinite(cells.evaluate(fn, args_for(fn, 46100.0)))
