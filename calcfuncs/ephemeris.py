@@ -9,10 +9,11 @@ tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82 truncated).  No Plut
 
 A kernel: a JPL Development Ephemeris in SPK form, named by its word (DE440, DE441:
 found by kernelfiles, e.g. the DE440 excerpt shipped in the extension) or by the path of
-any .bsp file, its structure checked (spkfile) and then read with jplephem.  Each body is reached through a chain of
-segments (Mars: barycentre -> Mars barycentre; the Moon: barycentre -> Earth-Moon
-barycentre -> Moon); every date is checked against the spans of the segments actually
-used, and a date that no segment covers is refused, never answered from a neighbour.
+any .bsp file, its structure checked (spkfile) and then read with jplephem.  Each body
+is reached through a chain of segments (Mars: barycentre -> Mars barycentre; the Moon:
+barycentre -> Earth-Moon barycentre -> Moon); every date is checked against the spans
+of the segments actually used, and a date that no segment covers is refused, never
+answered from a neighbour.
 A kernel that holds only a planet's system barycentre (DE440 for Mars to Pluto) gives
 that barycentre, and the description says so.
 
@@ -158,7 +159,8 @@ class Kernel:
                  if self._code(b) is not None and self._code(b) < 10]
         note = f"; {', '.join(barys)} as system barycentres" if barys else ""
         files = ", ".join(os.path.basename(p) for p in self.paths)
-        where = (f"{self.label}: JPL kernel {files} from {self.origin} ({os.path.dirname(self.paths[0])})"
+        folder = os.path.dirname(self.paths[0])
+        where = (f"{self.label}: JPL kernel {files} from {self.origin} ({folder})"
                  if self.origin else f"JPL kernel {self.label}")
         return f"{where}, {text}{note}"
 
@@ -248,11 +250,7 @@ def check_source(value):
     if word in KERNEL_WORDS:
         get(word)  # found and opened now, so a problem is reported once for the column
         return word
-    path = text
-    if path.startswith("file://"):
-        from urllib.parse import unquote, urlparse
-        path = unquote(urlparse(path).path)
-    path = os.path.expanduser(path)
+    path = _typed_path(text)
     if not path.lower().endswith(".bsp"):
         raise SkyError(f'unknown ephemeris source "{text}"; use ' + SOURCE_WORDS)
     if not os.path.isabs(path):
@@ -261,6 +259,14 @@ def check_source(value):
     path = os.path.normpath(path)
     get(path)  # opens it now, so a bad path is reported once for the whole column
     return path
+
+
+def _typed_path(text):
+    """The file a typed path or file:// URL names (not yet checked)."""
+    if text.startswith("file://"):
+        from urllib.parse import unquote, urlparse
+        text = unquote(urlparse(text).path)
+    return os.path.expanduser(text)
 
 
 def _files_of(source):
@@ -282,7 +288,7 @@ def content_stamp(value):
         if word in KERNEL_WORDS:
             paths = kernelfiles.find(word).paths
         else:
-            paths = (os.path.normpath(os.path.expanduser(str(value).strip().strip('"'))),)
+            paths = (os.path.normpath(_typed_path(str(value).strip().strip('"'))),)
         return tuple(spkfile.stamp(p) for p in paths)
     except SkyError as err:
         return str(err)

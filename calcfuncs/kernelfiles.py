@@ -103,7 +103,11 @@ def find(word):
     folder = user_folder()
     paths = _user_paths(word, folder)
     if paths:
-        hint = "" if word == "DE441" else "; for other dates use DE441: " + how_to_add("DE441")
+        if word == "DE440":
+            hint = "; for other dates use DE441: " + how_to_add("DE441")
+        else:  # one part of DE441 alone: say how to add the other
+            alone = len(paths) == 1 and "_part-" in os.path.basename(paths[0])
+            hint = "; " + how_to_add("DE441") if alone else ""
         return Found(word, paths, "your kernel folder", hint)
     if word == "DE440":
         package = package_de440()

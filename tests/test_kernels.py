@@ -165,6 +165,38 @@ def test_a_crafted_kernel_gets_a_message_naming_its_problem(crafted, name):
     assert said.startswith("#SKY: ") and mention in said
 
 
+def _big_endian_copy(src, dst):
+    """The same kernel written big-endian, as DAF allows (format word BIG-IEEE)."""
+    data = bytearray(open(src, "rb").read())
+
+    def swap(offset, fmt):
+        value = struct.unpack_from("<" + fmt, data, offset)
+        struct.pack_into(">" + fmt, data, offset, *value)
+
+    for offset in (8, 12, 76, 80, 84):  # ND, NI, FWARD, BWARD, FREE
+        swap(offset, "i")
+    data[88:96] = b"BIG-IEEE"
+    fward, _ = _layout(src)
+    rec = (fward - 1) * 1024
+    nsum = int(struct.unpack_from("<d", data, rec + 16)[0])
+    swap(rec, "3d")
+    for k in range(nsum):
+        at = rec + 24 + 40 * k
+        first, last = struct.unpack_from("<2i", data, at + 32)
+        swap(at, "2d6i")
+        for word in range(first, last + 1):
+            swap(8 * (word - 1), "d")
+    open(dst, "wb").write(bytes(data))
+    return str(dst)
+
+
+def test_a_big_endian_kernel_is_read_alike(small, tmp_path):
+    big = _big_endian_copy(small, tmp_path / "big.bsp")
+    assert open(big, "rb").read() != open(small, "rb").read()
+    got = _answer(big)
+    assert isinstance(got, float) and got == _answer(small)
+
+
 def test_jplephem_alone_would_loop_on_the_looping_chain(crafted):
     # Why the structure is checked before jplephem sees a file: its chain walk on the
     # looping file never ends (stopped here after 1,000 records).
@@ -268,6 +300,23 @@ def test_de441_by_word_from_the_user_folder(excerpt_only):
         got = evaluate("SKY.SUN.RA", [day, "TT", "TRUE", "APPARENT", "DE441"])
         ref = evaluate("SKY.SUN.RA", [day, "TT", "TRUE", "APPARENT", DE440])
         assert isinstance(got, float) and abs(got - ref) < 1e-12
+
+
+def test_one_part_of_de441_alone_says_how_to_add_the_other(excerpt_only):
+    _excerpt(excerpt_only / "de441_part-2.bsp", "1969/07/29", "2200/01/01")
+    got = evaluate("SKY.SUN.RA", ["1950-01-01", "TT", "TRUE", "APPARENT", "DE441"])
+    assert got.startswith("#SKY: the date is outside the span of DE441"), got
+    assert "1969-07-29 to 2200-01-01" in got and "put de441_part-1.bsp and" in got
+
+
+def test_a_file_url_is_read_again_when_replaced(tmp_path):
+    path = tmp_path / "url.bsp"
+    _excerpt(path, "2024/01/01", "2024/03/01")
+    url = path.as_uri()
+    assert "2024-01-01 to 2024-03-01" in evaluate("SKY.EPHEMERIS", [url])
+    _excerpt(tmp_path / "next.bsp", "2024/05/01", "2024/07/01")
+    os.replace(tmp_path / "next.bsp", path)
+    assert "2024-05-01 to 2024-07-01" in evaluate("SKY.EPHEMERIS", [url])
 
 
 def test_no_de440_anywhere_says_how_to_add_it(excerpt_only, tmp_path, monkeypatch):
