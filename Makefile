@@ -39,6 +39,7 @@ bench: oxt
 	$(PY) bench/bench_core.py --json out/bench-core.json
 	$(PY) bench/bench_libraries.py --json out/bench-libraries.json
 	$(PY) bench/bench_recalc.py --oxt $(OXT) --json out/bench-recalc.json
+	$(PY) bench/bench_kernels.py --oxt $(OXT) --json out/bench-kernels.json
 
 clean:
 	rm -rf build dist out .pytest_cache

@@ -445,6 +445,16 @@ def _hashable(args):
         return False
 
 
+def _kernel_stamps(fn, raw_args):
+    """What the kernels named in a call hold now (ephemeris.content_stamp): part of the
+    kept answer's key, so that a kernel replaced, added or removed on disk is read again
+    and a message about a bad file goes once the file is mended."""
+    return tuple(ephemeris.content_stamp(value)
+                 for arg, value in zip(fn.args, raw_args)
+                 if (arg.kind == "source" or arg.name == "source")  # SKY.EPHEMERIS: text
+                 and isinstance(value, str))
+
+
 def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     """The value a cell shows: a number, a text, or a tuple of row tuples for ranges.
 
@@ -455,7 +465,8 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     key = None
     if not any(isinstance(a, (tuple, list)) for a in raw_args) and _hashable(raw_args):
         # With each argument's type, since 1, 1.0 and True are one key but not one input.
-        key = (fn.method, tuple((type(a), a) for a in raw_args), tuple(null_date))
+        key = (fn.method, tuple((type(a), a) for a in raw_args), tuple(null_date),
+               _kernel_stamps(fn, raw_args))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
             return hit

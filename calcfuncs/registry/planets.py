@@ -102,9 +102,9 @@ FAMILY = Family("planets", "The planets, and the ephemeris sources", (
             + _GEOCENTRIC_NOTE, result_kind="datetime"),
     CellFunction(
         name="SKY.EPHEMERIS", method="skyEphemeris",
-        summary="Which ephemeris a source is: its name, the span of dates it covers and "
-        "what it holds (to show beside results, so a sheet says where its numbers came "
-        "from).",
+        summary="Which ephemeris a source is: its name, where its files were found (for "
+        "DE440 and DE441), the span of dates it covers and what it holds (to show beside "
+        "results, so a sheet says where its numbers came from).",
         args=(Arg("source", "text", SOURCE.description, default=vocab.BUILTIN),),
         result="text", result_kind="text",
         impl="ephemeris:describe_cells",

