@@ -40,6 +40,7 @@ bench: oxt
 	$(PY) bench/bench_libraries.py --json out/bench-libraries.json
 	$(PY) bench/bench_recalc.py --oxt $(OXT) --json out/bench-recalc.json
 	$(PY) bench/bench_kernels.py --oxt $(OXT) --json out/bench-kernels.json
+	$(PY) bench/bench_sheets.py --oxt $(OXT) --json out/bench-sheets.json
 
 clean:
 	rm -rf build dist out .pytest_cache

@@ -145,10 +145,11 @@ def sun_longitude(rows, eph, ts, report):
 
 
 def _utc_fields(jd):
-    """UTC calendar fields of UTC quasi-JDs, for skyfield's ts.utc (ERFA jd2cal)."""
+    """UTC calendar fields (year, month, day, hour, minute, second) of UTC quasi-JDs,
+    for skyfield's ts.utc (ERFA jd2cal)."""
     whole = np.floor(jd - 0.5) + 0.5
     year, month, day, fraction = erfa.jd2cal(whole, jd - whole)
-    return year, month, day, fraction * 86400.0
+    return year, month, day, 0, 0, fraction * 86400.0
 
 
 def body_places(rows, eph, ts, report):

@@ -1,0 +1,196 @@
+"""What a user of the real Calc waits for: each function's cost per cell filled down, the
+sample sheets' opening, and a new site typed into the meteor sheet.
+
+A benchmark, not a test: it prints numbers and asserts nothing about speed.
+
+    .venv/bin/python bench/bench_sheets.py --oxt dist/eclipsheet.oxt [--rows 2000]
+                                           [--json out.json]
+
+1 functions  one formula per row, filled down ``--rows`` rows of distinct inputs in a
+             fresh document with automatic calculation off; the first ``calculateAll()``
+             timed (cold: nothing kept yet for these inputs), then a second (warm).
+             Beside them the bridge floor (=SKY.VERSION(), a cached text) and a native
+             formula (=MOD(A;360)).  Event functions filled down a column of days (or
+             years) for the rise and set, as a sheet of nights has them.
+2 sheets     each sample sheet opened (in an office whose add-in is already loaded, as
+             after a first formula), then ``calculateAll()``
+3 edit       a new latitude typed into the site cell of ``meteor_watch.ods`` until every
+             cell of the workbook is computed again and read back (a hidden document
+             computes lazily: reading is what makes it compute, as drawing would)
+
+Inputs are invented: the patrol-camera log of bench_recalc.py (2024-2026), consecutive
+days of 2025 at an invented hill station (47.3814 N, 8.0542 E), years 1000 to 2999.
+"""
+
+import argparse
+import json
+import os
+import sys
+import time
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+sys.path.insert(0, ROOT)
+sys.path.insert(0, os.path.join(ROOT, "tools"))
+sys.path.insert(0, os.path.join(ROOT, "bench"))
+
+from bench_recalc import log_times  # noqa: E402
+
+SITE = "47.3814;8.0542"
+FIRST_DAY = 45658.0  # 2025-01-01 as a Calc date value (null date 1899-12-30)
+
+# name -> (kind of input in column A, formula of row r). Kinds: log (distinct date-times),
+# days (consecutive dates), years (consecutive years).
+CASES = {
+    "floor: SKY.VERSION()": ("log", "=SKY.VERSION()"),
+    "native: MOD(A;360)": ("log", "=MOD(A{r};360)"),
+    "SKY.WRAP.360": ("log", "=SKY.WRAP.360(A{r})"),
+    "SKY.JD": ("log", '=SKY.JD(A{r};"UTC";"TT")'),
+    "SKY.OBLIQUITY.TRUE": ("log", "=SKY.OBLIQUITY.TRUE(A{r})"),
+    "SKY.SUN.LON": ("log", "=SKY.SUN.LON(A{r})"),
+    "SKY.MOON.LON": ("log", "=SKY.MOON.LON(A{r})"),
+    "SKY.PLANET.RA": ("log", '=SKY.PLANET.RA("MARS";A{r})'),
+    "SKY.SUN.RISE": ("days", f"=SKY.SUN.RISE(A{{r}};{SITE})"),
+    "SKY.SUN.TRANSIT": ("days", f"=SKY.SUN.TRANSIT(A{{r}};{SITE})"),
+    "SKY.SUN.REACHES": ("log", "=SKY.SUN.REACHES(140;A{r})"),
+    "SKY.MOON.PHASE.NEXT": ("log", '=SKY.MOON.PHASE.NEXT(A{r};;"FULL")'),
+    "SKY.PLANET.EVENT.NEXT": ("log", '=SKY.PLANET.EVENT.NEXT("MARS";A{r};;"OPPOSITION")'),
+    "SKY.SEASON": ("years", '=SKY.SEASON(A{r};"JUNE")'),
+}
+
+
+def inputs(kind, n):
+    if kind == "log":
+        return [float(v) for v in log_times(n)]
+    if kind == "days":
+        return [FIRST_DAY + k for k in range(n)]
+    return [float(1000 + (k % 2000)) for k in range(n)]
+
+
+def function_case(office, kind, formula, n):
+    from com.sun.star.sheet.FillDirection import TO_BOTTOM
+
+    doc = office.new_sheet()
+    try:
+        sheet = doc.Sheets.getByIndex(0)
+        doc.enableAutomaticCalculation(False)
+        sheet.getCellRangeByName(f"A2:A{n + 1}").setDataArray(
+            tuple((v,) for v in inputs(kind, n)))
+        sheet.getCellRangeByName("B2").setFormula(formula.format(r=2))
+        target = sheet.getCellRangeByName(f"B2:B{n + 1}")
+        target.fillAuto(TO_BOTTOM, 1)
+        t0 = time.perf_counter()
+        doc.calculateAll()
+        cold = time.perf_counter() - t0
+        t0 = time.perf_counter()
+        doc.calculateAll()
+        warm = time.perf_counter() - t0
+        values = [row[0] for row in target.getDataArray()]
+        problems = [v for v in values if isinstance(v, str) and v.startswith("#SKY")]
+        return {"cold_s": cold, "warm_s": warm, "cells": n,
+                "messages": len(problems), "example_message": problems[0] if problems else None}
+    finally:
+        doc.close(True)
+
+
+def used_ranges(doc):
+    out = []
+    for i in range(doc.Sheets.getCount()):
+        sh = doc.Sheets.getByIndex(i)
+        cur = sh.createCursor()
+        cur.gotoEndOfUsedArea(False)
+        out.append(sh.getCellRangeByPosition(0, 0, cur.RangeAddress.EndColumn,
+                                             cur.RangeAddress.EndRow))
+    return out
+
+
+def sheets_part(office, folder, report):
+    out = {}
+    for name in sorted(os.listdir(folder)):
+        if not name.endswith(".ods"):
+            continue
+        t0 = time.perf_counter()
+        doc = office.open(os.path.join(folder, name))
+        opened = time.perf_counter() - t0
+        try:
+            t0 = time.perf_counter()
+            for r in used_ranges(doc):
+                r.getDataArray()
+            read = time.perf_counter() - t0
+            t0 = time.perf_counter()
+            doc.calculateAll()
+            hard = time.perf_counter() - t0
+        finally:
+            doc.close(True)
+        out[name] = {"open_s": opened, "read_s": read, "hard_recalculation_s": hard}
+        report(f"  {name:24s} open {opened:6.2f} s, every cell read {read:5.2f} s, "
+               f"hard recalculation {hard:6.2f} s")
+    return out
+
+
+def edit_part(office, folder, report):
+    doc = office.open(os.path.join(folder, "meteor_watch.ods"))
+    try:
+        lat = doc.NamedRanges.getByName("SiteLat").getReferredCells().getCellByPosition(0, 0)
+        ranges = used_ranges(doc)
+        for r in ranges:
+            r.getDataArray()
+        out = []
+        for value in (lat.getValue() + 0.25, lat.getValue() - 0.5):
+            t0 = time.perf_counter()
+            lat.setValue(value)
+            for r in ranges:
+                r.getDataArray()
+            out.append(time.perf_counter() - t0)
+            report(f"  latitude {value:.4f}: {out[-1]:.2f} s until every cell is read back")
+        return {"edit_s": out}
+    finally:
+        doc.close(True)
+
+
+def main(argv=None):
+    parser = argparse.ArgumentParser(description=__doc__.split("\n")[0])
+    parser.add_argument("--oxt", default=os.path.join(ROOT, "dist", "eclipsheet.oxt"))
+    parser.add_argument("--rows", type=int, default=2000)
+    parser.add_argument("--sheets", default=os.path.join(ROOT, "sample_sheets"))
+    parser.add_argument("--json", metavar="FILE")
+    opts = parser.parse_args(argv)
+    from officekit import Office
+
+    def report(msg):
+        print(msg, flush=True)
+
+    result = {"rows": opts.rows}
+    with Office(oxt=opts.oxt) as office:
+        # The first add-in call imports numpy, ERFA and the core: done before timing.
+        warm_up = office.new_sheet()
+        warm_up.Sheets.getByIndex(0).getCellByPosition(0, 0).setFormula("=SKY.JD(40000)")
+        warm_up.calculateAll()
+        warm_up.close(True)
+        report(f"functions, {opts.rows} cells each (per cell: cold, warm; x bridge floor)")
+        cases = {}
+        for name, (kind, formula) in CASES.items():
+            n = min(opts.rows, 365) if kind == "days" else opts.rows
+            res = function_case(office, kind, formula, n)
+            cases[name] = res
+        floor = cases["floor: SKY.VERSION()"]["cold_s"] / cases["floor: SKY.VERSION()"]["cells"]
+        for name, res in cases.items():
+            per = res["cold_s"] / res["cells"]
+            res["cold_us_per_cell"] = per * 1e6
+            res["warm_us_per_cell"] = res["warm_s"] / res["cells"] * 1e6
+            res["cold_x_floor"] = per / floor
+            report(f"  {name:24s} {res['cells']:5d} cells  cold {per * 1e6:8.1f} us "
+                   f"warm {res['warm_us_per_cell']:6.1f} us  x{per / floor:6.1f} of the floor"
+                   + (f"  ({res['messages']} messages: {res['example_message']})"
+                      if res["messages"] else ""))
+        result["functions"] = cases
+        report("sample sheets")
+        result["sheets"] = sheets_part(office, opts.sheets, report)
+        report("meteor_watch.ods, a new site latitude")
+        result["edit"] = edit_part(office, opts.sheets, report)
+    if opts.json:
+        with open(opts.json, "w") as f:
+            json.dump(result, f, indent=1)
+
+
+if __name__ == "__main__":
+    main()
