@@ -54,7 +54,7 @@ CASES = {
     "SKY.SUN.REACHES": ("log", "=SKY.SUN.REACHES(140;A{r})"),
     "SKY.MOON.PHASE.NEXT": ("log", '=SKY.MOON.PHASE.NEXT(A{r};;"FULL")'),
     "SKY.PLANET.EVENT.NEXT": ("log", '=SKY.PLANET.EVENT.NEXT("MARS";A{r};;"OPPOSITION")'),
-    "SKY.SEASON": ("years", '=SKY.SEASON(A{r};"JUNE")'),
+    "SKY.SEASON": ("years", '=SKY.SEASON(A{r};"JUNE";"TT")'),
 }
 
 

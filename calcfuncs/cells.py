@@ -341,6 +341,7 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
 def _evaluate_single(fn, raw_args, null_date):
     """One cell: the same path as a column of one row, without the grid bookkeeping."""
     options, rows = {}, {}
+    plain = fn.result_kind == "number"
     for a, raw in zip(fn.args, raw_args):
         if a.kind in registry.OPTION_KINDS:
             options[a.name] = _read_option(a, raw)
@@ -348,8 +349,53 @@ def _evaluate_single(fn, raw_args, null_date):
             column = np.empty(1, dtype=object)
             column[0] = raw
             rows[a.name] = column
+            plain = plain and type(raw) is float and a.kind in _PLAIN_KINDS
     null_jd = _null_jd(null_date)
+    if plain and rows:
+        found = _plain_single(fn, rows, options, null_jd)
+        if found is not None:
+            return found
     return _compute_group(fn, rows, options, null_jd)[0]
+
+
+_PLAIN_KINDS = ("number", "angle", "time")
+
+
+def _plain_single(fn, rows, options, null_jd):
+    """The usual single cell, its row arguments all numbers (a value, an angle, a
+    date-time value) and its result a number: the core called on one-element arrays
+    as the general path calls it, without that path's checks for texts, blanks and
+    messages from other cells.  None where anything is unusual (a message to give, a
+    result that is not one finite number): the general path then says what it says."""
+    func, params = _impl(fn)
+    kwargs = {k: v for k, v in options.items() if k in params}
+    for arg in fn.args:
+        if arg.kind not in registry.ROW_KINDS:
+            continue
+        value = rows[arg.name]
+        if arg.kind == "time":
+            scale, dut1 = options.get("scale", "UTC"), options.get("dut1", 0.0)
+            jd1, jd2, messages = read_times(value, scale, null_jd, dut1)
+            if messages[0] is not None:
+                return None
+            kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
+        else:
+            number = value.astype(float)
+            if not np.isfinite(number[0]):
+                return None
+            kwargs[arg.name] = number
+        if arg.name + "_given" in params:
+            kwargs[arg.name + "_given"] = np.ones(1, dtype=bool)
+    try:
+        out = func(**kwargs)
+    except (RowErrors, SkyError):
+        return None
+    if isinstance(out, DateTimes):
+        return None
+    out = np.asarray(out).reshape(-1)
+    if out.size != 1 or out.dtype.kind != "f" or not np.isfinite(out[0]):
+        return None
+    return float(out[0])
 
 
 def _evaluate(fn, raw_args, null_date):
@@ -510,7 +556,7 @@ def _fill_down(fn, raw_args, null_date, key):
 
     def key_at(value):
         typed[k] = (float, value)
-        return (key[0], tuple(typed), key[2])
+        return (key[0], tuple(typed)) + key[2:]
 
     here = raw_args[k]
     if key_at(here - 1.0) in _SINGLE_CELL_CACHE:
