@@ -190,6 +190,15 @@ EXAMPLES["SKY.PLANET.EVENT.NEXT"] = [
     ('"VENUS";A{r};;"INFERIOR";"TT";"' + DE440 + '"',
      lambda v: ["VENUS", v[0], None, "INFERIOR", "TT", DE440]),
 ]
+EXAMPLES["SKY.CONSTELLATION"] = [
+    ('B{r};C{r};"ICRS"', lambda v: [v[1], v[2], "ICRS"]),
+    ('B{r};C{r};"ECLIPTIC DATE";A{r};;"NAME"',
+     lambda v: [v[1], v[2], "ECLIPTIC DATE", v[0], None, "NAME"]),
+]
+EXAMPLES["SKY.CONSTELLATION.BODY"] = [
+    ('"SUN";A{r}', lambda v: ["SUN", v[0]]),
+    ('"MARS";A{r};;"NAME";;"' + DE440 + '"', lambda v: ["MARS", v[0], None, "NAME", None, DE440]),
+]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (

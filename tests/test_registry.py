@@ -120,6 +120,8 @@ FROZEN_METHODS = {
     "skyPlanetIlluminated": "SKY.PLANET.ILLUMINATED",
     "skyPlanetEventNext": "SKY.PLANET.EVENT.NEXT",
     "skyEphemeris": "SKY.EPHEMERIS",
+    "skyConstellation": "SKY.CONSTELLATION",
+    "skyConstellationBody": "SKY.CONSTELLATION.BODY",
 }
 
 
@@ -276,7 +278,8 @@ DECLARED_ORDER = (
     "skyPlanetHelioLon skyPlanetHelioLat skyPlanetHelioDist skyPlanetHelioX "
     "skyPlanetHelioY skyPlanetHelioZ skyPlanetLon skyPlanetLat skyPlanetRa skyPlanetDec "
     "skyPlanetDist skyPlanetLighttime skyPlanetElongation skyPlanetPhaseAngle "
-    "skyPlanetIlluminated skyPlanetEventNext skyEphemeris"
+    "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
+    "skyConstellation skyConstellationBody"
 ).split()
 
 
@@ -319,8 +322,9 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.SUN.RISE"] == "datetime"  # words where the Sun does not rise
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
-        "SKY.ECLIPSE.POSSIBLE", "SKY.EPHEMERIS", "SKY.TEXT.DATE", "SKY.TEXT.DMS",
-        "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
+        "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
+        "SKY.EPHEMERIS", "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO",
+        "SKY.VERSION"]
 
 
 def test_every_argument_has_a_noun_for_its_messages():

@@ -241,3 +241,19 @@ SOURCE_NOTE = (
     "checked against the kernel's segments; our results agree with skyfield and DE440 to "
     "0.001 arcsec."
 )
+
+# The coordinate systems of frames.py, as the Wizard names them.
+SYSTEMS_TEXT = choices_text(vocab.SYSTEMS, {
+    "EQUATORIAL J2000": "mean equator and equinox of J2000.0",
+    "EQUATORIAL DATE": "mean of date",
+    "EQUATORIAL TRUE": "true equator and equinox of date",
+    "ECLIPTIC J2000": "IAU 2006 ecliptic",
+    "ECLIPTIC DATE": "mean ecliptic and equinox of date",
+    "ECLIPTIC TRUE": "true equinox of date",
+}) + " (EQ and ECL abbreviate)"
+
+
+def system_arg(name, role):
+    """A coordinate system argument, required: no system is ever assumed."""
+    return Arg(name, "choice", f"Coordinate system {role}: " + SYSTEMS_TEXT + ". No default: "
+               "always say which.", choices=vocab.SYSTEMS, aliases=vocab.SYSTEM_ALIASES)

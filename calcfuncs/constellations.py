@@ -1,0 +1,88 @@
+"""The IAU constellation of a direction, of the Sun, the Moon or a planet.
+
+The boundaries are Delporte's (1930), tabulated by Roman (1987) as strips of constant
+right ascension and declination on the mean equator and equinox of B1875.0 (CDS VI/42,
+in constellation_bounds.py).  A direction is precessed to B1875.0 (IAU 2006, ERFA
+pmat06, from the ICRS axes) and looked up there.
+
+Roman's rule takes the first strip, in the catalogue's order, with RA_low <= RA < RA_high
+and Dec >= Dec_low.  The strips' edges cut the sphere into a grid of cells that each lie
+in one constellation, so the rule is applied once, at each cell's middle, when the module
+loads; a direction is then two binary searches and one table read.
+"""
+
+import erfa
+import numpy as np
+
+from . import bodies, ephemeris, frames, vectors
+from .constellation_bounds import NAMES, STRIPS
+from .vocabulary import BUILTIN
+
+# B1875.0 as a TT Julian date (a Besselian epoch: ERFA epb2jd).
+B1875 = erfa.epb2jd(1875.0)
+TO_B1875 = erfa.pmat06(*B1875)  # ICRS axes to the mean equator and equinox of B1875.0
+
+ABBREVIATIONS = tuple(sorted(NAMES))
+
+
+def _grid():
+    ra_low = np.array([s[0] for s in STRIPS]) * 15.0
+    ra_high = np.array([s[1] for s in STRIPS]) * 15.0
+    dec_low = np.array([s[2] for s in STRIPS])
+    owner = np.array([ABBREVIATIONS.index(s[3]) for s in STRIPS])
+    ra_edges = np.unique(np.concatenate([ra_low, ra_high, [0.0, 360.0]]))
+    dec_edges = np.unique(np.concatenate([dec_low, [-90.0, 90.0]]))
+    ra_mid = 0.5 * (ra_edges[:-1] + ra_edges[1:])
+    dec_mid = 0.5 * (dec_edges[:-1] + dec_edges[1:])
+    table = np.full((dec_mid.size, ra_mid.size), -1, dtype=np.int16)
+    for j, dec in enumerate(dec_mid):
+        inside = (dec >= dec_low)[:, None] & (ra_low[:, None] <= ra_mid) & (ra_mid < ra_high[:, None])
+        first = np.argmax(inside, axis=0)
+        table[j] = np.where(inside.any(axis=0), owner[first], -1)
+    if np.any(table < 0):
+        raise RuntimeError("the constellation strips leave part of the sky uncovered")
+    return ra_edges, dec_edges, table
+
+
+_RA_EDGES, _DEC_EDGES, _TABLE = _grid()
+
+
+def lookup_b1875(ra_deg, dec_deg):
+    """Index into ABBREVIATIONS of RA/Dec (degrees) on the equator and equinox of B1875.0."""
+    ra = np.mod(np.asarray(ra_deg, dtype=float), 360.0)
+    dec = np.clip(np.asarray(dec_deg, dtype=float), -90.0, 90.0)
+    i = np.clip(np.searchsorted(_RA_EDGES, ra, side="right") - 1, 0, _TABLE.shape[1] - 1)
+    j = np.clip(np.searchsorted(_DEC_EDGES, dec, side="right") - 1, 0, _TABLE.shape[0] - 1)
+    return _TABLE[j, i]
+
+
+def of_icrs_vectors(v):
+    """Indices into ABBREVIATIONS of directions on the ICRS (or GCRS) axes."""
+    ra, dec = frames.spherical(vectors.apply(TO_B1875, v))
+    return lookup_b1875(ra, dec)
+
+
+def _words(index, form):
+    abbr = np.array(ABBREVIATIONS, dtype=object)[index]
+    if form == "NAME":
+        return np.array([NAMES[a] for a in abbr.ravel()], dtype=object).reshape(abbr.shape)
+    return abbr
+
+
+# ---- cell functions -----------------------------------------------------------------
+
+
+def constellation_cells(lon, lat, system, time, time_given, form="ABBREVIATION"):
+    """The constellation of a direction given in any coordinate system of frames.py."""
+    frames.check_latitudes(lat)
+    tt1, tt2 = time.tt() if time is not None else (None, None)
+    m_from = frames.system_matrix(system, tt1, tt2, time_given)
+    icrs = vectors.apply_transposed(m_from, frames.unit_vectors(lon, lat))
+    return _words(of_icrs_vectors(icrs), form)
+
+
+def body_constellation_cells(body, time, form="ABBREVIATION", kind="APPARENT", source=BUILTIN):
+    """The constellation of the Sun, the Moon or a planet, geocentric, at the instants."""
+    tt1, tt2 = time.tt()
+    direction = bodies.geocentric(body, tt1, tt2, kind, source)[0]
+    return _words(of_icrs_vectors(direction), form)
