@@ -199,6 +199,20 @@ EXAMPLES["SKY.CONSTELLATION.BODY"] = [
     ('"SUN";A{r}', lambda v: ["SUN", v[0]]),
     ('"MARS";A{r};;"NAME";;"' + DE440 + '"', lambda v: ["MARS", v[0], None, "NAME", None, DE440]),
 ]
+EXAMPLES["SKY.METEOR.ZHR"] = [
+    ("INT(ABS(L{r}));1.5;6.1;H{r};2.5;0.1",
+     lambda v: [float(math.floor(abs(v[11]))), 1.5, 6.1, v[7], 2.5, 0.1]),
+]
+EXAMPLES["SKY.METEOR.ZHR.ERROR"] = [
+    ("INT(ABS(L{r}))+1;0.75;5.8;H{r};3", lambda v: [float(math.floor(abs(v[11]))) + 1, 0.75,
+                                                   5.8, v[7], 3.0]),
+]
+EXAMPLES["SKY.METEOR.RADIANT.RA"] = [
+    ("B{r};C{r};H{r};I{r};1.2;0.01", lambda v: [v[1], v[2], v[7], v[8], 1.2, 0.01]),
+]
+EXAMPLES["SKY.METEOR.RADIANT.DEC"] = [
+    ("B{r};C{r};H{r};I{r};1.2;0.01", lambda v: [v[1], v[2], v[7], v[8], 1.2, 0.01]),
+]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (

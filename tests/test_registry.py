@@ -122,6 +122,10 @@ FROZEN_METHODS = {
     "skyEphemeris": "SKY.EPHEMERIS",
     "skyConstellation": "SKY.CONSTELLATION",
     "skyConstellationBody": "SKY.CONSTELLATION.BODY",
+    "skyMeteorZhr": "SKY.METEOR.ZHR",
+    "skyMeteorZhrError": "SKY.METEOR.ZHR.ERROR",
+    "skyMeteorRadiantRa": "SKY.METEOR.RADIANT.RA",
+    "skyMeteorRadiantDec": "SKY.METEOR.RADIANT.DEC",
 }
 
 
@@ -279,7 +283,8 @@ DECLARED_ORDER = (
     "skyPlanetHelioY skyPlanetHelioZ skyPlanetLon skyPlanetLat skyPlanetRa skyPlanetDec "
     "skyPlanetDist skyPlanetLighttime skyPlanetElongation skyPlanetPhaseAngle "
     "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
-    "skyConstellation skyConstellationBody"
+    "skyConstellation skyConstellationBody skyMeteorZhr skyMeteorZhrError "
+    "skyMeteorRadiantRa skyMeteorRadiantDec"
 ).split()
 
 
