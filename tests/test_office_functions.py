@@ -213,6 +213,31 @@ EXAMPLES["SKY.METEOR.RADIANT.RA"] = [
 EXAMPLES["SKY.METEOR.RADIANT.DEC"] = [
     ("B{r};C{r};H{r};I{r};1.2;0.01", lambda v: [v[1], v[2], v[7], v[8], 1.2, 0.01]),
 ]
+EXAMPLES["SKY.VARSTAR.PHASE"] = [
+    ("K{r};2451545.3;0.8376", lambda v: [v[10], 2451545.3, 0.8376]),
+    ("K{r};2451545.3;0.8376;1E-10", lambda v: [v[10], 2451545.3, 0.8376, 1e-10]),
+]
+EXAMPLES["SKY.VARSTAR.CYCLE"] = [
+    ("K{r};2451545.3;0.8376;-1E-10", lambda v: [v[10], 2451545.3, 0.8376, -1e-10]),
+]
+EXAMPLES["SKY.VARSTAR.OC"] = [
+    ("K{r};2451545.3;0.8376", lambda v: [v[10], 2451545.3, 0.8376]),
+]
+
+
+def _rows_of(column, first, last):
+    """The core's view of a fixed range of the input columns (a tuple of row tuples)."""
+    rows = _inputs()[first - 2:last - 1]
+    return tuple((r[column],) for r in rows)
+
+
+# A reduction of whole ranges: every row holds the same formula over fixed rows.
+EXAMPLES["SKY.VARSTAR.MINIMUM"] = [
+    ("A$2:A$41;E$2:E$41", lambda v: [_rows_of(0, 2, 41), _rows_of(4, 2, 41)]),
+]
+EXAMPLES["SKY.VARSTAR.MINIMUM.ERROR"] = [
+    ("A$2:A$41;E$2:E$41", lambda v: [_rows_of(0, 2, 41), _rows_of(4, 2, 41)]),
+]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (

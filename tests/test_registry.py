@@ -126,6 +126,11 @@ FROZEN_METHODS = {
     "skyMeteorZhrError": "SKY.METEOR.ZHR.ERROR",
     "skyMeteorRadiantRa": "SKY.METEOR.RADIANT.RA",
     "skyMeteorRadiantDec": "SKY.METEOR.RADIANT.DEC",
+    "skyVarstarPhase": "SKY.VARSTAR.PHASE",
+    "skyVarstarCycle": "SKY.VARSTAR.CYCLE",
+    "skyVarstarOc": "SKY.VARSTAR.OC",
+    "skyVarstarMinimum": "SKY.VARSTAR.MINIMUM",
+    "skyVarstarMinimumError": "SKY.VARSTAR.MINIMUM.ERROR",
 }
 
 
@@ -163,7 +168,7 @@ def test_every_function_and_argument_is_described(fn):
     assert fn.family in registry.FAMILIES
     for a in fn.args:
         assert len(a.description) > 15, f"{fn.name}({a.name}) lacks a description"
-        assert a.kind in registry.ROW_KINDS + registry.OPTION_KINDS
+        assert a.kind in registry.ROW_KINDS + registry.OPTION_KINDS + registry.SERIES_KINDS
         if a.kind == "choice":
             assert a.choices
             assert not a.optional or a.default is None or a.default in a.choices
@@ -284,7 +289,8 @@ DECLARED_ORDER = (
     "skyPlanetDist skyPlanetLighttime skyPlanetElongation skyPlanetPhaseAngle "
     "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
     "skyConstellation skyConstellationBody skyMeteorZhr skyMeteorZhrError "
-    "skyMeteorRadiantRa skyMeteorRadiantDec"
+    "skyMeteorRadiantRa skyMeteorRadiantDec skyVarstarPhase skyVarstarCycle skyVarstarOc "
+    "skyVarstarMinimum skyVarstarMinimumError"
 ).split()
 
 
