@@ -238,6 +238,10 @@ EXAMPLES["SKY.VARSTAR.MINIMUM"] = [
 EXAMPLES["SKY.VARSTAR.MINIMUM.ERROR"] = [
     ("A$2:A$41;E$2:E$41", lambda v: [_rows_of(0, 2, 41), _rows_of(4, 2, 41)]),
 ]
+EXAMPLES["SKY.PLANET.MAGNITUDE"] = [
+    ('"JUPITER";A{r}', lambda v: ["JUPITER", v[0]]),
+    ('"SATURN";A{r};"UTC";"' + DE440 + '"', lambda v: ["SATURN", v[0], "UTC", DE440]),
+]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (

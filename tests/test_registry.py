@@ -131,6 +131,7 @@ FROZEN_METHODS = {
     "skyVarstarOc": "SKY.VARSTAR.OC",
     "skyVarstarMinimum": "SKY.VARSTAR.MINIMUM",
     "skyVarstarMinimumError": "SKY.VARSTAR.MINIMUM.ERROR",
+    "skyPlanetMagnitude": "SKY.PLANET.MAGNITUDE",
 }
 
 
@@ -290,7 +291,7 @@ DECLARED_ORDER = (
     "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
     "skyConstellation skyConstellationBody skyMeteorZhr skyMeteorZhrError "
     "skyMeteorRadiantRa skyMeteorRadiantDec skyVarstarPhase skyVarstarCycle skyVarstarOc "
-    "skyVarstarMinimum skyVarstarMinimumError"
+    "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude"
 ).split()
 
 
