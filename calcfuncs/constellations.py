@@ -56,14 +56,29 @@ def lookup_b1875(ra_deg, dec_deg):
     return _TABLE[j, i]
 
 
-def of_icrs_vectors(v):
-    """Indices into ABBREVIATIONS of directions on the ICRS (or GCRS) axes."""
-    ra, dec = frames.spherical(vectors.apply(TO_B1875, v))
+def of_vectors(v, to_b1875=TO_B1875):
+    """Indices into ABBREVIATIONS of directions (..., 3) that the rotation(s) ``to_b1875``
+    take to the equator and equinox of B1875.0 (by default from the ICRS or GCRS axes)."""
+    if np.ndim(to_b1875) == 2:
+        b = v @ np.asarray(to_b1875).T  # one rotation for every row: a plain product
+    else:
+        b = vectors.apply(to_b1875, v)
+    x, y, z = b[..., 0], b[..., 1], b[..., 2]
+    ra = np.degrees(np.arctan2(y, x))
+    dec = np.degrees(np.arctan2(z, np.hypot(x, y)))
     return lookup_b1875(ra, dec)
 
 
+def of_icrs_vectors(v):
+    """Indices into ABBREVIATIONS of directions on the ICRS (or GCRS) axes."""
+    return of_vectors(v)
+
+
+_ABBREVIATION_ARRAY = np.array(ABBREVIATIONS, dtype=object)
+
+
 def _words(index, form):
-    abbr = np.array(ABBREVIATIONS, dtype=object)[index]
+    abbr = _ABBREVIATION_ARRAY[index]
     if form == "NAME":
         return np.array([NAMES[a] for a in abbr.ravel()], dtype=object).reshape(abbr.shape)
     return abbr
@@ -77,8 +92,9 @@ def constellation_cells(lon, lat, system, time, time_given, form="ABBREVIATION")
     frames.check_latitudes(lat)
     tt1, tt2 = time.tt() if time is not None else (None, None)
     m_from = frames.system_matrix(system, tt1, tt2, time_given)
-    icrs = vectors.apply_transposed(m_from, frames.unit_vectors(lon, lat))
-    return _words(of_icrs_vectors(icrs), form)
+    # From the given system to B1875.0 in one rotation (one matrix for a fixed system).
+    to_b1875 = vectors.compose(TO_B1875, m_from)
+    return _words(of_vectors(frames.unit_vectors(lon, lat), to_b1875), form)
 
 
 def body_constellation_cells(body, time, form="ABBREVIATION", kind="APPARENT", source=BUILTIN):
