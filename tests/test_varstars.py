@@ -147,3 +147,19 @@ def test_the_api_takes_lists():
     assert api.varstar_minimum(list(t), list(m)) == varstars.kwee_van_woerden(t, m)[0]
     with pytest.raises(ValueError, match="at least 8"):
         api.varstar_minimum([1.0, 2.0], [3.0, 4.0])
+
+
+def test_the_command_line_refuses_a_reduction_of_whole_columns(tmp_path):
+    # One value from a whole column is not one value per row: the CSV tool says so.
+    import io
+
+    from calcfuncs import cli
+
+    log = tmp_path / "curve.csv"
+    log.write_text("t,v\n1,10\n2,11\n")
+    err = io.StringIO()
+    status = cli.main(["SKY.VARSTAR.MINIMUM", "--in", str(log), "--arg", "times=t",
+                       "--arg", "magnitudes=v", "--out", str(tmp_path / "out.csv")],
+                      out=io.StringIO(), err=err)
+    assert status == 2 and "reduces whole ranges" in err.getvalue()
+    assert not (tmp_path / "out.csv").exists()
