@@ -398,8 +398,90 @@ def _plain_single(fn, rows, options, null_jd):
     return float(out[0])
 
 
+# ---- series: whole ranges reduced to one value -------------------------------------
+
+# The most rows a series may hold: a reduction's cost grows with its rows, and a cell
+# must never keep the office busy for long.
+SERIES_MAX_ROWS = 100_000
+
+
+def _series_cells(raw):
+    """A range (or a single cell) as a flat object array of cell values, row by row."""
+    grid = _as_grid(raw)
+    if grid is None:
+        single = np.empty(1, dtype=object)
+        single[0] = raw
+        return single
+    return grid.reshape(-1)
+
+
+def _series_numbers(name, cells):
+    """The numbers of a series and the mask of its empty cells; text is an error that
+    names the row (a #SKY: message from another cell is passed on)."""
+    fast = _all_floats(cells)
+    if fast is not None:
+        blank = np.zeros(cells.size, dtype=bool)
+        values = fast
+    else:
+        blank = np.array([_is_blank(v) for v in cells], dtype=bool)
+        values = np.full(cells.size, np.nan)
+        for i, v in enumerate(cells):
+            if blank[i]:
+                continue
+            if isinstance(v, str):
+                if v.startswith(PREFIX):
+                    raise SkyError(f"row {i + 1} of {name}: {v[len(PREFIX):]}")
+                try:
+                    v = float(v.strip())
+                except ValueError:
+                    raise SkyError(f'row {i + 1} of {name} is not a number: "{v}"') from None
+            values[i] = float(v)
+    bad = ~blank & ~np.isfinite(values)
+    if np.any(bad):
+        raise SkyError(f"row {np.flatnonzero(bad)[0] + 1} of {name} is not a finite number")
+    return values, blank
+
+
+def _evaluate_series(fn, raw_args, null_date):
+    """One value from whole ranges: rows empty in every range are skipped, a row empty
+    in only some is refused (the pairs would shift)."""
+    options, series = {}, {}
+    for a, raw in zip(fn.args, raw_args):
+        if a.kind in registry.SERIES_KINDS:
+            series[a.name] = _series_cells(raw)
+        elif a.kind in registry.OPTION_KINDS:
+            options[a.name] = _read_option(a, raw)
+        else:
+            raise SkyError(f"{fn.name} takes no row-wise argument {a.name}")
+    sizes = {len(v) for v in series.values()}
+    if len(sizes) > 1:
+        raise SkyError("the ranges have different numbers of cells ("
+                       + ", ".join(f"{k} {len(v)}" for k, v in series.items())
+                       + "); give ranges of one size")
+    if sizes.pop() > SERIES_MAX_ROWS:
+        raise SkyError(f"more than {SERIES_MAX_ROWS:,} rows; give the rows of one event")
+    numbers = {name: _series_numbers(name, cells) for name, cells in series.items()}
+    blanks = np.array([b for _, b in numbers.values()])
+    all_blank = blanks.all(axis=0)
+    partly = blanks.any(axis=0) & ~all_blank
+    if np.any(partly):
+        i = np.flatnonzero(partly)[0]
+        empty = [name for name, (_, b) in numbers.items() if b[i]]
+        raise SkyError(f"row {i + 1} is empty in {', '.join(empty)} but not in the other "
+                       "range; fill both or neither")
+    func, params = _impl(fn)
+    kwargs = {k: v for k, v in options.items() if k in params}
+    kwargs.update({name: values[~all_blank] for name, (values, _) in numbers.items()})
+    value = float(np.asarray(func(**kwargs), dtype=float).reshape(-1)[0])
+    if not np.isfinite(value):
+        raise SkyError("no result for these arguments")
+    return value
+
+
 def _evaluate(fn, raw_args, null_date):
     raw_args = list(raw_args) + [None] * (len(fn.args) - len(raw_args))
+    if fn.reduces_series:
+        return _evaluate_series(fn, raw_args, null_date)
     if not any(isinstance(v, (tuple, list)) for v in raw_args):
         return _evaluate_single(fn, raw_args, null_date)
     grids = [_as_grid(v) for v in raw_args]

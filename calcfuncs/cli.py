@@ -303,6 +303,9 @@ def main(argv=None, out=None, err=None):
             raise UsageError("name a function (--list shows them), or give --help")
         if not args.input or not args.out:
             raise UsageError("give --in CSV and --out CSV")
+        if fn.reduces_series:
+            raise UsageError(f"{fn.name} reduces whole ranges to one value, not one per "
+                             "row; call it from a sheet or from calcfuncs.api")
         delimiter = "\t" if args.delimiter in ("\\t", "tab", "TAB") else args.delimiter
         if len(delimiter) != 1:
             raise UsageError("--delimiter takes one character")

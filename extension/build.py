@@ -214,8 +214,10 @@ def functions_md_text():
         "",
         "Every function accepts a range in any argument and then returns an array of the "
         "same shape (enter it as an array formula, Ctrl+Shift+Enter); single cells in "
-        "other arguments apply to every row. Angles are decimal degrees. Problems show "
-        "as text starting with `#SKY:` in the cell.",
+        "other arguments apply to every row; the exceptions say so (a text result takes "
+        "one cell at a time, a function of whole ranges such as SKY.VARSTAR.MINIMUM "
+        "returns one value). Angles are decimal degrees. Problems show as text starting "
+        "with `#SKY:` in the cell.",
         "",
         f"Stored in ODS files as `{registry.IMPLEMENTATION_NAME.upper()}.<METHOD>`; the "
         "method names below never change.",

@@ -121,7 +121,10 @@ ROW_FUNCTIONS = [f for f in registry.FUNCTIONS if any(a.kind in registry.ROW_KIN
 
 
 def test_every_function_is_covered():
-    assert all(f.args == () for f in registry.FUNCTIONS if f not in ROW_FUNCTIONS)
+    # The others take no argument at all, or reduce whole ranges to one value (their
+    # own tests, e.g. test_varstars.py, check the ranges).
+    assert all(f.args == () or f.reduces_series
+               for f in registry.FUNCTIONS if f not in ROW_FUNCTIONS)
     assert len(ROW_FUNCTIONS) >= 17
 
 

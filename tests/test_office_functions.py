@@ -190,6 +190,58 @@ EXAMPLES["SKY.PLANET.EVENT.NEXT"] = [
     ('"VENUS";A{r};;"INFERIOR";"TT";"' + DE440 + '"',
      lambda v: ["VENUS", v[0], None, "INFERIOR", "TT", DE440]),
 ]
+EXAMPLES["SKY.CONSTELLATION"] = [
+    ('B{r};C{r};"ICRS"', lambda v: [v[1], v[2], "ICRS"]),
+    ('B{r};C{r};"ECLIPTIC DATE";A{r};;"NAME"',
+     lambda v: [v[1], v[2], "ECLIPTIC DATE", v[0], None, "NAME"]),
+]
+EXAMPLES["SKY.CONSTELLATION.BODY"] = [
+    ('"SUN";A{r}', lambda v: ["SUN", v[0]]),
+    ('"MARS";A{r};;"NAME";;"' + DE440 + '"', lambda v: ["MARS", v[0], None, "NAME", None, DE440]),
+]
+EXAMPLES["SKY.METEOR.ZHR"] = [
+    ("INT(ABS(L{r}));1.5;6.1;H{r};2.5;0.1",
+     lambda v: [float(math.floor(abs(v[11]))), 1.5, 6.1, v[7], 2.5, 0.1]),
+]
+EXAMPLES["SKY.METEOR.ZHR.ERROR"] = [
+    ("INT(ABS(L{r}))+1;0.75;5.8;H{r};3", lambda v: [float(math.floor(abs(v[11]))) + 1, 0.75,
+                                                   5.8, v[7], 3.0]),
+]
+EXAMPLES["SKY.METEOR.RADIANT.RA"] = [
+    ("B{r};C{r};H{r};I{r};1.2;0.01", lambda v: [v[1], v[2], v[7], v[8], 1.2, 0.01]),
+]
+EXAMPLES["SKY.METEOR.RADIANT.DEC"] = [
+    ("B{r};C{r};H{r};I{r};1.2;0.01", lambda v: [v[1], v[2], v[7], v[8], 1.2, 0.01]),
+]
+EXAMPLES["SKY.VARSTAR.PHASE"] = [
+    ("K{r};2451545.3;0.8376", lambda v: [v[10], 2451545.3, 0.8376]),
+    ("K{r};2451545.3;0.8376;0.0000000001", lambda v: [v[10], 2451545.3, 0.8376, 1e-10]),
+]
+EXAMPLES["SKY.VARSTAR.CYCLE"] = [
+    ("K{r};2451545.3;0.8376;-0.0000000001", lambda v: [v[10], 2451545.3, 0.8376, -1e-10]),
+]
+EXAMPLES["SKY.VARSTAR.OC"] = [
+    ("K{r};2451545.3;0.8376", lambda v: [v[10], 2451545.3, 0.8376]),
+]
+
+
+def _rows_of(column, first, last):
+    """The core's view of a fixed range of the input columns (a tuple of row tuples)."""
+    rows = _inputs()[first - 2:last - 1]
+    return tuple((r[column],) for r in rows)
+
+
+# A reduction of whole ranges: every row holds the same formula over fixed rows.
+EXAMPLES["SKY.VARSTAR.MINIMUM"] = [
+    ("A$2:A$41;E$2:E$41", lambda v: [_rows_of(0, 2, 41), _rows_of(4, 2, 41)]),
+]
+EXAMPLES["SKY.VARSTAR.MINIMUM.ERROR"] = [
+    ("A$2:A$41;E$2:E$41", lambda v: [_rows_of(0, 2, 41), _rows_of(4, 2, 41)]),
+]
+EXAMPLES["SKY.PLANET.MAGNITUDE"] = [
+    ('"JUPITER";A{r}', lambda v: ["JUPITER", v[0]]),
+    ('"SATURN";A{r};"UTC";"' + DE440 + '"', lambda v: ["SATURN", v[0], "UTC", DE440]),
+]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
@@ -292,6 +344,10 @@ HOSTILE = [
     ('=SKY.MOON.PHASE.NEXT("2700-01-01";"TT";;;"' + DE440 + '")', "outside the span of de440.bsp"),
     ('=SKY.PLANET.EVENT.NEXT("VENUS";45500;;"OPPOSITION")', "never comes to opposition"),
     ('=SKY.BJD.TDB(45500;10;20;;;52)', "give both the latitude and the longitude"),
+    ('=SKY.CONSTELLATION(10;20;"FK4")', 'unknown system "FK4"'),
+    ('=SKY.METEOR.ZHR(10;1;6.5;-5;2.5)', "below the horizon"),
+    ("=SKY.VARSTAR.MINIMUM(C1:C3;D1:D4)", "different numbers of cells"),
+    ('=SKY.PLANET.MAGNITUDE("MERCURY";"2025-03-24")', "outside 2 to 170"),
 ]
 
 
@@ -302,3 +358,40 @@ def test_hostile_coordinates_give_a_message(sheet_doc, formula, mention):
     sheet_doc.calculateAll()
     assert cell.getError() == 0, f"{formula} gave Err:{cell.getError()}"
     assert cell.getString().startswith("#SKY: ") and mention in cell.getString(), cell.getString()
+
+
+def test_the_reductions_typed_into_cells(sheet_doc):
+    """One function of each reduction typed into real cells beside its data: a light curve
+    whose minimum is known (a symmetric dip, noise of 0.01 mag), a meteor watch at the
+    formula's limits, the Sun's constellation on a day of common knowledge, a planet's
+    magnitude.  Calc's answers equal the core's on the same cells."""
+    import numpy as np
+
+    sheet = sheet_doc.Sheets.getByIndex(0)
+    rng = np.random.default_rng(56)
+    centre = 2460512.43217
+    t = np.sort(rng.uniform(centre - 0.09, centre + 0.1, 120))
+    m = 11.2 + 0.8 * np.exp(-0.5 * ((t - centre) / 0.03) ** 2) + rng.normal(0.0, 0.01, t.size)
+    rows = tuple((float(a), float(b)) for a, b in zip(t, m))
+    sheet.getCellRangeByPosition(0, 0, 1, len(rows) - 1).setDataArray(rows)
+    span = f"A1:A{len(rows)};B1:B{len(rows)}"
+    formulas = {
+        "D1": f"=SKY.VARSTAR.MINIMUM({span})",
+        "D2": f"=SKY.VARSTAR.MINIMUM.ERROR({span})",
+        "D3": "=SKY.METEOR.ZHR(37;1;6.5;90;2.4)",
+        "D4": '=SKY.CONSTELLATION.BODY("SUN";"2025-12-10")',
+        "D5": '=SKY.PLANET.MAGNITUDE("MARS";"2003-08-28")',
+    }
+    for address, formula in formulas.items():
+        sheet.getCellRangeByName(address).setFormula(formula)
+    sheet_doc.calculateAll()
+    got = {a: sheet.getCellRangeByName(a) for a in formulas}
+    assert all(c.getError() == 0 for c in got.values())
+    found, sigma = got["D1"].getValue(), got["D2"].getValue()
+    column = lambda k: tuple((r[k],) for r in rows)  # noqa: E731
+    assert found == evaluate("SKY.VARSTAR.MINIMUM", [column(0), column(1)])
+    assert sigma == evaluate("SKY.VARSTAR.MINIMUM.ERROR", [column(0), column(1)])
+    assert abs(found - centre) < 3.0 * sigma  # the analytic minimum, within the stated error
+    assert got["D3"].getValue() == 37.0  # the formula's limits: the hourly count itself
+    assert got["D4"].getString() == "Oph"  # common practice: the Sun in Ophiuchus in December
+    assert got["D5"].getValue() == pytest.approx(-2.9, abs=0.1)  # printed, from memory

@@ -120,6 +120,18 @@ FROZEN_METHODS = {
     "skyPlanetIlluminated": "SKY.PLANET.ILLUMINATED",
     "skyPlanetEventNext": "SKY.PLANET.EVENT.NEXT",
     "skyEphemeris": "SKY.EPHEMERIS",
+    "skyConstellation": "SKY.CONSTELLATION",
+    "skyConstellationBody": "SKY.CONSTELLATION.BODY",
+    "skyMeteorZhr": "SKY.METEOR.ZHR",
+    "skyMeteorZhrError": "SKY.METEOR.ZHR.ERROR",
+    "skyMeteorRadiantRa": "SKY.METEOR.RADIANT.RA",
+    "skyMeteorRadiantDec": "SKY.METEOR.RADIANT.DEC",
+    "skyVarstarPhase": "SKY.VARSTAR.PHASE",
+    "skyVarstarCycle": "SKY.VARSTAR.CYCLE",
+    "skyVarstarOc": "SKY.VARSTAR.OC",
+    "skyVarstarMinimum": "SKY.VARSTAR.MINIMUM",
+    "skyVarstarMinimumError": "SKY.VARSTAR.MINIMUM.ERROR",
+    "skyPlanetMagnitude": "SKY.PLANET.MAGNITUDE",
 }
 
 
@@ -157,7 +169,7 @@ def test_every_function_and_argument_is_described(fn):
     assert fn.family in registry.FAMILIES
     for a in fn.args:
         assert len(a.description) > 15, f"{fn.name}({a.name}) lacks a description"
-        assert a.kind in registry.ROW_KINDS + registry.OPTION_KINDS
+        assert a.kind in registry.ROW_KINDS + registry.OPTION_KINDS + registry.SERIES_KINDS
         if a.kind == "choice":
             assert a.choices
             assert not a.optional or a.default is None or a.default in a.choices
@@ -276,7 +288,10 @@ DECLARED_ORDER = (
     "skyPlanetHelioLon skyPlanetHelioLat skyPlanetHelioDist skyPlanetHelioX "
     "skyPlanetHelioY skyPlanetHelioZ skyPlanetLon skyPlanetLat skyPlanetRa skyPlanetDec "
     "skyPlanetDist skyPlanetLighttime skyPlanetElongation skyPlanetPhaseAngle "
-    "skyPlanetIlluminated skyPlanetEventNext skyEphemeris"
+    "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
+    "skyConstellation skyConstellationBody skyMeteorZhr skyMeteorZhrError "
+    "skyMeteorRadiantRa skyMeteorRadiantDec skyVarstarPhase skyVarstarCycle skyVarstarOc "
+    "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude"
 ).split()
 
 
@@ -319,8 +334,9 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.SUN.RISE"] == "datetime"  # words where the Sun does not rise
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
-        "SKY.ECLIPSE.POSSIBLE", "SKY.EPHEMERIS", "SKY.TEXT.DATE", "SKY.TEXT.DMS",
-        "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
+        "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
+        "SKY.EPHEMERIS", "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO",
+        "SKY.VERSION"]
 
 
 def test_every_argument_has_a_noun_for_its_messages():

@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Six workbooks, one office session, one module each in tools/samples/:
+Seven workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -20,6 +20,9 @@ Six workbooks, one office session, one module each in tools/samples/:
                          Moon and eclipse families)
   planet_watch.ods       a planet calendar of a year and an archive of heliocentric
                          timings carried over to BJD_TDB (the planets family)
+  reductions.ods         the Sun's constellation through a year, meteor rates, a time of
+                         minimum by Kwee and van Woerden, the planets' magnitudes (the
+                         constellations, meteors, variable-star and magnitude families)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -44,13 +47,14 @@ from samples import (  # noqa: E402
     meteor_watch,
     observing_log,
     planet_watch,
+    reductions,
     target_list,
     timing_and_moon,
 )
 
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
-         planet_watch)
+         planet_watch, reductions)
 
 
 def build(oxt, out_dir):

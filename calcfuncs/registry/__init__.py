@@ -7,7 +7,8 @@ Declare a function once, in the module of its family, and the build does the res
 
     common       the declarations' types (Arg, CellFunction, Family), the kinds, and the
                  arguments several families share
-    time, angles, obliquity, about, coordinates, horizon, sun, moon, planets
+    time, angles, obliquity, about, coordinates, horizon, sun, moon, planets,
+    constellations, meteors, varstars, magnitudes
                  one module per family, its name and title said once (``FAMILY``)
 
 Frozen names: ``IMPLEMENTATION_NAME`` and every ``method`` are stored inside each ODS
@@ -19,19 +20,23 @@ This package imports nothing heavy; the ``impl`` of a function is a ``module:fun
 path inside ``calcfuncs`` that the cell layer imports on first use.
 """
 
-from . import about, angles, coordinates, horizon, moon, obliquity, planets, sun, time
+from . import (about, angles, constellations, coordinates, horizon, magnitudes, meteors, moon,
+               obliquity, planets, sun, time, varstars)
 from .common import (CATEGORY, EXTENSION_IDENTIFIER, IMPLEMENTATION_NAME, INTERFACE_MODULE,
                      INTERFACE_NAME, OPTION_KINDS, REQUIRED, RESULT_KINDS, ROW_KINDS,
-                     SERVICE_NAMES, Arg, CellFunction, Family)
+                     SERIES_KINDS, SERVICE_NAMES, Arg, CellFunction, Family)
 
 # The families in the order the reference and the function list show them.
 FAMILY_ORDER = tuple(m.FAMILY for m in (
-    about, time, angles, obliquity, coordinates, horizon, sun, moon, planets))
+    about, time, angles, obliquity, coordinates, horizon, sun, moon, planets, constellations,
+    meteors, varstars, magnitudes))
 
 # Every function, in the order the interface has always declared them (the IDL, the xcu
 # and the reference list them so): SKY.VERSION came after the obliquity family.
 FUNCTIONS = tuple(f for m in (time, angles, obliquity, about, coordinates, horizon, sun,
-                              moon, planets) for f in m.FAMILY.functions)
+                              moon, planets, constellations, meteors, varstars,
+                              magnitudes)
+                  for f in m.FAMILY.functions)
 
 FAMILIES = {family.name: family.title for family in FAMILY_ORDER}
 BY_NAME = {f.name: f for f in FUNCTIONS}
@@ -39,7 +44,7 @@ BY_METHOD = {f.method: f for f in FUNCTIONS}
 
 __all__ = [
     "CATEGORY", "EXTENSION_IDENTIFIER", "IMPLEMENTATION_NAME", "INTERFACE_MODULE",
-    "INTERFACE_NAME", "OPTION_KINDS", "REQUIRED", "RESULT_KINDS", "ROW_KINDS",
+    "INTERFACE_NAME", "OPTION_KINDS", "REQUIRED", "RESULT_KINDS", "ROW_KINDS", "SERIES_KINDS",
     "SERVICE_NAMES", "Arg", "CellFunction", "Family", "FAMILY_ORDER", "FUNCTIONS",
     "FAMILIES", "BY_NAME", "BY_METHOD",
 ]

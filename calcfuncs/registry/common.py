@@ -27,6 +27,10 @@ REQUIRED = object()
 # number shared by the rows that give the same one.
 ROW_KINDS = ("time", "number", "angle", "text")
 OPTION_KINDS = ("choice", "count", "seconds", "real", "scale", "source")
+# A "series" argument takes a whole range as one value: the rows of a data set that the
+# function reduces to one result (a light curve to its time of minimum).  Its ranges never
+# make an array result; a function with series arguments has no row-wise ones.
+SERIES_KINDS = ("series",)
 
 # What a function gives back.  "number": a number per cell.  "text": one text per
 # cell, returned to Calc as a plain value (see CellFunction.returns_text).
@@ -108,6 +112,11 @@ class CellFunction:
         return self.result_kind == "datetime"
 
     @property
+    def reduces_series(self):
+        """Whether the function reduces whole ranges (series arguments) to one value."""
+        return any(a.kind in SERIES_KINDS for a in self.args)
+
+    @property
     def has_time(self):
         return any(a.kind == "time" for a in self.args)
 
@@ -126,6 +135,9 @@ class CellFunction:
         if self.returns_text:
             parts.append("One cell at a time: fill the formula down (a text result is "
                          "never an array, so that comparing it with typed text works).")
+        elif self.reduces_series:
+            parts.append("Takes whole ranges and returns one value; empty rows are "
+                         "skipped.")
         else:
             parts.append("Accepts a range in any argument and then returns an array.")
         return " ".join(parts)
@@ -249,3 +261,19 @@ SOURCE_NOTE = (
     "structure is checked) every date is checked against the kernel's segments; our "
     "results agree with skyfield and DE440 to 0.001 arcsec."
 )
+
+# The coordinate systems of frames.py, as the Wizard names them.
+SYSTEMS_TEXT = choices_text(vocab.SYSTEMS, {
+    "EQUATORIAL J2000": "mean equator and equinox of J2000.0",
+    "EQUATORIAL DATE": "mean of date",
+    "EQUATORIAL TRUE": "true equator and equinox of date",
+    "ECLIPTIC J2000": "IAU 2006 ecliptic",
+    "ECLIPTIC DATE": "mean ecliptic and equinox of date",
+    "ECLIPTIC TRUE": "true equinox of date",
+}) + " (EQ and ECL abbreviate)"
+
+
+def system_arg(name, role):
+    """A coordinate system argument, required: no system is ever assumed."""
+    return Arg(name, "choice", f"Coordinate system {role}: " + SYSTEMS_TEXT + ". No default: "
+               "always say which.", choices=vocab.SYSTEMS, aliases=vocab.SYSTEM_ALIASES)

@@ -1,24 +1,10 @@
 """Coordinate systems, rectangular vectors, precession, proper motion and pairs."""
 
 from .. import vocabulary as vocab
-from .common import SCALE, SCALES, Arg, CellFunction, Family, angle_arg, choices_text, span_text
+from .common import (SCALE, SCALES, Arg, CellFunction, Family, angle_arg, choices_text,
+                     span_text, system_arg)
 
 _IAU2006 = span_text(vocab.IAU2006_YEARS)
-_SYSTEMS_TEXT = choices_text(vocab.SYSTEMS, {
-    "EQUATORIAL J2000": "mean equator and equinox of J2000.0",
-    "EQUATORIAL DATE": "mean of date",
-    "EQUATORIAL TRUE": "true equator and equinox of date",
-    "ECLIPTIC J2000": "IAU 2006 ecliptic",
-    "ECLIPTIC DATE": "mean ecliptic and equinox of date",
-    "ECLIPTIC TRUE": "true equinox of date",
-}) + " (EQ and ECL abbreviate)"
-
-
-def _system(name, role):
-    return Arg(name, "choice", f"Coordinate system {role}: " + _SYSTEMS_TEXT + ". No default: "
-               "always say which.", choices=vocab.SYSTEMS, aliases=vocab.SYSTEM_ALIASES)
-
-
 _OPTIONAL_TIME = Arg(
     "time", "time",
     "The date of the DATE and TRUE systems (as for SKY.JD: date-time cell, ISO text, "
@@ -52,8 +38,8 @@ def _coord_args(extra=()):
     return (
         angle_arg("lon", "Longitude of the input: RA for equatorial systems, longitude for the others"),
         angle_arg("lat", "Latitude of the input: Dec for equatorial systems, latitude for the others"),
-        _system("from_system", "of the input"),
-        _system("to_system", "of the result"),
+        system_arg("from_system", "of the input"),
+        system_arg("to_system", "of the result"),
     ) + tuple(extra) + (_OPTIONAL_TIME, SCALE)
 
 
