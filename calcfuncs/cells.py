@@ -573,14 +573,22 @@ def _hashable(args):
         return False
 
 
+_SOURCE_ARGS = {}  # method -> positions of its arguments that name an ephemeris source
+
+
 def _kernel_stamps(fn, raw_args):
     """What the kernels named in a call hold now (ephemeris.content_stamp): part of the
     kept answer's key, so that a kernel replaced, added or removed on disk is read again
     and a message about a bad file goes once the file is mended."""
-    return tuple(ephemeris.content_stamp(value)
-                 for arg, value in zip(fn.args, raw_args)
-                 if (arg.kind == "source" or arg.name == "source")  # SKY.EPHEMERIS: text
-                 and isinstance(value, str))
+    where = _SOURCE_ARGS.get(fn.method)
+    if where is None:
+        where = _SOURCE_ARGS[fn.method] = tuple(
+            k for k, arg in enumerate(fn.args)
+            if arg.kind == "source" or arg.name == "source")  # SKY.EPHEMERIS: text
+    if not where:
+        return ()
+    return tuple(ephemeris.content_stamp(raw_args[k]) for k in where
+                 if k < len(raw_args) and isinstance(raw_args[k], str))
 
 
 def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
@@ -591,9 +599,10 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     fn = name_or_fn if isinstance(name_or_fn, registry.CellFunction) else registry.BY_NAME[name_or_fn]
     raw_args = tuple(raw_args)
     key = None
-    if not any(isinstance(a, (tuple, list)) for a in raw_args) and _hashable(raw_args):
+    types = tuple(map(type, raw_args))
+    if tuple not in types and list not in types and _hashable(raw_args):
         # With each argument's type, since 1, 1.0 and True are one key but not one input.
-        key = (fn.method, tuple((type(a), a) for a in raw_args), tuple(null_date),
+        key = (fn.method, tuple(zip(types, raw_args)), tuple(null_date),
                _kernel_stamps(fn, raw_args))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:

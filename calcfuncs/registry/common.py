@@ -10,6 +10,7 @@ Words that name a model, a scale, a system or a validity span are formatted from
 """
 
 from dataclasses import dataclass, field, replace
+from functools import cached_property
 
 from .. import vocabulary as vocab
 
@@ -111,7 +112,7 @@ class CellFunction:
         """The result is a date-time value, days since the document's null date."""
         return self.result_kind == "datetime"
 
-    @property
+    @cached_property  # asked on every call of the function (frozen: kept in __dict__)
     def reduces_series(self):
         """Whether the function reduces whole ranges (series arguments) to one value."""
         return any(a.kind in SERIES_KINDS for a in self.args)
