@@ -38,7 +38,7 @@ from . import moon_series, vsop87_series
 from .vocabulary import J2000_JD
 
 ARCSEC = np.pi / (180.0 * 3600.0)
-_CHUNK = 4096  # rows per block: keeps the (rows x terms) tables to a few tens of MB
+_CHUNK = 512  # rows per block: the (rows x terms) tables stay in the cache (measured fastest)
 
 # ---- the series, parsed once ---------------------------------------------------------------
 

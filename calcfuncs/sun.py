@@ -22,8 +22,8 @@ import numpy as np
 from . import bodies, ephemeris, events, frames, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
-from .timescales import DateTimes, Instants
-from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, J2000_JD, LONG_RANGE_YEARS
+from .timescales import DateTimes, Instants, check_years
+from .vocabulary import BUILTIN, BUILTIN_YEARS, ECLIPTIC_OF_FRAME, J2000_JD, LONG_RANGE_YEARS
 
 
 def sun_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
@@ -418,11 +418,13 @@ def _stack(pairs):
 
 
 def _check_rows_of_nodes(nodes):
-    """The built-in theories' years, checked for every node of every row (rows x nodes):
-    a row with a node outside gets the message (the last day or two of the range, whose
-    nodes reach past it, included)."""
+    """The years of ERFA's theories and of IAU 2006/2000A, which rise and set use (not
+    the built-in source's long range), checked for every node of every row (rows x
+    nodes): a row with a node outside gets the message (the last day or two of the
+    range, whose nodes reach past it, included)."""
     try:
-        ephemeris.check_builtin_years(nodes, np.zeros(nodes.shape))
+        check_years(nodes, np.zeros(nodes.shape), BUILTIN_YEARS,
+                    "rise, set and transit use ERFA's theories and IAU 2006/2000A")
     except RowErrors as err:
         per_row = np.reshape(err.messages, nodes.shape)
         first = [next((m for m in r if m is not None), None) for r in per_row]
