@@ -34,7 +34,7 @@ changes the aberration by under 0.01" and its light time by under 7 km of travel
 import erfa
 import numpy as np
 
-from . import moon_series, vsop87_series
+from . import moon_series, vectors, vsop87_series
 from .vocabulary import J2000_JD
 
 ARCSEC = np.pi / (180.0 * 3600.0)
@@ -70,9 +70,9 @@ def _series(terms_by_power, t, rate):
     for k, terms in enumerate(terms_by_power):
         a, b, c = terms[:, 0], terms[:, 1], terms[:, 2]
         phase = b + t[:, None] * c
-        s0 = np.cos(phase) @ a
+        s0 = np.einsum("nk,k->n", np.cos(phase), a)
         if rate:
-            deriv += tk * -(np.sin(phase) @ (a * c)) + k * tk_1 * s0
+            deriv += tk * -np.einsum("nk,k->n", np.sin(phase), a * c) + k * tk_1 * s0
         value += tk * s0
         tk, tk_1 = tk * t, tk
     return value, deriv
@@ -89,9 +89,15 @@ def _date_to_j2000(t_cy):
     return np.swapaxes(m, -1, -2)
 
 
+def _date_to_icrs(t_cy):
+    """Rotations from the mean ecliptic and equinox of date (IAU 1976) to the ICRS axes.
+    Products by einsum, row by row, so that a row gets the same bits in a column as
+    alone (a BLAS product takes other paths for one row and for several)."""
+    return np.einsum("ij,njk->nik", ECLIPTIC_J2000_TO_ICRS, _date_to_j2000(np.ravel(t_cy)))
+
+
 def _to_icrs(date_vectors, t_cy):
-    m = ECLIPTIC_J2000_TO_ICRS @ _date_to_j2000(t_cy)
-    return np.einsum("...ij,...j->...i", m, date_vectors)
+    return vectors.apply(_date_to_icrs(t_cy), date_vectors)
 
 
 def _flat_days(jd1, jd2):
@@ -110,13 +116,13 @@ def planet(body, jd1, jd2, rate=False):
         part = slice(start, start + _CHUNK)
         t = days[part] / 365250.0  # Julian millennia
         (lon, dlon), (lat, dlat), (r, dr) = (_series(series[c], t, rate) for c in "LBR")
-        m = ECLIPTIC_J2000_TO_ICRS @ _date_to_j2000(t * 10.0)
+        m = _date_to_icrs(t * 10.0)
         if rate:
             pv = erfa.s2pv(lon, lat, r, dlon / 365250.0, dlat / 365250.0, dr / 365250.0)
-            p[part] = np.einsum("nij,nj->ni", m, pv["p"])
-            v[part] = np.einsum("nij,nj->ni", m, pv["v"])
+            p[part] = vectors.apply(m, pv["p"])
+            v[part] = vectors.apply(m, pv["v"])
         else:
-            p[part] = np.einsum("nij,nj->ni", m, erfa.s2p(lon, lat, r))
+            p[part] = vectors.apply(m, erfa.s2p(lon, lat, r))
     p = p.reshape(shape + (3,))
     return (p, v.reshape(shape + (3,))) if rate else p
 
@@ -144,9 +150,10 @@ def moon_ecliptic_of_date(jd1, jd2):
     args = np.stack([d, m, mp, f], axis=-1)
 
     def periodic(table, coefficient_columns):
-        phase = args @ table[:, :4].T
+        phase = np.einsum("na,ka->nk", args, table[:, :4])
         scale = e[:, None] ** np.abs(table[:, 1])[None, :]
-        return [(fn(phase) * scale) @ table[:, col] for fn, col in coefficient_columns]
+        return [np.einsum("nk,k->n", fn(phase) * scale, table[:, col])
+                for fn, col in coefficient_columns]
 
     sl, sr = periodic(_MOON_LR, ((np.sin, 4), (np.cos, 5)))
     (sb,) = periodic(_MOON_B, ((np.sin, 4),))
