@@ -38,6 +38,7 @@ bench: oxt
 	mkdir -p out
 	$(PY) bench/bench_core.py --json out/bench-core.json
 	$(PY) bench/bench_libraries.py --json out/bench-libraries.json
+	$(PY) bench/bench_longrange.py --json out/bench-longrange.json
 	$(PY) bench/bench_recalc.py --oxt $(OXT) --json out/bench-recalc.json
 
 clean:
