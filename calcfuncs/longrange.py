@@ -4,10 +4,13 @@ the Moon from the abridged ELP-2000/82 series of Meeus, for any date in -4000 to
 Planets and the Earth: VSOP87 version D (Bretagnon and Francou 1988), truncated
 (vsop87_series.py, made by tools/make_vsop87_series.py): heliocentric longitude,
 latitude and distance on the mean dynamical ecliptic and equinox of date.  That
-equinox of date follows the IAU 1976 precession (Lieske et al. 1977), so the same
+equinox of date follows the IAU 1976 precession (Lieske et al. 1977; from memory of
+the VSOP87 paper, and borne out by DE440: with it the Earth's residual is flat at
+0.3", with Vondrak's precession instead it grows to 2.4" by 2650), so the same
 precession takes the place back to the ecliptic and equinox J2000.0 (the ecliptic
 precession angles eta, Pi, p as Meeus gives them, Astronomical Algorithms eq. 21.5);
-then the published rotation from the VSOP87 J2000 ecliptic to the FK5 equator and
+then the published rotation from the VSOP87 J2000 ecliptic to the FK5 equator (from
+memory of the VSOP87 documentation) and
 ERFA's FK5-to-Hipparcos rotation put it on the ICRS axes.  Velocities come from the
 series' own derivatives (the slow turning of the frame of date, under 1e-4 of the
 Earth's speed, is left out: a thousandth of an arcsecond of aberration).
@@ -27,8 +30,9 @@ model, is tied to (-25.82, from memory of the paper): no correction is needed wi
 ESPENAK2006 is tied to -26"/cy^2: with it the correction would be -0.000091 x 0.18
 (y - 1955)^2 s, about 100 s in 600 BC (a minute of arc of the Moon); it is not applied.
 
-No barycentre: the Sun is put at the origin (its barycentric motion, up to 13 m/s,
-changes the aberration by under 0.01" and its light time by under 7 km of travel).
+No barycentre: the Sun is put at the origin.  Geocentric places are differences of
+heliocentric ones, so only the Sun's barycentric motion (about 13 m/s) is lost: under
+0.01" of aberration, and under 0.01" through the light time of any body.
 """
 
 import erfa
@@ -61,6 +65,7 @@ _VSOP_TO_FK5 = np.array([
     [-0.000000479966, 0.917482137087, -0.397776982902],
     [0.0, 0.397776982902, 0.917482137087]])
 ECLIPTIC_J2000_TO_ICRS = erfa.fk5hip()[0] @ _VSOP_TO_FK5
+
 
 def _series(terms_by_power, t, rate):
     """Sum_k t^k Sum A cos(B + C t), and its derivative in t if ``rate``."""
