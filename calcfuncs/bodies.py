@@ -75,7 +75,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN):
     near = (earth_helio, ev - sv, (tdb1, tdb2))
 
     def helio_at(tau):
-        return src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
+        return src.heliocentric(body, tdb1, tdb2 - tau, near, velocity=False)[0]
 
     def geocentric(helio, tau):
         # The Sun's barycentric place at t - tau, from its slow motion at t.
@@ -121,7 +121,7 @@ def heliocentric(body, tdb1, tdb2, source=BUILTIN):
     if body == "EARTH":
         (ep, _), (sp, _) = src.earth_and_sun(tdb1, tdb2)
         return ep - sp
-    return src.heliocentric(body, tdb1, tdb2)[0]
+    return src.heliocentric(body, tdb1, tdb2, velocity=False)[0]
 
 
 def in_system(directions, system, tt1, tt2):

@@ -113,27 +113,32 @@ class Builtin:
         ep, ev, sp, sv = self._by_theory(tdb1, tdb2, with_erfa, long_range)
         return (ep, ev), (sp, sv)
 
-    def moon_geocentric(self, tdb1, tdb2):
-        """Geocentric (p, v) of the Moon, ICRS axes (au, au/day)."""
+    def moon_geocentric(self, tdb1, tdb2, velocity=True):
+        """Geocentric (p, v) of the Moon, ICRS axes (au, au/day); v None if not
+        ``velocity``."""
         def with_erfa(t1, t2):
             pv = erfa_quietly(erfa.moon98, t1, t2)
             return pv["p"], pv["v"]
 
         def long_range(t1, t2):
             from . import longrange
-            return longrange.moon(t1, t2), longrange.moon_velocity(t1, t2)
+            p = longrange.moon(t1, t2)
+            return p, (longrange.moon_velocity(t1, t2) if velocity else np.full(p.shape, np.nan))
 
-        return self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        p, v = self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        return p, (v if velocity else None)
 
-    def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
+    def heliocentric(self, body, tdb1, tdb2, earth_helio=None, velocity=True):
         """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of
         the Earth at a nearby instant: the Moon's geocentric theory is added to it,
-        extrapolated linearly over the light time (seconds, metres of error at most)."""
+        extrapolated linearly over the light time (seconds, metres of error at most).
+        ``velocity`` False: v is None where the long-range theories would compute it
+        for nothing (the light-time iterations want positions; it halves their cost)."""
         if body == "PLUTO":
             raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
                            "DE440 or a .bsp path)")
         if body == "MOON":
-            mp, mv = self.moon_geocentric(tdb1, tdb2)
+            mp, mv = self.moon_geocentric(tdb1, tdb2, velocity)
             if earth_helio is None:
                 (ep, ev), (sp, sv) = self.earth_and_sun(tdb1, tdb2)
                 ep, ev = ep - sp, ev - sv
@@ -141,7 +146,7 @@ class Builtin:
                 p0, v0, (j1, j2) = earth_helio
                 dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
                 ep, ev = p0 + dt * v0, v0
-            return mp + ep, mv + ev
+            return mp + ep, (mv + ev if velocity else None)
 
         def with_erfa(t1, t2):
             pv = erfa_quietly(erfa.plan94, t1, t2, PLAN94_NUMBERS[body])
@@ -153,9 +158,13 @@ class Builtin:
 
         def long_range(t1, t2):
             from . import longrange
-            return longrange.planet(body, t1, t2, rate=True)
+            if velocity:
+                return longrange.planet(body, t1, t2, rate=True)
+            p = longrange.planet(body, t1, t2)
+            return p, np.full(p.shape, np.nan)
 
-        return self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        p, v = self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        return p, (v if velocity else None)
 
 
 # ---- JPL kernels -------------------------------------------------------------------------
@@ -251,7 +260,8 @@ class Kernel:
     def earth_and_sun(self, tdb1, tdb2):
         return self.barycentric("EARTH", tdb1, tdb2), self.barycentric("SUN", tdb1, tdb2)
 
-    def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
+    def heliocentric(self, body, tdb1, tdb2, earth_helio=None, velocity=True):
+        # (The kernel gives positions and velocities together: ``velocity`` changes nothing.)
         bp, bv = self.barycentric(body, tdb1, tdb2)
         sp, sv = self.barycentric("SUN", tdb1, tdb2)
         return bp - sp, bv - sv
