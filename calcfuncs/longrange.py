@@ -42,7 +42,7 @@ from . import moon_series, vectors, vsop87_series
 from .vocabulary import J2000_JD
 
 ARCSEC = np.pi / (180.0 * 3600.0)
-_CHUNK = 512  # rows per block: the (rows x terms) tables stay in the cache (measured fastest)
+_CHUNK = 64  # rows per block: the (rows x terms) table stays in the cache (measured fastest)
 
 # ---- the series, parsed once ---------------------------------------------------------------
 
@@ -51,9 +51,50 @@ def _terms(text):
     return np.array(text.split(), dtype=float).reshape(-1, 3)
 
 
-_PLANETS = {body: {coord: tuple(_terms(text) for text in powers)
-                   for coord, powers in coords.items()}
-            for body, coords in vsop87_series.SERIES.items()}
+class _Series:
+    """A planet's L, B, R series as one table of terms, ordered by coordinate then power,
+    so that one cosine call and two sums by segment evaluate all of them (a single cell
+    pays a few numpy calls instead of one per power and coordinate)."""
+
+    def __init__(self, coords):
+        blocks, self.power, coord_of = [], [], []
+        for j, name in enumerate("LBR"):
+            for k, text in enumerate(coords[name]):
+                terms = _terms(text)
+                if len(terms):
+                    blocks.append(terms)
+                    self.power.append(k)
+                    coord_of.append(j)
+        table = np.concatenate(blocks)
+        self.a, self.b, self.c = table[:, 0], table[:, 1], table[:, 2]
+        self.ac = self.a * self.c
+        self.starts = np.cumsum([0] + [len(t) for t in blocks[:-1]])
+        self.power = np.array(self.power)
+        self.coord_starts = np.searchsorted(coord_of, [0, 1, 2])
+
+    def evaluate(self, t, rate):
+        """(L, B, R) at Julian millennia ``t`` (rows), and their rates per millennium."""
+        phase = t[:, None] * self.c
+        phase += self.b
+        terms = np.cos(phase)
+        terms *= self.a
+        sums = np.add.reduceat(terms, self.starts, axis=1)
+        powers = t[:, None] ** np.arange(self.power.max() + 1)
+        value = np.add.reduceat(sums * powers[:, self.power], self.coord_starts, axis=1)
+        if not rate:
+            return value, None
+        # d/dt of t^k S(t): k t^(k-1) S + t^k S'
+        terms = np.sin(phase, out=terms)
+        terms *= self.ac
+        d_sums = -np.add.reduceat(terms, self.starts, axis=1)
+        k = self.power
+        d_powers = np.where(k > 0, k * powers[:, np.maximum(k - 1, 0)], 0.0)
+        deriv = np.add.reduceat(sums * d_powers + d_sums * powers[:, k], self.coord_starts,
+                                axis=1)
+        return value, deriv
+
+
+_PLANETS = {body: _Series(coords) for body, coords in vsop87_series.SERIES.items()}
 
 _MOON_LR = np.array(moon_series.LONGITUDE_DISTANCE.split(), dtype=float).reshape(-1, 6)
 _MOON_B = np.array(moon_series.LATITUDE.split(), dtype=float).reshape(-1, 5)
@@ -65,22 +106,6 @@ _VSOP_TO_FK5 = np.array([
     [-0.000000479966, 0.917482137087, -0.397776982902],
     [0.0, 0.397776982902, 0.917482137087]])
 ECLIPTIC_J2000_TO_ICRS = erfa.fk5hip()[0] @ _VSOP_TO_FK5
-
-
-def _series(terms_by_power, t, rate):
-    """Sum_k t^k Sum A cos(B + C t), and its derivative in t if ``rate``."""
-    value = np.zeros(t.shape)
-    deriv = np.zeros(t.shape) if rate else None
-    tk, tk_1 = np.ones(t.shape), np.zeros(t.shape)  # t^k and t^(k-1)
-    for k, terms in enumerate(terms_by_power):
-        a, b, c = terms[:, 0], terms[:, 1], terms[:, 2]
-        phase = b + t[:, None] * c
-        s0 = np.einsum("nk,k->n", np.cos(phase), a)
-        if rate:
-            deriv += tk * -np.einsum("nk,k->n", np.sin(phase), a * c) + k * tk_1 * s0
-        value += tk * s0
-        tk, tk_1 = tk * t, tk
-    return value, deriv
 
 
 def _date_to_j2000(t_cy):
@@ -120,10 +145,12 @@ def planet(body, jd1, jd2, rate=False):
     for start in range(0, days.size, _CHUNK):
         part = slice(start, start + _CHUNK)
         t = days[part] / 365250.0  # Julian millennia
-        (lon, dlon), (lat, dlat), (r, dr) = (_series(series[c], t, rate) for c in "LBR")
+        value, deriv = series.evaluate(t, rate)
+        lon, lat, r = value.T
         m = _date_to_icrs(t * 10.0)
         if rate:
-            pv = erfa.s2pv(lon, lat, r, dlon / 365250.0, dlat / 365250.0, dr / 365250.0)
+            dlon, dlat, dr = deriv.T / 365250.0  # per day
+            pv = erfa.s2pv(lon, lat, r, dlon, dlat, dr)
             p[part] = vectors.apply(m, pv["p"])
             v[part] = vectors.apply(m, pv["v"])
         else:
