@@ -159,40 +159,55 @@ def planet(body, jd1, jd2, rate=False):
     return (p, v.reshape(shape + (3,))) if rate else p
 
 
-def _degrees(t, coefficients):
-    return np.polyval(coefficients[::-1], t)
+# Meeus eqs. 47.1 to 47.5 and his A1, A2, A3 (degrees; coefficients of t^0 ... t^4, t in
+# Julian centuries of TT): the mean longitude L', elongation D, the Sun's anomaly M, the
+# Moon's anomaly M', the argument of latitude F, and the three additive arguments.
+_MOON_MEAN = np.array([
+    (218.3164477, 481267.88123421, -0.0015786, 1 / 538841, -1 / 65194000),
+    (297.8501921, 445267.1114034, -0.0018819, 1 / 545868, -1 / 113065000),
+    (357.5291092, 35999.0502909, -0.0001536, 1 / 24490000, 0.0),
+    (134.9633964, 477198.8675055, 0.0087414, 1 / 69699, -1 / 14712000),
+    (93.2720950, 483202.0175233, -0.0036539, -1 / 3526000, 1 / 863310000),
+    (119.75, 131.849, 0.0, 0.0, 0.0),
+    (53.09, 479264.290, 0.0, 0.0, 0.0),
+    (313.45, 481266.484, 0.0, 0.0, 0.0)])
+# Meeus's additive terms (1e-6 degree): multiples of (L', D, M, M', F, A1, A2, A3), then
+# the coefficient in longitude and in latitude.
+_MOON_ADDITIVE = np.array([
+    (0, 0, 0, 0, 0, 1, 0, 0, 3958.0, 0.0),
+    (1, 0, 0, 0, -1, 0, 0, 0, 1962.0, 0.0),
+    (0, 0, 0, 0, 0, 0, 1, 0, 318.0, 0.0),
+    (1, 0, 0, 0, 0, 0, 0, 0, 0.0, -2235.0),
+    (0, 0, 0, 0, 0, 0, 0, 1, 0.0, 382.0),
+    (0, 0, 0, 0, -1, 1, 0, 0, 0.0, 175.0),
+    (0, 0, 0, 0, 1, 1, 0, 0, 0.0, 175.0),
+    (1, 0, 0, -1, 0, 0, 0, 0, 0.0, 127.0),
+    (1, 0, 0, 1, 0, 0, 0, 0, 0.0, -115.0)])
+# The periodic terms of both tables as one: multiples of (D, M, M', F), and each term's
+# power of E (the eccentricity factor, to the power |multiple of M|).
+_MOON_MULTIPLES = np.concatenate([_MOON_LR[:, :4], _MOON_B[:, :4]])
+_MOON_E_POWER = np.abs(_MOON_MULTIPLES[:, 1])
+_N_LR = len(_MOON_LR)
 
 
 def moon_ecliptic_of_date(jd1, jd2):
     """Geocentric (longitude, latitude) in radians and distance in km of the Moon on the
-    mean ecliptic and equinox of date (IAU 1976 precession) at TT instants (flat)."""
+    mean ecliptic and equinox of date (IAU 1976 precession) at TT instants (flat).
+    Every table is applied by einsum, row by row (the same bits alone or in a column)."""
     _, days = _flat_days(jd1, jd2)
     t = days / 36525.0
-    # Meeus eqs. 47.1 to 47.5 (degrees).
-    lm = _degrees(t, (218.3164477, 481267.88123421, -0.0015786, 1 / 538841, -1 / 65194000))
-    d = _degrees(t, (297.8501921, 445267.1114034, -0.0018819, 1 / 545868, -1 / 113065000))
-    m = _degrees(t, (357.5291092, 35999.0502909, -0.0001536, 1 / 24490000))
-    mp = _degrees(t, (134.9633964, 477198.8675055, 0.0087414, 1 / 69699, -1 / 14712000))
-    f = _degrees(t, (93.2720950, 483202.0175233, -0.0036539, -1 / 3526000, 1 / 863310000))
-    a1 = np.radians(119.75 + 131.849 * t)
-    a2 = np.radians(53.09 + 479264.290 * t)
-    a3 = np.radians(313.45 + 481266.484 * t)
+    angles = np.radians(np.einsum("nk,jk->nj", t[:, None] ** np.arange(5), _MOON_MEAN))
     e = 1.0 - t * (0.002516 + 0.0000074 * t)  # the decreasing eccentricity of the Earth's orbit
-    lm, d, m, mp, f = (np.radians(x) for x in (lm, d, m, mp, f))
-    args = np.stack([d, m, mp, f], axis=-1)
-
-    def periodic(table, coefficient_columns):
-        phase = np.einsum("na,ka->nk", args, table[:, :4])
-        scale = e[:, None] ** np.abs(table[:, 1])[None, :]
-        return [np.einsum("nk,k->n", fn(phase) * scale, table[:, col])
-                for fn, col in coefficient_columns]
-
-    sl, sr = periodic(_MOON_LR, ((np.sin, 4), (np.cos, 5)))
-    (sb,) = periodic(_MOON_B, ((np.sin, 4),))
-    sl = sl + 3958.0 * np.sin(a1) + 1962.0 * np.sin(lm - f) + 318.0 * np.sin(a2)
-    sb = (sb - 2235.0 * np.sin(lm) + 382.0 * np.sin(a3) + 175.0 * np.sin(a1 - f)
-          + 175.0 * np.sin(a1 + f) + 127.0 * np.sin(lm - mp) - 115.0 * np.sin(lm + mp))
-    lon = lm + np.radians(sl * 1e-6)
+    phase = np.einsum("na,ka->nk", angles[:, 1:5], _MOON_MULTIPLES)
+    scale = e[:, None] ** _MOON_E_POWER
+    sines = np.sin(phase) * scale
+    sl = np.einsum("nk,k->n", sines[:, :_N_LR], _MOON_LR[:, 4])
+    sb = np.einsum("nk,k->n", sines[:, _N_LR:], _MOON_B[:, 4])
+    sr = np.einsum("nk,k->n", np.cos(phase[:, :_N_LR]) * scale[:, :_N_LR], _MOON_LR[:, 5])
+    extra = np.sin(np.einsum("nj,kj->nk", angles, _MOON_ADDITIVE[:, :8]))
+    sl = sl + np.einsum("nk,k->n", extra, _MOON_ADDITIVE[:, 8])
+    sb = sb + np.einsum("nk,k->n", extra, _MOON_ADDITIVE[:, 9])
+    lon = angles[:, 0] + np.radians(sl * 1e-6)
     lat = np.radians(sb * 1e-6)
     return lon, lat, 385000.56 + sr / 1000.0
 
