@@ -248,10 +248,9 @@ LONG_RANGE_NOTE = (
     f"BUILTIN outside {span_text(vocab.BUILTIN_YEARS)} (accepted "
     f"{span_text(vocab.LONG_RANGE_YEARS)}): the Earth and the planets from VSOP87D "
     "(Bretagnon and Francou 1988, truncated), the Moon from Meeus's abridged ELP-2000/82; "
-    "against DE440 over 1550-2650 their geocentric directions differed by at most 0.4\" "
-    "(Sun), 0.6\" Mercury, 1.2\" Venus, 8.1\" Mars, 1.5\" Jupiter, 1.9\" Saturn, 9.7\" "
-    "Uranus, 8.8\" Neptune and 14\" (Moon; 3\" rms) in our tests, more further out. "
-    "There the mean "
+    "against DE440 over 1550-2650 their geocentric directions differed by at most "
+    + ", ".join(f"{arcsec:g}\" {body.capitalize()}" for body, arcsec in vocab.LONG_RANGE_VS_DE440)
+    + " (the Moon 3\" rms) in our tests, more further out. There the mean "
     "equator and ecliptic of date follow the long-term precession of Vondrak et al. (2011) "
     "and the nutation is the IAU 2000B series as it stands (its error so far from the "
     "present is not published). Before 1600 a clock time reaches TT through Delta T "
