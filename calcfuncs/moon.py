@@ -2,7 +2,8 @@
 
 Position: ERFA moon98 (Meeus's implementation of the ELP-2000/82 truncation; ERFA
 states RMS 2.9", worst 18" in direction and 6 km in distance against ELP/MPP02 over
-1950-2100), accepted here 1000-3000 like the other bodies, or a JPL kernel.  The place
+1950-2100), used here over 1000-3000 like ERFA's other theories, the same Meeus terms on
+the long-term frames outside (longrange.py, to -4000 and +8000), or a JPL kernel.  The place
 comes from the pipeline of bodies.py (light time of about 1.3 s; for APPARENT the Sun's
 light deflection and annual aberration); the Sun from sun.py.
 """

@@ -5,7 +5,8 @@ telescope or a camera at it, without a proper solar filter made for that purpose
 
 Position: the Earth's heliocentric and barycentric position and velocity from ERFA
 epv00 (Bretagnon and Francou's VSOP2000-based series, 1900-2100 good to a few km,
-usable 1000-3000 here), or a JPL kernel; the Sun's place comes from the one pipeline
+used over 1000-3000 here; VSOP87D outside, to -4000 and +8000: longrange.py), or a JPL
+kernel; the Sun's place comes from the one pipeline
 of bodies.py.
   GEOMETRIC   the Sun's direction at the same instant, no light time, no aberration
   ASTROMETRIC light time (about 499 s) applied: where the light left the Sun
