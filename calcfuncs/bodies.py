@@ -75,7 +75,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN):
     near = (earth_helio, ev - sv, (tdb1, tdb2))
 
     def helio_at(tau):
-        return src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
+        return src.heliocentric(body, tdb1, tdb2 - tau, near, velocity=False)[0]
 
     def geocentric(helio, tau):
         # The Sun's barycentric place at t - tau, from its slow motion at t.
@@ -121,19 +121,20 @@ def heliocentric(body, tdb1, tdb2, source=BUILTIN):
     if body == "EARTH":
         (ep, _), (sp, _) = src.earth_and_sun(tdb1, tdb2)
         return ep - sp
-    return src.heliocentric(body, tdb1, tdb2)[0]
+    return src.heliocentric(body, tdb1, tdb2, velocity=False)[0]
 
 
 def in_system(directions, system, tt1, tt2):
     """Vectors on the ICRS axes turned into a coordinate system at TT instants."""
-    return vectors.apply(frames.system_matrix(system, tt1, tt2, smooth=True), directions)
+    return vectors.apply(frames.system_matrix(system, tt1, tt2, smooth=True, long_term=True),
+                         directions)
 
 
 def longitude_from_sun(p, tt1, tt2):
     """Apparent ecliptic longitude of the body of a ``Place`` minus the Sun's, degrees
     (not wrapped).  The same on the true and the mean ecliptic of date: nutation turns
     the frame about the ecliptic's pole, and the mean frame's matrix is far cheaper."""
-    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2)
+    m = frames.system_matrix("ECLIPTIC DATE", tt1, tt2, long_term=True)
     body = frames.spherical(vectors.apply(m, p.direction))[0]
     sun = frames.spherical(vectors.apply(m, p.sun_direction))[0]
     return body - sun

@@ -3,9 +3,11 @@
 A source answers one question: the barycentric position and velocity (au, au/day, ICRS
 axes) of a body at TDB instants.
 
-BUILTIN (no set-up): the Earth and the Sun from ERFA epv00 (VSOP2000-based, a few km
-over 1900-2100), Mercury to Neptune from ERFA plan94 (Simon et al. 1994: arcseconds to
-tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82 truncated).  No Pluto.
+BUILTIN (no set-up): over 1000-3000 the Earth and the Sun from ERFA epv00
+(VSOP2000-based, a few km over 1900-2100), Mercury to Neptune from ERFA plan94 (Simon
+et al. 1994: arcseconds to tens of arcseconds), the Moon from ERFA moon98 (ELP-2000/82
+truncated); outside, out to -4000 and +8000, the long-range theories of longrange.py
+(VSOP87D, Meeus's abridged ELP-2000/82).  No Pluto.
 
 A kernel: a JPL Development Ephemeris in SPK form, named by its word (DE440, DE441:
 found by kernelfiles, e.g. the DE440 excerpt shipped in the extension) or by the path of
@@ -30,8 +32,9 @@ import numpy as np
 
 from . import kernelfiles, nodes, spkfile, vectors
 from .errors import RowErrors, SkyError, rows_failing
-from .timescales import check_years, erfa_quietly, tt_to_tdb
-from .vocabulary import AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, PLANETS, SOURCE_WORDS
+from .timescales import check_years, erfa_quietly, julian_year, tt_to_tdb
+from .vocabulary import (AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, LONG_RANGE_YEARS, PLANETS,
+                         SOURCE_WORDS)
 
 # NAIF integer codes (an open standard): centres 199 ... 999, system barycentres 1 ... 9.
 NAIF_CODES = {"SUN": 10, "MERCURY": 199, "VENUS": 299, "EARTH": 399, "MOON": 301,
@@ -44,9 +47,11 @@ PLAN94_NUMBERS = {"MERCURY": 1, "VENUS": 2, "MARS": 4, "JUPITER": 5, "SATURN": 6
 
 
 def check_builtin_years(jd1, jd2):
-    """The one range check of the built-in theories, on their argument (TT as TDB)."""
-    check_years(jd1, jd2, BUILTIN_YEARS, "the built-in theories (ERFA epv00, plan94, moon98)",
-                "for other dates give a JPL kernel (source)")
+    """The one range check of the built-in theories, on their argument (TT as TDB):
+    ERFA's inside BUILTIN_YEARS, the long-range ones (longrange.py) out to LONG_RANGE_YEARS."""
+    check_years(jd1, jd2, LONG_RANGE_YEARS,
+                "the built-in theories (ERFA epv00, plan94, moon98; VSOP87D and ELP-2000/82 "
+                "outside 1000-3000)", "for other dates give a JPL kernel (source)")
 
 
 def _calendar(jd):
@@ -64,8 +69,13 @@ def _earth_and_sun_states(tdb1, tdb2):
                           axis=-1)
 
 
-
 class Builtin:
+    """ERFA's theories inside BUILTIN_YEARS, where they are the better ones; the
+    long-range theories of longrange.py (VSOP87D, abridged ELP-2000/82) outside, out to
+    LONG_RANGE_YEARS.  A column that crosses the boundary takes each row from its own
+    theory.  longrange is imported where first needed: reading its series takes 6 ms,
+    which a sheet of present-day dates never pays."""
+
     name = BUILTIN
 
     # ICRS from the J2000.0 mean equator and equinox that plan94 refers to (the 23 mas
@@ -75,40 +85,99 @@ class Builtin:
 
     def describe(self):
         return ("built in: ERFA epv00 (Earth, Sun), plan94 (Mercury to Neptune), moon98 "
-                f"(Moon); accepted {BUILTIN_YEARS[0]:g}-{BUILTIN_YEARS[1]:g}")
+                f"(Moon) over {BUILTIN_YEARS[0]:g}-{BUILTIN_YEARS[1]:g}; VSOP87D and "
+                f"ELP-2000/82 (abridged) outside, accepted {LONG_RANGE_YEARS[0]:g}-"
+                f"{LONG_RANGE_YEARS[1]:g}")
+
+    @staticmethod
+    def _by_theory(tdb1, tdb2, with_erfa, long_range):
+        """The results (a tuple of arrays, rows first) of ``with_erfa`` for the rows
+        inside BUILTIN_YEARS and of ``long_range`` for the others."""
+        check_builtin_years(tdb1, tdb2)
+        tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+        years = julian_year(tdb1, tdb2)
+        inside = (years >= BUILTIN_YEARS[0]) & (years <= BUILTIN_YEARS[1])
+        if np.all(inside):
+            return with_erfa(tdb1, tdb2)
+        if not np.any(inside):
+            return long_range(tdb1, tdb2)
+        parts = [(mask, fn(tdb1[mask], tdb2[mask]))
+                 for mask, fn in ((inside, with_erfa), (~inside, long_range))]
+        out = tuple(np.empty(tdb1.shape + a.shape[1:]) for a in parts[0][1])
+        for mask, arrays in parts:
+            for whole, a in zip(out, arrays):
+                whole[mask] = a
+        return out
 
     def earth_and_sun(self, tdb1, tdb2):
-        """Barycentric (p, v) of the Earth and of the Sun."""
-        check_builtin_years(tdb1, tdb2)
-        # A dense column takes the states interpolated over half-day nodes (nodes.py:
-        # within 0.5 m and 3 um/s of the series, which is good to kilometres).
-        s = nodes.over_nodes(_earth_and_sun_states, tdb1, tdb2)
-        return (s[..., 0:3], s[..., 3:6]), (s[..., 6:9], s[..., 9:12])
+        """Barycentric (p, v) of the Earth and of the Sun (the long-range theories are
+        heliocentric: there the Sun is at the origin, see longrange.py)."""
+        def with_erfa(t1, t2):
+            # A dense column takes the states interpolated over half-day nodes (nodes.py:
+            # within 0.5 m and 3 um/s of the series, which is good to kilometres).
+            s = nodes.over_nodes(_earth_and_sun_states, t1, t2)
+            return s[..., 0:3], s[..., 3:6], s[..., 6:9], s[..., 9:12]
 
-    def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
+        def long_range(t1, t2):
+            from . import longrange
+            p, v = longrange.planet("EARTH", t1, t2, rate=True)
+            return p, v, np.zeros_like(p), np.zeros_like(v)
+
+        ep, ev, sp, sv = self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        return (ep, ev), (sp, sv)
+
+    def moon_geocentric(self, tdb1, tdb2, velocity=True):
+        """Geocentric (p, v) of the Moon, ICRS axes (au, au/day); v None if not
+        ``velocity``."""
+        def with_erfa(t1, t2):
+            pv = erfa_quietly(erfa.moon98, t1, t2)
+            return pv["p"], pv["v"]
+
+        def long_range(t1, t2):
+            from . import longrange
+            p = longrange.moon(t1, t2)
+            return p, (longrange.moon_velocity(t1, t2) if velocity else np.full(p.shape, np.nan))
+
+        p, v = self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        return p, (v if velocity else None)
+
+    def heliocentric(self, body, tdb1, tdb2, earth_helio=None, velocity=True):
         """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of
         the Earth at a nearby instant: the Moon's geocentric theory is added to it,
-        extrapolated linearly over the light time (seconds, metres of error at most)."""
-        check_builtin_years(tdb1, tdb2)
+        extrapolated linearly over the light time (seconds, metres of error at most).
+        ``velocity`` False: v is None where the long-range theories would compute it
+        for nothing (the light-time iterations want positions; it halves their cost)."""
         if body == "PLUTO":
             raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
                            "DE440 or a .bsp path)")
         if body == "MOON":
-            pv = erfa_quietly(erfa.moon98, tdb1, tdb2)
+            mp, mv = self.moon_geocentric(tdb1, tdb2, velocity)
             if earth_helio is None:
-                pvh, _ = erfa_quietly(erfa.epv00, tdb1, tdb2)
-                ep, ev = pvh["p"], pvh["v"]
+                (ep, ev), (sp, sv) = self.earth_and_sun(tdb1, tdb2)
+                ep, ev = ep - sp, ev - sv
             else:
                 p0, v0, (j1, j2) = earth_helio
                 dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
                 ep, ev = p0 + dt * v0, v0
-            return pv["p"] + ep, pv["v"] + ev
-        pv = erfa_quietly(erfa.plan94, tdb1, tdb2, PLAN94_NUMBERS[body])
-        # bias^T applied to each row, with the same arithmetic however many rows there are
-        # (a matrix product takes other BLAS paths for one row and for several, which
-        # moved the last bit of a cell between a single formula and a column).
-        return (vectors.apply_transposed(self._bias, pv["p"]),
-                vectors.apply_transposed(self._bias, pv["v"]))
+            return mp + ep, (mv + ev if velocity else None)
+
+        def with_erfa(t1, t2):
+            pv = erfa_quietly(erfa.plan94, t1, t2, PLAN94_NUMBERS[body])
+            # bias^T applied to each row, with the same arithmetic however many rows
+            # there are (a matrix product takes other BLAS paths for one row and for
+            # several, which moved the last bit of a cell between a formula and a column).
+            return (vectors.apply_transposed(self._bias, pv["p"]),
+                    vectors.apply_transposed(self._bias, pv["v"]))
+
+        def long_range(t1, t2):
+            from . import longrange
+            if velocity:
+                return longrange.planet(body, t1, t2, rate=True)
+            p = longrange.planet(body, t1, t2)
+            return p, np.full(p.shape, np.nan)
+
+        p, v = self._by_theory(tdb1, tdb2, with_erfa, long_range)
+        return p, (v if velocity else None)
 
 
 # ---- JPL kernels -------------------------------------------------------------------------
@@ -235,7 +304,8 @@ class Kernel:
     def earth_and_sun(self, tdb1, tdb2):
         return self.barycentric("EARTH", tdb1, tdb2), self.barycentric("SUN", tdb1, tdb2)
 
-    def heliocentric(self, body, tdb1, tdb2, earth_helio=None):
+    def heliocentric(self, body, tdb1, tdb2, earth_helio=None, velocity=True):
+        # (The kernel gives positions and velocities together: ``velocity`` changes nothing.)
         bp, bv = self.barycentric(body, tdb1, tdb2)
         sp, sv = self.barycentric("SUN", tdb1, tdb2)
         return bp - sp, bv - sv

@@ -115,6 +115,43 @@ def _dated_one(system, jd1, jd2):
     return _dated(system, jd1, jd2)
 
 
+def _long_term(system, jd1, jd2):
+    """A dated system far from J2000: the long-term precession of Vondrak et al. (2011,
+    ERFA ltpb, ltecm; bias included) and, for the true systems, the nutation of the IAU
+    2000B series (ERFA nut00b) evaluated as it stands, its 77 terms and fundamental
+    arguments extended beyond the era they were fitted to (their error there is not
+    published)."""
+    epj = 2000.0 + ((jd1 - J2000_JD) + jd2) / 365.25
+    if system == "EQUATORIAL DATE":
+        return erfa.ltpb(epj)
+    ecliptic = erfa.ltecm(epj)
+    if system == "ECLIPTIC DATE":
+        return ecliptic
+    dpsi, deps = erfa.nut00b(jd1, jd2)
+    true_ecliptic = erfa.rz(-dpsi, ecliptic)  # longitudes gain the nutation in longitude
+    if system == "ECLIPTIC TRUE":
+        return true_ecliptic
+    # EQUATORIAL TRUE: the true equator is the true ecliptic turned back by the true
+    # obliquity, the mean obliquity being the angle between the two long-term poles.
+    eps = np.arccos(np.einsum("...i,...i->...", erfa.ltpequ(epj), erfa.ltpecl(epj)))
+    return erfa.rx(-(eps + deps), true_ecliptic)
+
+
+def _dated_any_year(system, jd1, jd2):
+    """IAU 2006/2000A inside IAU2006_YEARS, the long-term models outside (row by row)."""
+    years = julian_year(jd1, jd2)
+    inside = (years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])
+    if np.all(inside):
+        return _dated(system, jd1, jd2)
+    check_years(jd1, jd2, VONDRAK_YEARS, f"{system} uses the long-term precession")
+    if not np.any(inside):
+        return _long_term(system, jd1, jd2)
+    m = np.empty(jd1.shape + (3, 3))
+    m[inside] = _dated(system, jd1[inside], jd2[inside])
+    m[~inside] = _long_term(system, jd1[~inside], jd2[~inside])
+    return m
+
+
 def check_system(name):
     word = " ".join(str(name).replace("_", " ").replace(".", " ").split()).upper()
     word = _ALIASES.get(word, word)
@@ -123,11 +160,13 @@ def check_system(name):
     return word
 
 
-def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False):
+def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_term=False):
     """Rotation(s) from ICRS axes to ``system`` at TT dates (arrays, or None if fixed).
     ``smooth``: the nutation may be interpolated over nodes in a dense column (for the
     places of bodies, whose own theories are far coarser than the interpolation; a
-    conversion of the user's coordinates keeps the series itself)."""
+    conversion of the user's coordinates keeps the series itself).
+    ``long_term``: dates outside IAU2006_YEARS take the long-term models (_long_term)
+    instead of a message (the places of bodies, whose built-in source reaches further)."""
     system = check_system(system)
     if system not in DATED:
         return _fixed(system)
@@ -135,6 +174,11 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False):
     jd2 = np.asarray(jd2, dtype=float)
     if given is not None and not np.all(given):
         raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
+    if long_term:
+        jd1, jd2 = np.broadcast_arrays(jd1, jd2)
+        years = julian_year(jd1, jd2)
+        if not np.all((years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])):
+            return _dated_any_year(system, jd1, jd2)
     check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
                 "for other dates precess with SKY.PRECESS.RA/DEC and model VONDRAK2011")
     if jd1.size == 1 or (np.all(jd1 == jd1.flat[0]) and np.all(jd2 == jd2.flat[0])):

@@ -2,7 +2,8 @@
 
 Position: ERFA moon98 (Meeus's implementation of the ELP-2000/82 truncation; ERFA
 states RMS 2.9", worst 18" in direction and 6 km in distance against ELP/MPP02 over
-1950-2100), accepted here 1000-3000 like the other bodies, or a JPL kernel.  The place
+1950-2100), used here over 1000-3000 like ERFA's other theories, the same Meeus terms on
+the long-term frames outside (longrange.py, to -4000 and +8000), or a JPL kernel.  The place
 comes from the pipeline of bodies.py (light time of about 1.3 s; for APPARENT the Sun's
 light deflection and annual aberration); the Sun from sun.py.
 """
@@ -14,7 +15,7 @@ from . import bodies, ephemeris, frames, vectors
 from .errors import rows_failing
 from .events import crossings, wrap180
 from .sun import sun_gcrs, sun_in
-from .timescales import DateTimes, erfa_quietly
+from .timescales import DateTimes
 from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM, J2000_JD
 
 PHASES = {"NEW": 0.0, "FIRST": 90.0, "FULL": 180.0, "LAST": 270.0}
@@ -101,17 +102,17 @@ def node_cells(time, kind="TRUE"):
     """Ecliptic longitude of the Moon's ascending node, mean equinox and ecliptic of date.
 
     MEAN: the mean node of Simon et al. (1994) as in the IERS Conventions 2003 (ERFA
-    faom03).  TRUE: the osculating node of ERFA moon98's position and velocity.
+    faom03).  TRUE: the osculating node of the built-in Moon's position and velocity
+    (ERFA moon98 over 1000-3000, the long-range series outside).
     """
     tt1, tt2 = time.tt()
     if kind == "MEAN":
         t = ((tt1 - J2000_JD) + tt2) / 36525.0  # Julian centuries (TT)
         return frames.degrees_360(erfa.faom03(t))
     tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
-    ephemeris.check_builtin_years(tt1, tt2)
-    pv = erfa_quietly(erfa.moon98, tt1, tt2)
-    r = bodies.in_system(pv["p"], "ECLIPTIC DATE", tt1, tt2)
-    v = bodies.in_system(pv["v"], "ECLIPTIC DATE", tt1, tt2)
+    p, v = ephemeris.get(BUILTIN).moon_geocentric(tt1, tt2)
+    r = bodies.in_system(p, "ECLIPTIC DATE", tt1, tt2)
+    v = bodies.in_system(v, "ECLIPTIC DATE", tt1, tt2)
     h = np.cross(r, v)
     node = np.stack([-h[..., 1], h[..., 0], np.zeros_like(h[..., 0])], axis=-1)  # z x h
     return frames.spherical(node)[0]

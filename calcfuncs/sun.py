@@ -5,7 +5,8 @@ telescope or a camera at it, without a proper solar filter made for that purpose
 
 Position: the Earth's heliocentric and barycentric position and velocity from ERFA
 epv00 (Bretagnon and Francou's VSOP2000-based series, 1900-2100 good to a few km,
-usable 1000-3000 here), or a JPL kernel; the Sun's place comes from the one pipeline
+used over 1000-3000 here; VSOP87D outside, to -4000 and +8000: longrange.py), or a JPL
+kernel; the Sun's place comes from the one pipeline
 of bodies.py.
   GEOMETRIC   the Sun's direction at the same instant, no light time, no aberration
   ASTROMETRIC light time (about 499 s) applied: where the light left the Sun
@@ -22,8 +23,8 @@ import numpy as np
 from . import bodies, ephemeris, events, frames, nodes, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
-from .timescales import DateTimes, Instants
-from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, J2000_JD
+from .timescales import DateTimes, Instants, check_years
+from .vocabulary import BUILTIN, BUILTIN_YEARS, ECLIPTIC_OF_FRAME, J2000_JD, LONG_RANGE_YEARS
 
 
 def sun_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
@@ -90,7 +91,9 @@ def sundial_time_cells(time, longitude):
 # ---- the solar year ---------------------------------------------------------------------
 
 SEASONS = {"MARCH": 0.0, "JUNE": 90.0, "SEPTEMBER": 180.0, "DECEMBER": 270.0}
-FIRST_YEAR, LAST_YEAR = 1000, 2999  # whole years inside the position's 1000-3000
+# Whole years inside the built-in source's span (-4000 to +8000; Gregorian years start
+# up to 45 days after the Julian epochs of the same number there).
+FIRST_YEAR, LAST_YEAR = int(LONG_RANGE_YEARS[0]) + 1, int(LONG_RANGE_YEARS[1]) - 1
 
 
 def rough_longitude(tt1, tt2, frame="TRUE"):
@@ -211,7 +214,7 @@ def reaches_cells(longitude, time, frame="J2000", result_scale=None):
     roots = longitude_crossings(lon, start, np.minimum(start + 367.0, last), frame)
     jd1, jd2, found = roots.first(lon.size, roots.after(tt1, tt2))
     if not np.all(found):
-        raise rows_failing(~found, "the Sun does not reach that longitude before the year 3000")
+        raise rows_failing(~found, f"the Sun does not reach that longitude before the year {LAST_YEAR + 1}")
     return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)
 
 
@@ -421,11 +424,13 @@ def _stack(pairs):
 
 
 def _check_rows_of_nodes(grid):
-    """The built-in theories' years, checked for every node of every row (rows x grid):
-    a row with a node outside gets the message (the last day or two of the range, whose
-    grid reach past it, included)."""
+    """The years of ERFA's theories and of IAU 2006/2000A, which rise and set use (not
+    the built-in source's long range), checked for every node of every row (rows x
+    nodes): a row with a node outside gets the message (the last day or two of the
+    range, whose grid reach past it, included)."""
     try:
-        ephemeris.check_builtin_years(grid, np.zeros(grid.shape))
+        check_years(grid, np.zeros(grid.shape), BUILTIN_YEARS,
+                    "rise, set and transit use ERFA's theories and IAU 2006/2000A")
     except RowErrors as err:
         per_row = np.reshape(err.messages, grid.shape)
         first = [next((m for m in r if m is not None), None) for r in per_row]

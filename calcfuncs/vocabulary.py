@@ -60,6 +60,14 @@ PRECESSION_MODELS = ("AUTO", "IAU2006", "VONDRAK2011")
 # ERFA's built-in theories (epv00, plan94, moon98), accepted here with degrading
 # accuracy far from their fits.
 BUILTIN_YEARS = (1000.0, 3000.0)
+# The long-range theories that the built-in source takes outside BUILTIN_YEARS (VSOP87D
+# for the Sun and planets, Meeus's abridged ELP-2000/82 for the Moon: calcfuncs/longrange.py).
+LONG_RANGE_YEARS = (-4000.0, 8000.0)
+# Their largest difference from JPL DE440 over its span, 1550-2650 (geocentric direction,
+# arcseconds, measured and rounded up: tests/test_longrange.py asserts each).
+LONG_RANGE_VS_DE440 = (("SUN", 0.4), ("MERCURY", 0.6), ("VENUS", 1.2), ("MARS", 8.1),
+                       ("JUPITER", 1.5), ("SATURN", 1.9), ("URANUS", 9.7), ("NEPTUNE", 8.8),
+                       ("MOON", 14.0))
 # ERFA dtdb's series of TDB - TT, used inside this span only (its Poisson terms grow
 # without bound far from J2000).
 TDB_SERIES_YEARS = (1000.0, 3000.0)

@@ -225,3 +225,31 @@ def test_a_date_typed_into_a_cell_and_the_same_characters_as_text(sheet_doc):
     assert sheet.getCellRangeByName("B1").getString() == "44 BC March 15 00:00:00"
     assert sheet.getCellRangeByName("B2").getString() == "1066 October 14 00:00:00"
     assert sheet.getCellRangeByName("B3").getString() == "45 BC March 15 00:00:00"
+
+
+def test_the_sky_of_585_bc_and_ad_800_answers_in_calc(sheet_doc):
+    # The Sun, the Moon, a planet and the eclipse check at dates before the year 1000,
+    # typed as historians write them: numbers now (the built-in source's long-range
+    # theories), equal to the core's.  585 BC May 28 is the eclipse of the Lydian-Median
+    # war (Herodotus; the canons' date, common knowledge, from memory): its new Moon is
+    # flagged a possible solar eclipse.
+    sheet = sheet_doc.Sheets.getByIndex(0)
+    dates = ("585 BC May 28 12:00", "AD 800 March 21 12:00")
+    before = ("585 BC May 25 12:00", "AD 800 March 18 12:00")  # where the phase search starts
+    formulas = ['=SKY.SUN.LON(A{r};"UT")', '=SKY.MOON.LON(A{r};"UT")',
+                '=SKY.PLANET.LON("MARS";A{r};"UT")', '=SKY.MOON.PHASE.NEXT(G{r};"UT";"NEW";"TT")',
+                '=SKY.ECLIPSE.POSSIBLE(E{r};"TT")']
+    for r, text in enumerate(dates, start=1):
+        sheet.getCellRangeByName(f"A{r}").setString(text)
+        sheet.getCellRangeByName(f"G{r}").setString(before[r - 1])
+        for c, f in zip("BCDEF", formulas):
+            sheet.getCellRangeByName(f"{c}{r}").setFormula(f.format(r=r))
+    sheet_doc.calculateAll()
+    got = sheet.getCellRangeByName("B1:F2").getDataArray()
+    for row, text in zip(got, dates):
+        assert all(isinstance(v, float) for v in row[:4]), row
+        assert row[0] == pytest.approx(evaluate("SKY.SUN.LON", [text, "UT"]), abs=1e-9)
+        assert row[1] == pytest.approx(evaluate("SKY.MOON.LON", [text, "UT"]), abs=1e-9)
+        assert row[2] == pytest.approx(evaluate("SKY.PLANET.LON", ["MARS", text, "UT"]), abs=1e-9)
+        assert row[4] in ("solar eclipse possible", "no solar eclipse"), row
+    assert got[0][4] == "solar eclipse possible"

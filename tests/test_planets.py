@@ -422,8 +422,9 @@ def test_the_source_is_named():
     (["MARS", "2024-01-01", "UTC", "TRUE", "APPARENT", "kernels/de440.bsp"],
      'give the full path of the kernel file, not "kernels/de440.bsp"'),
     (["MARS", "1500-01-01", "TT", "TRUE", "APPARENT", DE440], "outside the span of de440.bsp"),
-    (["MARS", "0900-01-01", "TT"],
-     "built-in theories (ERFA epv00, plan94, moon98), valid 1000 to 3000"),
+    (["MARS", "-4001-01-01", "TT"],
+     "built-in theories (ERFA epv00, plan94, moon98; VSOP87D and ELP-2000/82 outside "
+     "1000-3000), valid -4000 to 8000"),
 ])
 def test_refusals_are_explained(args, mention):
     got = evaluate("SKY.PLANET.RA", args)

@@ -278,3 +278,23 @@ def system_arg(name, role):
     """A coordinate system argument, required: no system is ever assumed."""
     return Arg(name, "choice", f"Coordinate system {role}: " + SYSTEMS_TEXT + ". No default: "
                "always say which.", choices=vocab.SYSTEMS, aliases=vocab.SYSTEM_ALIASES)
+
+
+# The built-in source outside ERFA's years: one text for every place, season and eclipse
+# function that reaches that far (figures: tests/test_longrange.py).
+LONG_RANGE_NOTE = (
+    f"BUILTIN outside {span_text(vocab.BUILTIN_YEARS)} (accepted "
+    f"{span_text(vocab.LONG_RANGE_YEARS)}): the Earth and the planets from VSOP87D "
+    "(Bretagnon and Francou 1988, truncated), the Moon from Meeus's abridged ELP-2000/82; "
+    "against DE440 over 1550-2650 their geocentric directions differed by at most "
+    + ", ".join(f"{arcsec:g}\" {body.capitalize()}" for body, arcsec in vocab.LONG_RANGE_VS_DE440)
+    + " (the Moon 3\" rms) in our tests, more further out. There the mean "
+    "equator and ecliptic of date follow the long-term precession of Vondrak et al. (2011) "
+    "and the nutation is the IAU 2000B series as it stands (its error so far from the "
+    "present is not published). Before 1600 a clock time reaches TT through Delta T "
+    "(scale UT): its published standard error (SKY.DELTAT.UNCERTAINTY) is about 8 minutes "
+    "in 600 BC, which moves the Moon by 4' and turns the sky by 2 degrees. The Moon's mean "
+    "motion follows DE440's tidal acceleration, the value the default SMH2016 Delta T is "
+    "tied to (about -25.8\"/cy^2); ESPENAK2006's is -26\"/cy^2, whose published correction "
+    "(about 100 s in 600 BC) is not applied."
+)

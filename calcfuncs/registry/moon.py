@@ -2,16 +2,17 @@
 observation (BJD, HJD)."""
 
 from .. import vocabulary as vocab
-from .common import (EVENT_RESULT_SCALE, INSTANT, PLACE_FRAME, PLACE_KIND, SCALE, SOURCE,
-                     SOURCE_NOTE, Arg, CellFunction, Family, angle_arg, span_text)
+from .common import (EVENT_RESULT_SCALE, INSTANT, LONG_RANGE_NOTE, PLACE_FRAME, PLACE_KIND,
+                     SCALE, SOURCE, SOURCE_NOTE, Arg, CellFunction, Family, angle_arg,
+                     span_text)
 
 _BUILTIN = span_text(vocab.BUILTIN_YEARS)
 _MOON_MODEL = (
     "The Moon from ERFA moon98 (Meeus's ELP-2000/82 truncation: RMS 2.9\", worst 18\" "
     "and 32 km against ELP/MPP02 over 1950-2100, as ERFA states; up to 16\" (2.8\" rms) "
-    f"and 12 km against DE440 in our tests; accepted {_BUILTIN} with degrading accuracy); "
+    f"and 12 km against DE440 in our tests; used over {_BUILTIN}); "
     "light time and annual aberration for APPARENT; geocentric (the Moon's parallax, up "
-    "to 1 degree, is not applied). The Sun as SKY.SUN.LON."
+    "to 1 degree, is not applied). The Sun as SKY.SUN.LON. " + LONG_RANGE_NOTE
 )
 _MOON_TIME = (INSTANT, SCALE)
 _WITH_SOURCE = _MOON_TIME + (SOURCE,)

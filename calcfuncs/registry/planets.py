@@ -1,15 +1,15 @@
 """The planets, and the ephemeris sources."""
 
 from .. import vocabulary as vocab
-from .common import (EVENT_RESULT_SCALE, INSTANT, PLACE_FRAME, PLACE_KIND, SCALE, SOURCE,
-                     SOURCE_NOTE, Arg, CellFunction, Family, span_text, words)
+from .common import (EVENT_RESULT_SCALE, INSTANT, LONG_RANGE_NOTE, PLACE_FRAME, PLACE_KIND,
+                     SCALE, SOURCE, SOURCE_NOTE, Arg, CellFunction, Family, span_text, words)
 
 _PLANET_MODEL = (
     "BUILTIN: ERFA plan94 (Simon et al. 1994): heliocentric longitude against DE440 over "
     "1900-2050 within 6\" Mercury, 6\" Venus, 24\" Mars, 66\" Jupiter, 87\" Saturn, "
     "86\" Uranus, 10\" Neptune in our tests (ERFA states similar maxima against DE200); "
-    f"accepted {span_text(vocab.BUILTIN_YEARS)} with degrading accuracy; no Pluto; the "
-    "Earth from ERFA epv00. " + SOURCE_NOTE + " DE440 holds "
+    f"used over {span_text(vocab.BUILTIN_YEARS)}; no Pluto; the "
+    "Earth from ERFA epv00. " + LONG_RANGE_NOTE + " " + SOURCE_NOTE + " DE440 holds "
     "Mars to Pluto only as system barycentres (for Mars 0.0003\", for Jupiter up to 0.2\" "
     "from the planet's centre)."
 )

@@ -2,12 +2,12 @@
 
 from .. import vocabulary as vocab
 from .common import (INSTANT, LATITUDE, LONGITUDE, PLACE_FRAME, PLACE_KIND, SCALE, SCALES,
-                     SOURCE, SOURCE_NOTE, Arg, CellFunction, EVENT_RESULT_SCALE, Family,
-                     angle_arg, span_text)
+                     LONG_RANGE_NOTE, SOURCE, SOURCE_NOTE, Arg, CellFunction,
+                     EVENT_RESULT_SCALE, Family, angle_arg, span_text)
 
 _SUN_MODEL = (
     "The Earth from ERFA epv00 (fit to 1900-2100, a few km there; "
-    f"{span_text(vocab.BUILTIN_YEARS)} accepted with slowly degrading accuracy); light "
+    f"used over {span_text(vocab.BUILTIN_YEARS)} with slowly degrading accuracy); light "
     "time and annual aberration (ERFA ab) for APPARENT; frames as SKY.COORD: J2000 "
     "(ecliptic/equator and equinox of J2000.0), DATE (mean of date) or TRUE (true "
     "equinox, nutation included). Geocentric. " + vocab.SUN_CAUTION
@@ -28,10 +28,12 @@ _SEASON_EVENT = Arg("event", "choice", "MARCH (default: March equinox, apparent 
                     "0), JUNE (solstice, 90), SEPTEMBER (equinox, 180) or DECEMBER "
                     "(solstice, 270).", default="MARCH",
                     choices=("MARCH", "JUNE", "SEPTEMBER", "DECEMBER"))
-_YEAR = Arg("year", "number", "The year (Gregorian), 1000 to 2999.")
+_YEAR = Arg("year", "number", "The year (Gregorian), "
+            f"{vocab.LONG_RANGE_YEARS[0] + 1:g} to {vocab.LONG_RANGE_YEARS[1] - 1:g}.")
 _SEASON_MODEL = (
     "Found by one event search on the Sun's apparent longitude (light time, aberration, "
-    "nutation: the true equinox of date), to well under a second. " + _SUN_MODEL
+    "nutation: the true equinox of date), to well under a second. " + _SUN_MODEL + " "
+    + LONG_RANGE_NOTE
 )
 _RISE_MODEL = (
     "Searched over the local day on the Sun's geocentric apparent altitude (IAU "
@@ -49,7 +51,7 @@ _TARGET_AT = (angle_arg("ra", "RA of the target (ICRS, a catalogue place)"),
 
 def _sun_place(name, method, summary, result, impl, args=_PLACE_ARGS):
     return CellFunction(name=name, method=method, summary=summary, args=args,
-                        result=result, impl=impl, model=_SUN_MODEL + " " + SOURCE_NOTE)
+                        result=result, impl=impl, model=_SUN_MODEL + " " + LONG_RANGE_NOTE + " " + SOURCE_NOTE)
 
 
 def _rise_fn(name, method, summary, impl):
