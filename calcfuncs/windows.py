@@ -323,11 +323,15 @@ def window_moon_cells(ra, dec, date, latitude, longitude, utc_offset=0.0, quanti
                 height, 0.0, 0.0, 2000.0)
     best = w.best_offsets()
     found = np.array([b is not None for b in best])
-    if not np.all(found):
-        raise rows_failing(~found, "no window this night: the target is not above the "
-                                   "limit while the sky is dark")
-    lat, lon, h = (row_values(v, w.n) for v in (latitude, longitude, height))
-    out = moon_at(quantity, w.ra, w.dec, w.start, np.array(best), lat, lon, h, date.dut1)
+    out = np.empty(w.n, dtype=object)
+    # A night without a window is an answer, said in words as the window's times say it.
+    out[~found] = "no window: the target is not above the limit while the sky is dark this night"
+    if np.any(found):
+        k = np.flatnonzero(found)
+        lat, lon, h = (row_values(v, w.n)[k] for v in (latitude, longitude, height))
+        values = moon_at(quantity, w.ra[k], w.dec[k], w.start[k],
+                         np.array([best[i] for i in k]), lat, lon, h, date.dut1)
+        out[k] = np.asarray(values, dtype=float).tolist()
     return out
 
 

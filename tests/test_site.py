@@ -401,6 +401,9 @@ def test_window_moon_and_separation(sky):
     lit = evaluate("SKY.WINDOW.MOON", [279.23473479, 38.78368896, "2024-07-18", 45.0, 10.0,
                                        "UTC", 0, "ILLUMINATED"])
     assert 0.8 < lit <= 1.0  # full Moon 2024-07-21 (common knowledge of that month)
+    # A night without a window says so in words, as the window's times do.
+    none = evaluate("SKY.WINDOW.MOON", [279.23473479, -80.0, "2024-07-18", 45.0, 10.0])
+    assert isinstance(none, str) and none.startswith("no window")
 
 
 # ---- bad input ----------------------------------------------------------------------------
