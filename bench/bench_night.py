@@ -145,12 +145,15 @@ def skyfield_run(targets, first_day, nights):
             results.append((a, b, 24.0 * sum(y - x for x, y in s), best))
             best_times.append(best)
             best_targets.append((ra, dec))
+    # The Moon's astrometric place from the site against the catalogue directions (a
+    # Star observed at many times takes one star, so the directions are made by hand).
     t = ts.tt_jd(np.array(best_times))
-    stars = Star(ra_hours=np.array([r for r, _ in best_targets]) / 15.0,
-                 dec_degrees=np.array([d for _, d in best_targets]))
-    obs = site.at(t)
-    separation = obs.observe(eph["moon"]).apparent().separation_from(
-        obs.observe(stars).apparent()).degrees
+    moon = site.at(t).observe(eph["moon"]).position.au
+    moon = moon / np.linalg.norm(moon, axis=0)
+    ra = np.radians([r for r, _ in best_targets])
+    dec = np.radians([d for _, d in best_targets])
+    stars = np.array([np.cos(dec) * np.cos(ra), np.cos(dec) * np.sin(ra), np.sin(dec)])
+    separation = np.degrees(np.arccos(np.clip(np.sum(moon * stars, axis=0), -1.0, 1.0)))
     return results, dark_hours, separation
 
 

@@ -21,7 +21,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import risings, topocentric, windows
+from calcfuncs import risings
 from calcfuncs.cells import evaluate
 from calcfuncs.timescales import Instants
 
@@ -299,7 +299,8 @@ def test_circumpolar_where_declination_exceeds_90_minus_latitude(lat):
     # dip shift the limit by under a degree, so the check stands 1.5 degrees either side.
     limit = 90.0 - abs(lat)
     sign = 1.0 if lat > 0 else -1.0
-    for dec, words in ((sign * (limit + 1.5), "never sets"), (-sign * (limit + 1.5), "never rises")):
+    for dec, words in ((sign * (limit + 1.5), "never sets"),
+                       (-sign * (limit + 1.5), "never rises")):
         cell = evaluate("SKY.STAR.SET" if words == "never sets" else "SKY.STAR.RISE",
                         [123.0, dec, "2024-02-10", lat, 5.0])
         assert isinstance(cell, str) and words in cell, cell
@@ -441,3 +442,46 @@ def test_polar_cases_in_words():
     assert "stays above the horizon" in summer and "stays below the horizon" in winter
     assert evaluate("SKY.DARK.HOURS", ["2024-06-21", 78.2, 15.6]) == 0.0
     assert "no Moon-free dark time" in evaluate("SKY.DARK.START", ["2024-06-21", 78.2, 15.6])
+
+
+def test_a_star_with_proper_motion_from_its_epoch(sky):
+    # skyfield 1.55 + DE440: Star(..., ra_mas_per_year, dec_mas_per_year, epoch) with
+    # find_transits and find_risings at -34'.  A star moving 10" a year (Barnard's star's
+    # catalogue values, from memory, used only as input) at epoch 2016.0, on dates in
+    # 2040: ours within 0.2 s; without the proper motion (19" in RA by then) the transit
+    # is 1.3 s off.
+    ts, eph = sky["ts"], sky["eph"]
+    ra, dec, pm_ra, pm_dec = 269.4520769, 4.6933649, -801.551, 10362.394
+    star = Star(ra_hours=ra / 15.0, dec_degrees=dec, ra_mas_per_year=pm_ra,
+                dec_mas_per_year=pm_dec, epoch=ts.tt(2016, 1, 1, 12))
+    lat, lon = 51.5, -0.1
+    obs = eph["earth"] + wgs84.latlon(lat, lon)
+    t0, t1 = ts.utc(2040, 3, 1), ts.utc(2040, 3, 2)
+    transit = almanac.find_transits(obs, star, t0, t1)
+    rise, _ = almanac.find_risings(obs, star, t0, t1, horizon_degrees=-34.0 / 60.0)
+    dut1 = float(t0.dut1)
+    date = Instants(np.array([2466214.5]), np.zeros(1), "UTC", dut1)  # 2040-03-01
+    for ours, theirs in ((risings.star_transit_cells(ra, dec, date, lat, lon, 0.0, "UPPER",
+                                                      pm_ra, pm_dec, 2016.0), transit),
+                         (risings.star_rise_cells(ra, dec, date, lat, lon, 0.0, 0.0, None,
+                                                  10.0, pm_ra, pm_dec, 2016.0), rise)):
+        tt = ours.instants.to("TT")
+        print("proper motion:", abs((tt.jd1[0] + tt.jd2[0]) - theirs.tt[0]) * 86400.0, "s")
+        assert abs((tt.jd1[0] + tt.jd2[0]) - theirs.tt[0]) * 86400.0 < 0.2
+    still = risings.star_transit_cells(ra, dec, date, lat, lon)
+    tt = still.instants.to("TT")
+    assert abs((tt.jd1[0] + tt.jd2[0]) - transit.tt[0]) * 86400.0 > 1.0
+
+
+def test_an_air_mass_limit_is_an_altitude_limit():
+    # Kasten and Young (1989): air mass 2 at about 29.9 degrees (sec z gives 30 exactly;
+    # common practice).  A window with an air mass limit of 2 matches one with the
+    # altitude where the formula reaches 2.
+    from calcfuncs import windows
+
+    h = float(windows.altitude_for_airmass(2.0))
+    assert 29.8 < h < 30.0
+    args = [279.23473479, 38.78368896, "2024-07-01", 45.0, 10.0, "UTC", 0]
+    by_mass = evaluate("SKY.WINDOW.HOURS", args + [2.0, "AIRMASS"])
+    by_alt = evaluate("SKY.WINDOW.HOURS", args + [h, "ALTITUDE"])
+    assert abs(by_mass - by_alt) * 3600.0 < 0.01

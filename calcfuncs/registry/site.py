@@ -2,8 +2,8 @@
 observing windows."""
 
 from .. import vocabulary as vocab
-from .common import (DUT1, HEIGHT, INSTANT, LATITUDE, LONGITUDE, SCALE, SOURCE, Arg,
-                     CellFunction, Family, angle_arg, span_text, words)
+from .common import (DUT1, LATITUDE, LONGITUDE, SCALE, SOURCE, Arg, CellFunction, Family,
+                     angle_arg, span_text, words)
 
 _BODIES = ("SUN", "MOON") + vocab.PLANETS
 _BODY = Arg("body", "choice", f"The body: {words(_BODIES)} (Pluto only from a JPL kernel).",

@@ -36,6 +36,9 @@ PROGRAMME = [
     ("Field K-7", "23 59 59.99", "+89 15 51", 0.0, 0.0),
 ]
 PLANETS = ("VENUS", "MARS", "JUPITER", "SATURN")
+# The night at the site, as the formulas name the cells of the Tonight sheet.
+_DAY = "Night;SiteLat;SiteLon;;UtcOffset"
+_DARK = "Darkness;SiteHeight"
 
 
 def _named(doc, sheet_name, name, col, row):
@@ -48,7 +51,8 @@ def tonight_sheet(doc, sheet):
     cols = 16
     note(sheet, 0,
          f"Tonight at the Saltmarsh circle's {SITE_NAME} (an INVENTED site and programme: "
-         "SiteLat, SiteLon, SiteHeight, UtcOffset, Night, AltLimit and Darkness are the named cells below; "
+         "SiteLat, SiteLon, SiteHeight, UtcOffset, Night, AltLimit and Darkness are the "
+         "named cells below; "
          "change them and the sheet follows). Times are UTC plus the offset. For each field: "
          "rising, transit (highest) and setting (centre 34' below the horizon: standard "
          "refraction), and the observing window: the longest stretch of the night (local "
@@ -85,15 +89,14 @@ def tonight_sheet(doc, sheet):
 
     # The Moon and the dark of the night, beside the site.
     moon = [
-        ("Moonrise", '=SKY.BODY.RISE("MOON";Night;SiteLat;SiteLon;;UtcOffset;SiteHeight)', "HH:MM"),
-        ("Moon's transit", '=SKY.BODY.TRANSIT("MOON";Night;SiteLat;SiteLon;;UtcOffset)', "HH:MM"),
-        ("Moonset", '=SKY.BODY.SET("MOON";Night;SiteLat;SiteLon;;UtcOffset;SiteHeight)', "HH:MM"),
-        ("Moon-free dark from", "=SKY.DARK.START(Night;SiteLat;SiteLon;;UtcOffset;Darkness;SiteHeight)",
+        ("Moonrise", '=SKY.BODY.RISE("MOON";' + _DAY + ";SiteHeight)", "HH:MM"),
+        ("Moon's transit", '=SKY.BODY.TRANSIT("MOON";' + _DAY + ")", "HH:MM"),
+        ("Moonset", '=SKY.BODY.SET("MOON";' + _DAY + ";SiteHeight)", "HH:MM"),
+        ("Moon-free dark from", "=SKY.DARK.START(" + _DAY + ";" + _DARK + ")",
          "YYYY-MM-DD HH:MM"),
-        ("Moon-free dark until", "=SKY.DARK.END(Night;SiteLat;SiteLon;;UtcOffset;Darkness;SiteHeight)",
+        ("Moon-free dark until", "=SKY.DARK.END(" + _DAY + ";" + _DARK + ")",
          "YYYY-MM-DD HH:MM"),
-        ("Moon-free dark hours", "=SKY.DARK.HOURS(Night;SiteLat;SiteLon;;UtcOffset;Darkness;SiteHeight)",
-         "0.00"),
+        ("Moon-free dark hours", "=SKY.DARK.HOURS(" + _DAY + ";" + _DARK + ")", "0.00"),
         ("Moon lit at local midnight", "=SKY.MOON.ILLUMINATED(Night+1-UtcOffset/24)", "0.00"),
     ]
     for k, (label, formula, code) in enumerate(moon):
@@ -125,8 +128,8 @@ def tonight_sheet(doc, sheet):
         ("=SKY.WINDOW.HOURS(" + window + ")", "0.00"),
         ("=SKY.WINDOW.BEST(" + window + ")", "MM-DD HH:MM"),
         ("=SKY.WINDOW.MOON(" + star + ';"SEPARATION";AltLimit;;Darkness;SiteHeight)', "0.0"),
-        ('=IF(ISNUMBER(N{r});SKY.TOPO.ALT("MOON";N{r}-UtcOffset/24;SiteLat;SiteLon;;SiteHeight);"")',
-         "+0.0;-0.0"),
+        ('=IF(ISNUMBER(N{r});SKY.TOPO.ALT("MOON";N{r}-UtcOffset/24;SiteLat;SiteLon;;'
+         'SiteHeight);"")', "+0.0;-0.0"),
     ])
     # One check in the other direction: the separation at the best moment, typed as an
     # instant (UTC), equals the window's own.
@@ -214,9 +217,11 @@ def altitudes_sheet(doc, sheet):
     templates = []
     for k in range(len(PROGRAMME)):
         src = 12 + k  # the field's 1-based row on the Tonight sheet
-        place = f"$Tonight.$F${src};$Tonight.$G${src};$A{{r}}-UtcOffset/24;SiteLat;SiteLon;;SiteHeight"
+        place = (f"$Tonight.$F${src};$Tonight.$G${src};$A{{r}}-UtcOffset/24;SiteLat;SiteLon;;"
+                 "SiteHeight")
         templates.append((f"=SKY.HORIZON.ALT({place})", "+0.0;-0.0"))
-    templates.append(('=SKY.TOPO.ALT("MOON";$A{r}-UtcOffset/24;SiteLat;SiteLon;;SiteHeight)', "+0.0;-0.0"))
+    templates.append(('=SKY.TOPO.ALT("MOON";$A{r}-UtcOffset/24;SiteLat;SiteLon;;SiteHeight)',
+                      "+0.0;-0.0"))
     fill_columns(doc, sheet, first, last, 1, templates)
     widths(sheet, [2.4] + [1.8] * (len(PROGRAMME) + 1))
 
