@@ -10,6 +10,9 @@ separation at the best moment; per night the Moon-free dark hours.  Timed:
                               Calc computes a sheet filled down over 365 dates (so the
                               fill-down look-ahead and the kept nights work as in Calc)
   ours, column calls          each (target, function) as one 365-row call
+  the real Calc (--oxt)        the same cells as formulas in a LibreOffice sheet filled
+                              down 365 dates, computed and read back (a fresh office
+                              with the add-in, its first calculation)
   skyfield                    the same work with skyfield 1.55 + DE440 in one run:
                               almanac.find_risings / find_settings (the Sun at -18, each
                               target at 30, the Moon with its own horizon) and
@@ -17,7 +20,8 @@ separation at the best moment; per night the Moon-free dark hours.  Timed:
                               night in Python, the Moon's separation at the best moments in
                               one vectorised call
 
-    .venv/bin/python bench/bench_night.py [--targets 20] [--nights 365] [--json out.json]
+    .venv/bin/python bench/bench_night.py [--targets 20] [--nights 365] [--oxt OXT]
+                                          [--json out.json]
 """
 
 import argparse
@@ -76,6 +80,43 @@ def ours_columns(targets, days):
                                                                   OFFSET, "ASTRONOMICAL",
                                                                   HEIGHT])]
     return out
+
+
+def real_calc(oxt, targets, days):
+    """Seconds for Calc to compute and give back the plan as formulas filled down, and
+    the count of cells."""
+    sys.path.insert(0, os.path.join(ROOT, "tools"))
+    import officekit
+
+    site = f"{LAT};{LON};;{OFFSET}"
+    with officekit.Office(oxt=oxt) as office:
+        warm = office.new_sheet()  # the add-in loaded and numpy imported, not timed
+        warm.Sheets.getByIndex(0).getCellByPosition(0, 0).setFormula("=SKY.JD(45000)")
+        warm.calculateAll()
+        warm.close(True)
+        doc = office.new_sheet()
+        try:
+            sheet = doc.Sheets.getByIndex(0)
+            n = len(days)
+            sheet.getCellRangeByPosition(0, 0, 0, n - 1).setDataArray(tuple((d,) for d in days))
+            columns = [f"=SKY.DARK.HOURS(A{{r}};{site};;{HEIGHT})"]
+            for ra, dec in targets:
+                window = f"{ra};{dec};A{{r}};{site};30;;;{HEIGHT}"
+                columns += [f"=SKY.WINDOW.START({window})", f"=SKY.WINDOW.END({window})",
+                            f"=SKY.WINDOW.HOURS({window})", f"=SKY.WINDOW.BEST({window})",
+                            f'=SKY.WINDOW.MOON({ra};{dec};A{{r}};{site};"SEPARATION";30;;;'
+                            f"{HEIGHT})"]
+            rows = tuple(tuple(c.format(r=r + 1) for c in columns) for r in range(n))
+            area = sheet.getCellRangeByPosition(1, 0, len(columns), n - 1)
+            t0 = time.perf_counter()
+            area.setFormulaArray(rows)
+            doc.calculateAll()
+            values = area.getDataArray()
+            seconds = time.perf_counter() - t0
+            bad = sum(isinstance(v, str) and v.startswith("#") for row in values for v in row)
+        finally:
+            doc.close(True)
+    return seconds, n * len(columns), bad
 
 
 def skyfield_run(targets, first_day, nights):
@@ -182,6 +223,7 @@ def main(argv=None):
     parser = argparse.ArgumentParser(description=__doc__.split("\n")[0])
     parser.add_argument("--targets", type=int, default=20)
     parser.add_argument("--nights", type=int, default=365)
+    parser.add_argument("--oxt", help="also time the real Calc with this extension")
     parser.add_argument("--json", metavar="FILE")
     opts = parser.parse_args(argv)
     rng = np.random.default_rng(2027)
@@ -203,6 +245,11 @@ def main(argv=None):
     sf_results, sf_dark, _ = skyfield_run(targets, first, opts.nights)
     skyfield_s = time.perf_counter() - t
 
+    calc = None
+    if opts.oxt:
+        clear_caches()
+        calc = real_calc(opts.oxt, targets, days)
+
     # How far apart the two answers are (windows in seconds, dark hours in minutes).
     ours_hours = np.array([v for k in range(opts.targets)
                            for v in columns[(k, "SKY.WINDOW.HOURS")]])
@@ -218,6 +265,10 @@ def main(argv=None):
         "dark_hours_max_diff_s": float(np.max(np.abs(np.array(columns["dark"])
                                                      - np.array(sf_dark))) * 3600.0),
     }
+    if calc is not None:
+        report.update({"calc_s": calc[0], "calc_cells": calc[1],
+                       "calc_us_per_cell": calc[0] / calc[1] * 1e6, "calc_messages": calc[2],
+                       "ratio_calc_to_skyfield": calc[0] / skyfield_s})
     for key, value in report.items():
         print(f"{key:32s} {value:.4g}" if isinstance(value, float) else f"{key:32s} {value}")
     if opts.json:
