@@ -40,6 +40,7 @@ bench: oxt
 	$(PY) bench/bench_libraries.py --json out/bench-libraries.json
 	$(PY) bench/bench_constellations.py --json out/bench-constellations.json
 	$(PY) bench/bench_longrange.py --json out/bench-longrange.json
+	$(PY) bench/bench_night.py --oxt $(OXT) --json out/bench-night.json
 	$(PY) bench/bench_recalc.py --oxt $(OXT) --json out/bench-recalc.json
 	$(PY) bench/bench_kernels.py --oxt $(OXT) --json out/bench-kernels.json
 	$(PY) bench/bench_sheets.py --oxt $(OXT) --json out/bench-sheets.json

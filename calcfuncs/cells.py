@@ -16,7 +16,7 @@ from . import ephemeris, registry
 from .angles import parse_angle
 from .errors import PREFIX, RowErrors, SkyError
 from .timeinput import null_date_jd, read_times, to_serial
-from .timescales import DateTimes, Instants, check_scale
+from .timescales import DUT1_LIMIT, DateTimes, Instants, check_scale
 from .vocabulary import J2000_JD, SCALE_WORDS, SOURCE_WORDS
 
 _IMPLS = {}
@@ -122,6 +122,10 @@ def _read_option(arg, value):
         if value != int(value) or abs(value) > 1e6:
             raise SkyError(f"{arg.name} must be a whole number, not {value:g}")
         return int(value)
+    if arg.name == "dut1" and abs(value) > DUT1_LIMIT:
+        # Said as the option is read, so a cell and a column give the same message
+        # whatever else is wrong in a row (the time scales say it again).
+        raise SkyError(f"DUT1 of {value} s is outside -1 to +1 s")
     return value
 
 

@@ -290,6 +290,14 @@ def refine(f, found, tolerance=1e-8, groups=None):
         active &= ~settled
         if np.any(active):
             split(active, x[active])
+    # False position crawls where the function is far from straight over the bracket (the
+    # Sun or the Moon skimming the horizon, the crossing close to a turning point): the
+    # brackets still unsettled are bisected to the tolerance.
+    while np.any(active):
+        active &= _group_max(hi - lo, group, n_groups) > tolerance
+        if np.any(active):
+            split(active, 0.5 * (lo[active] + hi[active]))
+            x[active] = 0.5 * (lo[active] + hi[active])
     return Roots(base, x, row)
 
 

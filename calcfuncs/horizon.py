@@ -61,7 +61,7 @@ def sidereal_cells(time, kind="GAST", longitude=0.0, unit="DEG"):
     return angle / 15.0 if unit == "HOURS" else angle
 
 
-def _site(latitude, longitude, height):
+def site_radians(latitude, longitude, height):
     check_latitudes(latitude)
     height = np.asarray(height, dtype=float)
     bad = (height < -1000.0) | (height > 20000.0)
@@ -78,7 +78,7 @@ def _atmosphere(pressure, temperature):
     return pressure, temperature
 
 
-def _observer(time, latitude, longitude, height, pressure, temperature, frame):
+def observer_astrom(time, latitude, longitude, height, pressure, temperature, frame):
     """ERFA's star-independent astrometry parameters for the observed place at a site:
     for ICRS places the whole chain from the catalogue (ERFA apco: Earth's barycentric
     state from epv00, IAU 2006/2000A CIP and CIO locator, Earth rotation angle, refraction
@@ -88,7 +88,7 @@ def _observer(time, latitude, longitude, height, pressure, temperature, frame):
     the observed place is computed at any date in its stated span: through UTC and DUT1
     from 1960 (exactly as apco13 does), through Delta T before.  Every input is checked."""
     _check_years(time, "the observed place")
-    elong, phi, hm = _site(latitude, longitude, height)
+    elong, phi, hm = site_radians(latitude, longitude, height)
     phpa, tc = _atmosphere(pressure, temperature)
     tt1, tt2 = time.tt()
     ut = time.to("UT")
@@ -130,7 +130,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
              temperature=10.0, frame="ICRS"):
     """(azimuth, zenith distance, hour angle, declination) observed, in radians."""
     check_latitudes(dec, "declination")
-    astrom, phpa = _observer(time, latitude, longitude, height, pressure, temperature, frame)
+    astrom, phpa = observer_astrom(time, latitude, longitude, height, pressure, temperature, frame)
     rc, dc = np.radians(ra), np.radians(dec)
     if frame == "ICRS":
         ri, di = erfa.atciq(rc, dc, 0.0, 0.0, 0.0, 0.0, astrom)
@@ -139,11 +139,11 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
         # takes is larger by the equation of the origins.
         ri, di = rc + _equation_of_origins(time), dc
     aob, zob, hob, dob, _ = erfa.atioq(ri, di, astrom)
-    _check_refraction_range(phpa, 90.0 - np.degrees(zob))
+    check_refraction_range(phpa, 90.0 - np.degrees(zob))
     return aob, zob, hob, dob
 
 
-def _check_refraction_range(pressure, altitude_deg):
+def check_refraction_range(pressure, altitude_deg):
     if pressure > 0.0:
         low = np.asarray(altitude_deg) < REFRACTION_MIN_ALTITUDE
         if np.any(low):
@@ -158,9 +158,9 @@ def from_observed(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     """(RA, Dec) in radians from observed azimuth and altitude (degrees)."""
     check_latitudes(alt, "altitude")
-    astrom, phpa = _observer(time, latitude, longitude, height, pressure, temperature, frame)
+    astrom, phpa = observer_astrom(time, latitude, longitude, height, pressure, temperature, frame)
     a = np.radians(az)
-    _check_refraction_range(phpa, alt)
+    check_refraction_range(phpa, alt)
     z = np.radians(90.0 - np.asarray(alt, dtype=float))
     ri, di = erfa.atoiq("A", a, z, astrom)
     if frame == "ICRS":

@@ -271,7 +271,7 @@ class SunOverDays:
         self.dut1 = dut1
         self.origin = np.floor(start / self.SPACING) * self.SPACING - self.SPACING
         grid = self.origin[:, None] + self.SPACING * np.arange(self.NODES)
-        _check_rows_of_nodes(grid)
+        check_rows_of_nodes(grid)
         unique, self.index = np.unique(grid, return_inverse=True)
         self.index = self.index.reshape(grid.shape)
         # TT - UT (days) at the nodes, interpolated too where it is smooth over the
@@ -297,7 +297,7 @@ class SunOverDays:
         return ra, dec, gast
 
 
-def _local_day(time, utc_offset, ahead=0.0):
+def local_day_start(time, utc_offset, ahead=0.0):
     """TT JD (one float per row) of the start of the local calendar day that contains
     the given date, or of the day ``ahead`` days after it (whole days, per row)."""
     from .timeinput import days_and_seconds
@@ -309,7 +309,7 @@ def _local_day(time, utc_offset, ahead=0.0):
     return np.ravel(tt.jd1 + tt.jd2)
 
 
-def _row_values(value, n):
+def row_values(value, n):
     return np.broadcast_to(np.asarray(value, dtype=float), (n,)) if np.ndim(value) == 0 \
         else np.ravel(np.asarray(value, dtype=float))
 
@@ -358,11 +358,11 @@ class _DayEvents:
     the altitude at 0h)."""
 
     def __init__(self, time, latitude, longitude, utc_offset, event, height):
-        self.start = _local_day(time, utc_offset)
+        self.start = local_day_start(time, utc_offset)
         n = self.start.size
-        lat, lon = _row_values(latitude, n), _row_values(longitude, n)
-        h0 = _row_values(_threshold(event, np.asarray(height, dtype=float)), n)
-        offset = _row_values(utc_offset, n)
+        lat, lon = row_values(latitude, n), row_values(longitude, n)
+        h0 = row_values(_threshold(event, np.asarray(height, dtype=float)), n)
+        offset = row_values(utc_offset, n)
         keys = [(s, a, b, c, time.dut1) for s, a, b, c in
                 zip(self.start.tolist(), lat.tolist(), lon.tolist(), h0.tolist())]
         # What is kept is taken now: storing the missing days may push older ones out.
@@ -391,7 +391,7 @@ class _DayEvents:
             one = Instants(np.ravel(time.jd1)[k:k + 1], np.ravel(time.jd2)[k:k + 1],
                            time.scale, time.dut1)
             try:
-                extra = _local_day(one, offset[k], ahead)
+                extra = local_day_start(one, offset[k], ahead)
             except SkyError:
                 extra = ()  # days beyond the scale's range: the lone day alone
         if len(extra):
@@ -423,7 +423,7 @@ def _stack(pairs):
     return jd1, jd2, row
 
 
-def _check_rows_of_nodes(grid):
+def check_rows_of_nodes(grid):
     """The years of ERFA's theories and of IAU 2006/2000A, which rise and set use (not
     the built-in source's long range), checked for every node of every row (rows x
     nodes): a row with a node outside gets the message (the last day or two of the
@@ -489,7 +489,7 @@ def _no_event_text(up_at_start, other_found, event, rising):
     return f"no {word} on this local date: the Sun stays up after rising"
 
 
-def _local_times(jd1, jd2, found, start, time, utc_offset, words):
+def local_times(jd1, jd2, found, start, time, utc_offset, words):
     """DateTimes on the local clock (the time's scale plus the UTC offset) of the rows'
     events; rows without one show their ``words`` (the day's start stands in)."""
     missing = ~found
@@ -501,7 +501,7 @@ def _local_times(jd1, jd2, found, start, time, utc_offset, words):
 
 
 def _rise_or_set(time, latitude, longitude, utc_offset, event, height, rising):
-    _check_site(latitude, longitude)
+    check_site(latitude, longitude)
     day = _DayEvents(time, latitude, longitude, utc_offset, event, height)
     n = day.start.size
     found_roots, other = (day.ups, day.downs) if rising else (day.downs, day.ups)
@@ -510,10 +510,10 @@ def _rise_or_set(time, latitude, longitude, utc_offset, event, height, rising):
     words = np.full(n, None, dtype=object)
     for k in np.flatnonzero(~found):
         words[k] = _no_event_text(day.up_at_start[k], other_found[k], event, rising)
-    return _local_times(jd1, jd2, found, day.start, time, utc_offset, words)
+    return local_times(jd1, jd2, found, day.start, time, utc_offset, words)
 
 
-def _check_site(latitude, longitude):
+def check_site(latitude, longitude):
     frames.check_latitudes(latitude)
     lon = np.asarray(longitude, dtype=float)
     bad = np.abs(lon) > 360.0
@@ -532,7 +532,7 @@ def set_cells(date, latitude, longitude, utc_offset=0.0, event="SUNRISE", height
 def daylength_cells(date, latitude, longitude, utc_offset=0.0, event="SUNRISE", height=0.0):
     """Hours of the local day with the Sun above the event's altitude (24 or 0 in
     polar day or night)."""
-    _check_site(latitude, longitude)
+    check_site(latitude, longitude)
     day = _DayEvents(date, latitude, longitude, utc_offset, event, height)
     n = day.start.size
     # Every crossing of every row, in order of row, time and kind (a set before a rise
@@ -561,10 +561,10 @@ def daylength_cells(date, latitude, longitude, utc_offset=0.0, event="SUNRISE", 
 
 def transit_cells(date, latitude, longitude, utc_offset=0.0):
     """Local time of the Sun's upper transit (local apparent noon)."""
-    _check_site(latitude, longitude)
-    starts = _local_day(date, utc_offset)
+    check_site(latitude, longitude)
+    starts = local_day_start(date, utc_offset)
     n = starts.size
-    lon = _row_values(longitude, n)
+    lon = row_values(longitude, n)
 
     sun = SunOverDays(starts, date.dut1)
 
@@ -575,7 +575,7 @@ def transit_cells(date, latitude, longitude, utc_offset=0.0):
     roots = crossings(f, starts, starts + 1.0, 1.0 / 24.0, direction=+1, jump=180.0)
     jd1, jd2, found = roots.first(n)
     words = np.where(found, None, "no transit on this local date").astype(object)
-    return _local_times(jd1, jd2, found, starts, date, utc_offset, words)
+    return local_times(jd1, jd2, found, starts, date, utc_offset, words)
 
 
 # ---- the Sun and other directions ------------------------------------------------------

@@ -9,7 +9,7 @@ every cache emptied (its accuracy is checked against almanacs and skyfield elsew
 import numpy as np
 import pytest
 
-from calcfuncs import cells, registry, sun
+from calcfuncs import cells, registry, risings, sun, windows
 
 FILLS_DOWN = [f for f in registry.FUNCTIONS if f.fills_down]
 SITE = (47.3814, 8.0542)  # an invented hill station
@@ -19,11 +19,19 @@ def forget():
     cells._SINGLE_CELL_CACHE.clear()
     sun._DAY_CACHE.clear()
     sun._NODE_CACHE.clear()
+    for cache in (risings._NODE_CACHE, risings._ASTROM_CACHE, windows._NIGHT_CACHE,
+                  windows._WINDOW_CACHE):
+        cache.clear()
 
 
 def args_for(fn, value, latitude=SITE[0]):
     if fn.fills_down == "year":
         return [value, "JUNE"]
+    if fn.name.startswith("SKY.BODY."):
+        return ["MOON", value, latitude, SITE[1], None, 1.0]
+    if fn.name.startswith(("SKY.STAR.", "SKY.WINDOW.")):
+        # An invented field, high in the evening sky of January.
+        return [101.3, 24.6, value, latitude, SITE[1], None, 1.0]
     return [value, latitude, SITE[1], None, 1.0]
 
 
@@ -35,7 +43,11 @@ def alone(fn, value, **kw):
 def test_the_functions_that_fill_down():
     names = {f.name for f in FILLS_DOWN}
     assert names == {"SKY.SUN.RISE", "SKY.SUN.SET", "SKY.SUN.DAYLENGTH", "SKY.SUN.TRANSIT",
-                     "SKY.SEASON", "SKY.SEASON.LENGTH"}
+                     "SKY.SEASON", "SKY.SEASON.LENGTH", "SKY.BODY.RISE", "SKY.BODY.SET",
+                     "SKY.BODY.TRANSIT", "SKY.STAR.RISE", "SKY.STAR.SET", "SKY.STAR.TRANSIT",
+                     "SKY.WINDOW.START", "SKY.WINDOW.END", "SKY.WINDOW.HOURS",
+                     "SKY.WINDOW.BEST", "SKY.WINDOW.MOON", "SKY.DARK.START", "SKY.DARK.END",
+                     "SKY.DARK.HOURS"}
 
 
 @pytest.mark.parametrize("fn", FILLS_DOWN, ids=lambda f: f.name)

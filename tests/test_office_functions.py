@@ -242,6 +242,50 @@ EXAMPLES["SKY.PLANET.MAGNITUDE"] = [
     ('"JUPITER";A{r}', lambda v: ["JUPITER", v[0]]),
     ('"SATURN";A{r};"UTC";"' + DE440 + '"', lambda v: ["SATURN", v[0], "UTC", DE440]),
 ]
+# A night at a site: topocentric places, rising and setting, windows (random sites
+# reach +-70 degrees, so polar words and dates without an event are among the rows).
+EXAMPLES["SKY.TOPO.RA"] = [('"MOON";A{r};D{r};E{r}', lambda v: ["MOON", v[0], v[3], v[4]])]
+EXAMPLES["SKY.TOPO.DEC"] = [('"VENUS";A{r};D{r};E{r};;1500;"DATE";;"' + DE440 + '"',
+                            lambda v: ["VENUS", v[0], v[3], v[4], None, 1500.0, "DATE", None,
+                                       DE440])]
+EXAMPLES["SKY.TOPO.DIST"] = [('"MOON";A{r};D{r};E{r};;;"KM"',
+                             lambda v: ["MOON", v[0], v[3], v[4], None, None, "KM"])]
+EXAMPLES["SKY.TOPO.ALT"] = [('"MOON";A{r};D{r};E{r}', lambda v: ["MOON", v[0], v[3], v[4]])]
+EXAMPLES["SKY.TOPO.AZ"] = [('"SUN";A{r};D{r};E{r}', lambda v: ["SUN", v[0], v[3], v[4]])]
+EXAMPLES["SKY.MOON.SEMIDIAMETER"] = [("A{r}", lambda v: [v[0]]),
+                                     ("A{r};;D{r};E{r}", lambda v: [v[0], None, v[3], v[4]])]
+EXAMPLES["SKY.MOON.PARALLAX"] = [("A{r}", lambda v: [v[0]])]
+EXAMPLES["SKY.BODY.RISE"] = [('"MOON";A{r};D{r};E{r};;2', lambda v: ["MOON", v[0], v[3], v[4],
+                                                                     None, 2.0])]
+EXAMPLES["SKY.BODY.SET"] = [('"JUPITER";A{r};D{r};E{r};;;;;;1010;5',
+                            lambda v: ["JUPITER", v[0], v[3], v[4], None, None, None, None,
+                                       None, 1010.0, 5.0])]
+EXAMPLES["SKY.BODY.TRANSIT"] = [('"MOON";A{r};D{r};E{r};;;"LOWER"',
+                                lambda v: ["MOON", v[0], v[3], v[4], None, None, "LOWER"])]
+EXAMPLES["SKY.STAR.RISE"] = [("B{r};C{r};A{r};D{r};E{r}", lambda v: [v[1], v[2], v[0], v[3],
+                                                                     v[4]])]
+EXAMPLES["SKY.STAR.SET"] = [("B{r};C{r};A{r};D{r};E{r};;-4;10;;;L{r};L{r}/2;2016",
+                            lambda v: [v[1], v[2], v[0], v[3], v[4], None, -4.0, 10.0, None,
+                                       None, v[11], v[11] / 2, 2016.0])]
+EXAMPLES["SKY.STAR.TRANSIT"] = [("B{r};C{r};A{r};D{r};E{r}", lambda v: [v[1], v[2], v[0], v[3],
+                                                                        v[4]])]
+_WINDOW = ("B{r};C{r};A{r};D{r};E{r}", lambda v: [v[1], v[2], v[0], v[3], v[4]])
+EXAMPLES["SKY.WINDOW.START"] = [_WINDOW]
+EXAMPLES["SKY.WINDOW.END"] = [('B{r};C{r};A{r};D{r};E{r};;1;2;"AIRMASS";"NAUTICAL"',
+                               lambda v: [v[1], v[2], v[0], v[3], v[4], None, 1.0, 2.0,
+                                          "AIRMASS", "NAUTICAL"])]
+EXAMPLES["SKY.WINDOW.HOURS"] = [("B{r};C{r};A{r};D{r};E{r};;;20",
+                                lambda v: [v[1], v[2], v[0], v[3], v[4], None, None, 20.0])]
+EXAMPLES["SKY.WINDOW.BEST"] = [_WINDOW]
+EXAMPLES["SKY.WINDOW.MOON"] = [('B{r};C{r};A{r};D{r};E{r};;;"ALTITUDE";10',
+                               lambda v: [v[1], v[2], v[0], v[3], v[4], None, None, "ALTITUDE",
+                                          10.0])]
+EXAMPLES["SKY.MOON.SEPARATION"] = [("B{r};C{r};A{r};D{r};E{r}",
+                                   lambda v: [v[1], v[2], v[0], v[3], v[4]])]
+EXAMPLES["SKY.DARK.START"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+EXAMPLES["SKY.DARK.END"] = [('A{r};D{r};E{r};;;"NAUTICAL"',
+                            lambda v: [v[0], v[3], v[4], None, None, "NAUTICAL"])]
+EXAMPLES["SKY.DARK.HOURS"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
@@ -348,7 +392,31 @@ HOSTILE = [
     ('=SKY.METEOR.ZHR(10;1;6.5;-5;2.5)', "below the horizon"),
     ("=SKY.VARSTAR.MINIMUM(C1:C3;D1:D4)", "different numbers of cells"),
     ('=SKY.PLANET.MAGNITUDE("MERCURY";"2025-03-24")', "outside 2 to 170"),
+    ('=SKY.BODY.RISE("MOON";45500;95;0)', "latitude must be within"),
+    ('=SKY.BODY.RISE("VULCAN";45500;50;0)', 'unknown body "VULCAN"'),
+    ('=SKY.BODY.SET("MARS";45500;50;400)', "longitude must be within"),
+    ('=SKY.TOPO.ALT("MOON";45500;50;0;;-5000)', "height must be within"),
+    ('=SKY.WINDOW.HOURS(10;20;45500;50;0;;;0.5;"AIRMASS")', "air mass limit"),
 ]
+
+
+# Days without the event: an answer in words, as SKY.SUN.RISE gives for polar day and night.
+NO_EVENT = [
+    ('=SKY.STAR.RISE(10;-80;45500;60;10)', "never rises at this latitude"),
+    ('=SKY.STAR.SET(10;80;45500;60;10)', "circumpolar"),
+    ('=SKY.BODY.SET("SUN";"2024-06-21";78.2;15.6)', "stays above the horizon"),
+    ('=SKY.DARK.START("2024-06-21";78.2;15.6)', "no Moon-free dark time"),
+    ('=SKY.WINDOW.START(10;-80;45500;60;10)', "no window"),
+]
+
+
+@pytest.mark.parametrize("formula,mention", NO_EVENT)
+def test_days_without_the_event_say_so_in_words(sheet_doc, formula, mention):
+    cell = sheet_doc.Sheets.getByIndex(0).getCellByPosition(0, 0)
+    cell.setFormula(formula)
+    sheet_doc.calculateAll()
+    assert cell.getError() == 0, f"{formula} gave Err:{cell.getError()}"
+    assert mention in cell.getString(), cell.getString()
 
 
 @pytest.mark.parametrize("formula,mention", HOSTILE)

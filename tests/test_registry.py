@@ -132,6 +132,28 @@ FROZEN_METHODS = {
     "skyVarstarMinimum": "SKY.VARSTAR.MINIMUM",
     "skyVarstarMinimumError": "SKY.VARSTAR.MINIMUM.ERROR",
     "skyPlanetMagnitude": "SKY.PLANET.MAGNITUDE",
+    "skyTopoRa": "SKY.TOPO.RA",
+    "skyTopoDec": "SKY.TOPO.DEC",
+    "skyTopoDist": "SKY.TOPO.DIST",
+    "skyTopoAlt": "SKY.TOPO.ALT",
+    "skyTopoAz": "SKY.TOPO.AZ",
+    "skyMoonSemidiameter": "SKY.MOON.SEMIDIAMETER",
+    "skyMoonParallax": "SKY.MOON.PARALLAX",
+    "skyBodyRise": "SKY.BODY.RISE",
+    "skyBodySet": "SKY.BODY.SET",
+    "skyBodyTransit": "SKY.BODY.TRANSIT",
+    "skyStarRise": "SKY.STAR.RISE",
+    "skyStarSet": "SKY.STAR.SET",
+    "skyStarTransit": "SKY.STAR.TRANSIT",
+    "skyWindowStart": "SKY.WINDOW.START",
+    "skyWindowEnd": "SKY.WINDOW.END",
+    "skyWindowHours": "SKY.WINDOW.HOURS",
+    "skyWindowBest": "SKY.WINDOW.BEST",
+    "skyWindowMoon": "SKY.WINDOW.MOON",
+    "skyMoonSeparation": "SKY.MOON.SEPARATION",
+    "skyDarkStart": "SKY.DARK.START",
+    "skyDarkEnd": "SKY.DARK.END",
+    "skyDarkHours": "SKY.DARK.HOURS",
 }
 
 
@@ -291,7 +313,9 @@ DECLARED_ORDER = (
     "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
     "skyConstellation skyConstellationBody skyMeteorZhr skyMeteorZhrError "
     "skyMeteorRadiantRa skyMeteorRadiantDec skyVarstarPhase skyVarstarCycle skyVarstarOc "
-    "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude"
+    "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude "
+    "skyTopoRa skyTopoDec skyTopoDist skyTopoAlt skyTopoAz skyMoonSemidiameter skyMoonParallax skyBodyRise skyBodySet skyBodyTransit skyStarRise "
+    "skyStarSet skyStarTransit skyWindowStart skyWindowEnd skyWindowHours skyWindowBest skyWindowMoon skyMoonSeparation skyDarkStart skyDarkEnd skyDarkHours"
 ).split()
 
 

@@ -906,9 +906,10 @@ def test_a_day_of_minutes_near_the_polar_night_is_found(sky, lat, lon):
     # skyfield 1.55 + DE440 find_risings/find_settings: on 2026-12-21 the Sun clears the
     # horizon for 10 to 45 minutes around noon, less than our hourly sampling step, with
     # the transit between two samples.  Both events must be found.  The Sun then climbs
-    # a few arcseconds a second, so the 8.8" of parallax we neglect moves the instants by
-    # up to half a minute: 60 s here, and skyfield's altitude at our instants checked as
-    # in test_rise_and_set_match_skyfield.
+    # as little as 0.12" a second, so the 8.8" of parallax SKY.SUN.RISE neglects moves the
+    # instants by up to 75 s: 90 s here, and skyfield's altitude at our instants checked as
+    # in test_rise_and_set_match_skyfield (SKY.BODY.RISE of the SUN, topocentric, has no
+    # such offset).
     ts, earth, sun = sky["ts"], sky["earth"], sky["sun"]
     obs = earth + wgs84.latlon(lat, lon)
     t0, t1 = ts.utc(2026, 12, 21), ts.utc(2026, 12, 22)
@@ -918,7 +919,7 @@ def test_a_day_of_minutes_near_the_polar_night_is_found(sky, lat, lon):
         assert len(t) == 1 and real[0]
         got = evaluate(name, ["2026-12-21", lat, lon])
         assert isinstance(got, float), (name, got)
-        assert abs(got - serial_utc(t)[0]) * 86400.0 < 60.0, name
+        assert abs(got - serial_utc(t)[0]) * 86400.0 < 90.0, name
         alt = obs.at(sky_utc(ts, got)).observe(sun).apparent().altaz()[0].degrees
         assert abs(alt + 50.0 / 60.0) * ARCSEC_PER_DEG < PARALLAX_ARCSEC + 1.5, name
         found[name] = got

@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Seven workbooks, one office session, one module each in tools/samples/:
+Eight workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -23,6 +23,10 @@ Seven workbooks, one office session, one module each in tools/samples/:
   reductions.ods         the Sun's constellation through a year, meteor rates, a time of
                          minimum by Kwee and van Woerden, the planets' magnitudes (the
                          constellations, meteors, variable-star and magnitude families)
+  night_plan.ods         a night's plan at the circle's Kettle Hill observatory: the
+                         fields' rising, setting and observing windows, the Moon and the
+                         planets from the site, altitudes through the night, and a year
+                         of Moon-free dark hours (the site family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -45,6 +49,7 @@ from samples import (  # noqa: E402
     common,
     historical_record,
     meteor_watch,
+    night_plan,
     observing_log,
     planet_watch,
     reductions,
@@ -54,13 +59,14 @@ from samples import (  # noqa: E402
 
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
-         planet_watch, reductions)
+         planet_watch, reductions, night_plan)
 
 
-def build(oxt, out_dir):
+def build(oxt, out_dir, only=None):
     os.makedirs(out_dir, exist_ok=True)
+    books = [b for b in BOOKS if not only or b.FILE_NAME in only]
     with officekit.Office(oxt=oxt) as office:
-        paths = [common.write_book(office, out_dir, book) for book in BOOKS]
+        paths = [common.write_book(office, out_dir, book) for book in books]
     for path in paths:
         print(path)
     return paths
@@ -70,8 +76,10 @@ def main(argv=None):
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--oxt", required=True)
     ap.add_argument("--out", default=os.path.join(os.path.dirname(HERE), "sample_sheets"))
+    ap.add_argument("--only", nargs="*", metavar="FILE.ods",
+                    help="write only these workbooks (default: all)")
     args = ap.parse_args(argv)
-    build(args.oxt, args.out)
+    build(args.oxt, args.out, args.only)
 
 
 if __name__ == "__main__":

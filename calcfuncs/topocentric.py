@@ -1,0 +1,208 @@
+"""The Sun, the Moon and the planets as seen from a site on the Earth's surface.
+
+How (the ERFA way, one of the two it offers): the observer's astrometry parameters are
+built with ERFA apco for the site (horizon.observer_astrom), and the site's own position and
+velocity on the GCRS axes are ERFA pvtob turned by the transpose of apco's CIO-based
+bias-precession-nutation matrix, exactly as apco makes them.  The observer is then the
+Earth's barycentric state (from the chosen source) plus the site's, and the body's
+place is found from the observer itself, not from the geocentre:
+  light time  iterated from the site (the body at t - tau minus the observer at t)
+  deflection  the Sun's (ERFA ld), with the observer's heliocentric direction
+  aberration  ERFA ab with the observer's barycentric velocity: annual plus diurnal
+So the diurnal parallax (up to a degree for the Moon, 9" for the Sun) and the diurnal
+aberration (up to 0.32") both come from the one vector, with no first-order formula.
+Altitude and azimuth: that apparent direction turned into CIRS by apco's matrix and
+handed to ERFA atioq (Earth rotation, site, refraction when a pressure is given), as
+horizon.py does for catalogue places.  Polar motion is taken as zero.
+"""
+
+import erfa
+import numpy as np
+
+from . import ephemeris, frames, horizon, vectors
+from .errors import SkyError, rows_failing
+from .timescales import Instants
+from .vocabulary import AU_KM, AU_M, BUILTIN, DAY_SECONDS, EARTH_RADIUS_KM, LIGHT_DAYS_PER_AU
+
+# The Moon's mean radius, 1737.4 km (IAU Working Group on Cartographic Coordinates; the
+# value skyfield's rising search uses too).
+MOON_RADIUS_KM = 1737.4
+# The Sun's radius as almanacs take it for its semi-diameter: 959.63" at 1 au (Astronomical
+# Almanac constants; from memory).
+SUN_RADIUS_KM = 696000.0
+BODIES = ("SUN", "MOON", "MERCURY", "VENUS", "MARS", "JUPITER", "SATURN", "URANUS",
+          "NEPTUNE", "PLUTO")
+
+
+def aberrate(u, observer_v, sun_distance):
+    """ERFA ab (relativistic aberration) for an observer's barycentric velocity in au/day."""
+    c = observer_v * LIGHT_DAYS_PER_AU
+    return erfa.ab(u, c, sun_distance, np.sqrt(1.0 - np.sum(c * c, axis=-1)))
+
+
+class TopoPlace:
+    """A body seen from a site: apparent unit vectors on the GCRS axes, the distance from
+    the site (au), and the observer's ERFA astrometry parameters (for atioq)."""
+
+    __slots__ = ("direction", "distance", "astrom", "pressure")
+
+    def __init__(self, direction, distance, astrom, pressure):
+        self.direction, self.distance = direction, distance
+        self.astrom, self.pressure = astrom, pressure
+
+
+def check_body(body):
+    word = str(body).strip().upper()
+    if word not in BODIES:
+        raise SkyError(f'unknown body "{body}"; use ' + ", ".join(BODIES))
+    return word
+
+
+def site_state(time, latitude, longitude, height, astrom):
+    """The site's position (au) and velocity (au/day) on the GCRS axes at the instants:
+    ERFA pvtob (WGS84, polar motion zero) turned by the transpose of the CIO-based matrix
+    that apco put in ``astrom`` (the same rotation apco itself applies)."""
+    elong, phi, hm = horizon.site_radians(latitude, longitude, height)
+    tt1, tt2 = time.tt()
+    ut = time.to("UT")
+    theta = erfa.era00(ut.jd1, ut.jd2)
+    sp = erfa.sp00(tt1, tt2)
+    pv = erfa.trxpv(astrom["bpn"], erfa.pvtob(elong, phi, hm, 0.0, 0.0, sp, theta))
+    return pv["p"] / AU_M, pv["v"] * (DAY_SECONDS / AU_M)
+
+
+def place(body, time, latitude, longitude, height=0.0, kind="APPARENT", source=BUILTIN,
+          pressure=0.0, temperature=10.0):
+    """The ``TopoPlace`` of SUN, MOON or a planet at a site (see the module's words)."""
+    body = check_body(body)
+    astrom, phpa = horizon.observer_astrom(time, latitude, longitude, height, pressure,
+                                     temperature, "ICRS")
+    site_p, site_v = site_state(time, latitude, longitude, height, astrom)
+    tt1, tt2 = time.tt()
+    tdb1, tdb2 = ephemeris.times_for(source, *np.broadcast_arrays(tt1, tt2))
+    tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+    shape = np.broadcast_shapes(tdb1.shape, site_p.shape[:-1])
+    tdb1, tdb2 = np.broadcast_to(tdb1, shape), np.broadcast_to(tdb2, shape)
+    src = ephemeris.get(source)
+    (ep, ev), (sp, sv) = src.earth_and_sun(tdb1, tdb2)
+    obs_p, obs_v = ep + site_p, ev + site_v
+    obs_helio = obs_p - sp
+    obs_sun_distance = vectors.norm(obs_helio)
+    if body == "SUN":
+        geometric = sp - obs_p
+        distance = vectors.norm(geometric)
+        if kind == "GEOMETRIC":
+            return TopoPlace(geometric / distance[..., None], distance, astrom, phpa)
+        tau = distance * LIGHT_DAYS_PER_AU
+        u = vectors.unit(geometric - tau[..., None] * sv)
+        if kind == "APPARENT":
+            u = aberrate(u, obs_v, obs_sun_distance)
+        return TopoPlace(u, distance, astrom, phpa)
+    # The Earth's heliocentric state near the instants, for the Moon's geocentric theory.
+    near = (ep - sp, ev - sv, (tdb1, tdb2))
+
+    def vector_at(tau):
+        helio = src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
+        # The Sun's barycentric place at t - tau from its slow motion at t (as bodies.py).
+        return helio, helio + (sp - tau[..., None] * sv) - obs_p
+
+    tau = np.zeros(shape)
+    helio, vector = vector_at(tau)
+    if kind != "GEOMETRIC":
+        for _ in range(3):  # each round gains a factor v/c
+            tau = vectors.norm(vector) * LIGHT_DAYS_PER_AU
+            helio, vector = vector_at(tau)
+    distance = vectors.norm(vector)
+    u = vector / distance[..., None]
+    if kind == "APPARENT":
+        e = obs_helio / obs_sun_distance[..., None]
+        u = erfa.ld(1.0, u, vectors.unit(helio), e, obs_sun_distance, 1e-9)
+        u = aberrate(u, obs_v, obs_sun_distance)
+    return TopoPlace(u, distance, astrom, phpa)
+
+
+def observed(p):
+    """(azimuth, zenith distance) in radians of a ``TopoPlace``: CIRS by apco's matrix,
+    then ERFA atioq (refraction when the place was made with a pressure)."""
+    ri, di = erfa.c2s(vectors.apply(p.astrom["bpn"], p.direction))
+    aob, zob, _, _, _ = erfa.atioq(ri, di, p.astrom)
+    horizon.check_refraction_range(p.pressure, 90.0 - np.degrees(zob))
+    return aob, zob
+
+
+# ---- cell functions ------------------------------------------------------------------
+
+
+def _tt_axes(time, frame):
+    return frames.system_matrix(
+        {"TRUE": "EQUATORIAL TRUE", "DATE": "EQUATORIAL DATE", "J2000": "EQUATORIAL J2000",
+         "ICRS": "ICRS"}[frame], *time.tt())
+
+
+def ra_cells(body, time, latitude, longitude, height=0.0, frame="TRUE", kind="APPARENT",
+             source=BUILTIN):
+    p = place(body, time, latitude, longitude, height, kind, source)
+    return frames.spherical(vectors.apply(_tt_axes(time, frame), p.direction))[0]
+
+
+def dec_cells(body, time, latitude, longitude, height=0.0, frame="TRUE", kind="APPARENT",
+              source=BUILTIN):
+    p = place(body, time, latitude, longitude, height, kind, source)
+    return frames.spherical(vectors.apply(_tt_axes(time, frame), p.direction))[1]
+
+
+def distance_cells(body, time, latitude, longitude, height=0.0, unit="AU", source=BUILTIN):
+    d = place(body, time, latitude, longitude, height, "GEOMETRIC", source).distance
+    return d * AU_KM if unit == "KM" else d
+
+
+def altitude_cells(body, time, latitude, longitude, height=0.0, pressure=0.0,
+                   temperature=10.0, source=BUILTIN):
+    p = place(body, time, latitude, longitude, height, "APPARENT", source, pressure, temperature)
+    return 90.0 - np.degrees(observed(p)[1])
+
+
+def azimuth_cells(body, time, latitude, longitude, height=0.0, pressure=0.0,
+                  temperature=10.0, source=BUILTIN):
+    p = place(body, time, latitude, longitude, height, "APPARENT", source, pressure, temperature)
+    return frames.degrees_360(observed(p)[0])
+
+
+def semidiameter_degrees(body, distance_au):
+    """Apparent semi-diameter (degrees) of the Sun or the Moon at a distance."""
+    radius = MOON_RADIUS_KM if body == "MOON" else SUN_RADIUS_KM
+    return np.degrees(np.arcsin(radius / (np.asarray(distance_au) * AU_KM)))
+
+
+def moon_semidiameter_cells(time, latitude=None, longitude=None, height=0.0, source=BUILTIN,
+                            latitude_given=None, longitude_given=None):
+    """The Moon's apparent semi-diameter in arcminutes: from the site in rows that give
+    one (larger by up to 1.8 % with the Moon overhead), else from the Earth's centre."""
+    from .bodies import place_at_tt
+
+    tt1, tt2 = np.broadcast_arrays(*time.tt())
+    d = place_at_tt("MOON", tt1, tt2, "GEOMETRIC", source).distance
+    if latitude_given is None:
+        latitude_given = np.full(np.shape(tt1), latitude is not None)
+        longitude_given = np.full(np.shape(tt1), longitude is not None)
+    half = np.asarray(latitude_given) != np.asarray(longitude_given)
+    if np.any(half):
+        raise rows_failing(half, "give both the latitude and the longitude of the site, or "
+                                 "neither (for the Earth's centre)")
+    at_site = np.ravel(latitude_given)
+    if np.any(at_site):
+        d = np.array(np.ravel(d), dtype=float)
+        rows = np.flatnonzero(at_site)
+        sub = Instants(np.ravel(tt1)[rows], np.ravel(tt2)[rows], "TT", time.dut1)
+        pick = lambda v: np.broadcast_to(np.ravel(v), at_site.shape)[rows]  # noqa: E731
+        d[rows] = place("MOON", sub, pick(latitude), pick(longitude), pick(height),
+                        "GEOMETRIC", source).distance
+    return semidiameter_degrees("MOON", d) * 60.0
+
+
+def moon_parallax_cells(time, source=BUILTIN):
+    """The Moon's equatorial horizontal parallax in arcminutes: asin(a / r), a the
+    Earth's equatorial radius, r the geocentric distance."""
+    from .bodies import place_at_tt
+    d = place_at_tt("MOON", *time.tt(), "GEOMETRIC", source).distance * AU_KM
+    return np.degrees(np.arcsin(EARTH_RADIUS_KM / d)) * 60.0
