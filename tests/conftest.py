@@ -12,6 +12,9 @@ sys.path.insert(0, ROOT)
 sys.path.insert(0, os.path.join(ROOT, "tools"))
 OXT = os.path.join(ROOT, "dist", "eclipsheet.oxt")
 
+# The progress line's library before any test imports `uno` (calcfuncs/progress.py says why).
+import calcfuncs.progress  # noqa: E402,F401
+
 
 def _build_oxt():
     """Build the extension from the working tree once per session (about 0.2 s), so
