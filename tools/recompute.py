@@ -41,6 +41,23 @@ def _inputs(paths):
     return found
 
 
+def _unintended(cells):
+    """The error cells of a range, less those whose formula asks for #N/A with NA():
+    a chart's table leaves a gap so (sample_sheets/sky_charts.ods), on purpose."""
+    formulas = cells.getFormulaArray()
+    origin = cells.getCellByPosition(0, 0)
+    if all("NA()" in f.upper() for row in formulas for f in row):
+        return []
+    if len(formulas) == 1 and len(formulas[0]) == 1:
+        return [origin.AbsoluteName]
+    out = []
+    for r, row in enumerate(formulas):
+        for c, f in enumerate(row):
+            if "NA()" not in f.upper():
+                out.append(cells.getCellByPosition(c, r).AbsoluteName)
+    return out
+
+
 def survey(doc):
     """Per sheet: (name, formula cells, [(cell, message)], [error cells])."""
     from com.sun.star.sheet.FormulaResult import ERROR
@@ -56,7 +73,8 @@ def survey(doc):
                 cell = sheet.getCellByPosition(col, row)
                 messages.append((cell.AbsoluteName.split(".")[-1], v))
         errors = sheet.queryFormulaCells(ERROR)
-        error_cells = [errors.getByIndex(k).AbsoluteName for k in range(errors.getCount())]
+        error_cells = [name for k in range(errors.getCount())
+                       for name in _unintended(errors.getByIndex(k))]
         report.append((sheet.getName(), n_formulas, messages, error_cells))
     return report
 
