@@ -16,6 +16,19 @@ OXT = os.path.join(ROOT, "dist", "eclipsheet.oxt")
 import calcfuncs.progress  # noqa: E402,F401
 
 
+def pytest_report_header(config):
+    """Which office the office tests drive: the system's, or the one ECLIPSHEET_OFFICE
+    names (LibreOffice 25.2 from tools/office25.sh, run by `make test` after 7.4)."""
+    program = os.environ.get("ECLIPSHEET_OFFICE")
+    soffice = os.path.join(program, "soffice") if program else "soffice"
+    try:
+        version = subprocess.run([soffice, "--version"], capture_output=True, text=True,
+                                 timeout=60).stdout.strip()
+    except (OSError, subprocess.SubprocessError):
+        version = "none found"
+    return f"office: {version} ({program or 'the system office'})"
+
+
 def _build_oxt():
     """Build the extension from the working tree once per session (about 0.2 s), so
     the office tests never run an older build."""

@@ -12,8 +12,10 @@
 # program folder, which the office's Python loader puts first on sys.path.
 #
 # Safe to run again; prints the program folder.  Debian 12 (bookworm) only: elsewhere it
-# says so and exits 1.  Use: ECLIPSHEET_OFFICE=$(bash tools/office25.sh) ... or let
-# tests/conftest.py find .office25/ (README, "Tests").
+# says so and exits 1.  `make test` runs the office tests a second time on it, in a
+# pytest process of their own whose `import uno` is this office's bridge (a process can
+# hold one office's bridge only):
+#   ECLIPSHEET_OFFICE=<program folder> PYTHONPATH=<program folder>:<its dist-packages>
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -69,6 +71,12 @@ sed -i 's#^FHS_CONFIG_FILE=file:///etc/libreoffice/sofficerc#FHS_CONFIG_FILE=${O
 # unopkg's launcher puts the system office's program folder on PYTHONPATH: its own.
 sed -i 's#^export PYTHONPATH="/usr/lib/libreoffice/program"#export PYTHONPATH="$sd_prog"#' \
   "$program/unopkg"
+# Its uno.py points URE_BOOTSTRAP at /usr/lib/libreoffice, the system office: a client
+# bridge from this office's pyuno would then read 7.4's types, and the office's answers
+# (a 25.2 document model) would break the bridge.  Its own program folder instead.
+sed -i "s#os.putenv('URE_BOOTSTRAP', 'vnd.sun.star.pathname:/usr/lib/libreoffice/program/fundamentalrc')#os.putenv('URE_BOOTSTRAP', 'vnd.sun.star.pathname:' + os.path.join(os.path.dirname(os.path.abspath(__file__)), '..', '..', 'libreoffice', 'program', 'fundamentalrc'))#" \
+  "$root/root/usr/lib/python3/dist-packages/uno.py"
+grep -q "os.path.dirname(os.path.abspath(__file__))" "$root/root/usr/lib/python3/dist-packages/uno.py"
 # The configuration that Debian's install script would copy to /etc.
 ln -sfn ../.registry/main.xcd "$root/root/usr/lib/libreoffice/share/registry/main.xcd"
 # Other links into /etc, /var or /usr/share: to their unpacked copies where there is one.

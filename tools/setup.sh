@@ -49,4 +49,7 @@ PY
 then
   .venv/bin/pip install -q --disable-pip-version-check -r requirements-dev.txt
 fi
+# LibreOffice 25.2 beside the system's office, for the second run of the office tests
+# (tools/office25.sh; nothing of the system's is changed).  Debian 12 only.
+bash tools/office25.sh >/dev/null || echo "setup: no LibreOffice 25.2 in .office25/ (see above)"
 echo "setup: ready (office $(soffice --version 2>/dev/null | awk '{print $2}'), venv .venv)"
