@@ -2,7 +2,7 @@
 # A second office for the tests: LibreOffice 25.2 from Debian 12's backports suite,
 # unpacked into .office25/ beside the system's 7.4, which stays as it is.
 #
-# Nothing is installed into the system: the backports suite is read through a private
+# Nothing is installed into the system: Debian 12 and its backports suite are read through a private
 # apt configuration (its own source list, package lists and cache under .office25/apt/),
 # so the system's apt never sees it and nothing is upgraded; the packages are fetched
 # with `apt-get download` and unpacked with `dpkg-deb -x`.  Debian's build points a few
@@ -46,7 +46,7 @@ mkdir -p "$root/apt/parts" "$root/apt/lists/partial" "$root/apt/cache/archives/p
 cat > "$root/apt/parts/backports.sources" <<'EOF'
 Types: deb
 URIs: http://deb.debian.org/debian
-Suites: bookworm-backports
+Suites: bookworm bookworm-backports
 Components: main
 Signed-By: /usr/share/keyrings/debian-archive-keyring.gpg
 EOF
@@ -56,7 +56,7 @@ private=(-o "Dir::Etc::SourceList=/dev/null" -o "Dir::Etc::SourceParts=$PWD/$roo
 apt-get -q "${private[@]}" update >&2
 (cd "$root/debs" && apt-get -q "${private[@]}" download \
    "${packages[@]/%//bookworm-backports}" >&2)
-(cd "$root/debs" && apt-get -q -o "APT::Sandbox::User=root" download "${plain[@]}" >&2)
+(cd "$root/debs" && apt-get -q "${private[@]}" download "${plain[@]/%//bookworm}" >&2)
 for deb in "$root"/debs/*.deb; do
   dpkg-deb -x "$deb" "$root/root"
 done
