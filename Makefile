@@ -2,7 +2,7 @@
 PY := .venv/bin/python
 OXT := dist/eclipsheet.oxt
 
-.PHONY: all setup generate oxt oxt-bundle test test-core demo bench clean
+.PHONY: all setup generate oxt oxt-bundle office25 test test-office25 test-core demo bench clean
 
 all: oxt
 
@@ -23,8 +23,25 @@ oxt-bundle: setup
 	$(PY) extension/build.py oxt --bundle $(if $(PLATFORM),--platform $(PLATFORM)) \
 	  $(if $(PYTHON_VERSION),--python-version $(PYTHON_VERSION)) $(if $(CODESIGN),--codesign $(CODESIGN))
 
+# The office tests run twice: on the system's LibreOffice 7.4 (the minimum) with the
+# rest of the suite, then on 25.2 unpacked beside it into .office25/ by tools/office25.sh,
+# in a pytest process whose UNO bridge is 25.2's own.
+OFFICE25 := $(CURDIR)/.office25/root/usr/lib/libreoffice/program
+OFFICE25_ENV := ECLIPSHEET_OFFICE=$(OFFICE25) \
+  PYTHONPATH=$(OFFICE25):$(CURDIR)/.office25/root/usr/lib/python3/dist-packages
+
+office25:
+	bash tools/office25.sh >/dev/null
+
+# Where 25.2 cannot be unpacked (not Debian 12), the second run says so and is skipped.
 test: oxt
 	$(PY) -m pytest -q
+	if bash tools/office25.sh >/dev/null; then $(OFFICE25_ENV) $(PY) -m pytest -q -m office; \
+	else echo "make test: SKIPPED the office tests on LibreOffice 25.2 (see above)"; fi
+
+# The office tests on LibreOffice 25.2 alone.
+test-office25: oxt office25
+	$(OFFICE25_ENV) $(PY) -m pytest -q -m office
 
 # The core alone, without the office (fast).
 test-core: setup

@@ -25,6 +25,7 @@ import textwrap
 
 from . import api, registry
 from .errors import PREFIX
+from .progress import Progress
 
 CHUNK_ROWS = 50_000  # rows per vectorised call: long logs stream through in bounded memory
 NUMERIC_KINDS = ("number", "angle")
@@ -58,6 +59,9 @@ def _parser():
     ap.add_argument("--replace", action="store_true", help="allow writing over an existing output")
     ap.add_argument("--delimiter", default=",", help="field delimiter of the input and output "
                     "(default ,; write tab as \\t)")
+    ap.add_argument("-q", "--quiet", action="store_true",
+                    help="no progress line on the terminal (it is never shown when stderr "
+                    "is not a terminal, nor for a run of under two seconds)")
     ap.add_argument("--dates", choices=("iso", "number"), default="iso",
                     help="date-time results as ISO 8601 text to the microsecond (default) "
                     "or as the cell's number, days since 1899-12-30")
@@ -212,9 +216,10 @@ class _Output:
 
 
 def apply_to_csv(fn, input_path, output_path, columns, constants, column_name=None,
-                 replace=False, delimiter=",", dates="iso"):
+                 replace=False, delimiter=",", dates="iso", progress=None):
     """Compute ``fn`` over the rows of a CSV; returns (rows, rows with a message,
-    [(line, message)] of the first few)."""
+    [(line, message)] of the first few).  ``progress`` (a calcfuncs.progress.Progress)
+    is told of every chunk done."""
     is_datetime = api.returns_datetime(fn)
     column_name = column_name or api.python_name(fn.name)
     source = sys.stdin if input_path == "-" else open(input_path, encoding="utf-8-sig", newline="")
@@ -239,9 +244,13 @@ def apply_to_csv(fn, input_path, output_path, columns, constants, column_name=No
             lines.append(reader.line_num)
             if len(chunk) >= CHUNK_ROWS:
                 _compute(fn, plan, chunk, lines, writer, dates == "iso", is_datetime, stats)
+                if progress is not None:
+                    progress.advance(len(chunk))
                 chunk, lines = [], []
         if chunk:
             _compute(fn, plan, chunk, lines, writer, dates == "iso", is_datetime, stats)
+            if progress is not None:
+                progress.advance(len(chunk))
         output.commit()
     except BaseException:
         if output is not None:
@@ -309,9 +318,10 @@ def main(argv=None, out=None, err=None):
         delimiter = "\t" if args.delimiter in ("\\t", "tab", "TAB") else args.delimiter
         if len(delimiter) != 1:
             raise UsageError("--delimiter takes one character")
-        stats = apply_to_csv(fn, args.input, args.out, _pairs(args.arg, "--arg"),
-                             _pairs(args.set, "--set"), args.column, args.replace,
-                             delimiter, args.dates)
+        with Progress(fn.name, unit=" rows", stream=err, quiet=args.quiet) as progress:
+            stats = apply_to_csv(fn, args.input, args.out, _pairs(args.arg, "--arg"),
+                                 _pairs(args.set, "--set"), args.column, args.replace,
+                                 delimiter, args.dates, progress)
     except BrokenPipeError:  # the reader of stdout went away (| head): stop quietly
         sys.stdout = open(os.devnull, "w")
         return 1

@@ -24,7 +24,7 @@ import erfa
 import numpy as np
 
 from . import events, horizon, topocentric, vectors
-from .errors import rows_failing
+from .errors import RowErrors, rows_failing
 from .events import wrap180
 from .risings import (STANDARD_REFRACTION_DEG, Site, Target, TargetOverDays, star_target)
 from .sun import EVENT_ALTITUDES, check_site, local_day_start, row_values
@@ -125,26 +125,45 @@ def _nights(time, latitude, longitude, utc_offset, height, twilight, source):
     missing = sorted({k for k, key in enumerate(keys) if key not in _NIGHT_CACHE})
     if missing:
         idx = np.array(missing)
-        m = idx.size
-        st = start[idx]
-        site = Site(lat[idx], lon[idx], h[idx], m)
-        sun = TargetOverDays(st, Target("SUN").node_vectors(source, m), time.dut1)
-        ups, downs, above = _state_search(sun, site, np.full(m, EVENT_ALTITUDES[twilight]),
-                                          st, m)
-        # Dark is the Sun below the twilight: the falling crossing starts it.
-        dark = _intervals(st, downs, ups, above <= 0, m)
-        moon = TargetOverDays(st, Target("MOON").node_vectors(source, m), time.dut1)
-        radius_au = MOON_RADIUS_KM / AU_KM
-        ups, downs, above = _state_search(
-            moon, site, np.full(m, -STANDARD_REFRACTION_DEG), st, m,
-            extra=lambda alt, r: np.degrees(np.arcsin(radius_au / r)))
-        moon_down = _intervals(st, downs, ups, above <= 0, m)
-        for j, k in enumerate(missing):
-            if len(_NIGHT_CACHE) >= NIGHT_CACHE_SIZE:
-                del _NIGHT_CACHE[next(iter(_NIGHT_CACHE))]
-            _NIGHT_CACHE[keys[k]] = (dark[j], _intersect(dark[j], moon_down[j]))
+
+        def compute():
+            m = idx.size
+            st = start[idx]
+            site = Site(lat[idx], lon[idx], h[idx], m)
+            sun = TargetOverDays(st, Target("SUN").node_vectors(source, m), time.dut1)
+            ups, downs, above = _state_search(sun, site, np.full(m, EVENT_ALTITUDES[twilight]),
+                                              st, m)
+            # Dark is the Sun below the twilight: the falling crossing starts it.
+            dark = _intervals(st, downs, ups, above <= 0, m)
+            moon = TargetOverDays(st, Target("MOON").node_vectors(source, m), time.dut1)
+            radius_au = MOON_RADIUS_KM / AU_KM
+            ups, downs, above = _state_search(
+                moon, site, np.full(m, -STANDARD_REFRACTION_DEG), st, m,
+                extra=lambda alt, r: np.degrees(np.arcsin(radius_au / r)))
+            moon_down = _intervals(st, downs, ups, above <= 0, m)
+            for j, k in enumerate(missing):
+                if len(_NIGHT_CACHE) >= NIGHT_CACHE_SIZE:
+                    del _NIGHT_CACHE[next(iter(_NIGHT_CACHE))]
+                _NIGHT_CACHE[keys[k]] = (dark[j], _intersect(dark[j], moon_down[j]))
+
+        _aligned(compute, idx, n)
+
     nights = [_NIGHT_CACHE[key] for key in keys]
     return start, [d for d, _ in nights], [f for _, f in nights]
+
+
+def _aligned(compute, idx, n):
+    """Run ``compute`` for the rows ``idx`` of ``n``; its per-row messages (for those
+    rows) come back aligned with all ``n`` rows."""
+    try:
+        compute()
+    except RowErrors as err:
+        messages = np.ravel(err.messages)
+        if messages.size != idx.size:
+            raise
+        out = np.full(n, None, dtype=object)
+        out[idx] = messages
+        raise RowErrors(out) from None
 
 
 def _longest(stretches):

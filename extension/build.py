@@ -93,10 +93,6 @@ def _value(text, lang="en"):
     return f'<value xml:lang="{lang}">{escape(text)}</value>'
 
 
-def _wizard_arg_text(arg):
-    return arg.description if not arg.optional else arg.description + " (optional)"
-
-
 def xcu_text():
     out = [
         '<?xml version="1.0" encoding="UTF-8"?>',
@@ -120,7 +116,7 @@ def xcu_text():
             out += [
                 f'      <node oor:name="{a.idl_name}" oor:op="replace">',
                 f'       <prop oor:name="DisplayName">{_value(a.name)}</prop>',
-                f'       <prop oor:name="Description">{_value(_wizard_arg_text(a))}</prop>',
+                f'       <prop oor:name="Description">{_value(a.wizard_description)}</prop>',
                 "      </node>",
             ]
         out += ["     </node>", "    </node>"]
@@ -239,7 +235,7 @@ def functions_md_text():
                 out += [fn.model, ""]
             out += ["| argument | description |", "|---|---|"]
             for a in fn.args:
-                out.append(f"| `{a.name}` | {_md_escape(_wizard_arg_text(a))} |")
+                out.append(f"| `{a.name}` | {_md_escape(a.wizard_description)} |")
             out += ["", f"Method name: `{fn.method}`", ""]
     return "\n".join(out)
 

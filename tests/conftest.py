@@ -12,6 +12,22 @@ sys.path.insert(0, ROOT)
 sys.path.insert(0, os.path.join(ROOT, "tools"))
 OXT = os.path.join(ROOT, "dist", "eclipsheet.oxt")
 
+# The progress line's library before any test imports `uno` (calcfuncs/progress.py says why).
+import calcfuncs.progress  # noqa: E402,F401
+
+
+def pytest_report_header(config):
+    """Which office the office tests drive: the system's, or the one ECLIPSHEET_OFFICE
+    names (LibreOffice 25.2 from tools/office25.sh, run by `make test` after 7.4)."""
+    program = os.environ.get("ECLIPSHEET_OFFICE")
+    soffice = os.path.join(program, "soffice") if program else "soffice"
+    try:
+        version = subprocess.run([soffice, "--version"], capture_output=True, text=True,
+                                 timeout=60).stdout.strip()
+    except (OSError, subprocess.SubprocessError):
+        version = "none found"
+    return f"office: {version} ({program or 'the system office'})"
+
 
 def _build_oxt():
     """Build the extension from the working tree once per session (about 0.2 s), so

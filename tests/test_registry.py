@@ -254,6 +254,48 @@ def test_wizard_texts_cover_every_argument():
             assert f'oor:name="{a.idl_name}"' in xcu
 
 
+def test_the_wizard_says_required_first_and_optional_last():
+    # Calc's wizard marks every parameter of UNO type ``any`` "(optional)" on its own
+    # (sc/source/core/tool/addincol.cxx, read in LibreOffice's source), and all of ours
+    # are ``any`` (next test), so the words must carry the difference: read back from the
+    # generated xcu, as the office reads it.
+    from xml.etree import ElementTree
+
+    ns = "{http://openoffice.org/2001/registry}"
+    root = ElementTree.fromstring(build.xcu_text())
+    functions = root.find(f".//node[@{ns}name='AddInFunctions']")
+    texts = {}
+    for fnode in functions:
+        for pnode in fnode.find(f"node[@{ns}name='Parameters']"):
+            desc = pnode.find(f"prop[@{ns}name='Description']/value").text
+            texts[fnode.get(f"{ns}name"), pnode.get(f"{ns}name")] = desc
+    required = optional = 0
+    for fn in registry.FUNCTIONS:
+        for a in fn.args:
+            text = texts[fn.method, a.idl_name]
+            if a.optional:
+                optional += 1
+                assert not text.startswith("Required"), (fn.name, a.name)
+                assert text.endswith("(optional)"), (fn.name, a.name)
+            else:
+                required += 1
+                assert text.startswith("Required. "), (fn.name, a.name)
+                assert "(optional)" not in text, (fn.name, a.name)
+    # SKY.JD(time; [scale]; [result_scale]; [dut1]): the case the issue saw wrong.
+    assert texts["skyJd", "time"].startswith("Required. The instant")
+    assert texts["skyJd", "scale"].endswith("(optional)")
+    assert required > 50 and optional > 50
+
+
+def test_every_cell_argument_is_an_any_so_calc_never_refuses_it():
+    # A typed parameter (double, string, an array) would be "required" to Calc, which
+    # then answers an omitted argument with an Err:5xx instead of our #SKY: message.
+    idl = build.idl_text()
+    for fn in registry.FUNCTIONS:
+        params = re.search(rf"{fn.method}\(([^)]*)\)", idl).group(1).split(",")[1:]
+        assert all(p.split()[1] == "any" for p in params), fn.method
+
+
 def test_idl_declares_every_method_with_hidden_settings_first():
     idl = build.idl_text()
     for fn in registry.FUNCTIONS:

@@ -19,6 +19,9 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, os.path.dirname(HERE))
 sys.path.insert(0, HERE)
 
+# Before officekit: the progress line's library must be imported before `uno` is.
+from calcfuncs.progress import Progress  # noqa: E402,I001
+
 import officekit  # noqa: E402
 
 from calcfuncs import registry  # noqa: E402
@@ -39,11 +42,14 @@ def _display(formula):
     return text
 
 
-def freeze_document(doc):
-    """Replace our formula cells by their values; return [(sheet, cell, formula)]."""
+def freeze_document(doc, progress=None):
+    """Replace our formula cells by their values; return [(sheet, cell, formula)].
+    ``progress`` (a calcfuncs.progress.Progress) is told of each cell done."""
     replaced = []
     for i in range(doc.Sheets.getCount()):
         sheet = doc.Sheets.getByIndex(i)
+        if progress is not None:
+            progress.step(f"freezing sheet {sheet.getName()}")
         cells = [c for c in officekit.formula_cells(sheet) if _ours(c[2])]
         # Array formulas are one object over their range: clear each once, first.
         for col, row, _f, _v in cells:
@@ -62,6 +68,8 @@ def freeze_document(doc):
                 cell.setValue(v)
             replaced.append((sheet.getName(), cell.AbsoluteName.split(".")[-1].replace("$", ""),
                              _display(f)))
+            if progress is not None:
+                progress.advance()
     return replaced
 
 
@@ -84,17 +92,24 @@ def _list_sheet(doc, replaced, version):
     return name
 
 
-def freeze(source, target, oxt, replace=False):
+def freeze(source, target, oxt, replace=False, quiet=False):
     source, target = os.path.abspath(source), os.path.abspath(target)
     if source == target:
         raise SystemExit("the target is the input itself; give another file name")
     if os.path.exists(target) and not replace:
         raise SystemExit(f"{target} exists; give --replace to write over it")
-    with officekit.Office(oxt=oxt) as office, office.calculated_copy(source) as doc:
-        version = _version(doc)
-        replaced = freeze_document(doc)
-        _list_sheet(doc, replaced, version)
-        office.save(doc, target, "calc8")
+    name = os.path.basename(source)
+    with Progress("freeze", unit=" cells", quiet=quiet) as progress:
+        progress.step("starting the office")
+        with officekit.Office(oxt=oxt) as office:
+            progress.step(f"opening and recomputing {name}")
+            with office.calculated_copy(source) as doc:
+                version = _version(doc)
+                replaced = freeze_document(doc, progress)
+                _list_sheet(doc, replaced, version)
+                progress.step(f"writing {os.path.basename(target)}")
+                office.save(doc, target, "calc8")
+            progress.step("closing the office")
     return replaced
 
 
@@ -117,8 +132,11 @@ def main(argv=None):
     ap.add_argument("target")
     ap.add_argument("--oxt", required=True)
     ap.add_argument("--replace", action="store_true", help="write over an existing target")
+    ap.add_argument("-q", "--quiet", action="store_true",
+                    help="no progress line on the terminal (never shown when stderr is not "
+                    "a terminal)")
     args = ap.parse_args(argv)
-    replaced = freeze(args.source, args.target, args.oxt, args.replace)
+    replaced = freeze(args.source, args.target, args.oxt, args.replace, args.quiet)
     print(f"froze {len(replaced)} cells into {args.target}")
     return 0
 

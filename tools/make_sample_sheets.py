@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Eight workbooks, one office session, one module each in tools/samples/:
+Nine workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -27,6 +27,9 @@ Eight workbooks, one office session, one module each in tools/samples/:
                          fields' rising, setting and observing windows, the Moon and the
                          planets from the site, altitudes through the night, and a year
                          of Moon-free dark hours (the site family)
+  sky_charts.ods         native Calc charts over computed columns: the obliquity by five
+                         models over 20,000 years, the equation of time, the Sun's
+                         declination and the analemma, the Moon's illuminated fraction
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -43,6 +46,7 @@ import sys
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, HERE)
+sys.path.insert(0, os.path.dirname(HERE))
 
 import officekit  # noqa: E402
 from samples import (  # noqa: E402
@@ -53,18 +57,24 @@ from samples import (  # noqa: E402
     observing_log,
     planet_watch,
     reductions,
+    sky_charts,
     target_list,
     timing_and_moon,
 )
 
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
-         planet_watch, reductions, night_plan)
+         planet_watch, reductions, night_plan, sky_charts)
 
 
-def build(oxt, out_dir, only=None):
-    os.makedirs(out_dir, exist_ok=True)
+def build(oxt, out_dir, only=()):
+    """Write every workbook, or those whose file names are in ``only``."""
     books = [b for b in BOOKS if not only or b.FILE_NAME in only]
+    unknown = set(only) - {b.FILE_NAME for b in BOOKS}
+    if unknown:
+        raise SystemExit(f"no sample workbook {sorted(unknown)}; the workbooks: "
+                         + ", ".join(b.FILE_NAME for b in BOOKS))
+    os.makedirs(out_dir, exist_ok=True)
     with officekit.Office(oxt=oxt) as office:
         paths = [common.write_book(office, out_dir, book) for book in books]
     for path in paths:
@@ -76,8 +86,8 @@ def main(argv=None):
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--oxt", required=True)
     ap.add_argument("--out", default=os.path.join(os.path.dirname(HERE), "sample_sheets"))
-    ap.add_argument("--only", nargs="*", metavar="FILE.ods",
-                    help="write only these workbooks (default: all)")
+    ap.add_argument("--only", action="append", default=[], metavar="FILE.ods",
+                    help="write only this workbook (repeatable); default: all of them")
     args = ap.parse_args(argv)
     build(args.oxt, args.out, args.only)
 

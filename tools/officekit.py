@@ -22,8 +22,21 @@ import time
 import uno
 from com.sun.star.beans import PropertyValue
 
-SOFFICE = shutil.which("soffice") or "/usr/lib/libreoffice/program/soffice"
-UNOPKG = shutil.which("unopkg") or "/usr/lib/libreoffice/program/unopkg"
+# Which office: the system's, or the one whose program folder ECLIPSHEET_OFFICE names
+# (the tests run on both: LibreOffice 25.2 unpacked by tools/office25.sh beside 7.4).
+OFFICE_PROGRAM = os.environ.get("ECLIPSHEET_OFFICE")
+if OFFICE_PROGRAM:
+    SOFFICE = os.path.join(OFFICE_PROGRAM, "soffice")
+    UNOPKG = os.path.join(OFFICE_PROGRAM, "unopkg")
+    # Debian's uno.py points URE_BOOTSTRAP at the system office's fundamentalrc in this
+    # process's environment; inherited, it would make the other office read the system
+    # office's settings, libraries and types.
+    OFFICE_ENV = {"URE_BOOTSTRAP": "vnd.sun.star.pathname:"
+                  + os.path.join(OFFICE_PROGRAM, "fundamentalrc")}
+else:
+    OFFICE_ENV = {}
+    SOFFICE = shutil.which("soffice") or "/usr/lib/libreoffice/program/soffice"
+    UNOPKG = shutil.which("unopkg") or "/usr/lib/libreoffice/program/unopkg"
 
 
 def _props(**kw):
@@ -78,6 +91,7 @@ def unopkg(profile, *args):
     os.makedirs(profile, exist_ok=True)
     cmd = [UNOPKG, *args, f"-env:UserInstallation={file_url(profile)}"]
     cmd, _ = _as_unprivileged(cmd, profile)
+    cmd = ["env"] + [f"{k}={v}" for k, v in OFFICE_ENV.items()] + cmd
     # cwd: the unprivileged user may not enter the folder the tests run from.
     done = subprocess.run(cmd, capture_output=True, text=True, timeout=300, cwd=profile)
     if done.returncode != 0:
@@ -121,7 +135,20 @@ class Office:
         if not self.keep_profile:
             shutil.rmtree(self.profile, ignore_errors=True)
 
+    def _first_start(self):
+        """LibreOffice 25.2 restarts itself once on a fresh profile (exit code 81, seen
+        here), which drops a bridge made to the first process: let it make the profile
+        first, alone.  The system's 7.4 starts straight through."""
+        if OFFICE_PROGRAM and not os.path.exists(
+                os.path.join(self.profile, "user", "registrymodifications.xcu")):
+            subprocess.run([SOFFICE, "--headless", "--invisible", "--norestore",
+                            "--terminate_after_init",
+                            f"-env:UserInstallation={file_url(self.profile)}"],
+                           stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL,
+                           env=dict(os.environ, **OFFICE_ENV, **(self.env or {})), timeout=120)
+
     def start(self, timeout=90):
+        self._first_start()
         port = _free_port()
         self.process = subprocess.Popen(
             [SOFFICE] + ([] if self.visible else ["--headless", "--invisible"]) + [
@@ -131,7 +158,7 @@ class Office:
             ],
             stdout=subprocess.DEVNULL,
             stderr=subprocess.DEVNULL,
-            env=dict(os.environ, **(self.env or {})),
+            env=dict(os.environ, **OFFICE_ENV, **(self.env or {})),
         )
         local = uno.getComponentContext()
         resolver = local.ServiceManager.createInstanceWithContext(

@@ -20,7 +20,13 @@ import tempfile
 HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, HERE)
 
+sys.path.insert(0, os.path.dirname(HERE))
+
+# Before officekit: the progress line's library must be imported before `uno` is.
+from calcfuncs.progress import Progress  # noqa: E402,I001
+
 import officekit  # noqa: E402
+
 
 CSV_OPTIONS = "44,34,76,1,,0,false,true,false,false,false,-1"  # all sheets, one file each
 
@@ -33,6 +39,23 @@ def _inputs(paths):
         else:
             found.append(p)
     return found
+
+
+def _unintended(cells):
+    """The error cells of a range, less those whose formula asks for #N/A with NA():
+    a chart's table leaves a gap so (sample_sheets/sky_charts.ods), on purpose."""
+    formulas = cells.getFormulaArray()
+    origin = cells.getCellByPosition(0, 0)
+    if all("NA()" in f.upper() for row in formulas for f in row):
+        return []
+    if len(formulas) == 1 and len(formulas[0]) == 1:
+        return [origin.AbsoluteName]
+    out = []
+    for r, row in enumerate(formulas):
+        for c, f in enumerate(row):
+            if "NA()" not in f.upper():
+                out.append(cells.getCellByPosition(c, r).AbsoluteName)
+    return out
 
 
 def survey(doc):
@@ -50,7 +73,8 @@ def survey(doc):
                 cell = sheet.getCellByPosition(col, row)
                 messages.append((cell.AbsoluteName.split(".")[-1], v))
         errors = sheet.queryFormulaCells(ERROR)
-        error_cells = [errors.getByIndex(k).AbsoluteName for k in range(errors.getCount())]
+        error_cells = [name for k in range(errors.getCount())
+                       for name in _unintended(errors.getByIndex(k))]
         report.append((sheet.getName(), n_formulas, messages, error_cells))
     return report
 
@@ -71,7 +95,7 @@ def export(office, doc, source, out_dir):
     return written
 
 
-def recompute(paths, oxt, out_dir, messages_expected=()):
+def recompute(paths, oxt, out_dir, messages_expected=(), quiet=False):
     out_dir = os.path.abspath(out_dir)
     os.makedirs(out_dir, exist_ok=True)
     sources = _inputs(paths)
@@ -79,17 +103,27 @@ def recompute(paths, oxt, out_dir, messages_expected=()):
         if os.path.dirname(os.path.abspath(s)) == out_dir:
             raise SystemExit(f"{s} is inside the output folder; choose another --out")
     rows, failed = [], False
-    with officekit.Office(oxt=oxt) as office:
-        for source in sources:
-            with office.calculated_copy(source) as doc:
-                for name, n, messages, errors in survey(doc):
-                    expected = name in messages_expected
-                    if errors or (messages and not expected):
-                        failed = True
-                    rows.append((os.path.basename(source), name, n, messages, errors, expected))
-                written = export(office, doc, source, out_dir)
-            for w in written:
-                print("wrote", os.path.relpath(w))
+    # One step per workbook; opening and recomputing one is a single long office call,
+    # so the progress line names it and keeps its clock running meanwhile.
+    with Progress("recompute", total=len(sources), unit=" workbooks", quiet=quiet) as progress:
+        progress.step("starting the office")
+        with officekit.Office(oxt=oxt) as office:
+            for source in sources:
+                base = os.path.basename(source)
+                progress.step(f"opening and recomputing {base}")
+                with office.calculated_copy(source) as doc:
+                    progress.step(f"checking {base}")
+                    for name, n, messages, errors in survey(doc):
+                        expected = name in messages_expected
+                        if errors or (messages and not expected):
+                            failed = True
+                        rows.append((base, name, n, messages, errors, expected))
+                    progress.step(f"writing {base} as .ods, .pdf and .csv")
+                    written = export(office, doc, source, out_dir)
+                for w in written:
+                    progress.say(f"wrote {os.path.relpath(w)}")
+                progress.advance()
+            progress.step("closing the office")
     _print_table(rows)
     return 1 if failed else 0
 
@@ -115,8 +149,11 @@ def main(argv=None):
     ap.add_argument("--out", default="out", help="output folder (default: out)")
     ap.add_argument("--messages-expected", action="append", default=[], metavar="SHEET",
                     help="a sheet whose #SKY: messages are intended (repeatable)")
+    ap.add_argument("-q", "--quiet", action="store_true",
+                    help="no progress line on the terminal (never shown when stderr is not "
+                    "a terminal)")
     args = ap.parse_args(argv)
-    return recompute(args.paths, args.oxt, args.out, set(args.messages_expected))
+    return recompute(args.paths, args.oxt, args.out, set(args.messages_expected), args.quiet)
 
 
 if __name__ == "__main__":

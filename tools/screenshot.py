@@ -1,6 +1,10 @@
 """A screenshot of the real Calc window: a sample sheet with the Function Wizard open.
 
     .venv/bin/python tools/screenshot.py --oxt dist/eclipsheet.oxt [--out PATH.png]
+    .venv/bin/python tools/screenshot.py --oxt dist/eclipsheet.oxt --charts
+
+The second form takes the README's other picture, docs/images/sky-charts.png: the
+charts of sample_sheets/sky_charts.ods on the Sun's sheet, without the wizard.
 
 Starts a virtual screen (Xvfb), the ordinary windowed office on it with a fresh
 profile and the built extension, opens a sample sheet, selects a cell that holds one of
@@ -36,6 +40,9 @@ SHEET = "Observing log"
 CELL = "E3"  # =SKY.JD(B3;"UTC";"TT"), the README's first formula
 ZOOM = 90  # per cent
 OUT = os.path.join(ROOT, "docs", "images", "first-hour.png")
+CHARTS = dict(out=os.path.join(ROOT, "docs", "images", "sky-charts.png"),
+              sample=os.path.join(ROOT, "sample_sheets", "sky_charts.ods"),
+              sheet_name="Sun's year", cell="B6", wizard=False, zoom=72)
 
 
 class VirtualScreen:
@@ -225,7 +232,7 @@ def visible_office(oxt, screen):
                             env={"DISPLAY": screen.display, "SAL_USE_VCLPLUGIN": "gen"})
 
 
-def open_in_window(office, screen, path, sheet_name, scratch):
+def open_in_window(office, screen, path, sheet_name, scratch, zoom=ZOOM):
     """Open a copy of ``path`` (made in the folder ``scratch``, so the original is never
     locked or written) in a window filling the screen, on the sheet ``sheet_name``."""
     doc = office.open_copy(path, scratch)
@@ -235,7 +242,7 @@ def open_in_window(office, screen, path, sheet_name, scratch):
     controller.setActiveSheet(doc.Sheets.getByName(sheet_name))
     # 90 %: the first five columns of the log fit to the left of the wizard.
     controller.ZoomType = 3  # com.sun.star.view.DocumentZoomType.BY_VALUE
-    controller.ZoomValue = ZOOM
+    controller.ZoomValue = zoom
     return doc
 
 
@@ -275,14 +282,22 @@ Shot = collections.namedtuple("Shot", "path formula value wizard_title picture")
 
 
 def take(oxt, out=OUT, sample=SAMPLE, sheet_name=SHEET, cell=CELL, size=SIZE,
-         lossless=False):
-    """Take the screenshot and write it to ``out``; returns a Shot."""
+         lossless=False, wizard=True, zoom=ZOOM):
+    """Take the screenshot and write it to ``out``; returns a Shot.  ``wizard=False``:
+    the sheet alone, with ``cell`` selected (for a sheet whose charts are the point)."""
     with VirtualScreen(*size) as screen, visible_office(oxt, screen) as office, \
             tempfile.TemporaryDirectory() as scratch:
-        doc = open_in_window(office, screen, sample, sheet_name, scratch)
+        doc = open_in_window(office, screen, sample, sheet_name, scratch, zoom)
         try:
             target = doc.CurrentController.ActiveSheet.getCellRangeByName(cell)
             formula, value = target.getFormula(), target.getValue()
+            if not wizard:
+                controller = doc.CurrentController
+                controller.select(target)
+                controller.setFirstVisibleColumn(0)
+                controller.setFirstVisibleRow(0)
+                picture = screen.wait_until_still()
+                return Shot(write_png(out, picture, lossless), formula, value, "", picture)
             wizard = open_function_wizard(office, doc, cell)
             if wizard is None:
                 raise RuntimeError("the Function Wizard did not open")
@@ -303,11 +318,21 @@ def main(argv=None):
     ap.add_argument("--sheet-file", default=SAMPLE)
     ap.add_argument("--sheet", default=SHEET)
     ap.add_argument("--cell", default=CELL)
+    ap.add_argument("--charts", action="store_true",
+                    help="the charts of sample_sheets/sky_charts.ods instead (no wizard), "
+                    "to docs/images/sky-charts.png unless --out says otherwise")
     ap.add_argument("--lossless", action="store_true",
                     help="keep every colour (a larger file) instead of a 256-colour palette")
     args = ap.parse_args(argv)
-    shot = take(args.oxt, args.out, args.sheet_file, args.sheet, args.cell,
-                lossless=args.lossless)
+    if args.charts:
+        chosen = dict(CHARTS)
+        if args.out != OUT:
+            chosen["out"] = args.out
+        shot = take(args.oxt, lossless=args.lossless, **chosen)
+        args.sheet, args.cell = chosen["sheet_name"], chosen["cell"]
+    else:
+        shot = take(args.oxt, args.out, args.sheet_file, args.sheet, args.cell,
+                    lossless=args.lossless)
     print(f"{shot.path}: {args.sheet}.{args.cell} {shot.formula} = {shot.value}; "
           f"{shot.wizard_title!r} open; {os.path.getsize(shot.path)} bytes")
     return 0

@@ -12,7 +12,9 @@ packages=(libreoffice-calc libreoffice-script-provider-python python3-uno libreo
           python3-venv python3-numpy python3-erfa python3-jplephem fonts-dejavu-core
           # xvfb: a virtual screen for the windowed office (tests/test_gui.py and
           # tools/screenshot.py, which reads the screen from Xvfb's own dump file)
-          xvfb)
+          xvfb
+          # poppler-utils: pdftoppm, to look at the exported PDF's pages (tests/test_charts.py)
+          poppler-utils)
 missing=()
 for p in "${packages[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
@@ -47,4 +49,7 @@ PY
 then
   .venv/bin/pip install -q --disable-pip-version-check -r requirements-dev.txt
 fi
+# LibreOffice 25.2 beside the system's office, for the second run of the office tests
+# (tools/office25.sh; nothing of the system's is changed).  Debian 12 only.
+bash tools/office25.sh >/dev/null || echo "setup: no LibreOffice 25.2 in .office25/ (see above)"
 echo "setup: ready (office $(soffice --version 2>/dev/null | awk '{print $2}'), venv .venv)"

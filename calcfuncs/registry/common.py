@@ -64,6 +64,20 @@ class Arg:
         return self.default is not REQUIRED
 
     @property
+    def wizard_description(self):
+        """The argument's text in the Function Wizard and the reference.
+
+        Calc decides "(optional)" from the UNO type alone: every parameter of type
+        ``any`` is optional to it (sc/source/core/tool/addincol.cxx), so its wizard marks
+        all of ours so.  A stricter type (double, string, an array) would make Calc
+        itself refuse an omitted or ill-typed argument with an Err:5xx before our code
+        sees it, where a ``#SKY:`` message belongs.  So the type stays ``any`` and the
+        words say it instead, first, where the eye lands."""
+        if self.optional:
+            return self.description + " (optional)"
+        return "Required. " + self.description
+
+    @property
     def idl_name(self):
         """The parameter's name in the IDL and the xcu (UNO names take no underscore)."""
         head, *rest = self.name.split("_")
