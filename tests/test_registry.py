@@ -132,6 +132,27 @@ FROZEN_METHODS = {
     "skyVarstarMinimum": "SKY.VARSTAR.MINIMUM",
     "skyVarstarMinimumError": "SKY.VARSTAR.MINIMUM.ERROR",
     "skyPlanetMagnitude": "SKY.PLANET.MAGNITUDE",
+    "skyOrbitFromQ": "SKY.ORBIT.FROM.Q",
+    "skyOrbitFromA": "SKY.ORBIT.FROM.A",
+    "skyOrbitName": "SKY.ORBIT.NAME",
+    "skyOrbitAge": "SKY.ORBIT.AGE",
+    "skyOrbitPeriod": "SKY.ORBIT.PERIOD",
+    "skyOrbitHelioLon": "SKY.ORBIT.HELIO.LON",
+    "skyOrbitHelioLat": "SKY.ORBIT.HELIO.LAT",
+    "skyOrbitHelioRa": "SKY.ORBIT.HELIO.RA",
+    "skyOrbitHelioDec": "SKY.ORBIT.HELIO.DEC",
+    "skyOrbitSunDist": "SKY.ORBIT.SUN.DIST",
+    "skyOrbitRa": "SKY.ORBIT.RA",
+    "skyOrbitDec": "SKY.ORBIT.DEC",
+    "skyOrbitLon": "SKY.ORBIT.LON",
+    "skyOrbitLat": "SKY.ORBIT.LAT",
+    "skyOrbitEarthDist": "SKY.ORBIT.EARTH.DIST",
+    "skyOrbitElongation": "SKY.ORBIT.ELONGATION",
+    "skyOrbitPhaseAngle": "SKY.ORBIT.PHASE.ANGLE",
+    "skyOrbitRate": "SKY.ORBIT.RATE",
+    "skyOrbitRatePa": "SKY.ORBIT.RATE.PA",
+    "skyOrbitMag": "SKY.ORBIT.MAG",
+    "skyOrbitEventNext": "SKY.ORBIT.EVENT.NEXT",
 }
 
 
@@ -291,7 +312,11 @@ DECLARED_ORDER = (
     "skyPlanetIlluminated skyPlanetEventNext skyEphemeris "
     "skyConstellation skyConstellationBody skyMeteorZhr skyMeteorZhrError "
     "skyMeteorRadiantRa skyMeteorRadiantDec skyVarstarPhase skyVarstarCycle skyVarstarOc "
-    "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude"
+    "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude "
+    "skyOrbitFromQ skyOrbitFromA skyOrbitName skyOrbitAge skyOrbitPeriod skyOrbitHelioLon "
+    "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
+    "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
+    "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext"
 ).split()
 
 
