@@ -17,6 +17,7 @@ SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months.
 import numpy as np
 
 from . import bodies, ephemeris, frames, mpcformat, vectors
+from .phasecurves import comet_magnitude, hg1g2_magnitude, hg_magnitude
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
 from .orbits import Orbit, check_elements, from_mean_anomaly
@@ -233,31 +234,10 @@ def direction_cells(orbit, time, source=BUILTIN):
 # ---- magnitudes --------------------------------------------------------------------------
 
 
-def hg_magnitude(h, g, r, delta, phase_angle_deg):
-    """The IAU H, G system (Bowell et al. 1989, adopted by IAU Commission 20 in 1985):
-    V = H + 5 log10(r delta) - 2.5 log10((1 - G) phi1 + G phi2), each phi_i a blend
-    W phi_iS + (1 - W) phi_iL of a small-angle term phi_iS = 1 - C_i sin a / (0.119 +
-    1.341 sin a - 0.754 sin^2 a) and phi_iL = exp(-A_i tan(a/2)^B_i), W = exp(-90.56
-    tan^2(a/2)); A = 3.332, 1.862, B = 0.631, 1.218, C = 0.986, 0.238 (the published
-    constants)."""
-    a = np.radians(np.asarray(phase_angle_deg, float))
-    t = np.tan(a / 2.0)
-    sa = np.sin(a)
-    w = np.exp(-90.56 * t * t)
-    small = sa / (0.119 + 1.341 * sa - 0.754 * sa * sa)
-    phi1 = w * (1.0 - 0.986 * small) + (1.0 - w) * np.exp(-3.332 * t ** 0.631)
-    phi2 = w * (1.0 - 0.238 * small) + (1.0 - w) * np.exp(-1.862 * t ** 1.218)
-    return h + 5.0 * np.log10(r * delta) - 2.5 * np.log10((1.0 - g) * phi1 + g * phi2)
-
-
-def comet_magnitude(m1, k1, r, delta):
-    """A comet's total magnitude m1 = M1 + 5 log10 delta + K1 log10 r (common practice)."""
-    return m1 + 5.0 * np.log10(delta) + k1 * np.log10(r)
-
-
-def magnitude_cells(orbit, time, h=None, g=None, source=BUILTIN, h_given=None, g_given=None):
-    """Visual magnitude from H, G (minor planets) or M1, K1 (comets): the orbit's own
-    values unless given here."""
+def magnitude_cells(orbit, time, h=None, g=None, g2=None, source=BUILTIN, h_given=None,
+                    g_given=None, g2_given=None):
+    """Visual magnitude from H, G or H, G1, G2 (minor planets) or M1, K1 (comets): the
+    orbit's own values unless given here."""
     p, tt1, tt2 = _place(orbit, time, "APPARENT", source)
     o = mpcformat.orbits_of(orbit)
     n = o.q.size
@@ -270,11 +250,17 @@ def magnitude_cells(orbit, time, h=None, g=None, source=BUILTIN, h_given=None, g
     comet = o.comet
     # A minor planet without G takes the customary 0.15; a comet without K1 takes 10.
     gg = np.where(np.isfinite(gg), gg, np.where(comet, 10.0, 0.15))
+    three = np.zeros(n, bool) if g2 is None else np.asarray(g2_given, bool) & ~comet
+    gg2 = np.zeros(n) if g2 is None else np.where(three, np.ravel(g2), 0.0)
     r = vectors.norm(p.helio)
     delta = p.distance
     alpha = np.degrees(bodies.phase_angle(p))
+    if np.any(three & (alpha > 150.0)):
+        raise rows_failing(three & (alpha > 150.0), "the H, G1, G2 phase functions are "
+                           "defined to a phase angle of 150 degrees")
     out = np.where(comet, comet_magnitude(hh, gg, r, delta),
-                   hg_magnitude(hh, gg, r, delta, alpha))
+                   np.where(three, hg1g2_magnitude(hh, gg, gg2, r, delta, alpha),
+                            hg_magnitude(hh, gg, r, delta, alpha)))
     return out.reshape(n)
 
 

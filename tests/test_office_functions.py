@@ -268,7 +268,7 @@ _ORBIT_CASES = {
     "SKY.ORBIT.EARTH.DIST": (";A{r}", ';;"' + DE440 + '"'),
     "SKY.ORBIT.ELONGATION": (";A{r}", ""), "SKY.ORBIT.PHASE.ANGLE": (";A{r}", ""),
     "SKY.ORBIT.RATE": (";A{r}", ""), "SKY.ORBIT.RATE.PA": (";A{r}", ';;"' + DE440 + '"'),
-    "SKY.ORBIT.MAG": (";A{r}", ';;;;"' + DE440 + '"'),
+    "SKY.ORBIT.MAG": (";A{r}", ';;;;;"' + DE440 + '"'),
     "SKY.ORBIT.EVENT.NEXT": (";A{r}", ';;"PERIHELION"'),
 }
 
@@ -294,6 +294,9 @@ for _name, (_time, _extra) in _ORBIT_CASES.items():
     EXAMPLES[_name] = _orbit_examples(_time, _extra)
 EXAMPLES["SKY.ORBIT.EVENT.NEXT"].append(
     ('"' + _MP_LINE + '";A{r};;"OPPOSITION"', lambda v: [_MP_LINE, v[0], None, "OPPOSITION"]))
+EXAMPLES["SKY.ORBIT.MAG"].append(
+    ('"' + _MP_LINE + '";A{r};;3.34;0.62;0.14', lambda v: [_MP_LINE, v[0], None, 3.34, 0.62,
+                                                          0.14]))
 EXAMPLES["SKY.ORBIT.RA"].append(
     ("SKY.ORBIT.FROM.Q(A{r};H{r};0.98;B{r};F{r};I{r});A{r}+30",
      lambda v: [evaluate("SKY.ORBIT.FROM.Q", [v[0], v[7], 0.98, v[1], v[5], v[8]]),

@@ -16,7 +16,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import mpcformat, orbits, smallbodies
+from calcfuncs import mpcformat, orbits, phasecurves, smallbodies
 from calcfuncs.cells import evaluate
 from calcfuncs.timescales import Instants
 
@@ -267,20 +267,43 @@ def test_hg_magnitudes_against_sbpy():
     alpha = np.linspace(0.0, 120.0, 25)
     for h, g in ((3.34, 0.12), (19.2, 0.15), (12.0, 0.4), (8.0, -0.1)):
         ref = np.asarray(HG(H=h, G=g)(np.radians(alpha)))
-        ours = smallbodies.hg_magnitude(h, g, 1.0, 1.0, alpha)
+        ours = phasecurves.hg_magnitude(h, g, 1.0, 1.0, alpha)
         assert np.max(np.abs(ours - ref)) < 1e-6
+
+
+def test_hg1g2_magnitudes_against_sbpy():
+    """The H, G1, G2 phase functions (Muinonen et al. 2010) against sbpy 0.6's HG1G2 at
+    phase angles 0 to 150 degrees, within 1e-8 mag (the published basis functions are
+    given to 8 digits: both splines pass through the same nodes)."""
+    from sbpy.photometry import HG1G2
+
+    alpha = np.linspace(0.0, 150.0, 301)
+    for h, g1, g2 in ((7.063, 0.62, 0.14), (15.0, 0.3, 0.4), (10.0, 0.9, 0.05)):
+        ref = np.asarray(HG1G2(H=h, G1=g1, G2=g2)(np.radians(alpha)))
+        ours = phasecurves.hg1g2_magnitude(h, g1, g2, 1.0, 1.0, alpha)
+        assert np.max(np.abs(ours - ref)) < 1e-8
+
+
+def test_hg1g2_basis_at_its_nodes():
+    # Muinonen et al. (2010), Table 1: phi1(30) = 0.33486016, phi2(60) = 0.31755495,
+    # phi3(4) = 0.2317423; phi1 and phi2 lines below 7.5 degrees: 0.75 and 0.925 there.
+    p1, p2, p3 = phasecurves.hg1g2_basis(np.array([30.0, 60.0, 4.0, 7.5]))
+    assert p1[0] == pytest.approx(0.33486016, abs=1e-12)
+    assert p2[1] == pytest.approx(0.31755495, abs=1e-12)
+    assert p3[2] == pytest.approx(0.2317423, abs=1e-12)
+    assert p1[3] == pytest.approx(0.75, abs=1e-12) and p2[3] == pytest.approx(0.925, abs=1e-12)
 
 
 def test_hg_reduces_to_h_at_unit_distances_and_zero_phase():
     # The definition of H (IAU 1985, Bowell et al. 1989): V(1 au, 1 au, 0 deg) = H.
-    assert smallbodies.hg_magnitude(7.0, 0.15, 1.0, 1.0, 0.0) == 7.0
-    assert math.isclose(smallbodies.hg_magnitude(7.0, 0.15, 2.0, 1.5, 0.0),
+    assert phasecurves.hg_magnitude(7.0, 0.15, 1.0, 1.0, 0.0) == 7.0
+    assert math.isclose(phasecurves.hg_magnitude(7.0, 0.15, 2.0, 1.5, 0.0),
                         7.0 + 5 * math.log10(3.0), rel_tol=1e-15)
 
 
 def test_comet_total_magnitude_and_how_the_line_is_read():
     # m1 = M1 + 5 log delta + K1 log r (common practice); the line's slope 6.0 is n, K1 = 15.
-    assert math.isclose(smallbodies.comet_magnitude(11.5, 15.0, 2.0, 0.5),
+    assert math.isclose(phasecurves.comet_magnitude(11.5, 15.0, 2.0, 0.5),
                         11.5 + 5 * math.log10(0.5) + 15 * math.log10(2.0), rel_tol=1e-15)
     el = mpcformat.read_line(COMET_ELLIPTIC)
     assert el["comet"] and el["h"] == 11.5 and el["g"] == 15.0

@@ -153,11 +153,16 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
         (_ORBIT, INSTANT, SCALE,
          Arg("h", "number", "H (or M1 for a comet) instead of the orbit's own. Default: the "
              "orbit's.", default=None),
-         Arg("g", "number", "G (or K1 for a comet) instead of the orbit's own. Default: the "
-             "orbit's, else 0.15 (G) or 10 (K1).", default=None),
+         Arg("g", "number", "G (or K1 for a comet; G1 when g2 is given) instead of the "
+             "orbit's own. Default: the orbit's, else 0.15 (G) or 10 (K1).", default=None),
+         Arg("g2", "number", "G2 of the H, G1, G2 system: given, g is read as G1 and the "
+             "H, G1, G2 phase functions are used (minor planets). Default: the H, G system.",
+             default=None),
          SOURCE),
         "Minor planets: V = H + 5 log(r delta) - 2.5 log((1 - G) phi1 + G phi2) (Bowell et "
-        "al. 1989, the IAU H, G system). Comets: m = M1 + 5 log delta + K1 log r. An MPC "
+        "al. 1989, the IAU H, G system; agrees with sbpy's within 1e-6 mag), or with g2 the "
+        "H, G1, G2 system (Muinonen et al. 2010: its published spline basis functions, to a "
+        "phase angle of 150 degrees; agrees with sbpy's within 1e-8 mag). Comets: m = M1 + 5 log delta + K1 log r. An MPC "
         "comet line's magnitude fields are read as M1 and n, with K1 = 2.5 n (its slope "
         "field holds n; 4.0 is the customary K1 = 10). " + _GEOCENTRIC),
     _fn("SKY.ORBIT.EVENT.NEXT", "skyOrbitEventNext", "The next instant after a time of the "
