@@ -254,8 +254,8 @@ EXAMPLES["SKY.ORBIT.FROM.Q"] = [
     ("A{r};H{r};0.98;B{r};F{r};I{r}", lambda v: [v[0], v[7], 0.98, v[1], v[5], v[8]]),
 ]
 EXAMPLES["SKY.ORBIT.FROM.A"] = [
-    ("A{r};H{r};0.3;B{r};F{r};I{r};G{r};12.5", lambda v: [v[0], v[7], 0.3, v[1], v[5], v[8],
-                                                         v[6], 12.5]),
+    ("A{r};H{r};0.3;B{r};F{r};I{r};G{r};;12.5", lambda v: [v[0], v[7], 0.3, v[1], v[5], v[8],
+                                                          v[6], None, 12.5]),
 ]
 _ORBIT_CASES = {
     "SKY.ORBIT.NAME": ("", ""), "SKY.ORBIT.AGE": (";A{r}", ""), "SKY.ORBIT.PERIOD": ("", ""),

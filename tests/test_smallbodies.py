@@ -370,6 +370,9 @@ def test_bad_elements_in_cells_give_sky_text():
     assert evaluate("SKY.ORBIT.FROM.Q", ["1990-13-45"] + base[1:]).startswith("#SKY: ")
     assert "semi-major axis" in evaluate("SKY.ORBIT.FROM.A", ["2025-01-01", -2.5, 0.1, 1, 2,
                                                               3, 4])
+    # the elements' scale is TT unless said: the same text from the same numbers
+    assert evaluate("SKY.ORBIT.FROM.Q", base) == evaluate("SKY.ORBIT.FROM.Q", base + [None,
+                                                                                     "TT"])
 
 
 def test_a_column_with_a_bad_row_keeps_the_good_rows():
@@ -384,7 +387,7 @@ def test_elements_in_cells_make_the_same_orbit_as_the_line():
     el = mpcformat.read_line(CERES)
     jd = el["epoch1"] + el["epoch2"]
     text = evaluate("SKY.ORBIT.FROM.A", [f"JD {jd}", el["a"], el["e"], el["i"], el["node"],
-                                         el["peri"], el["m"], el["h"], el["g"]])
+                                         el["peri"], el["m"], "TT", el["h"], el["g"]])
     for name in ("SKY.ORBIT.RA", "SKY.ORBIT.DEC", "SKY.ORBIT.MAG"):
         assert evaluate(name, [text, "2025-03-01"]) == pytest.approx(
             evaluate(name, [CERES, "2025-03-01"]), abs=1e-9)

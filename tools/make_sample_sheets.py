@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Seven workbooks, one office session, one module each in tools/samples/:
+Eight workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -23,6 +23,9 @@ Seven workbooks, one office session, one module each in tools/samples/:
   reductions.ods         the Sun's constellation through a year, meteor rates, a time of
                          minimum by Kwee and van Woerden, the planets' magnitudes (the
                          constellations, meteors, variable-star and magnitude families)
+  minor_planets.ods      the minor-planet section's target list of orbits (MPC lines and
+                         elements in cells) and a month's ephemeris of one target (the
+                         orbits family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -45,6 +48,7 @@ from samples import (  # noqa: E402
     common,
     historical_record,
     meteor_watch,
+    minor_planets,
     observing_log,
     planet_watch,
     reductions,
@@ -54,7 +58,7 @@ from samples import (  # noqa: E402
 
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
-         planet_watch, reductions)
+         planet_watch, reductions, minor_planets)
 
 
 def build(oxt, out_dir):

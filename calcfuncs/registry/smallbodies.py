@@ -74,10 +74,11 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
               Arg("q", "number", "Perihelion distance q in au."), _E, *_ANGLES,
               Arg("epoch", "time", "Epoch of osculation (for SKY.ORBIT.AGE). Default: the "
                   "time of perihelion.", default=None),
-              Arg("m1", "number", "Total absolute magnitude M1 (optional).", default=None),
-              Arg("k1", "number", "Slope K1 of m = M1 + 5 log D + K1 log r (optional; 10 if "
-                  "left out).", default=None),
-              _TT),
+              _TT,
+              Arg("m1", "number", "Total absolute magnitude M1. Default: none (SKY.ORBIT.MAG "
+                  "then needs it in its h argument).", default=None),
+              Arg("k1", "number", "Slope K1 of m = M1 + 5 log D + K1 log r. Default: 10 "
+                  "(the customary value).", default=None)),
         result="text: ORBIT followed by the elements (times as TT JDs)", result_kind="text",
         impl="smallbodies:from_q_cells", model=_TWO_BODY),
     CellFunction(
@@ -89,10 +90,11 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
               Arg("a", "number", "Semi-major axis a in au (negative for a hyperbola)."), _E,
               *_ANGLES,
               Arg("mean_anomaly", "number", "Mean anomaly M at the epoch, degrees."),
-              Arg("h", "number", "Absolute magnitude H (optional).", default=None),
-              Arg("g", "number", "Slope parameter G (optional; 0.15 if left out).",
-                  default=None),
-              _TT),
+              _TT,
+              Arg("h", "number", "Absolute magnitude H. Default: none (SKY.ORBIT.MAG then "
+                  "needs it in its h argument).", default=None),
+              Arg("g", "number", "Slope parameter G. Default: 0.15 (the customary value).",
+                  default=None)),
         result="text: ORBIT followed by the elements (times as TT JDs)", result_kind="text",
         impl="smallbodies:from_a_cells", model=_TWO_BODY),
     CellFunction(
