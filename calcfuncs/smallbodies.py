@@ -20,10 +20,12 @@ from . import bodies, ephemeris, frames, mpcformat, vectors
 from .phasecurves import comet_magnitude, hg1g2_magnitude, hg_magnitude
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
-from .orbits import Orbit, check_elements, from_mean_anomaly
+from .orbits import check_elements, from_mean_anomaly
+from .perturbations import PerturbedOrbit
 from .timescales import DateTimes
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME
 
+TWO_BODY = "TWO BODY"
 YEAR_DAYS = 365.25636  # the sidereal year (common practice), for synodic periods
 _RATE_STEP_DAYS = 1.0 / 48.0  # half-width of the central difference for the motion
 ARCSEC_PER_RADIAN = 206264.80624709636
@@ -114,6 +116,14 @@ def period_cells(orbit):
 # ---- heliocentric ------------------------------------------------------------------------
 
 
+def moved(o, model, source):
+    """What bodies.place propagates: the two-body orbits themselves, or for PLANETS the
+    same elements integrated under the planets of the source (perturbations.py)."""
+    if model == "PLANETS":
+        return PerturbedOrbit(o, source)
+    return o
+
+
 def _orbit_and_times(orbit, time, source=BUILTIN):
     o = mpcformat.orbits_of(orbit)
     tt1, tt2 = time.tt()
@@ -122,32 +132,35 @@ def _orbit_and_times(orbit, time, source=BUILTIN):
     return o, tt1, tt2, tdb1, tdb2
 
 
-def _helio(orbit, time, system):
-    o, tt1, tt2, _, _ = _orbit_and_times(orbit, time)
-    p = o.state(tt1, tt2)[0]
+def _helio_vectors(orbit, time, source, model):
+    o, tt1, tt2, tdb1, tdb2 = _orbit_and_times(orbit, time, source)
+    return moved(o, model, source).state(tdb1, tdb2)[0], tt1, tt2
+
+
+def _helio(orbit, time, system, source, model):
+    p, tt1, tt2 = _helio_vectors(orbit, time, source, model)
     return frames.spherical(bodies.in_system(p, system, tt1, tt2))
 
 
-def helio_lon_cells(orbit, time, frame="J2000"):
-    return _helio(orbit, time, ECLIPTIC_OF_FRAME[frame])[0]
+def helio_lon_cells(orbit, time, frame="J2000", source=BUILTIN, model=TWO_BODY):
+    return _helio(orbit, time, ECLIPTIC_OF_FRAME[frame], source, model)[0]
 
 
-def helio_lat_cells(orbit, time, frame="J2000"):
-    return _helio(orbit, time, ECLIPTIC_OF_FRAME[frame])[1]
+def helio_lat_cells(orbit, time, frame="J2000", source=BUILTIN, model=TWO_BODY):
+    return _helio(orbit, time, ECLIPTIC_OF_FRAME[frame], source, model)[1]
 
 
-def helio_ra_cells(orbit, time, frame="J2000"):
-    return _helio(orbit, time, EQUATORIAL_OF_FRAME[frame])[0]
+def helio_ra_cells(orbit, time, frame="J2000", source=BUILTIN, model=TWO_BODY):
+    return _helio(orbit, time, EQUATORIAL_OF_FRAME[frame], source, model)[0]
 
 
-def helio_dec_cells(orbit, time, frame="J2000"):
-    return _helio(orbit, time, EQUATORIAL_OF_FRAME[frame])[1]
+def helio_dec_cells(orbit, time, frame="J2000", source=BUILTIN, model=TWO_BODY):
+    return _helio(orbit, time, EQUATORIAL_OF_FRAME[frame], source, model)[1]
 
 
-def sun_dist_cells(orbit, time):
+def sun_dist_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
     """Distance from the Sun's centre at the instant (geometric), au."""
-    o, tt1, tt2, _, _ = _orbit_and_times(orbit, time)
-    return vectors.norm(o.state(tt1, tt2)[0])
+    return vectors.norm(_helio_vectors(orbit, time, source, model)[0])
 
 
 # ---- geocentric --------------------------------------------------------------------------
@@ -159,43 +172,43 @@ def place(o, tt1, tt2, kind="APPARENT", source=BUILTIN):
     return bodies.place(o, tdb1, tdb2, kind, source)
 
 
-def _place(orbit, time, kind, source):
+def _place(orbit, time, kind, source, model=TWO_BODY):
     o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
-    return place(o, tt1, tt2, kind, source), tt1, tt2
+    return place(moved(o, model, source), tt1, tt2, kind, source), tt1, tt2
 
 
-def _spherical(orbit, time, system, kind, source):
-    p, tt1, tt2 = _place(orbit, time, kind, source)
+def _spherical(orbit, time, system, kind, source, model):
+    p, tt1, tt2 = _place(orbit, time, kind, source, model)
     return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
 
 
-def ra_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source)[0]
+def ra_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model)[0]
 
 
-def dec_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source)[1]
+def dec_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model)[1]
 
 
-def lon_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source)[0]
+def lon_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model)[0]
 
 
-def lat_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source)[1]
+def lat_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model)[1]
 
 
-def earth_dist_cells(orbit, time, source=BUILTIN):
+def earth_dist_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
     """True distance from the Earth's centre (to where the light left the body), au."""
-    return _place(orbit, time, "ASTROMETRIC", source)[0].distance
+    return _place(orbit, time, "ASTROMETRIC", source, model)[0].distance
 
 
-def elongation_cells(orbit, time, source=BUILTIN):
-    return np.degrees(bodies.elongation(_place(orbit, time, "APPARENT", source)[0]))
+def elongation_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
+    return np.degrees(bodies.elongation(_place(orbit, time, "APPARENT", source, model)[0]))
 
 
-def phase_angle_cells(orbit, time, source=BUILTIN):
-    return np.degrees(bodies.phase_angle(_place(orbit, time, "APPARENT", source)[0]))
+def phase_angle_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
+    return np.degrees(bodies.phase_angle(_place(orbit, time, "APPARENT", source, model)[0]))
 
 
 def motion(o, tt1, tt2, source=BUILTIN):
@@ -221,24 +234,24 @@ def motion(o, tt1, tt2, source=BUILTIN):
     return rate, pa
 
 
-def rate_cells(orbit, time, source=BUILTIN):
+def rate_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
     o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
-    return motion(o, tt1, tt2, source)[0]
+    return motion(moved(o, model, source), tt1, tt2, source)[0]
 
 
-def direction_cells(orbit, time, source=BUILTIN):
+def direction_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
     o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
-    return motion(o, tt1, tt2, source)[1]
+    return motion(moved(o, model, source), tt1, tt2, source)[1]
 
 
 # ---- magnitudes --------------------------------------------------------------------------
 
 
-def magnitude_cells(orbit, time, h=None, g=None, g2=None, source=BUILTIN, h_given=None,
-                    g_given=None, g2_given=None):
+def magnitude_cells(orbit, time, h=None, g=None, g2=None, source=BUILTIN, model=TWO_BODY,
+                    h_given=None, g_given=None, g2_given=None):
     """Visual magnitude from H, G or H, G1, G2 (minor planets) or M1, K1 (comets): the
     orbit's own values unless given here."""
-    p, tt1, tt2 = _place(orbit, time, "APPARENT", source)
+    p, tt1, tt2 = _place(orbit, time, "APPARENT", source, model)
     o = mpcformat.orbits_of(orbit)
     n = o.q.size
     hh = np.where(h_given, np.ravel(h), o.h) if h is not None else o.h

@@ -412,3 +412,72 @@ def test_rate_of_motion_against_skyfield():
     dra = (ra.radians[1] - ra.radians[0]) * math.cos(dec.radians.mean())
     ddec = dec.radians[1] - dec.radians[0]
     assert abs(((math.degrees(math.atan2(dra, ddec)) - pa) + 180) % 360 - 180) < 0.05
+
+
+# ---- the planets' pull (perturbations.py) ----------------------------------------------
+
+
+def test_integrator_conserves_two_body_invariants():
+    """A pure two-body run (no planets) of ellipses at e = 0.1, 0.5 and 0.9 and a
+    hyperbola, two years: energy and angular momentum kept within 1e-12 relative (the
+    integrals of the problem, common practice), and the place equal to the universal-
+    variable propagation (itself checked against SPICE above) within 1e-10 relative."""
+    from calcfuncs import perturbations
+
+    q = np.array([2.0, 0.75, 0.3, 1.1])
+    e = np.array([0.1, 0.5, 0.9, 1.3])
+    ph, qh = orbits._orientation(np.array([5.0, 10.0, 40.0, 120.0]),
+                                 np.array([60.0, 20.0, 50.0, 10.0]),
+                                 np.array([80.0, 30.0, 70.0, 200.0]))
+    since = np.array([100.0, 10.0, -30.0, -200.0])
+    p0, v0 = orbits.propagate_from_perihelion(q, e, ph, qh, since)
+    span = 730.0
+    p, v = perturbations.integrate(p0, v0, np.full(4, 2451545.0), np.zeros(4),
+                                   np.full(4, 2451545.0), np.full(4, span), planets=())
+
+    def energy(p, v):
+        return 0.5 * np.sum(v * v, axis=1) - orbits.GM_SUN / np.linalg.norm(p, axis=1)
+
+    h0, h1 = np.cross(p0, v0), np.cross(p, v)
+    assert np.all(np.abs(energy(p, v) / energy(p0, v0) - 1) < 1e-12)
+    assert np.all(np.linalg.norm(h1 - h0, axis=1) / np.linalg.norm(h0, axis=1) < 1e-12)
+    ref, _ = orbits.propagate_from_perihelion(q, e, ph, qh, since + span)
+    assert np.all(np.linalg.norm(p - ref, axis=1) / np.linalg.norm(ref, axis=1) < 1e-10)
+
+
+def test_mars_as_a_test_particle_against_de440():
+    """Mars started from its DE440 state (2023 Feb 25) and integrated a year under the Sun
+    and the other planets of DE440 comes back within 1" of DE440's Mars, heliocentric
+    and geocentric (the issue's aim; without the planets it is 54" off, so the planets'
+    pull is really applied)."""
+    from calcfuncs import ephemeris, perturbations
+
+    source = ephemeris.check_source(DE440)
+    kernel = ephemeris.get(source)
+    t1, t2 = np.array([2460000.5]), np.array([0.0])
+    pm, vm = kernel.heliocentric("MARS", t1, t2)
+    p, _ = perturbations.integrate(pm, vm, t1, t2, t1, t2 + 365.25, source,
+                                   exclude=("MARS",))
+    ref, _ = kernel.heliocentric("MARS", t1, t2 + 365.25)
+    (ep, _), (sp, _) = kernel.earth_and_sun(t1, t2 + 365.25)
+    earth = ep - sp
+    assert _sep_mas(p, ref)[0] < 1000.0
+    assert _sep_mas(p - earth, ref - earth)[0] < 1000.0
+    alone, _ = perturbations.integrate(pm, vm, t1, t2, t1, t2 + 365.25, source, planets=())
+    assert _sep_mas(alone, ref)[0] > 20000.0
+
+
+def test_planets_model_in_cells():
+    """At the epoch of the elements the PLANETS model gives the two-body place (nothing
+    has been integrated yet); a year on they differ by the planets' pull (arcseconds to
+    arcminutes for Ceres, within a degree)."""
+    el = mpcformat.read_line(CERES)
+    jd = el["epoch1"] + el["epoch2"]
+    at_epoch = [CERES, f"JD {jd}", "TT", "ICRS", "ASTROMETRIC", "BUILTIN"]
+    two = evaluate("SKY.ORBIT.RA", at_epoch)
+    planets = evaluate("SKY.ORBIT.RA", at_epoch + ["PLANETS"])
+    assert abs(two - planets) * 3600 < 1e-4
+    later = [CERES, f"JD {jd + 365}", "TT", "ICRS", "ASTROMETRIC", "BUILTIN"]
+    moved = abs(evaluate("SKY.ORBIT.RA", later) - evaluate("SKY.ORBIT.RA", later + ["PLANETS"]))
+    assert 1.0 / 3600 < moved < 1.0
+    assert evaluate("SKY.ORBIT.RA", later + ["NBODY"]).startswith("#SKY: ")

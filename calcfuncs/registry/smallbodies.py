@@ -2,7 +2,7 @@
 
 from .. import vocabulary as vocab
 from .common import (EVENT_RESULT_SCALE, INSTANT, PLACE_KIND, SCALE, SOURCE, SOURCE_NOTE, Arg,
-                     CellFunction, Family)
+                     CellFunction, Family, span_text)
 
 _ORBIT = Arg("orbit", "text",
              "The orbit, in one cell: a line of the Minor Planet Center's export format for "
@@ -27,10 +27,16 @@ _TWO_BODY = (
     "functions, one equation for every eccentricity (ellipse, parabola, hyperbola, e = 1 "
     "+- 1e-9): agrees with SPICE prop2b within 1e-12 relative and with skyfield's two-body "
     "propagation within 0.001\" in our tests. Elements on the ecliptic of J2000 (the "
-    "ICRS equator turned by 84381.448\", the MPC's and JPL's convention). The planets' "
-    "pull is not applied: the place drifts with the age of the elements (SKY.ORBIT.AGE), "
-    "for a main-belt asteroid of order arcseconds a month from the epoch, far more for a "
-    "near-Earth object after a close approach. "
+    "ICRS equator turned by 84381.448\", the MPC's and JPL's convention). Two-body, the "
+    "place drifts with the age of the elements (SKY.ORBIT.AGE), for a main-belt asteroid "
+    "of order arcseconds a month from the epoch, far more for a near-Earth object after "
+    "a close approach. Model PLANETS integrates the orbit (Cowell's method, 8th-order "
+    "Gauss-Legendre) under the Sun and Mercury to Neptune from the source (the Earth for "
+    "the Earth-Moon pair; no relativity, no asteroids, no comet outgassing): Mars run as a "
+    "test particle from its DE440 state came back within 0.5\" of DE440 a year later; "
+    "valid where the source is (the built-in theories "
+    f"{span_text(vocab.BUILTIN_YEARS)}, a kernel over its span), and a date outside it "
+    "gets a message. "
 )
 _GEOCENTRIC = (
     "Geocentric (the Earth's centre): light time by iteration, for APPARENT the Sun's "
@@ -55,8 +61,12 @@ _EVENT = Arg("event", "choice", "OPPOSITION (default: geocentric apparent eclipt
              "(closest approach to the Earth's centre).", default="OPPOSITION",
              choices=("OPPOSITION", "PERIHELION", "CLOSEST"))
 
-_HELIO_ARGS = (_ORBIT, INSTANT, SCALE, _HELIO_FRAME)
-_PLAIN_ARGS = (_ORBIT, INSTANT, SCALE, SOURCE)
+_MODEL = Arg("model", "choice", "TWO BODY (default: the Sun alone, the elements "
+              "propagated as they are) or PLANETS (the orbit integrated from the elements' "
+              "epoch under the Sun and the planets of the source: slower, seconds for a "
+              "column over months).", default="TWO BODY", choices=("TWO BODY", "PLANETS"))
+_HELIO_ARGS = (_ORBIT, INSTANT, SCALE, _HELIO_FRAME, SOURCE, _MODEL)
+_PLAIN_ARGS = (_ORBIT, INSTANT, SCALE, SOURCE, _MODEL)
 
 
 def _fn(name, method, summary, result, impl, args, note="", result_kind="number"):
@@ -114,25 +124,25 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
         "body of an orbit.", "degrees", "smallbodies:helio_lat_cells", _HELIO_ARGS),
     _fn("SKY.ORBIT.HELIO.RA", "skyOrbitHelioRa", "Heliocentric right ascension of the body "
         "of an orbit.", "degrees in [0, 360)", "smallbodies:helio_ra_cells",
-        (_ORBIT, INSTANT, SCALE, _HELIO_EQ_FRAME)),
+        (_ORBIT, INSTANT, SCALE, _HELIO_EQ_FRAME, SOURCE, _MODEL)),
     _fn("SKY.ORBIT.HELIO.DEC", "skyOrbitHelioDec", "Heliocentric declination of the body of "
         "an orbit.", "degrees", "smallbodies:helio_dec_cells",
-        (_ORBIT, INSTANT, SCALE, _HELIO_EQ_FRAME)),
+        (_ORBIT, INSTANT, SCALE, _HELIO_EQ_FRAME, SOURCE, _MODEL)),
     _fn("SKY.ORBIT.SUN.DIST", "skyOrbitSunDist", "Distance r of the body of an orbit from "
         "the Sun's centre (geometric, at the instant).", "astronomical units",
-        "smallbodies:sun_dist_cells", (_ORBIT, INSTANT, SCALE)),
+        "smallbodies:sun_dist_cells", (_ORBIT, INSTANT, SCALE, SOURCE, _MODEL)),
     _fn("SKY.ORBIT.RA", "skyOrbitRa", "Geocentric right ascension of the body of an orbit.",
         "degrees in [0, 360)", "smallbodies:ra_cells",
-        (_ORBIT, INSTANT, SCALE, _EQ_FRAME, PLACE_KIND, SOURCE), _GEOCENTRIC),
+        (_ORBIT, INSTANT, SCALE, _EQ_FRAME, PLACE_KIND, SOURCE, _MODEL), _GEOCENTRIC),
     _fn("SKY.ORBIT.DEC", "skyOrbitDec", "Geocentric declination of the body of an orbit.",
         "degrees", "smallbodies:dec_cells",
-        (_ORBIT, INSTANT, SCALE, _EQ_FRAME, PLACE_KIND, SOURCE), _GEOCENTRIC),
+        (_ORBIT, INSTANT, SCALE, _EQ_FRAME, PLACE_KIND, SOURCE, _MODEL), _GEOCENTRIC),
     _fn("SKY.ORBIT.LON", "skyOrbitLon", "Geocentric ecliptic longitude of the body of an "
         "orbit.", "degrees in [0, 360)", "smallbodies:lon_cells",
-        (_ORBIT, INSTANT, SCALE, _ECL_FRAME, PLACE_KIND, SOURCE), _GEOCENTRIC),
+        (_ORBIT, INSTANT, SCALE, _ECL_FRAME, PLACE_KIND, SOURCE, _MODEL), _GEOCENTRIC),
     _fn("SKY.ORBIT.LAT", "skyOrbitLat", "Geocentric ecliptic latitude of the body of an "
         "orbit.", "degrees", "smallbodies:lat_cells",
-        (_ORBIT, INSTANT, SCALE, _ECL_FRAME, PLACE_KIND, SOURCE), _GEOCENTRIC),
+        (_ORBIT, INSTANT, SCALE, _ECL_FRAME, PLACE_KIND, SOURCE, _MODEL), _GEOCENTRIC),
     _fn("SKY.ORBIT.EARTH.DIST", "skyOrbitEarthDist", "True distance (delta) of the body of "
         "an orbit from the Earth's centre: to where the light now arriving left it.",
         "astronomical units", "smallbodies:earth_dist_cells", _PLAIN_ARGS, _GEOCENTRIC),
@@ -160,7 +170,7 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
          Arg("g2", "number", "G2 of the H, G1, G2 system: given, g is read as G1 and the "
              "H, G1, G2 phase functions are used (minor planets). Default: the H, G system.",
              default=None),
-         SOURCE),
+         SOURCE, _MODEL),
         "Minor planets: V = H + 5 log(r delta) - 2.5 log((1 - G) phi1 + G phi2) (Bowell et "
         "al. 1989, the IAU H, G system; agrees with sbpy's within 1e-6 mag), or with g2 the "
         "H, G1, G2 system (Muinonen et al. 2010: its published spline basis functions, to a "
