@@ -3,7 +3,8 @@ motion on the sky and events, one orbit per row (the cell functions of SKY.ORBIT
 
 An orbit arrives as text (mpcformat: an MPC minor-planet or comet line, or ORBIT text
 made from elements in cells by SKY.ORBIT.FROM.Q and .FROM.A) and is propagated as a
-two-body orbit about the Sun (orbits.py).  Geocentric places go through the one
+two-body orbit about the Sun (orbits.py), or with model PLANETS integrated under the
+planets of the source (perturbations.py).  Geocentric places go through the one
 pipeline of bodies.place, with the Earth and the Sun from the chosen source: light time
 by iteration, then for APPARENT the Sun's deflection and annual aberration.  The
 parallax of a site is not applied (geocentric places; a near-Earth object can be
@@ -11,7 +12,7 @@ arcminutes away from where a site sees it).
 
 Two-body elements drift: the planets' pull moves a main-belt asteroid by arcseconds a
 month from its epoch, a near-Earth object after a close approach by far more.
-SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months.
+SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months, or integrate.
 """
 
 import numpy as np
