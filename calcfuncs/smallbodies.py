@@ -24,11 +24,10 @@ from .events import crossings, wrap180
 from .orbits import check_elements, from_mean_anomaly
 from .perturbations import PerturbedOrbit
 from .timescales import DateTimes
-from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME
+from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 TWO_BODY = "TWO BODY"
 YEAR_DAYS = 365.25636  # the sidereal year (common practice), for synodic periods
-_RATE_STEP_DAYS = 1.0 / 48.0  # half-width of the central difference for the motion
 ARCSEC_PER_RADIAN = 206264.80624709636
 
 
@@ -212,26 +211,31 @@ def phase_angle_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
     return np.degrees(bodies.phase_angle(_place(orbit, time, "APPARENT", source, model)[0]))
 
 
-def motion(o, tt1, tt2, source=BUILTIN):
+def motion(body, tt1, tt2, source=BUILTIN):
     """(rate in arcseconds per minute, position angle of the motion in degrees from
-    north through east) of the astrometric place on the ICRS axes: a central difference
-    over an hour, which for a body moving on a great circle is good to far below the
-    difference of its rate from one hour to the next."""
-    h = _RATE_STEP_DAYS
-    before = place(o, tt1, tt2 - h, "ASTROMETRIC", source).direction
-    after = place(o, tt1, tt2 + h, "ASTROMETRIC", source).direction
-    mid = vectors.unit(before + after)
-    d = after - before
-    ra = np.arctan2(mid[..., 1], mid[..., 0])
-    dec = np.arcsin(np.clip(mid[..., 2], -1.0, 1.0))
+    north through east) of the astrometric place on the ICRS axes, from the velocities
+    themselves: the geocentric vector rho = body(t - tau) - Earth(t) changes at
+    (v_body + v_sun)(1 - dtau/dt) - v_earth, and its direction at that change's part
+    across the line of sight over |rho|.  (A difference of two places would lose five
+    digits to cancellation.)"""
+    tdb1, tdb2 = ephemeris.times_for(source, tt1, tt2)
+    p = bodies.place(body, tdb1, tdb2, "ASTROMETRIC", source)
+    (_, earth_v), (_, sun_v) = ephemeris.get(source).earth_and_sun(tdb1, tdb2)
+    tau = p.distance * LIGHT_DAYS_PER_AU
+    body_v = body.heliocentric(tdb1, tdb2 - tau)[1]
+    u = p.direction
+    w = body_v + sun_v
+    light = 1.0 / LIGHT_DAYS_PER_AU  # au a day
+    tau_rate = vectors.dot(u, w - earth_v) / (light + vectors.dot(u, w))
+    d_rho = w * (1.0 - tau_rate)[..., None] - earth_v
+    across = (d_rho - u * vectors.dot(u, d_rho)[..., None]) / p.distance[..., None]
+    ra = np.arctan2(u[..., 1], u[..., 0])
+    dec = np.arcsin(np.clip(u[..., 2], -1.0, 1.0))
     east = np.stack([-np.sin(ra), np.cos(ra), np.zeros_like(ra)], axis=-1)
     north = np.stack([-np.sin(dec) * np.cos(ra), -np.sin(dec) * np.sin(ra), np.cos(dec)],
                      axis=-1)
-    # The chord over the arc: 2 sin(theta/2) against theta, exact for any step.
-    chord = vectors.norm(d)
-    angle = 2.0 * np.arcsin(np.clip(chord / 2.0, 0.0, 1.0))
-    rate = angle * ARCSEC_PER_RADIAN / (2.0 * h * 1440.0)
-    pa = np.degrees(np.arctan2(vectors.dot(d, east), vectors.dot(d, north))) % 360.0
+    rate = vectors.norm(across) * ARCSEC_PER_RADIAN / 1440.0
+    pa = np.degrees(np.arctan2(vectors.dot(across, east), vectors.dot(across, north))) % 360.0
     return rate, pa
 
 

@@ -155,7 +155,7 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
     _fn("SKY.ORBIT.RATE", "skyOrbitRate", "Rate of motion on the sky of the body of an orbit "
         "(geocentric astrometric), for trailing and exposure limits.",
         "arcseconds per minute", "smallbodies:rate_cells", _PLAIN_ARGS,
-        "A central difference over an hour. " + _GEOCENTRIC),
+        "From the velocities (light time's rate included), instantaneous. " + _GEOCENTRIC),
     _fn("SKY.ORBIT.RATE.PA", "skyOrbitRatePa", "Direction of motion on the sky: the "
         "position angle of the motion, from north through east.", "degrees in [0, 360)",
         "smallbodies:direction_cells", _PLAIN_ARGS, _GEOCENTRIC),

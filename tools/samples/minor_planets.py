@@ -188,6 +188,14 @@ EPHEMERIS_COLUMNS = [
     ("Motion (\"/min)", f"=SKY.ORBIT.RATE($B$5;A{{r}};;{SOURCE_CELL})", "0.000", 2.0),
     ("PA (deg)", f"=SKY.ORBIT.RATE.PA($B$5;A{{r}};;{SOURCE_CELL})", "0.0", 1.6),
     ("Age (d)", "=SKY.ORBIT.AGE($B$5;A{r})", "0.0", 1.6),
+    ("RA ICRS, planets' pull (deg)",
+     f"=SKY.ORBIT.RA($B$5;A{{r}};;\"ICRS\";\"ASTROMETRIC\";{SOURCE_CELL};\"PLANETS\")",
+     "0.00000", 3.0),
+    ("Dec ICRS, planets' pull (deg)",
+     f"=SKY.ORBIT.DEC($B$5;A{{r}};;\"ICRS\";\"ASTROMETRIC\";{SOURCE_CELL};\"PLANETS\")",
+     "+0.00000;-0.00000", 3.0),
+    ("Pull in RA (\")", "=(T{r}-D{r})*3600*COS(RADIANS(E{r}))", "+0.00;-0.00", 2.0),
+    ("Pull in Dec (\")", "=(U{r}-E{r})*3600", "+0.00;-0.00", 2.0),
 ]
 
 
@@ -196,7 +204,9 @@ def ephemeris_sheet(doc, sheet):
          "Invented: a month's ephemeris of the section's near-Earth target (Staithe D, made "
          "up) at 0h UTC each night of March 2027: geocentric apparent and astrometric "
          "places, heliocentric places, distances, elongation, phase, magnitude and the rate "
-         "and direction of motion (for trailing and exposure limits). Change B5 to another "
+         "and direction of motion (for trailing and exposure limits); at the right, the "
+         "astrometric place with the planets' pull integrated from the elements' epoch "
+         "(model PLANETS) and how far it moves the two-body place. Change B5 to another "
          "orbit line and the whole month follows.", 12)
     _source_rows(sheet)
     sheet.getCellByPosition(0, 4).setString("Orbit")
