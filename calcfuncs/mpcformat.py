@@ -307,7 +307,6 @@ def orbits_of(texts):
     rows = []
     names = []
     messages = np.full(texts.size, None, dtype=object)
-    filler = None
     for k, text in enumerate(texts):
         hit = _row_of(text) if isinstance(text, str) else _message_for(text)
         if isinstance(hit, str):
@@ -317,7 +316,6 @@ def orbits_of(texts):
         else:
             rows.append(hit[0])
             names.append(hit[1])
-            filler = filler or hit[0]
     if any(m is not None for m in messages):
         raise RowErrors(messages)
     columns = list(zip(*rows))

@@ -17,6 +17,8 @@ JPL's elements (and of SPICE's ECLIPJ2000 and skyfield), so the vectors come out
 ICRS axes.  The Sun's GM is the Gaussian constant squared (k = 0.01720209895, the MPC's).
 """
 
+import math
+
 import numpy as np
 
 from .errors import rows_failing
@@ -34,6 +36,8 @@ ECLIPTIC_TO_ICRS = np.array([[1.0, 0.0, 0.0],
 
 _SERIES_LIMIT = 1.0       # |z| below this: the Stumpff series (no 1 - cos cancellation)
 _SERIES_TERMS = 16        # |z|^16 / 34! < 1e-38: exact in doubles
+_C_SERIES = [1.0 / math.factorial(2 * k + 2) for k in range(_SERIES_TERMS)]
+_S_SERIES = [1.0 / math.factorial(2 * k + 3) for k in range(_SERIES_TERMS)]
 _LAGUERRE_STEPS = 60
 _NEWTON_STEPS = 3
 
@@ -50,9 +54,9 @@ def stumpff(z):
         # Horner over the series C = sum (-z)^k / (2k+2)!, S = sum (-z)^k / (2k+3)!.
         cs = np.zeros_like(zs)
         ss = np.zeros_like(zs)
-        for k in range(_SERIES_TERMS - 1, -1, -1):
-            cs = _term(cs, zs, k, 2)
-            ss = _term(ss, zs, k, 3)
+        for c_k, s_k in zip(_C_SERIES[::-1], _S_SERIES[::-1]):
+            cs = c_k - zs * cs
+            ss = s_k - zs * ss
         c[small], s[small] = cs, ss
     pos = (~small) & (z > 0)
     if np.any(pos):
@@ -65,18 +69,6 @@ def stumpff(z):
         c[neg] = (np.cosh(w) - 1.0) / -z[neg]
         s[neg] = (np.sinh(w) - w) / (w * -z[neg])
     return c, s
-
-
-def _factorial(n):
-    out = 1.0
-    for k in range(2, n + 1):
-        out *= k
-    return out
-
-
-def _term(acc, z, k, offset):
-    """One Horner step of sum_k (-z)^k / (2k + offset)!: acc -> 1/(2k+offset)! - z acc."""
-    return 1.0 / _factorial(2 * k + offset) - z * acc
 
 
 class Orbit:

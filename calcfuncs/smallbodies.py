@@ -18,11 +18,11 @@ SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months, or int
 import numpy as np
 
 from . import bodies, ephemeris, frames, mpcformat, vectors
-from .phasecurves import comet_magnitude, hg1g2_magnitude, hg_magnitude
-from .errors import RowErrors, SkyError, rows_failing
+from .errors import rows_failing
 from .events import crossings, wrap180
 from .orbits import check_elements, from_mean_anomaly
 from .perturbations import PerturbedOrbit
+from .phasecurves import comet_magnitude, hg1g2_magnitude, hg_magnitude
 from .timescales import DateTimes
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
@@ -98,10 +98,6 @@ def age_cells(orbit, time):
     o = mpcformat.orbits_of(orbit)
     tt1, tt2 = time.tt()
     return o.age_days(np.ravel(tt1), np.ravel(tt2))
-
-
-def perihelion_distance_cells(orbit):
-    return mpcformat.orbits_of(orbit).q
 
 
 def period_cells(orbit):

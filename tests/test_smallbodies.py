@@ -18,7 +18,6 @@ import pytest
 
 from calcfuncs import mpcformat, orbits, phasecurves, smallbodies
 from calcfuncs.cells import evaluate
-from calcfuncs.timescales import Instants
 
 CERES = ("00001    3.34  0.15 K205V 188.70269   73.27343   80.25221   10.58780  0.0791840  "
          "0.21424651   2.7660512  0 MPO752723  7330 125 1801-2024 0.80 M-v 30k MPCLINUX   "
