@@ -71,7 +71,9 @@ TARGETS = [
 TARGET_COLUMNS = [
     ("Designation", "=SKY.ORBIT.NAME(B{r})", "@", 5.6),
     ("Age of elements (d)", f"=SKY.ORBIT.AGE(B{{r}};{NIGHT})", "0.0", 2.2),
-    ("Period (yr)", "=SKY.ORBIT.PERIOD(B{r})", "0.00", 2.0),
+    # An open orbit has no period and may have no opposition: words instead of a message.
+    ("Period (yr)", "=IF(ISNUMBER(SKY.ORBIT.PERIOD(B{r}));SKY.ORBIT.PERIOD(B{r});\"open "
+     "orbit\")", "0.00", 2.0),
     ("RA (HMS)", f"=SKY.TEXT.HMS(SKY.ORBIT.RA(B{{r}};{NIGHT};;;;{SOURCE_CELL});1)", "@", 2.8),
     ("Dec (DMS)", f"=SKY.TEXT.DMS(SKY.ORBIT.DEC(B{{r}};{NIGHT};;;;{SOURCE_CELL});0)", "@", 2.8),
     ("Delta (au)", f"=SKY.ORBIT.EARTH.DIST(B{{r}};{NIGHT};;{SOURCE_CELL})", "0.0000", 2.0),
@@ -82,8 +84,9 @@ TARGET_COLUMNS = [
     ("Motion (\"/min)", f"=SKY.ORBIT.RATE(B{{r}};{NIGHT};;{SOURCE_CELL})", "0.00", 2.0),
     ("Motion PA (deg)", f"=SKY.ORBIT.RATE.PA(B{{r}};{NIGHT};;{SOURCE_CELL})", "0.0", 2.0),
     ("Next opposition (UTC)",
-     f"=SKY.ORBIT.EVENT.NEXT(B{{r}};{NIGHT};;\"OPPOSITION\";;{SOURCE_CELL})",
-     "YYYY-MM-DD HH:MM", 3.4),
+     f"=IF(ISNUMBER(SKY.ORBIT.EVENT.NEXT(B{{r}};{NIGHT};;\"OPPOSITION\";;{SOURCE_CELL}));"
+     f"SKY.ORBIT.EVENT.NEXT(B{{r}};{NIGHT};;\"OPPOSITION\";;{SOURCE_CELL});"
+     "\"none within ten years\")", "YYYY-MM-DD HH:MM", 3.4),
     ("Next perihelion (UTC)", f"=SKY.ORBIT.EVENT.NEXT(B{{r}};{NIGHT};;\"PERIHELION\")",
      "YYYY-MM-DD HH:MM", 3.4),
     ("Closest to the Earth (UTC)",
