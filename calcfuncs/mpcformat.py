@@ -219,7 +219,9 @@ def read_own(text):
         try:
             found[key] = float(value)
         except ValueError:
-            raise SkyError(f'orbit text: the {key} "{value}" is not a number') from None
+            found[key] = np.nan
+        if not np.isfinite(found[key]):
+            raise SkyError(f'orbit text: the {key} "{value}" is not a number')
     for key in ("E", "I", "NODE", "PERI"):
         if key not in found:
             raise SkyError(f"orbit text: the element {key} is missing")

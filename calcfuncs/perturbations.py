@@ -17,6 +17,7 @@ import numpy as np
 from numpy.polynomial import legendre, polynomial
 
 from . import ephemeris, orbits
+from .errors import rows_failing
 from .vocabulary import BUILTIN
 
 # Sun / planet mass ratios (the IAU 2009 system of astronomical constants; the Earth
@@ -26,6 +27,7 @@ MASS_RATIOS = {"MERCURY": 6023597.400017, "VENUS": 408523.719, "EARTH": 328900.5
                "URANUS": 22902.98, "NEPTUNE": 19412.26}
 PLANETS = tuple(MASS_RATIOS)
 MAX_STEP_DAYS = 2.0
+MAX_STEPS = 10000  # about 55 years of 2-day steps; seconds of work at most
 _STAGES = 4
 _ITERATIONS = 30
 
@@ -135,7 +137,17 @@ def integrate(p0, v0, start1, start2, end1, end2, source=BUILTIN, exclude=(),
     p, v = np.array(p0, float), np.array(v0, float)
     span = (np.asarray(end1, float) - start1) + (np.asarray(end2, float) - start2)
     limit = step_limit(p, v) if max_step is None else max_step
-    steps = max(1, int(np.ceil(np.max(np.abs(span) / limit)))) if span.size else 1
+    with np.errstate(invalid="ignore", divide="ignore", over="ignore"):
+        need = np.abs(span) / limit
+    too_long = ~np.isfinite(need) | (need > MAX_STEPS)
+    if np.any(too_long):
+        # A perihelion very near the Sun or a span of decades would take millions of
+        # steps: refused, so that no cell can keep the office busy for minutes.
+        raise rows_failing(too_long, f"integrating this orbit over this span would take "
+                           f"over {MAX_STEPS} steps (a perihelion very near the Sun, or "
+                           "years from the epoch): use model TWO BODY, or elements with an "
+                           "epoch nearer the date")
+    steps = max(1, int(np.ceil(np.max(need)))) if span.size else 1
     h = span / steps
     t1 = np.broadcast_to(np.asarray(start1, float), h.shape)
     t2 = np.asarray(start2, float) + np.zeros(h.shape)

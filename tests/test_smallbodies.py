@@ -483,3 +483,15 @@ def test_planets_model_in_cells():
     moved = abs(evaluate("SKY.ORBIT.RA", later) - evaluate("SKY.ORBIT.RA", later + ["PLANETS"]))
     assert 1.0 / 3600 < moved < 1.0
     assert evaluate("SKY.ORBIT.RA", later + ["NBODY"]).startswith("#SKY: ")
+
+
+@pytest.mark.parametrize("orbit, words", [
+    # Orbits that would take millions of integration steps are refused at once.
+    ("ORBIT Q 0.001 E 50 I 1 NODE 2 PERI 3 TP 2451545", "steps"),
+    ("ORBIT Q 1 E 0 I 1 NODE 2 PERI 3 TP 1e300", "steps"),
+    ("ORBIT Q 1 E 0.5 I nan NODE 2 PERI 3 TP 2451545", 'the I "nan" is not a number'),
+])
+def test_hostile_orbits_with_the_planets_answer_quickly(orbit, words):
+    out = evaluate("SKY.ORBIT.RA", [orbit, "2025-01-01", "UTC", "TRUE", "APPARENT", "BUILTIN",
+                                    "PLANETS"])
+    assert isinstance(out, str) and out.startswith("#SKY: ") and words in out, out
