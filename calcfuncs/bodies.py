@@ -61,8 +61,9 @@ def _aberrate(u, earth_v, sun_distance):
 
 
 def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN):
-    """The ``Place`` of ``body`` (SUN, MOON or a planet) at the source's argument times
-    (ephemeris.times_for)."""
+    """The ``Place`` of ``body`` (SUN, MOON or a planet, or an object whose
+    ``heliocentric(t1, t2)`` gives (p, v): a two-body orbit) at the source's argument
+    times (ephemeris.times_for)."""
     src = ephemeris.get(source)
     tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
     earth_b, sun_b = src.earth_and_sun(tdb1, tdb2)
@@ -75,6 +76,8 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN):
     near = (earth_helio, ev - sv, (tdb1, tdb2))
 
     def helio_at(tau):
+        if not isinstance(body, str):  # an orbit of its own (orbits.Orbit), row by row
+            return body.heliocentric(tdb1, tdb2 - tau)[0]
         return src.heliocentric(body, tdb1, tdb2 - tau, near, velocity=False)[0]
 
     def geocentric(helio, tau):

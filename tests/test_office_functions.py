@@ -286,6 +286,65 @@ EXAMPLES["SKY.DARK.START"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 EXAMPLES["SKY.DARK.END"] = [('A{r};D{r};E{r};;;"NAUTICAL"',
                             lambda v: [v[0], v[3], v[4], None, None, "NAUTICAL"])]
 EXAMPLES["SKY.DARK.HOURS"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+# Minor planets and comets: an MPC minor-planet line and a comet line typed into the
+# formula (written for the tests in the MPC's layouts), and orbits made row by row from
+# the input columns by SKY.ORBIT.FROM.Q and .FROM.A.
+_MP_LINE = ("00001    3.34  0.15 K205V 188.70269   73.27343   80.25221   10.58780  0.0791840  "
+            "0.21424651   2.7660512  0 MPO752723  7330 125 1801-2024 0.80 M-v 30k MPCLINUX   "
+            "4000      (1) Ceres              20241101")
+_COMET_LINE = ("0002P         2023 10 22.4820  0.339279  0.847631  187.0000  334.1200   11.3500"
+               "  20231015  11.5  6.0  2P/Encke")
+EXAMPLES["SKY.ORBIT.FROM.Q"] = [
+    ("A{r};H{r};0.98;B{r};F{r};I{r}", lambda v: [v[0], v[7], 0.98, v[1], v[5], v[8]]),
+]
+EXAMPLES["SKY.ORBIT.FROM.A"] = [
+    ("A{r};H{r};0.3;B{r};F{r};I{r};G{r};;12.5", lambda v: [v[0], v[7], 0.3, v[1], v[5], v[8],
+                                                          v[6], None, 12.5]),
+]
+_ORBIT_CASES = {
+    "SKY.ORBIT.NAME": ("", ""), "SKY.ORBIT.AGE": (";A{r}", ""), "SKY.ORBIT.PERIOD": ("", ""),
+    "SKY.ORBIT.HELIO.LON": (";A{r}", ';;"DATE"'), "SKY.ORBIT.HELIO.LAT": (";A{r}", ""),
+    "SKY.ORBIT.HELIO.RA": (";A{r}", ';;"ICRS"'), "SKY.ORBIT.HELIO.DEC": (";A{r}", ""),
+    "SKY.ORBIT.SUN.DIST": (";A{r}", ""),
+    "SKY.ORBIT.RA": (";A{r}", ';;"ICRS";"ASTROMETRIC";"' + DE440 + '"'),
+    "SKY.ORBIT.DEC": (";A{r}", ';;"DATE"'), "SKY.ORBIT.LON": (";A{r}", ""),
+    "SKY.ORBIT.LAT": (";A{r}", ';;"J2000";"GEOMETRIC"'),
+    "SKY.ORBIT.EARTH.DIST": (";A{r}", ';;"' + DE440 + '"'),
+    "SKY.ORBIT.ELONGATION": (";A{r}", ""), "SKY.ORBIT.PHASE.ANGLE": (";A{r}", ""),
+    "SKY.ORBIT.RATE": (";A{r}", ""), "SKY.ORBIT.RATE.PA": (";A{r}", ';;"' + DE440 + '"'),
+    "SKY.ORBIT.MAG": (";A{r}", ';;;;;"' + DE440 + '"'),
+    "SKY.ORBIT.EVENT.NEXT": (";A{r}", ';;"PERIHELION"'),
+}
+
+
+def _orbit_args(v, line, time, extra):
+    """The core's arguments of an orbit example: the line, the time, then the options."""
+    out = [line] + ([v[0]] if time else [])
+    for word in extra.split(";")[1:]:
+        out.append(word.strip('"') if word else None)
+    return out
+
+
+def _orbit_examples(time, extra):
+    return [
+        ('"' + _MP_LINE + '"' + time + extra,
+         lambda v: _orbit_args(v, _MP_LINE, time, extra)),
+        ('"' + _COMET_LINE + '"' + time + extra,
+         lambda v: _orbit_args(v, _COMET_LINE, time, extra)),
+    ]
+
+
+for _name, (_time, _extra) in _ORBIT_CASES.items():
+    EXAMPLES[_name] = _orbit_examples(_time, _extra)
+EXAMPLES["SKY.ORBIT.EVENT.NEXT"].append(
+    ('"' + _MP_LINE + '";A{r};;"OPPOSITION"', lambda v: [_MP_LINE, v[0], None, "OPPOSITION"]))
+EXAMPLES["SKY.ORBIT.MAG"].append(
+    ('"' + _MP_LINE + '";A{r};;3.34;0.62;0.14', lambda v: [_MP_LINE, v[0], None, 3.34, 0.62,
+                                                          0.14]))
+EXAMPLES["SKY.ORBIT.RA"].append(
+    ("SKY.ORBIT.FROM.Q(A{r};H{r};0.98;B{r};F{r};I{r});A{r}+30",
+     lambda v: [evaluate("SKY.ORBIT.FROM.Q", [v[0], v[7], 0.98, v[1], v[5], v[8]]),
+                v[0] + 30]))
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
@@ -397,6 +456,11 @@ HOSTILE = [
     ('=SKY.BODY.SET("MARS";45500;50;400)', "longitude must be within"),
     ('=SKY.TOPO.ALT("MOON";45500;50;0;;-5000)', "height must be within"),
     ('=SKY.WINDOW.HOURS(10;20;45500;50;0;;;0.5;"AIRMASS")', "air mass limit"),
+    ('=SKY.ORBIT.RA("00001    3.34  0.15 K205V 188.70269";45500)', "too short"),
+    ('=SKY.ORBIT.FROM.Q(45500;0.5;-0.2;10;20;30)', "eccentricity must be"),
+    ('=SKY.ORBIT.FROM.Q(45500;-0.5;0.2;10;20;30)', "perihelion distance q"),
+    ('=SKY.ORBIT.RA("' + _MP_LINE.replace("K205V", "K2Z5V") + '";45500)', "epoch (columns 21-25)"),
+    ('=SKY.ORBIT.FROM.A("2025-02-30";2.5;0.1;10;20;30;40)', "has day 30"),
 ]
 
 

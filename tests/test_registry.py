@@ -154,6 +154,27 @@ FROZEN_METHODS = {
     "skyDarkStart": "SKY.DARK.START",
     "skyDarkEnd": "SKY.DARK.END",
     "skyDarkHours": "SKY.DARK.HOURS",
+    "skyOrbitFromQ": "SKY.ORBIT.FROM.Q",
+    "skyOrbitFromA": "SKY.ORBIT.FROM.A",
+    "skyOrbitName": "SKY.ORBIT.NAME",
+    "skyOrbitAge": "SKY.ORBIT.AGE",
+    "skyOrbitPeriod": "SKY.ORBIT.PERIOD",
+    "skyOrbitHelioLon": "SKY.ORBIT.HELIO.LON",
+    "skyOrbitHelioLat": "SKY.ORBIT.HELIO.LAT",
+    "skyOrbitHelioRa": "SKY.ORBIT.HELIO.RA",
+    "skyOrbitHelioDec": "SKY.ORBIT.HELIO.DEC",
+    "skyOrbitSunDist": "SKY.ORBIT.SUN.DIST",
+    "skyOrbitRa": "SKY.ORBIT.RA",
+    "skyOrbitDec": "SKY.ORBIT.DEC",
+    "skyOrbitLon": "SKY.ORBIT.LON",
+    "skyOrbitLat": "SKY.ORBIT.LAT",
+    "skyOrbitEarthDist": "SKY.ORBIT.EARTH.DIST",
+    "skyOrbitElongation": "SKY.ORBIT.ELONGATION",
+    "skyOrbitPhaseAngle": "SKY.ORBIT.PHASE.ANGLE",
+    "skyOrbitRate": "SKY.ORBIT.RATE",
+    "skyOrbitRatePa": "SKY.ORBIT.RATE.PA",
+    "skyOrbitMag": "SKY.ORBIT.MAG",
+    "skyOrbitEventNext": "SKY.ORBIT.EVENT.NEXT",
 }
 
 
@@ -357,7 +378,11 @@ DECLARED_ORDER = (
     "skyMeteorRadiantRa skyMeteorRadiantDec skyVarstarPhase skyVarstarCycle skyVarstarOc "
     "skyVarstarMinimum skyVarstarMinimumError skyPlanetMagnitude "
     "skyTopoRa skyTopoDec skyTopoDist skyTopoAlt skyTopoAz skyMoonSemidiameter skyMoonParallax skyBodyRise skyBodySet skyBodyTransit skyStarRise "
-    "skyStarSet skyStarTransit skyWindowStart skyWindowEnd skyWindowHours skyWindowBest skyWindowMoon skyMoonSeparation skyDarkStart skyDarkEnd skyDarkHours"
+    "skyStarSet skyStarTransit skyWindowStart skyWindowEnd skyWindowHours skyWindowBest skyWindowMoon skyMoonSeparation skyDarkStart skyDarkEnd skyDarkHours "
+    "skyOrbitFromQ skyOrbitFromA skyOrbitName skyOrbitAge skyOrbitPeriod skyOrbitHelioLon "
+    "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
+    "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
+    "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext"
 ).split()
 
 
@@ -401,8 +426,8 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
         "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
-        "SKY.EPHEMERIS", "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO",
-        "SKY.VERSION"]
+        "SKY.EPHEMERIS", "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
+        "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
 
 
 def test_every_argument_has_a_noun_for_its_messages():

@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Nine workbooks, one office session, one module each in tools/samples/:
+Ten workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -30,6 +30,9 @@ Nine workbooks, one office session, one module each in tools/samples/:
   sky_charts.ods         native Calc charts over computed columns: the obliquity by five
                          models over 20,000 years, the equation of time, the Sun's
                          declination and the analemma, the Moon's illuminated fraction
+  minor_planets.ods      the minor-planet section's target list of orbits (MPC lines and
+                         elements in cells) and a month's ephemeris of one target (the
+                         orbits family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -53,6 +56,7 @@ from samples import (  # noqa: E402
     common,
     historical_record,
     meteor_watch,
+    minor_planets,
     night_plan,
     observing_log,
     planet_watch,
@@ -64,7 +68,8 @@ from samples import (  # noqa: E402
 
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
-         planet_watch, reductions, night_plan, sky_charts)
+         planet_watch, reductions, night_plan, sky_charts,
+         minor_planets)
 
 
 def build(oxt, out_dir, only=()):

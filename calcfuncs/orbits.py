@@ -1,0 +1,266 @@
+"""Two-body (Keplerian) orbits about the Sun, over arrays of rows: each row its own orbit.
+
+Elements are perihelion distance q (au), eccentricity e, inclination i, longitude of the
+ascending node and argument of perihelion (degrees, on the ecliptic and equinox of
+J2000.0) and the instant of perihelion passage (TT, two-part JD).  A row given a
+semi-major axis and a mean anomaly at an epoch is brought to that form first.
+
+Propagation is by the universal variable (Battin's formulation with the Stumpff
+functions C(z) and S(z)): one Kepler equation for every conic, so an ellipse, a parabola,
+a hyperbola and an orbit with e = 1 +- 1e-9 take the same path, with no division by
+1 - e anywhere.  The equation is solved by Laguerre's method (Conway 1986, which
+converges from any start for Kepler's equation), polished by Newton steps.
+
+The ecliptic of J2000 is the ICRS equator turned by the IAU 1976/2006 obliquity at J2000,
+84381.448 arcsec, with no frame bias: the convention of the Minor Planet Center's and
+JPL's elements (and of SPICE's ECLIPJ2000 and skyfield), so the vectors come out on the
+ICRS axes.  The Sun's GM is the Gaussian constant squared (k = 0.01720209895, the MPC's).
+"""
+
+import math
+
+import numpy as np
+
+from .errors import rows_failing
+
+GAUSS_K = 0.01720209895             # au^(3/2) / day, the Gaussian gravitational constant
+GM_SUN = GAUSS_K * GAUSS_K          # au^3 / day^2
+SQRT_GM = GAUSS_K
+OBLIQUITY_J2000_ARCSEC = 84381.448  # IAU 1976 (and 2006) obliquity at J2000.0
+
+_E = np.radians(OBLIQUITY_J2000_ARCSEC / 3600.0)
+# Ecliptic J2000 -> ICRS axes (a rotation about x by minus the obliquity).
+ECLIPTIC_TO_ICRS = np.array([[1.0, 0.0, 0.0],
+                             [0.0, np.cos(_E), -np.sin(_E)],
+                             [0.0, np.sin(_E), np.cos(_E)]])
+
+_SERIES_LIMIT = 1.0       # |z| below this: the Stumpff series (no 1 - cos cancellation)
+_SERIES_TERMS = 16        # |z|^16 / 34! < 1e-38: exact in doubles
+_C_SERIES = [1.0 / math.factorial(2 * k + 2) for k in range(_SERIES_TERMS)]
+_S_SERIES = [1.0 / math.factorial(2 * k + 3) for k in range(_SERIES_TERMS)]
+_LAGUERRE_STEPS = 60
+_NEWTON_STEPS = 3
+
+
+def stumpff(z):
+    """C(z) = (1 - cos sqrt z) / z and S(z) = (sqrt z - sin sqrt z) / z^(3/2), any sign of z
+    (cosh and sinh for z < 0), by their series near zero."""
+    z = np.asarray(z, float)
+    c = np.empty_like(z)
+    s = np.empty_like(z)
+    small = np.abs(z) < _SERIES_LIMIT
+    if np.any(small):
+        zs = z[small]
+        # Horner over the series C = sum (-z)^k / (2k+2)!, S = sum (-z)^k / (2k+3)!.
+        cs = np.zeros_like(zs)
+        ss = np.zeros_like(zs)
+        for c_k, s_k in zip(_C_SERIES[::-1], _S_SERIES[::-1]):
+            cs = c_k - zs * cs
+            ss = s_k - zs * ss
+        c[small], s[small] = cs, ss
+    pos = (~small) & (z > 0)
+    if np.any(pos):
+        w = np.sqrt(z[pos])
+        c[pos] = (1.0 - np.cos(w)) / z[pos]
+        s[pos] = (w - np.sin(w)) / (w * z[pos])
+    neg = (~small) & (z < 0)
+    if np.any(neg):
+        w = np.sqrt(-z[neg])
+        c[neg] = (np.cosh(w) - 1.0) / -z[neg]
+        s[neg] = (np.sinh(w) - w) / (w * -z[neg])
+    return c, s
+
+
+class Orbit:
+    """Rows of heliocentric two-body orbits (arrays of equal shape, one row each).
+
+    ``tp1 + tp2`` is the instant of perihelion passage (TT JD).  ``epoch1 + epoch2`` is
+    the epoch of osculation the elements were given for (for the age of the elements).
+    ``h`` and ``g`` are the magnitude parameters (NaN where not given) and ``comet``
+    says how to read them (M1, K1 for a comet, H, G otherwise)."""
+
+    def __init__(self, q, e, i, node, peri, tp1, tp2, epoch1=None, epoch2=None,
+                 h=None, g=None, comet=None, name=None):
+        q, e, i, node, peri, tp1, tp2 = np.broadcast_arrays(
+            *(np.asarray(x, float) for x in (q, e, i, node, peri, tp1, tp2)))
+        self.q, self.e, self.tp1, self.tp2 = q, e, tp1, tp2
+        self.i, self.node, self.peri = i, node, peri
+        self.epoch1 = tp1 if epoch1 is None else np.broadcast_to(np.asarray(epoch1, float), q.shape)
+        self.epoch2 = tp2 if epoch2 is None else np.broadcast_to(np.asarray(epoch2, float), q.shape)
+        nan = np.full(q.shape, np.nan)
+        self.h = nan if h is None else np.broadcast_to(np.asarray(h, float), q.shape)
+        self.g = nan if g is None else np.broadcast_to(np.asarray(g, float), q.shape)
+        self.comet = (np.zeros(q.shape, bool) if comet is None
+                      else np.broadcast_to(np.asarray(comet, bool), q.shape))
+        self.name = name
+        check_elements(q, e)
+        self.p_hat, self.q_hat = _orientation(i, node, peri)
+
+    @property
+    def shape(self):
+        return self.q.shape
+
+    def take(self, index):
+        """The orbits of some rows (an index array or a mask)."""
+        out = Orbit.__new__(Orbit)
+        for key in ("q", "e", "i", "node", "peri", "tp1", "tp2", "epoch1", "epoch2", "h",
+                    "g", "comet", "p_hat", "q_hat"):
+            setattr(out, key, getattr(self, key)[index])
+        out.name = None if self.name is None else np.asarray(self.name, dtype=object)[index]
+        return out
+
+    @property
+    def alpha(self):
+        """1 / a (au^-1): positive for an ellipse, 0 for a parabola, negative beyond."""
+        return (1.0 - self.e) / self.q
+
+    def period_days(self):
+        """The orbital period in days (inf where the orbit is not closed)."""
+        alpha = self.alpha
+        with np.errstate(divide="ignore", invalid="ignore"):
+            return np.where(alpha > 0, 2.0 * np.pi / (SQRT_GM * np.sqrt(np.abs(alpha)) ** 3),
+                            np.inf)
+
+    def state(self, t1, t2):
+        """Heliocentric position (au) and velocity (au/day) on the ICRS axes at TT (or
+        TDB: 2 ms apart, metres of motion) instants ``t1 + t2``."""
+        dt = (np.asarray(t1, float) - self.tp1) + (np.asarray(t2, float) - self.tp2)
+        return propagate_from_perihelion(self.q, self.e, self.p_hat, self.q_hat, dt)
+
+    def heliocentric(self, t1, t2, near=None):
+        """(p, v), the interface of an ephemeris source's heliocentric(): bodies.place."""
+        return self.state(t1, t2)
+
+    def age_days(self, t1, t2):
+        """Time from the epoch of the elements to the instants, days."""
+        return (np.asarray(t1, float) - self.epoch1) + (np.asarray(t2, float) - self.epoch2)
+
+
+def check_elements(q, e):
+    """Refuse what no conic has: e < 0, q <= 0, or numbers that are not finite."""
+    bad_e = ~np.isfinite(e) | (e < 0)
+    if np.any(bad_e):
+        raise rows_failing(bad_e, "the eccentricity must be a number >= 0 (0 a circle, "
+                           "below 1 an ellipse, 1 a parabola, above 1 a hyperbola)")
+    bad_q = ~np.isfinite(q) | (q <= 0)
+    if np.any(bad_q):
+        raise rows_failing(bad_q, "the perihelion distance q must be a positive number of "
+                           "au (and a semi-major axis positive for e < 1, negative for e > 1)")
+
+
+def _orientation(i, node, peri):
+    """Unit vectors towards perihelion (P) and 90 degrees ahead in the orbit (Q), on the
+    ICRS axes, from the angles on the ecliptic of J2000."""
+    i, o, w = np.radians(i), np.radians(node), np.radians(peri)
+    co, so, ci, si, cw, sw = np.cos(o), np.sin(o), np.cos(i), np.sin(i), np.cos(w), np.sin(w)
+    p = np.stack([co * cw - so * sw * ci, so * cw + co * sw * ci, sw * si], axis=-1)
+    q = np.stack([-co * sw - so * cw * ci, -so * sw + co * cw * ci, cw * si], axis=-1)
+    return p @ ECLIPTIC_TO_ICRS.T, q @ ECLIPTIC_TO_ICRS.T
+
+
+def from_mean_anomaly(a, e, mean_anomaly_deg, epoch1, epoch2):
+    """(q, tp1, tp2) from a semi-major axis (au; negative for a hyperbola), the mean
+    anomaly at the epoch (degrees) and the epoch (TT JD in two parts)."""
+    a, e, m = (np.asarray(x, float) for x in (a, e, mean_anomaly_deg))
+    bad = ~np.isfinite(a) | (a == 0) | ((e < 1) & (a < 0)) | ((e > 1) & (a > 0)) | (e == 1)
+    if np.any(bad):
+        raise rows_failing(bad, "the semi-major axis must be positive for e < 1 and negative "
+                           "for e > 1 (a parabola, e = 1, needs q and the time of perihelion)")
+    n = SQRT_GM / np.sqrt(np.abs(a)) ** 3                # radians a day
+    m = np.radians(np.where(e < 1, (m + 180.0) % 360.0 - 180.0, m))  # the nearest perihelion
+    return a * (1.0 - e), np.asarray(epoch1, float), np.asarray(epoch2, float) - m / n
+
+
+def propagate_from_perihelion(q, e, p_hat, q_hat, dt):
+    """Position and velocity (..., 3) at ``dt`` days after perihelion passage.
+
+    At perihelion r0 = q P and v0 = sqrt(GM (1 + e) / q) Q, and r0 . v0 = 0, so the
+    universal Kepler equation is  sqrt(GM) dt = q x + e x^3 S(alpha x^2)  with
+    alpha = (1 - e) / q, and r = q + e x^2 C(alpha x^2)."""
+    q, e, dt = np.broadcast_arrays(np.asarray(q, float), np.asarray(e, float),
+                                   np.asarray(dt, float))
+    alpha = (1.0 - e) / q
+    # An ellipse repeats: keep dt within half a period of the perihelion, so the universal
+    # anomaly stays within |E| <= pi (z <= pi^2), where the solution is best conditioned.
+    with np.errstate(divide="ignore", invalid="ignore"):
+        period = np.where(alpha > 0, 2.0 * np.pi / (SQRT_GM * np.sqrt(np.abs(alpha)) ** 3),
+                          np.inf)
+        wrapped = np.where(np.isfinite(period) & (np.abs(dt) > 0.5 * period),
+                           dt - period * np.round(dt / period), dt)
+    x = _solve_universal(q, e, alpha, SQRT_GM * wrapped)
+    z = alpha * x * x
+    c, s = stumpff(z)
+    r = q + e * x * x * c
+    f = 1.0 - x * x * c / q
+    g = wrapped - x * x * x * s / SQRT_GM
+    fdot = SQRT_GM / (r * q) * x * (z * s - 1.0)
+    gdot = 1.0 - x * x * c / r
+    v0 = np.sqrt(GM_SUN * (1.0 + e) / q)
+    pos = (f * q)[..., None] * p_hat + (g * v0)[..., None] * q_hat
+    vel = (fdot * q)[..., None] * p_hat + (gdot * v0)[..., None] * q_hat
+    return pos, vel
+
+
+def _solve_universal(q, e, alpha, target):
+    """The universal anomaly x with F(x) = q x + e x^3 S(alpha x^2) - target = 0.
+
+    F is increasing (F' = r > 0), so the root is unique; Laguerre's iteration (n = 5)
+    converges from any start, and a few Newton steps then bring it to the last bit."""
+    with np.errstate(over="ignore", invalid="ignore", divide="ignore"):
+        x = _first_guess(q, e, alpha, target)
+    active = np.ones(x.shape, bool)
+    for _ in range(_LAGUERRE_STEPS):
+        if not np.any(active):
+            break
+        xa, qa, ea, aa, ta = x[active], q[active], e[active], alpha[active], target[active]
+        z = aa * xa * xa
+        c, s = stumpff(z)
+        f = qa * xa + ea * xa ** 3 * s - ta
+        f1 = qa + ea * xa * xa * c                    # dF/dx = r
+        f2 = ea * xa * (1.0 - z * s)                  # d2F/dx2 = r . v / sqrt(GM)
+        n = 5.0
+        root = np.sqrt(np.abs((n - 1.0) ** 2 * f1 * f1 - n * (n - 1.0) * f * f2))
+        den = f1 + np.sign(f1) * root
+        step = n * f / den
+        x[active] = xa - step
+        done = np.abs(step) <= 1e-13 * np.maximum(np.abs(xa), 1e-300) + 1e-300
+        idx = np.flatnonzero(active)
+        active[idx[done]] = False
+    for _ in range(_NEWTON_STEPS):
+        z = alpha * x * x
+        c, s = stumpff(z)
+        f = q * x + e * x ** 3 * s - target
+        x = x - f / (q + e * x * x * c)
+    return x
+
+
+def _first_guess(q, e, alpha, target):
+    """A start for the iteration: the parabola's exact root (Cardano, S = 1/6), which
+    bounds the root from above for an ellipse and from below for a hyperbola; for a
+    strongly hyperbolic orbit far from perihelion the logarithmic estimate of the
+    hyperbolic anomaly, which is closer."""
+    # e x^3 / 6 + q x = T: depressed cubic x^3 + p x - r = 0 with p = 6q/e, r = 6T/e.
+    p = 6.0 * q / np.maximum(e, 1e-300)
+    r = 6.0 * target / np.maximum(e, 1e-300)
+    disc = np.sqrt((r / 2.0) ** 2 + (p / 3.0) ** 3)
+    # x = cbrt(r/2 + disc) + cbrt(r/2 - disc), written to avoid cancellation.
+    u = np.cbrt(np.abs(r) / 2.0 + disc)
+    x = np.sign(r) * (u - p / (3.0 * u))
+    x = np.where(e < 1e-8, target / q, x)  # a circle: x = sqrt(GM) dt / a
+    # Hyperbola: x = H / sqrt(-alpha), with e sinh H - H = M; for large M, H ~ asinh(M / e).
+    hyper = alpha < 0
+    if np.any(hyper):
+        sa = np.sqrt(-alpha[hyper])
+        mean = target[hyper] * sa ** 3
+        h = np.arcsinh(mean / e[hyper])
+        xh = h / sa
+        x[hyper] = np.where(np.abs(mean) > 1.0, np.where(np.abs(xh) < np.abs(x[hyper]), xh,
+                                                            x[hyper]), x[hyper])
+    ellipse = alpha > 0
+    if np.any(ellipse):
+        sa = np.sqrt(alpha[ellipse])
+        mean = target[ellipse] * sa ** 3              # the mean anomaly, |M| <= pi
+        big_e = mean + e[ellipse] * np.sin(mean)      # a start for E (Danby-like)
+        xe = np.clip(big_e, -np.pi, np.pi) / sa
+        x[ellipse] = np.where(np.abs(xe) < np.abs(x[ellipse]), xe, x[ellipse])
+    return x
