@@ -151,7 +151,7 @@ def _client(scheduler, workers, threads):
     if scheduler:
         return Client(scheduler), None
     cluster = LocalCluster(n_workers=workers or os.cpu_count() or 1, threads_per_worker=1,
-                           processes=not threads, dashboard_address=None)
+                           processes=not threads, dashboard_address=":0")
     return Client(cluster), cluster
 
 
