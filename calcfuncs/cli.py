@@ -151,6 +151,9 @@ def _resolve(fn, header, columns, constants, input_name):
     return plan
 
 
+column_plan = _resolve  # the same plan for a Parquet file's columns (calcfuncs.tables)
+
+
 def _value(arg, text):
     """A CSV field as a cell would hold it: empty is an empty cell, a number in a
     numeric argument is a number, everything else is text (time columns included)."""

@@ -25,6 +25,7 @@ column of instants interpolates its slowly varying quantities (calcfuncs.nodes),
 which rows share a call decides whether it does.
 """
 
+import datetime
 import os
 import tempfile
 
@@ -33,9 +34,11 @@ import numpy as np
 from . import api
 from .errors import PREFIX
 
-# 1899-12-30, the null date of a date-time value, in microseconds from 1970-01-01.
-_NULL_US = -25569 * 86_400_000_000
 _DAY_US = 86_400_000_000
+# The null date of the API's date-time values (1899-12-30), in days and microseconds
+# from 1970-01-01, the origin of Parquet's timestamps and dates.
+_NULL_DAYS = (datetime.date(*api.DEFAULT_NULL_DATE) - datetime.date(1970, 1, 1)).days
+_NULL_US = _NULL_DAYS * _DAY_US
 PARQUET_SUFFIXES = (".parquet", ".pq", ".parq")
 
 
@@ -72,7 +75,7 @@ def cell_values(column):
         values = ((micros - _NULL_US) / _DAY_US).tolist()
     elif pa.types.is_date(kind):
         days = column.cast(pa.date32()).cast(pa.int32()).fill_null(0)
-        values = (np.asarray(days.to_numpy(zero_copy_only=False), dtype=float) + 25569.0).tolist()
+        values = (np.asarray(days.to_numpy(zero_copy_only=False), dtype=float) - _NULL_DAYS).tolist()
     elif pa.types.is_floating(kind) or pa.types.is_integer(kind) or pa.types.is_boolean(kind):
         values = column.cast(pa.float64()).fill_null(0.0).to_numpy(zero_copy_only=False)
         values = np.asarray(values, dtype=float).tolist()
@@ -95,7 +98,7 @@ def resolve(fn, names, columns, constants, input_name):
     from . import cli
 
     try:
-        return cli._resolve(fn, list(names), columns, constants, input_name)
+        return cli.column_plan(fn, list(names), columns, constants, input_name)
     except cli.UsageError as problem:
         raise TableError(str(problem)) from None
 
