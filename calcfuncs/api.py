@@ -199,13 +199,15 @@ def lookup(name):
 
 def apply_to_file(function, input, output, columns, constants=None, column=None, *,
                   engine="single", scheduler=None, workers=None, threads=False,
-                  replace=False):
+                  client=None, replace=False):
     """A cell function over the rows of a log file into a new file, as
     ``python -m calcfuncs`` does: ``columns`` maps argument names to the file's column
     names, ``constants`` argument names to one value for every row (text as on the
     command line).  Parquet (``*.parquet``) in and out, in this process or with
-    ``engine="dask"`` on Dask workers (``scheduler``: a running cluster's address;
-    else ``workers`` local processes, or threads); CSV in and out in this process.
+    ``engine="dask"`` on Dask workers (``client``: a ``distributed.Client`` of yours,
+    e.g. on a dask-jobqueue or Kubernetes cluster; or ``scheduler``: a running
+    cluster's address; else ``workers`` local processes, or threads); CSV in and out in
+    this process.
     Returns the run's counts: rows, failed, blank, and the first messages by row."""
     from . import cli, engines, tables
 
@@ -217,7 +219,7 @@ def apply_to_file(function, input, output, columns, constants=None, column=None,
         if engine == "dask":
             return engines.apply_to_parquet(fn, input, output, columns, constants, column,
                                             replace, scheduler=scheduler, workers=workers,
-                                            threads=threads)
+                                            threads=threads, client=client)
         return tables.apply_to_parquet(fn, input, output, columns, constants, column, replace)
     if engine != "single" or tables.is_parquet(input) or tables.is_parquet(output):
         raise ValueError("the Dask engine and Parquet take a Parquet input and output")

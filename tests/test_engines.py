@@ -276,6 +276,21 @@ def test_the_command_line_runs_parquet_and_refuses_csv_on_dask(tmp_path, capsys)
     assert pq.read_table(tmp_path / "a.parquet").equals(pq.read_table(tmp_path / "b.parquet"))
 
 
+def test_the_command_line_reaches_a_running_cluster_by_its_address(log_100k, two_workers,
+                                                                 tmp_path, capsys):
+    out = tmp_path / "jd.parquet"
+    address = two_workers.scheduler.address
+    assert cli.main(["SKY.JD", "--in", log_100k, "--arg", "time=observed", "--arg",
+                     "scale=clock_scale", "--out", str(out), "--engine", "dask",
+                     "--scheduler", address]) == 1  # the mistyped scales
+    assert "100000 rows" in capsys.readouterr().err
+    one = tmp_path / "one.parquet"
+    api.apply_to_file("SKY.JD", log_100k, str(one), {"time": "observed",
+                                                     "scale": "clock_scale"})
+    assert pq.read_table(out).equals(pq.read_table(one))
+    assert sorted(os.listdir(tmp_path)) == ["jd.parquet", "one.parquet"]
+
+
 def test_a_dask_frame_of_whole_chunks_gives_the_single_process_rows(tmp_path, monkeypatch):
     import dask
     import dask.dataframe as dd
