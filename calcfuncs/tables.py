@@ -39,6 +39,7 @@ _DAY_US = 86_400_000_000
 # from 1970-01-01, the origin of Parquet's timestamps and dates.
 _NULL_DAYS = (datetime.date(*api.DEFAULT_NULL_DATE) - datetime.date(1970, 1, 1)).days
 _NULL_US = _NULL_DAYS * _DAY_US
+_UNITS_PER_SECOND = {"s": 1, "ms": 1_000, "us": 1_000_000, "ns": 1_000_000_000}
 PARQUET_SUFFIXES = (".parquet", ".pq", ".parq")
 
 
@@ -69,10 +70,12 @@ def cell_values(column):
     if column.null_count:
         valid = np.asarray(pc.is_valid(column).to_numpy(zero_copy_only=False), dtype=bool)
     if pa.types.is_timestamp(kind):
-        micros = column.cast(pa.timestamp("us", kind.tz)).cast(pa.int64())
-        micros = np.asarray(micros.fill_null(0).to_numpy(zero_copy_only=False), dtype=np.int64)
-        # Integer difference first, one rounding in the division: as exact as a double.
-        values = ((micros - _NULL_US) / _DAY_US).tolist()
+        # In the column's own unit (a nanosecond column keeps what a cast to
+        # microseconds would refuse); the integer difference first, then one division.
+        per_day = 86_400 * _UNITS_PER_SECOND[kind.unit]
+        ticks = np.asarray(column.cast(pa.int64()).fill_null(0).to_numpy(zero_copy_only=False),
+                           dtype=np.int64)
+        values = ((ticks - _NULL_DAYS * per_day) / per_day).tolist()
     elif pa.types.is_date(kind):
         days = column.cast(pa.date32()).cast(pa.int32()).fill_null(0)
         values = (np.asarray(days.to_numpy(zero_copy_only=False), dtype=float) - _NULL_DAYS).tolist()

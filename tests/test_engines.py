@@ -128,6 +128,17 @@ def test_a_timestamp_column_is_read_as_its_instant(tmp_path):
     want = Time([s.replace(tzinfo=None) for s in stamps], scale="utc").tt.mjd
     # A date-time value resolves about 1 us (PLATFORM/STYLE notes): 2 us allowed.
     assert np.abs(np.array(got) - want).max() * 86_400e6 < 2.0
+    # The same instants in nanoseconds and seconds (pandas writes nanoseconds), one
+    # with a part of a microsecond that a cast to microseconds would refuse.
+    nanos = pa.array([int(round(s.timestamp() * 1e6)) * 1000 + 400 for s in stamps],
+                     pa.int64()).cast(pa.timestamp("ns", tz="UTC"))
+    seconds = pa.array([int(s.timestamp()) for s in stamps], pa.int64()).cast(
+        pa.timestamp("s"))
+    serials = api.mjd(tables.cell_values(nanos), result_scale="TT")
+    assert np.abs(np.array(serials) - want).max() * 86_400e6 < 2.0
+    whole = Time([s.replace(tzinfo=None, microsecond=0) for s in stamps], scale="utc").tt.mjd
+    assert np.abs(np.array(api.mjd(tables.cell_values(seconds), result_scale="TT"))
+                  - whole).max() * 86_400e6 < 2.0
 
 
 def test_parquet_round_trips_the_types(tmp_path):
