@@ -246,6 +246,47 @@ def test_a_failing_partition_is_retried_and_a_lasting_failure_writes_nothing(tmp
     assert sorted(os.listdir(tmp_path)) == ["log.parquet", "one.parquet", "retried.parquet"]
 
 
+def test_a_worker_killed_mid_run_has_its_partitions_run_again(tmp_path):
+    import threading
+
+    from distributed import Client, LocalCluster
+
+    src = str(survey_log.write(tmp_path / "log.parquet", 400_000))
+    fn = api.lookup("SKY.MOON.RA").cell_function
+    columns = {"time": "observed", "scale": "clock_scale"}
+    tables.apply_to_parquet(fn, src, str(tmp_path / "one.parquet"), columns, {})
+    with LocalCluster(n_workers=2, threads_per_worker=1, processes=True,
+                      dashboard_address=":0") as cluster, Client(cluster) as client:
+        pids = client.run(os.getpid)
+        done = {}
+
+        def run():
+            try:
+                done["stats"] = engines.apply_to_parquet(
+                    fn, src, str(tmp_path / "dask.parquet"), columns, {},
+                    partition_rows=50_000, client=client)
+            except BaseException as err:  # noqa: BLE001 - reported by the assertion below
+                done["error"] = err
+
+        worker = threading.Thread(target=run)
+        worker.start()
+        deadline = time.monotonic() + 300
+        staging = []
+        while time.monotonic() < deadline and not staging:
+            staging = [os.path.join(tmp_path, n) for n in os.listdir(tmp_path)
+                       if n.startswith(".partial-") and any(
+                           p.startswith("part-") for p in os.listdir(os.path.join(tmp_path, n)))]
+            time.sleep(0.05)
+        assert staging, "no partition was written"
+        victim = sorted(pids.values())[0]
+        os.kill(victim, signal.SIGKILL)  # a worker dies with partitions in hand
+        worker.join(600)
+        assert "error" not in done, done.get("error")
+        assert victim not in client.run(os.getpid).values()  # the nanny started a new one
+    assert pq.read_table(tmp_path / "dask.parquet").equals(pq.read_table(tmp_path / "one.parquet"))
+    assert sorted(os.listdir(tmp_path)) == ["dask.parquet", "log.parquet", "one.parquet"]
+
+
 def test_a_killed_dask_run_leaves_no_output_file(tmp_path):
     src = survey_log.write(tmp_path / "log.parquet", 400_000)
     out = tmp_path / "out.parquet"
