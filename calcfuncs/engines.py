@@ -36,7 +36,8 @@ import tempfile
 
 from . import api, tables
 
-DEFAULT_PARTITION_CHUNKS = 20  # CHUNK_ROWS x 20 = 1,000,000 rows a partition
+DEFAULT_PARTITION_CHUNKS = 20  # at most CHUNK_ROWS x 20 = 1,000,000 rows a partition
+PARTITIONS_PER_WORKER = 4  # fewer rows a partition on a short log, so every worker works
 RETRIES = 2  # a partition whose task raised is run again this many times
 
 
@@ -46,6 +47,15 @@ def partition_ranges(total_rows, partition_rows):
     if partition_rows < step or partition_rows % step:
         raise tables.TableError(f"a partition holds a whole number of chunks of {step} rows")
     return [(s, min(s + partition_rows, total_rows)) for s in range(0, total_rows, partition_rows)]
+
+
+def default_partition_rows(total_rows, workers):
+    """Whole chunks, at most DEFAULT_PARTITION_CHUNKS of them, and small enough that
+    each worker gets about PARTITIONS_PER_WORKER partitions of a short log."""
+    step = tables.chunk_rows()
+    wanted = -(-total_rows // max(1, workers * PARTITIONS_PER_WORKER))
+    chunks = min(DEFAULT_PARTITION_CHUNKS, max(1, -(-wanted // step)))
+    return chunks * step
 
 
 def _meta(schema):
@@ -169,15 +179,20 @@ def apply_to_parquet(fn, input_path, output_path, columns, constants, column_nam
     source = tables.open_input(input_path, column_name)
     tables.resolve(fn, source.schema_arrow.names, columns, constants, input_path)
     target = tables.check_target(output_path, input_path, replace)
-    step = tables.chunk_rows()
-    ranges = partition_ranges(source.metadata.num_rows,
-                              partition_rows or DEFAULT_PARTITION_CHUNKS * step)
+    if partition_rows:
+        partition_ranges(0, partition_rows)  # a whole number of chunks, said before any work
     in_schema = source.schema_arrow.remove_metadata()
     out_schema = tables.output_schema(fn, source, column_name)
     staging = tempfile.mkdtemp(prefix=".partial-", dir=os.path.dirname(target))
     out = None
     own = None
     try:
+        if client is None:
+            client, cluster = _client(scheduler, workers, threads)
+            own = (client, cluster)
+        total = source.metadata.num_rows
+        ranges = partition_ranges(total, partition_rows or default_partition_rows(
+            total, len(client.scheduler_info()["workers"])))
         if ranges:
             frame = dd.from_map(_ReadPartition(os.path.abspath(input_path)), ranges,
                                 meta=_meta(in_schema), enforce_metadata=False)
@@ -186,9 +201,6 @@ def apply_to_parquet(fn, input_path, output_path, columns, constants, column_nam
                 _WritePart(staging, out_schema, column_name),
                 meta={"part": "int64", "rows": "int64", "failed": "int64", "blank": "int64",
                       "first": "object"})
-            if client is None:
-                client, own = _client(scheduler, workers, threads)
-                own = (client, own)
             counts = client.compute(parts, retries=RETRIES).result()
         else:
             counts = None

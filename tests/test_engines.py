@@ -194,6 +194,10 @@ def test_chunks_follow_rows_not_row_groups(tmp_path, monkeypatch):
     assert engines.partition_ranges(1_000, 600) == [(0, 600), (600, 1_000)]
     with pytest.raises(ValueError, match="whole number of chunks"):
         engines.partition_ranges(1_000, 450)
+    # Short logs are cut so that every worker has partitions; long ones at 20 chunks.
+    assert engines.default_partition_rows(10_000, 2) == 1_500  # 5 chunks of 300
+    assert engines.default_partition_rows(10_000_000, 2) == 20 * 300
+    assert engines.default_partition_rows(100, 8) == 300
 
 
 def test_an_interrupted_parquet_run_leaves_no_partial_file(tmp_path, monkeypatch):
