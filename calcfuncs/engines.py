@@ -156,10 +156,14 @@ def apply_to_frame(frame, function, columns, constants=None, column=None):
 
 
 def _client(scheduler, workers, threads):
+    import dask
     from distributed import Client, LocalCluster
 
     if scheduler:
         return Client(scheduler), None
+    # Dask's sampling profiler looks at every worker thread a hundred times a second:
+    # measurable beside our work, and of no use to a log run.  The workers inherit it.
+    dask.config.set({"distributed.worker.profile.enabled": False})
     cluster = LocalCluster(n_workers=workers or os.cpu_count() or 1, threads_per_worker=1,
                            processes=not threads, dashboard_address=":0")
     return Client(cluster), cluster
