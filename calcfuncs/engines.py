@@ -163,9 +163,9 @@ def _client(scheduler, workers, threads):
         return Client(scheduler), None
     # Dask's sampling profiler looks at every worker thread a hundred times a second:
     # measurable beside our work, and of no use to a log run.  The workers inherit it.
-    dask.config.set({"distributed.worker.profile.enabled": False})
-    cluster = LocalCluster(n_workers=workers or os.cpu_count() or 1, threads_per_worker=1,
-                           processes=not threads, dashboard_address=":0")
+    with dask.config.set({"distributed.worker.profile.enabled": False}):
+        cluster = LocalCluster(n_workers=workers or os.cpu_count() or 1, threads_per_worker=1,
+                               processes=not threads, dashboard_address=":0")
     return Client(cluster), cluster
 
 
@@ -190,6 +190,7 @@ def apply_to_parquet(fn, input_path, output_path, columns, constants, column_nam
     staging = tempfile.mkdtemp(prefix=".partial-", dir=os.path.dirname(target))
     out = None
     own = None
+    futures = []
     try:
         if client is None:
             client, cluster = _client(scheduler, workers, threads)
@@ -197,6 +198,7 @@ def apply_to_parquet(fn, input_path, output_path, columns, constants, column_nam
         total = source.metadata.num_rows
         ranges = partition_ranges(total, partition_rows or default_partition_rows(
             total, len(client.scheduler_info()["workers"])))
+        futures = []
         if ranges:
             frame = dd.from_map(_ReadPartition(os.path.abspath(input_path)), ranges,
                                 meta=_meta(in_schema), enforce_metadata=False)
@@ -205,17 +207,18 @@ def apply_to_parquet(fn, input_path, output_path, columns, constants, column_nam
                 _WritePart(staging, out_schema, column_name),
                 meta={"part": "int64", "rows": "int64", "failed": "int64", "blank": "int64",
                       "first": "object"})
-            counts = client.compute(parts, retries=RETRIES).result()
-        else:
-            counts = None
+            futures = client.compute(parts.to_delayed(), retries=RETRIES)
         out = tables.AtomicFile(target, ".parquet")
         stats = tables.new_stats()
+        # Parts are joined in order as they come, while later partitions still compute:
+        # the join is not a serial step after the whole run.
         with pq.ParquetWriter(out.partial, out_schema) as writer:
-            for number, (start, _) in enumerate(ranges):
+            for number, ((start, _), future) in enumerate(zip(ranges, futures)):
+                row = future.result().iloc[0]
                 part = pq.read_table(os.path.join(staging, f"part-{number:08d}.parquet"),
                                      schema=out_schema)
                 writer.write_table(part)
-                row = counts[counts["part"] == number].iloc[0]
+                del part
                 stats["rows"] += int(row["rows"])
                 stats["failed"] += int(row["failed"])
                 stats["blank"] += int(row["blank"])
@@ -227,6 +230,8 @@ def apply_to_parquet(fn, input_path, output_path, columns, constants, column_nam
     except BaseException:
         if out is not None:
             out.abandon()
+        if futures and client is not None:
+            client.cancel(futures)
         raise
     finally:
         shutil.rmtree(staging, ignore_errors=True)
