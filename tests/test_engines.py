@@ -278,7 +278,7 @@ def test_a_worker_killed_mid_run_has_its_partitions_run_again(tmp_path):
         staging = []
         while time.monotonic() < deadline and not staging:
             staging = [os.path.join(tmp_path, n) for n in os.listdir(tmp_path)
-                       if n.startswith(".partial-") and any(
+                       if n.startswith(".partial-") and os.path.isdir(tmp_path / n) and any(
                            p.startswith("part-") for p in os.listdir(os.path.join(tmp_path, n)))]
             time.sleep(0.05)
         assert staging, "no partition was written"
