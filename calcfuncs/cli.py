@@ -325,7 +325,8 @@ def main(argv=None, out=None, err=None):
         from . import tables  # Parquet and the Dask engine: calcfuncs.tables, .engines
 
         if tables.is_parquet(args.input) or tables.is_parquet(args.out) or args.engine != "single":
-            stats = tables.run_command(fn, args, _pairs(args.arg, "--arg"), _pairs(args.set, "--set"))
+            stats = tables.run_command(fn, args, _pairs(args.arg, "--arg"),
+                                       _pairs(args.set, "--set"))
         else:
             stats = apply_to_csv(fn, args.input, args.out, _pairs(args.arg, "--arg"),
                                  _pairs(args.set, "--set"), args.column, args.replace,

@@ -78,7 +78,8 @@ def cell_values(column):
         values = ((ticks - _NULL_DAYS * per_day) / per_day).tolist()
     elif pa.types.is_date(kind):
         days = column.cast(pa.date32()).cast(pa.int32()).fill_null(0)
-        values = (np.asarray(days.to_numpy(zero_copy_only=False), dtype=float) - _NULL_DAYS).tolist()
+        days = np.asarray(days.to_numpy(zero_copy_only=False), dtype=float)
+        values = (days - _NULL_DAYS).tolist()
     elif pa.types.is_floating(kind) or pa.types.is_integer(kind) or pa.types.is_boolean(kind):
         values = column.cast(pa.float64()).fill_null(0.0).to_numpy(zero_copy_only=False)
         values = np.asarray(values, dtype=float).tolist()
