@@ -21,8 +21,8 @@ aside); otherwise a row may differ by the bounds above.
 
 Never half-written.  Each partition is written to its own part file in a staging
 folder beside the target (write, then rename: a retried or rerun partition replaces
-its part whole); when every partition is done, the parts are joined in order into one
-file beside the target, which is then renamed onto the target.  An interrupted run
+its part whole); the parts are joined in order, each as soon as it and those before it
+are done, into one file beside the target, which is renamed onto the target at the end.  An interrupted run
 leaves the target untouched (no file, or the old one with --replace); the staging
 folder ``.partial-*`` is removed unless the process itself was killed.  On a cluster
 the input, the staging folder and the target must be on a filesystem every worker
