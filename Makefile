@@ -61,6 +61,7 @@ bench: oxt
 	$(PY) bench/bench_recalc.py --oxt $(OXT) --json out/bench-recalc.json
 	$(PY) bench/bench_kernels.py --oxt $(OXT) --json out/bench-kernels.json
 	$(PY) bench/bench_sheets.py --oxt $(OXT) --json out/bench-sheets.json
+	$(PY) bench/bench_engines.py --rows 1000000 --json out/bench-engines.json
 
 clean:
 	rm -rf build dist out .pytest_cache

@@ -37,6 +37,7 @@ DEFAULT_NULL_DATE = (1899, 12, 30)
 _NULL = _dt.datetime(1899, 12, 30)
 
 __all__ = ["SkyError", "python_name", "FUNCTIONS", "call", "datetime_from_serial",
+           "apply_to_file",
            "returns_datetime"]
 
 
@@ -194,3 +195,35 @@ def lookup(name):
     if key not in FUNCTIONS:
         raise ValueError(f'unknown function "{name}"; python -m calcfuncs --list shows them')
     return FUNCTIONS[key]
+
+
+def apply_to_file(function, input, output, columns, constants=None, column=None, *,
+                  engine="single", scheduler=None, workers=None, threads=False,
+                  client=None, replace=False):
+    """A cell function over the rows of a log file into a new file, as
+    ``python -m calcfuncs`` does: ``columns`` maps argument names to the file's column
+    names, ``constants`` argument names to one value for every row (text as on the
+    command line).  Parquet (``*.parquet``) in and out, in this process or with
+    ``engine="dask"`` on Dask workers (``client``: a ``distributed.Client`` of yours,
+    e.g. on a dask-jobqueue or Kubernetes cluster; or ``scheduler``: a running
+    cluster's address; else ``workers`` local processes, or threads); CSV in and out in
+    this process.
+    Returns the run's counts: rows, failed, blank, and the first messages by row."""
+    from . import cli, engines, tables
+
+    fn = lookup(function).cell_function
+    constants = dict(constants or {})
+    if engine not in ("single", "dask"):
+        raise ValueError('engine must be "single" or "dask"')
+    if tables.is_parquet(input) and tables.is_parquet(output):
+        if engine == "dask":
+            return engines.apply_to_parquet(fn, input, output, columns, constants, column,
+                                            replace, scheduler=scheduler, workers=workers,
+                                            threads=threads, client=client)
+        return tables.apply_to_parquet(fn, input, output, columns, constants, column, replace)
+    if engine != "single" or tables.is_parquet(input) or tables.is_parquet(output):
+        raise ValueError("the Dask engine and Parquet take a Parquet input and output")
+    try:
+        return cli.apply_to_csv(fn, input, output, columns, constants, column, replace)
+    except cli.UsageError as problem:
+        raise ValueError(str(problem)) from None

@@ -65,6 +65,16 @@ def _parser():
     ap.add_argument("--dates", choices=("iso", "number"), default="iso",
                     help="date-time results as ISO 8601 text to the microsecond (default) "
                     "or as the cell's number, days since 1899-12-30")
+    ap.add_argument("--engine", choices=("single", "dask"), default="single",
+                    help="single: this process (default); dask: partitions on Dask workers "
+                    "(Parquet in and out; see calcfuncs.engines)")
+    ap.add_argument("--scheduler", metavar="ADDRESS",
+                    help="with --engine dask: a running cluster's scheduler, tcp://host:8786")
+    ap.add_argument("--workers", type=int, metavar="N",
+                    help="with --engine dask and no --scheduler: local worker processes "
+                    "(default: one a core)")
+    ap.add_argument("--threads", action="store_true",
+                    help="with --engine dask and no --scheduler: workers as threads here")
     return ap
 
 
@@ -143,6 +153,9 @@ def _resolve(fn, header, columns, constants, input_name):
             raise UsageError(f"{fn.name} needs {a.name}: give --arg {a.name}=COLUMN or "
                              f"--set {a.name}=VALUE")
     return plan
+
+
+column_plan = _resolve  # the same plan for a Parquet file's columns (calcfuncs.tables)
 
 
 def _value(arg, text):
@@ -318,10 +331,16 @@ def main(argv=None, out=None, err=None):
         delimiter = "\t" if args.delimiter in ("\\t", "tab", "TAB") else args.delimiter
         if len(delimiter) != 1:
             raise UsageError("--delimiter takes one character")
-        with Progress(fn.name, unit=" rows", stream=err, quiet=args.quiet) as progress:
-            stats = apply_to_csv(fn, args.input, args.out, _pairs(args.arg, "--arg"),
-                                 _pairs(args.set, "--set"), args.column, args.replace,
-                                 delimiter, args.dates, progress)
+        from . import tables  # Parquet and the Dask engine: calcfuncs.tables, .engines
+
+        if tables.is_parquet(args.input) or tables.is_parquet(args.out) or args.engine != "single":
+            stats = tables.run_command(fn, args, _pairs(args.arg, "--arg"),
+                                       _pairs(args.set, "--set"))
+        else:
+            with Progress(fn.name, unit=" rows", stream=err, quiet=args.quiet) as progress:
+                stats = apply_to_csv(fn, args.input, args.out, _pairs(args.arg, "--arg"),
+                                     _pairs(args.set, "--set"), args.column, args.replace,
+                                     delimiter, args.dates, progress)
     except BrokenPipeError:  # the reader of stdout went away (| head): stop quietly
         sys.stdout = open(os.devnull, "w")
         return 1
@@ -336,7 +355,7 @@ def main(argv=None, out=None, err=None):
         summary += f", {stats['failed']} with a #SKY: message"
     print(summary, file=err)
     for line, message in stats["first"]:
-        print(f"  line {line}: {message}", file=err)
+        print(f"  {stats.get('where', 'line')} {line}: {message}", file=err)
     if stats["failed"] > len(stats["first"]):
         print(f"  ... and {stats['failed'] - len(stats['first'])} more", file=err)
     return 1 if stats["failed"] else 0
