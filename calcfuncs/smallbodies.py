@@ -17,7 +17,7 @@ SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months, or int
 
 import numpy as np
 
-from . import bodies, ephemeris, frames, mpcformat, vectors
+from . import bodies, ephemeris, frames, mpcformat, topocentric, vectors
 from .errors import rows_failing
 from .events import crossings, wrap180
 from .orbits import check_elements, from_mean_anomaly
@@ -192,6 +192,44 @@ def lon_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=
 
 def lat_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
     return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model)[1]
+
+
+# ---- seen from a site --------------------------------------------------------------------
+
+
+def _topo(orbit, time, latitude, longitude, height, kind, source, model, pressure=0.0,
+          temperature=10.0):
+    o = mpcformat.orbits_of(orbit)
+    return topocentric.place(moved(o, model, source), time, latitude, longitude, height, kind,
+                             source, pressure, temperature)
+
+
+def topo_ra_cells(orbit, time, latitude, longitude, height=0.0, frame="TRUE",
+                  kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+    p = _topo(orbit, time, latitude, longitude, height, kind, source, model)
+    return frames.spherical(bodies.in_system(p.direction, EQUATORIAL_OF_FRAME[frame],
+                                             *time.tt()))[0]
+
+
+def topo_dec_cells(orbit, time, latitude, longitude, height=0.0, frame="TRUE",
+                   kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+    p = _topo(orbit, time, latitude, longitude, height, kind, source, model)
+    return frames.spherical(bodies.in_system(p.direction, EQUATORIAL_OF_FRAME[frame],
+                                             *time.tt()))[1]
+
+
+def topo_alt_cells(orbit, time, latitude, longitude, height=0.0, pressure=0.0,
+                   temperature=10.0, source=BUILTIN, model=TWO_BODY):
+    p = _topo(orbit, time, latitude, longitude, height, "APPARENT", source, model, pressure,
+              temperature)
+    return 90.0 - np.degrees(topocentric.observed(p)[1])
+
+
+def topo_az_cells(orbit, time, latitude, longitude, height=0.0, pressure=0.0,
+                  temperature=10.0, source=BUILTIN, model=TWO_BODY):
+    p = _topo(orbit, time, latitude, longitude, height, "APPARENT", source, model, pressure,
+              temperature)
+    return frames.degrees_360(topocentric.observed(p)[0])
 
 
 def earth_dist_cells(orbit, time, source=BUILTIN, model=TWO_BODY):

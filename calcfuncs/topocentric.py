@@ -73,8 +73,9 @@ def site_state(time, latitude, longitude, height, astrom):
 
 def place(body, time, latitude, longitude, height=0.0, kind="APPARENT", source=BUILTIN,
           pressure=0.0, temperature=10.0):
-    """The ``TopoPlace`` of SUN, MOON or a planet at a site (see the module's words)."""
-    body = check_body(body)
+    """The ``TopoPlace`` of SUN, MOON or a planet at a site (see the module's words), or of
+    the body of an orbit of its own (orbits.Orbit, smallbodies.py), row by row."""
+    body = check_body(body) if isinstance(body, str) else body
     astrom, phpa = horizon.observer_astrom(time, latitude, longitude, height, pressure,
                                      temperature, "ICRS")
     site_p, site_v = site_state(time, latitude, longitude, height, astrom)
@@ -88,7 +89,7 @@ def place(body, time, latitude, longitude, height=0.0, kind="APPARENT", source=B
     obs_p, obs_v = ep + site_p, ev + site_v
     obs_helio = obs_p - sp
     obs_sun_distance = vectors.norm(obs_helio)
-    if body == "SUN":
+    if isinstance(body, str) and body == "SUN":
         geometric = sp - obs_p
         distance = vectors.norm(geometric)
         if kind == "GEOMETRIC":
@@ -102,7 +103,10 @@ def place(body, time, latitude, longitude, height=0.0, kind="APPARENT", source=B
     near = (ep - sp, ev - sv, (tdb1, tdb2))
 
     def vector_at(tau):
-        helio = src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
+        if isinstance(body, str):
+            helio = src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
+        else:
+            helio = body.heliocentric(tdb1, tdb2 - tau)[0]
         # The Sun's barycentric place at t - tau from its slow motion at t (as bodies.py).
         return helio, helio + (sp - tau[..., None] * sv) - obs_p
 

@@ -345,6 +345,16 @@ EXAMPLES["SKY.ORBIT.RA"].append(
     ("SKY.ORBIT.FROM.Q(A{r};H{r};0.98;B{r};F{r};I{r});A{r}+30",
      lambda v: [evaluate("SKY.ORBIT.FROM.Q", [v[0], v[7], 0.98, v[1], v[5], v[8]]),
                 v[0] + 30]))
+# Seen from a site (random sites reach +-70 degrees).
+EXAMPLES["SKY.ORBIT.TOPO.RA"] = [('"' + _MP_LINE + '";A{r};D{r};E{r}',
+                                  lambda v: [_MP_LINE, v[0], v[3], v[4]])]
+EXAMPLES["SKY.ORBIT.TOPO.DEC"] = [
+    ('"' + _COMET_LINE + '";A{r};D{r};E{r};;300;"DATE";;"' + DE440 + '"',
+     lambda v: [_COMET_LINE, v[0], v[3], v[4], None, 300.0, "DATE", None, DE440])]
+EXAMPLES["SKY.ORBIT.TOPO.ALT"] = [('"' + _MP_LINE + '";A{r};D{r};E{r};;250',
+                                   lambda v: [_MP_LINE, v[0], v[3], v[4], None, 250.0])]
+EXAMPLES["SKY.ORBIT.TOPO.AZ"] = [('"' + _MP_LINE + '";A{r};D{r};E{r}',
+                                  lambda v: [_MP_LINE, v[0], v[3], v[4]])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (

@@ -175,6 +175,10 @@ FROZEN_METHODS = {
     "skyOrbitRatePa": "SKY.ORBIT.RATE.PA",
     "skyOrbitMag": "SKY.ORBIT.MAG",
     "skyOrbitEventNext": "SKY.ORBIT.EVENT.NEXT",
+    "skyOrbitTopoRa": "SKY.ORBIT.TOPO.RA",
+    "skyOrbitTopoDec": "SKY.ORBIT.TOPO.DEC",
+    "skyOrbitTopoAlt": "SKY.ORBIT.TOPO.ALT",
+    "skyOrbitTopoAz": "SKY.ORBIT.TOPO.AZ",
 }
 
 
@@ -382,7 +386,8 @@ DECLARED_ORDER = (
     "skyOrbitFromQ skyOrbitFromA skyOrbitName skyOrbitAge skyOrbitPeriod skyOrbitHelioLon "
     "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
     "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
-    "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext"
+    "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
+    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz"
 ).split()
 
 

@@ -495,3 +495,51 @@ def test_hostile_orbits_with_the_planets_answer_quickly(orbit, words):
     out = evaluate("SKY.ORBIT.RA", [orbit, "2025-01-01", "UTC", "TRUE", "APPARENT", "BUILTIN",
                                     "PLANETS"])
     assert isinstance(out, str) and out.startswith("#SKY: ") and words in out, out
+
+
+# ---- seen from a site ------------------------------------------------------------------
+
+
+def test_topocentric_places_against_skyfield():
+    """The apparent RA/Dec (true equator and equinox of date) and the altitude and azimuth
+    (no refraction; skyfield's DUT1) of Ceres and of an NEO-like orbit seen from three sites,
+    over a year,
+    with DE440, against skyfield 1.55 doing the same: (earth + wgs84 site).at(t)
+    .observe(sun + its two-body orbit of the same MPC line).apparent(). Within 1 mas."""
+    from skyfield.api import wgs84
+
+    ts = skyfield_api.load.timescale(builtin=True)
+    eph = skyfield_api.load_file(DE440)
+    sun, earth = eph["sun"], eph["earth"]
+    jd = 2460400.5 + np.arange(0.0, 365.0, 29.7) + 0.3
+    t = ts.tt_jd(jd)
+    worst = 0.0
+    for line, sf in zip(LINES[:2], _skyfield_orbits(ts)[:2]):
+        for lat, lon, h in ((47.3814, 8.0542, 455.0), (-33.9, 18.4, 10.0), (69.6, -140.0, 0.0)):
+            site = earth + wgs84.latlon(lat, lon, elevation_m=h)
+            app = site.at(t).observe(sun + sf).apparent()
+            ra_s, dec_s, _ = app.radec(epoch="date")
+            alt_s, az_s, _ = app.altaz()
+            cols = tuple((f"JD {float(x)!r}",) for x in jd)
+            base = [line, cols, lat, lon, "TT", h]
+            ra = np.array([r[0] for r in evaluate("SKY.ORBIT.TOPO.RA", base + [None, None,
+                                                                               DE440])])
+            dec = np.array([r[0] for r in evaluate("SKY.ORBIT.TOPO.DEC", base + [None, None,
+                                                                                 DE440])])
+            # Altitude and azimuth turn with UT1: each instant with skyfield's own DUT1.
+            alt = np.array([evaluate("SKY.ORBIT.TOPO.ALT", [line, f"JD {float(x)!r}", lat, lon,
+                                                            "TT", h, None, None, DE440, None,
+                                                            float(d)])
+                            for x, d in zip(jd, t.dut1)])
+            az = np.array([evaluate("SKY.ORBIT.TOPO.AZ", [line, f"JD {float(x)!r}", lat, lon,
+                                                          "TT", h, None, None, DE440, None,
+                                                          float(d)])
+                           for x, d in zip(jd, t.dut1)])
+            worst = max(worst,
+                        np.max(np.abs((ra - ra_s._degrees + 180) % 360 - 180)
+                               * np.cos(np.radians(dec))) * 3.6e6,
+                        np.max(np.abs(dec - dec_s.degrees)) * 3.6e6,
+                        np.max(np.abs(alt - alt_s.degrees)) * 3.6e6,
+                        np.max(np.abs((az - az_s.degrees + 180) % 360 - 180)
+                               * np.cos(np.radians(alt))) * 3.6e6)
+    assert worst < 1.0, worst

@@ -12,6 +12,7 @@ import datetime
 from sheetkit import format_range, header, note, number_format, widths
 
 from .common import fill_columns, sheet_at
+from .night_plan import SITE_HEIGHT, SITE_LATITUDE, SITE_LONGITUDE
 
 FILE_NAME = "minor_planets.ods"
 
@@ -67,6 +68,9 @@ TARGETS = [
                                      25.0, 71.4, "20270301", 7.5, 3.2,
                                      "C/2026 Q1 (Whinburn, invented)")),
 ]
+
+# The circle's Kettle Hill site (invented, as in night_plan.ods): lat; lon; scale; height.
+KETTLE = f"{SITE_LATITUDE!r};{SITE_LONGITUDE!r};;{SITE_HEIGHT!r}"
 
 TARGET_COLUMNS = [
     ("Designation", "=SKY.ORBIT.NAME(B{r})", "@", 5.6),
@@ -199,6 +203,18 @@ EPHEMERIS_COLUMNS = [
      "+0.00000;-0.00000", 3.0),
     ("Pull in RA (\")", "=(T{r}-D{r})*3600*COS(RADIANS(E{r}))", "+0.00;-0.00", 2.0),
     ("Pull in Dec (\")", "=(U{r}-E{r})*3600", "+0.00;-0.00", 2.0),
+    # Seen from the circle's Kettle Hill site (invented: as in night_plan.ods) at 21h UTC:
+    # a near-Earth object's parallax shows against the geocentric place.
+    ("Kettle Hill 21h: RA (deg)",
+     f"=SKY.ORBIT.TOPO.RA($B$5;A{{r}}+0.875;{KETTLE};;;{SOURCE_CELL})", "0.00000", 2.6),
+    ("Kettle Hill 21h: Dec (deg)",
+     f"=SKY.ORBIT.TOPO.DEC($B$5;A{{r}}+0.875;{KETTLE};;;{SOURCE_CELL})",
+     "+0.00000;-0.00000", 2.6),
+    ("Kettle Hill 21h: alt, unrefracted (deg)",
+     f"=SKY.ORBIT.TOPO.ALT($B$5;A{{r}}+0.875;{KETTLE};;;{SOURCE_CELL})", "+0.0;-0.0",
+     2.2),
+    ("Kettle Hill 21h: az (deg)",
+     f"=SKY.ORBIT.TOPO.AZ($B$5;A{{r}}+0.875;{KETTLE};;;{SOURCE_CELL})", "0.0", 2.2),
 ]
 
 
