@@ -60,20 +60,33 @@ def _aberrate(u, earth_v, sun_distance):
     return erfa.ab(u, c, sun_distance, bm1)
 
 
-def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN):
+def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     """The ``Place`` of ``body`` (SUN, MOON or a planet, or an object whose
     ``heliocentric(t1, t2)`` gives (p, v): a two-body orbit) at the source's argument
-    times (ephemeris.times_for)."""
+    times (ephemeris.times_for).
+
+    ``observer``: (position au, velocity au/day) of an observer relative to the Earth's
+    centre on the GCRS axes (a site, topocentric.py); the place is then found from the
+    observer itself (light time, deflection and aberration all from its state), which
+    brings the diurnal parallax and aberration with no first-order formula."""
     src = ephemeris.get(source)
     tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+    if observer is not None:
+        shape = np.broadcast_shapes(tdb1.shape, np.shape(observer[0])[:-1])
+        tdb1, tdb2 = np.broadcast_to(tdb1, shape), np.broadcast_to(tdb2, shape)
     earth_b, sun_b = src.earth_and_sun(tdb1, tdb2)
     (ep, ev), (sp, sv) = earth_b, sun_b
+    # The Earth's heliocentric state, for the Moon's geocentric theory (always the
+    # geocentre's, whoever observes).
+    near = (ep - sp, ev - sv, (tdb1, tdb2))
+    if observer is not None:
+        ep, ev = ep + observer[0], ev + observer[1]
+        earth_b = (ep, ev)
     earth_helio = ep - sp
-    if body == "SUN":
+    if isinstance(body, str) and body == "SUN":
         u, distance = _sun_geocentric(earth_b, sun_b, kind)
         return Place(u, distance, np.zeros_like(ep), earth_helio, (earth_b, sun_b))
     em = vectors.norm(earth_helio)
-    near = (earth_helio, ev - sv, (tdb1, tdb2))
 
     def helio_at(tau):
         if not isinstance(body, str):  # an orbit of its own (orbits.Orbit), row by row

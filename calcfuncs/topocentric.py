@@ -19,10 +19,10 @@ horizon.py does for catalogue places.  Polar motion is taken as zero.
 import erfa
 import numpy as np
 
-from . import ephemeris, frames, horizon, vectors
+from . import bodies, ephemeris, frames, horizon, vectors
 from .errors import SkyError, rows_failing
 from .timescales import Instants
-from .vocabulary import AU_KM, AU_M, BUILTIN, DAY_SECONDS, EARTH_RADIUS_KM, LIGHT_DAYS_PER_AU
+from .vocabulary import AU_KM, AU_M, BUILTIN, DAY_SECONDS, EARTH_RADIUS_KM
 
 # The Moon's mean radius, 1737.4 km (IAU Working Group on Cartographic Coordinates; the
 # value skyfield's rising search uses too).
@@ -32,12 +32,6 @@ MOON_RADIUS_KM = 1737.4
 SUN_RADIUS_KM = 696000.0
 BODIES = ("SUN", "MOON", "MERCURY", "VENUS", "MARS", "JUPITER", "SATURN", "URANUS",
           "NEPTUNE", "PLUTO")
-
-
-def aberrate(u, observer_v, sun_distance):
-    """ERFA ab (relativistic aberration) for an observer's barycentric velocity in au/day."""
-    c = observer_v * LIGHT_DAYS_PER_AU
-    return erfa.ab(u, c, sun_distance, np.sqrt(1.0 - np.sum(c * c, axis=-1)))
 
 
 class TopoPlace:
@@ -74,55 +68,15 @@ def site_state(time, latitude, longitude, height, astrom):
 def place(body, time, latitude, longitude, height=0.0, kind="APPARENT", source=BUILTIN,
           pressure=0.0, temperature=10.0):
     """The ``TopoPlace`` of SUN, MOON or a planet at a site (see the module's words), or of
-    the body of an orbit of its own (orbits.Orbit, smallbodies.py), row by row."""
+    the body of an orbit of its own (orbits.Orbit, smallbodies.py), row by row: the one
+    pipeline of bodies.place, observed from the site."""
     body = check_body(body) if isinstance(body, str) else body
     astrom, phpa = horizon.observer_astrom(time, latitude, longitude, height, pressure,
-                                     temperature, "ICRS")
-    site_p, site_v = site_state(time, latitude, longitude, height, astrom)
-    tt1, tt2 = time.tt()
-    tdb1, tdb2 = ephemeris.times_for(source, *np.broadcast_arrays(tt1, tt2))
-    tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
-    shape = np.broadcast_shapes(tdb1.shape, site_p.shape[:-1])
-    tdb1, tdb2 = np.broadcast_to(tdb1, shape), np.broadcast_to(tdb2, shape)
-    src = ephemeris.get(source)
-    (ep, ev), (sp, sv) = src.earth_and_sun(tdb1, tdb2)
-    obs_p, obs_v = ep + site_p, ev + site_v
-    obs_helio = obs_p - sp
-    obs_sun_distance = vectors.norm(obs_helio)
-    if isinstance(body, str) and body == "SUN":
-        geometric = sp - obs_p
-        distance = vectors.norm(geometric)
-        if kind == "GEOMETRIC":
-            return TopoPlace(geometric / distance[..., None], distance, astrom, phpa)
-        tau = distance * LIGHT_DAYS_PER_AU
-        u = vectors.unit(geometric - tau[..., None] * sv)
-        if kind == "APPARENT":
-            u = aberrate(u, obs_v, obs_sun_distance)
-        return TopoPlace(u, distance, astrom, phpa)
-    # The Earth's heliocentric state near the instants, for the Moon's geocentric theory.
-    near = (ep - sp, ev - sv, (tdb1, tdb2))
-
-    def vector_at(tau):
-        if isinstance(body, str):
-            helio = src.heliocentric(body, tdb1, tdb2 - tau, near)[0]
-        else:
-            helio = body.heliocentric(tdb1, tdb2 - tau)[0]
-        # The Sun's barycentric place at t - tau from its slow motion at t (as bodies.py).
-        return helio, helio + (sp - tau[..., None] * sv) - obs_p
-
-    tau = np.zeros(shape)
-    helio, vector = vector_at(tau)
-    if kind != "GEOMETRIC":
-        for _ in range(3):  # each round gains a factor v/c
-            tau = vectors.norm(vector) * LIGHT_DAYS_PER_AU
-            helio, vector = vector_at(tau)
-    distance = vectors.norm(vector)
-    u = vector / distance[..., None]
-    if kind == "APPARENT":
-        e = obs_helio / obs_sun_distance[..., None]
-        u = erfa.ld(1.0, u, vectors.unit(helio), e, obs_sun_distance, 1e-9)
-        u = aberrate(u, obs_v, obs_sun_distance)
-    return TopoPlace(u, distance, astrom, phpa)
+                                           temperature, "ICRS")
+    site = site_state(time, latitude, longitude, height, astrom)
+    tdb1, tdb2 = ephemeris.times_for(source, *np.broadcast_arrays(*time.tt()))
+    p = bodies.place(body, tdb1, tdb2, kind, source, observer=site)
+    return TopoPlace(p.direction, p.distance, astrom, phpa)
 
 
 def observed(p):
@@ -182,10 +136,8 @@ def moon_semidiameter_cells(time, latitude=None, longitude=None, height=0.0, sou
                             latitude_given=None, longitude_given=None):
     """The Moon's apparent semi-diameter in arcminutes: from the site in rows that give
     one (larger by up to 1.8 % with the Moon overhead), else from the Earth's centre."""
-    from .bodies import place_at_tt
-
     tt1, tt2 = np.broadcast_arrays(*time.tt())
-    d = place_at_tt("MOON", tt1, tt2, "GEOMETRIC", source).distance
+    d = bodies.place_at_tt("MOON", tt1, tt2, "GEOMETRIC", source).distance
     if latitude_given is None:
         latitude_given = np.full(np.shape(tt1), latitude is not None)
         longitude_given = np.full(np.shape(tt1), longitude is not None)
@@ -207,6 +159,5 @@ def moon_semidiameter_cells(time, latitude=None, longitude=None, height=0.0, sou
 def moon_parallax_cells(time, source=BUILTIN):
     """The Moon's equatorial horizontal parallax in arcminutes: asin(a / r), a the
     Earth's equatorial radius, r the geocentric distance."""
-    from .bodies import place_at_tt
-    d = place_at_tt("MOON", *time.tt(), "GEOMETRIC", source).distance * AU_KM
+    d = bodies.place_at_tt("MOON", *time.tt(), "GEOMETRIC", source).distance * AU_KM
     return np.degrees(np.arcsin(EARTH_RADIUS_KM / d)) * 60.0
