@@ -207,29 +207,25 @@ def _topo(orbit, time, latitude, longitude, height, kind, source, model, pressur
 def topo_ra_cells(orbit, time, latitude, longitude, height=0.0, frame="TRUE",
                   kind="APPARENT", source=BUILTIN, model=TWO_BODY):
     p = _topo(orbit, time, latitude, longitude, height, kind, source, model)
-    return frames.spherical(bodies.in_system(p.direction, EQUATORIAL_OF_FRAME[frame],
-                                             *time.tt()))[0]
+    return topocentric.equatorial(p, time, frame)[0]
 
 
 def topo_dec_cells(orbit, time, latitude, longitude, height=0.0, frame="TRUE",
                    kind="APPARENT", source=BUILTIN, model=TWO_BODY):
     p = _topo(orbit, time, latitude, longitude, height, kind, source, model)
-    return frames.spherical(bodies.in_system(p.direction, EQUATORIAL_OF_FRAME[frame],
-                                             *time.tt()))[1]
+    return topocentric.equatorial(p, time, frame)[1]
 
 
 def topo_alt_cells(orbit, time, latitude, longitude, height=0.0, pressure=0.0,
                    temperature=10.0, source=BUILTIN, model=TWO_BODY):
-    p = _topo(orbit, time, latitude, longitude, height, "APPARENT", source, model, pressure,
-              temperature)
-    return 90.0 - np.degrees(topocentric.observed(p)[1])
+    return topocentric.altitude(_topo(orbit, time, latitude, longitude, height, "APPARENT",
+                                      source, model, pressure, temperature))
 
 
 def topo_az_cells(orbit, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, source=BUILTIN, model=TWO_BODY):
-    p = _topo(orbit, time, latitude, longitude, height, "APPARENT", source, model, pressure,
-              temperature)
-    return frames.degrees_360(topocentric.observed(p)[0])
+    return topocentric.azimuth(_topo(orbit, time, latitude, longitude, height, "APPARENT",
+                                     source, model, pressure, temperature))
 
 
 def earth_dist_cells(orbit, time, source=BUILTIN, model=TWO_BODY):

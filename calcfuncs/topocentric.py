@@ -22,7 +22,7 @@ import numpy as np
 from . import bodies, ephemeris, frames, horizon, vectors
 from .errors import SkyError, rows_failing
 from .timescales import Instants
-from .vocabulary import AU_KM, AU_M, BUILTIN, DAY_SECONDS, EARTH_RADIUS_KM
+from .vocabulary import AU_KM, AU_M, BUILTIN, DAY_SECONDS, EARTH_RADIUS_KM, EQUATORIAL_OF_FRAME
 
 # The Moon's mean radius, 1737.4 km (IAU Working Group on Cartographic Coordinates; the
 # value skyfield's rising search uses too).
@@ -91,22 +91,33 @@ def observed(p):
 # ---- cell functions ------------------------------------------------------------------
 
 
-def _tt_axes(time, frame):
-    return frames.system_matrix(
-        {"TRUE": "EQUATORIAL TRUE", "DATE": "EQUATORIAL DATE", "J2000": "EQUATORIAL J2000",
-         "ICRS": "ICRS"}[frame], *time.tt())
+def equatorial(p, time, frame="TRUE"):
+    """(RA, Dec) in degrees of a ``TopoPlace`` on the equator of ``frame`` (TRUE, DATE,
+    J2000 or ICRS) at the instants."""
+    return frames.spherical(bodies.in_system(p.direction, EQUATORIAL_OF_FRAME[frame],
+                                             *time.tt()))
+
+
+def altitude(p):
+    """Altitude in degrees of a ``TopoPlace`` (refracted when it was made with a pressure)."""
+    return 90.0 - np.degrees(observed(p)[1])
+
+
+def azimuth(p):
+    """Azimuth in degrees of a ``TopoPlace``, from north through east, in [0, 360)."""
+    return frames.degrees_360(observed(p)[0])
 
 
 def ra_cells(body, time, latitude, longitude, height=0.0, frame="TRUE", kind="APPARENT",
              source=BUILTIN):
-    p = place(body, time, latitude, longitude, height, kind, source)
-    return frames.spherical(vectors.apply(_tt_axes(time, frame), p.direction))[0]
+    return equatorial(place(body, time, latitude, longitude, height, kind, source), time,
+                      frame)[0]
 
 
 def dec_cells(body, time, latitude, longitude, height=0.0, frame="TRUE", kind="APPARENT",
               source=BUILTIN):
-    p = place(body, time, latitude, longitude, height, kind, source)
-    return frames.spherical(vectors.apply(_tt_axes(time, frame), p.direction))[1]
+    return equatorial(place(body, time, latitude, longitude, height, kind, source), time,
+                      frame)[1]
 
 
 def distance_cells(body, time, latitude, longitude, height=0.0, unit="AU", source=BUILTIN):
@@ -116,14 +127,14 @@ def distance_cells(body, time, latitude, longitude, height=0.0, unit="AU", sourc
 
 def altitude_cells(body, time, latitude, longitude, height=0.0, pressure=0.0,
                    temperature=10.0, source=BUILTIN):
-    p = place(body, time, latitude, longitude, height, "APPARENT", source, pressure, temperature)
-    return 90.0 - np.degrees(observed(p)[1])
+    return altitude(place(body, time, latitude, longitude, height, "APPARENT", source,
+                          pressure, temperature))
 
 
 def azimuth_cells(body, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, source=BUILTIN):
-    p = place(body, time, latitude, longitude, height, "APPARENT", source, pressure, temperature)
-    return frames.degrees_360(observed(p)[0])
+    return azimuth(place(body, time, latitude, longitude, height, "APPARENT", source,
+                         pressure, temperature))
 
 
 def semidiameter_degrees(body, distance_au):

@@ -287,32 +287,20 @@ def _window(ra, dec, date, latitude, longitude, utc_offset, limit, limit_kind, t
 # ---- cell functions ------------------------------------------------------------------
 
 
-def window_start_cells(ra, dec, date, latitude, longitude, utc_offset=0.0, limit=30.0,
-                       limit_kind="ALTITUDE", twilight="ASTRONOMICAL", height=0.0,
-                       pm_ra=0.0, pm_dec=0.0, epoch=2000.0):
-    return _window(ra, dec, date, latitude, longitude, utc_offset, limit, limit_kind,
-                   twilight, height, pm_ra, pm_dec, epoch).start_times()
+def _window_cells(result):
+    """A cell function of the observing window: ``result`` reads it off a ``Window``."""
+    def cells(ra, dec, date, latitude, longitude, utc_offset=0.0, limit=30.0,
+              limit_kind="ALTITUDE", twilight="ASTRONOMICAL", height=0.0, pm_ra=0.0,
+              pm_dec=0.0, epoch=2000.0):
+        return result(_window(ra, dec, date, latitude, longitude, utc_offset, limit,
+                              limit_kind, twilight, height, pm_ra, pm_dec, epoch))
+    return cells
 
 
-def window_end_cells(ra, dec, date, latitude, longitude, utc_offset=0.0, limit=30.0,
-                     limit_kind="ALTITUDE", twilight="ASTRONOMICAL", height=0.0,
-                     pm_ra=0.0, pm_dec=0.0, epoch=2000.0):
-    return _window(ra, dec, date, latitude, longitude, utc_offset, limit, limit_kind,
-                   twilight, height, pm_ra, pm_dec, epoch).end_times()
-
-
-def window_hours_cells(ra, dec, date, latitude, longitude, utc_offset=0.0, limit=30.0,
-                       limit_kind="ALTITUDE", twilight="ASTRONOMICAL", height=0.0,
-                       pm_ra=0.0, pm_dec=0.0, epoch=2000.0):
-    return _window(ra, dec, date, latitude, longitude, utc_offset, limit, limit_kind,
-                   twilight, height, pm_ra, pm_dec, epoch).hours()
-
-
-def window_best_cells(ra, dec, date, latitude, longitude, utc_offset=0.0, limit=30.0,
-                      limit_kind="ALTITUDE", twilight="ASTRONOMICAL", height=0.0,
-                      pm_ra=0.0, pm_dec=0.0, epoch=2000.0):
-    return _window(ra, dec, date, latitude, longitude, utc_offset, limit, limit_kind,
-                   twilight, height, pm_ra, pm_dec, epoch).best_times()
+window_start_cells = _window_cells(Window.start_times)
+window_end_cells = _window_cells(Window.end_times)
+window_hours_cells = _window_cells(Window.hours)
+window_best_cells = _window_cells(Window.best_times)
 
 
 MOON_QUANTITIES = ("SEPARATION", "ALTITUDE", "ILLUMINATED")
@@ -328,8 +316,8 @@ def moon_at(quantity, ra, dec, tt1, tt2, latitude, longitude, height, dut1=0.0,
         from .moon import illuminated_cells
         return illuminated_cells(time, source)
     if quantity == "ALTITUDE":
-        p = topocentric.place("MOON", time, latitude, longitude, height, "APPARENT", source)
-        return 90.0 - np.degrees(topocentric.observed(p)[1])
+        return topocentric.altitude(topocentric.place("MOON", time, latitude, longitude,
+                                                      height, "APPARENT", source))
     p = topocentric.place("MOON", time, latitude, longitude, height, "ASTROMETRIC", source)
     target = erfa.s2c(np.radians(ra), np.radians(dec))
     return np.degrees(vectors.angle_between(p.direction, target))

@@ -256,6 +256,14 @@ LONGITUDE = Arg("longitude", "angle",
                 "Longitude of the site in degrees, EAST positive (west negative), or angle text.")
 HEIGHT = Arg("height", "number",
              "Height of the site above the WGS84 ellipsoid in metres. Default 0.", default=0.0)
+# A body's place seen from a site: the height matters for the parallax, and the air for
+# the refraction of altitudes (one wording for every family that takes them).
+PARALLAX_HEIGHT = Arg("height", "number", "Height of the site above the WGS84 ellipsoid in "
+                      "metres (for the parallax). Default 0.", default=0.0)
+PRESSURE = Arg("pressure", "real", "Air pressure at the site in hPa for refraction. "
+               "Default 0: no refraction (the geometric place).", default=0.0)
+TEMPERATURE = Arg("temperature", "real", "Air temperature at the site in degrees C, used "
+                  "with the pressure. Default 10.", default=10.0)
 
 # The place of a body (the Sun, the Moon, a planet): its frame and kind.
 PLACE_FRAME = Arg("frame", "choice", "TRUE (default: true equinox of date, as almanacs give "

@@ -1,17 +1,11 @@
 """Sidereal time and the horizon: hour angle, altitude and azimuth, air mass."""
 
 from .. import vocabulary as vocab
-from .common import (DUT1, HEIGHT, INSTANT, LATITUDE, LONGITUDE, SCALE, Arg, CellFunction, Family,
-                     angle_arg, choices_text, span_text)
+from .common import (DUT1, HEIGHT, INSTANT, LATITUDE, LONGITUDE, PRESSURE, SCALE, TEMPERATURE,
+                     Arg, CellFunction, Family, angle_arg, choices_text, span_text)
 
 _IAU2006 = span_text(vocab.IAU2006_YEARS)
 _OBSERVED_AT = Arg("time", "time", "The instant of the observation (as for SKY.JD).")
-_PRESSURE = Arg("pressure", "real",
-                "Air pressure at the site in hPa for refraction. Default 0: no refraction "
-                "(geometric place).", default=0.0)
-_TEMPERATURE = Arg("temperature", "real",
-                   "Air temperature at the site in degrees C, used with the pressure. Default 10.",
-                   default=10.0)
 _HORIZON_FRAME = Arg(
     "frame", "choice",
     "What the RA and Dec are: " + choices_text(vocab.HORIZON_FRAMES, {
@@ -41,8 +35,8 @@ _AT_SITE = _TARGET + (_OBSERVED_AT, LATITUDE, LONGITUDE, SCALE, HEIGHT, _HORIZON
 def _horizon_fn(name, method, summary, first_two, result, impl):
     return CellFunction(
         name=name, method=method, summary=summary,
-        args=first_two + (_OBSERVED_AT, LATITUDE, LONGITUDE, SCALE, HEIGHT, _PRESSURE,
-                          _TEMPERATURE, _HORIZON_FRAME, DUT1),
+        args=first_two + (_OBSERVED_AT, LATITUDE, LONGITUDE, SCALE, HEIGHT, PRESSURE,
+                          TEMPERATURE, _HORIZON_FRAME, DUT1),
         result=result, impl=impl, model=_HORIZON_MODEL,
     )
 

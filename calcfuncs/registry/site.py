@@ -2,18 +2,12 @@
 observing windows."""
 
 from .. import vocabulary as vocab
-from .common import (DUT1, LATITUDE, LONGITUDE, SCALE, SOURCE, Arg, CellFunction, Family,
-                     angle_arg, span_text, words)
+from .common import (DUT1, LATITUDE, LONGITUDE, PARALLAX_HEIGHT, PRESSURE, SCALE, SOURCE,
+                     TEMPERATURE, Arg, CellFunction, Family, angle_arg, span_text, words)
 
 _BODIES = ("SUN", "MOON") + vocab.PLANETS
 _BODY = Arg("body", "choice", f"The body: {words(_BODIES)} (Pluto only from a JPL kernel).",
             choices=_BODIES)
-_SITE_HEIGHT = Arg("height", "number", "Height of the site above the WGS84 ellipsoid in "
-                   "metres (for the parallax). Default 0.", default=0.0)
-_PRESSURE = Arg("pressure", "real", "Air pressure at the site in hPa for refraction. "
-                "Default 0: no refraction (the geometric place).", default=0.0)
-_TEMPERATURE = Arg("temperature", "real", "Air temperature at the site in degrees C, used "
-                   "with the pressure. Default 10.", default=10.0)
 _TOPO_FRAME = Arg("frame", "choice", "TRUE (default: true equator and equinox of date, as "
                   "almanacs give apparent places), DATE (mean of date), J2000 or ICRS.",
                   default="TRUE", choices=("TRUE", "DATE", "J2000", "ICRS"))
@@ -78,10 +72,10 @@ _RISE_MODEL = (
     "date's scale plus utc_offset; format the cell as a time."
 )
 _DAY_AT_SITE = (_LOCAL_DATE, LATITUDE, LONGITUDE, SCALE, _UTC_OFFSET)
-_BODY_RISE_ARGS = ((_BODY,) + _DAY_AT_SITE + (_SITE_HEIGHT, _HORIZON_HEIGHT, _LIMB,
-                                              _RISE_PRESSURE, _TEMPERATURE, SOURCE))
-_BODY_TRANSIT_ARGS = (_BODY,) + _DAY_AT_SITE + (_MERIDIAN, _SITE_HEIGHT, SOURCE)
-_STAR_RISE_ARGS = (_STAR + _DAY_AT_SITE + (_HORIZON_HEIGHT, _RISE_PRESSURE, _TEMPERATURE)
+_BODY_RISE_ARGS = ((_BODY,) + _DAY_AT_SITE + (PARALLAX_HEIGHT, _HORIZON_HEIGHT, _LIMB,
+                                              _RISE_PRESSURE, TEMPERATURE, SOURCE))
+_BODY_TRANSIT_ARGS = (_BODY,) + _DAY_AT_SITE + (_MERIDIAN, PARALLAX_HEIGHT, SOURCE)
+_STAR_RISE_ARGS = (_STAR + _DAY_AT_SITE + (_HORIZON_HEIGHT, _RISE_PRESSURE, TEMPERATURE)
                    + _PROPER_MOTION)
 _STAR_TRANSIT_ARGS = _STAR + _DAY_AT_SITE + (_MERIDIAN,) + _PROPER_MOTION
 _STAR_NOTE = ("The star's place from ERFA atciq (proper motion from its epoch, light "
@@ -94,7 +88,7 @@ _LIMIT_KIND = Arg("limit_kind", "choice", "ALTITUDE (default) or AIRMASS (Kasten
 _TWILIGHT = Arg("twilight", "choice", "How dark: ASTRONOMICAL (default: the Sun's centre "
                 "below -18 degrees), NAUTICAL (-12) or CIVIL (-6).",
                 default="ASTRONOMICAL", choices=("ASTRONOMICAL", "NAUTICAL", "CIVIL"))
-_WINDOW_ARGS = (_STAR + _DAY_AT_SITE + (_LIMIT, _LIMIT_KIND, _TWILIGHT, _SITE_HEIGHT)
+_WINDOW_ARGS = (_STAR + _DAY_AT_SITE + (_LIMIT, _LIMIT_KIND, _TWILIGHT, PARALLAX_HEIGHT)
                 + _PROPER_MOTION)
 _WINDOW_MODEL = (
     "The night of a local date runs from its local noon to the next. The window: the "
@@ -108,7 +102,7 @@ _MOON_QUANTITY = Arg("quantity", "choice", "SEPARATION (default: the Moon's topo
                      "topocentric altitude, unrefracted, degrees) or ILLUMINATED (the "
                      "fraction of its disc lit, 0 to 1).", default="SEPARATION",
                      choices=("SEPARATION", "ALTITUDE", "ILLUMINATED"))
-_DARK_ARGS = _DAY_AT_SITE + (_TWILIGHT, _SITE_HEIGHT)
+_DARK_ARGS = _DAY_AT_SITE + (_TWILIGHT, PARALLAX_HEIGHT)
 _DARK_MODEL = (
     "The night of a local date runs from its local noon to the next. Moon-free dark time: "
     "the Sun's centre below the twilight and the Moon's upper limb below the horizon (34' "
@@ -129,20 +123,20 @@ FAMILY = Family("site", "A night at a site: topocentric places, rising and setti
         name="SKY.TOPO.RA", method="skyTopoRa",
         summary="Right ascension of the Sun, the Moon or a planet as seen from a site "
         "(topocentric).",
-        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, _SITE_HEIGHT, _TOPO_FRAME, _TOPO_KIND,
+        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, _TOPO_FRAME, _TOPO_KIND,
               SOURCE, DUT1),
         result="degrees in [0, 360)", impl="topocentric:ra_cells", model=_TOPO_MODEL),
     CellFunction(
         name="SKY.TOPO.DEC", method="skyTopoDec",
         summary="Declination of the Sun, the Moon or a planet as seen from a site "
         "(topocentric).",
-        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, _SITE_HEIGHT, _TOPO_FRAME, _TOPO_KIND,
+        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, _TOPO_FRAME, _TOPO_KIND,
               SOURCE, DUT1),
         result="degrees", impl="topocentric:dec_cells", model=_TOPO_MODEL),
     CellFunction(
         name="SKY.TOPO.DIST", method="skyTopoDist",
         summary="Distance of the Sun, the Moon or a planet from a site (geometric).",
-        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, _SITE_HEIGHT,
+        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT,
               Arg("unit", "choice", "AU (default) or KM.", default="AU", choices=("AU", "KM")),
               SOURCE, DUT1),
         result="astronomical units or kilometres", impl="topocentric:distance_cells",
@@ -151,7 +145,7 @@ FAMILY = Family("site", "A night at a site: topocentric places, rising and setti
         name="SKY.TOPO.ALT", method="skyTopoAlt",
         summary="Altitude of the Sun, the Moon or a planet at a site and time, parallax "
         "included.",
-        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, _SITE_HEIGHT, _PRESSURE, _TEMPERATURE,
+        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, PRESSURE, TEMPERATURE,
               SOURCE, DUT1),
         result="degrees in [-90, 90] (refracted when a pressure is given)",
         impl="topocentric:altitude_cells", model=_ALTAZ_MODEL),
@@ -159,7 +153,7 @@ FAMILY = Family("site", "A night at a site: topocentric places, rising and setti
         name="SKY.TOPO.AZ", method="skyTopoAz",
         summary="Azimuth of the Sun, the Moon or a planet at a site and time, from north "
         "through east.",
-        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, _SITE_HEIGHT, _PRESSURE, _TEMPERATURE,
+        args=(_BODY, _AT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, PRESSURE, TEMPERATURE,
               SOURCE, DUT1),
         result="degrees in [0, 360), north 0, east 90", impl="topocentric:azimuth_cells",
         model=_ALTAZ_MODEL),
@@ -172,7 +166,7 @@ FAMILY = Family("site", "A night at a site: topocentric places, rising and setti
                   "Earth's centre.", default=None),
               Arg("longitude", "angle", "East longitude of the site. Default none: the "
                   "Earth's centre.", default=None),
-              _SITE_HEIGHT, SOURCE, DUT1),
+              PARALLAX_HEIGHT, SOURCE, DUT1),
         result="arcminutes", impl="topocentric:moon_semidiameter_cells",
         model="asin(1737.4 km / distance), the distance from the site or the Earth's centre "
         "(the Moon's radius: IAU mean). From a site the Moon looks up to 1.8 % larger "
@@ -219,7 +213,7 @@ FAMILY = Family("site", "A night at a site: topocentric places, rising and setti
         summary="The Moon at a target's best moment of a night: its separation from the "
         "target, its altitude or its illuminated fraction.",
         args=_STAR + _DAY_AT_SITE + (_MOON_QUANTITY, _LIMIT, _LIMIT_KIND, _TWILIGHT,
-                                     _SITE_HEIGHT),
+                                     PARALLAX_HEIGHT),
         result="degrees, or a fraction 0 to 1", impl="windows:window_moon_cells",
         model="The Moon topocentric (as SKY.TOPO.ALT, astrometric against the catalogue "
         "place for the separation). " + _WINDOW_MODEL, fills_down="date"),
@@ -228,7 +222,7 @@ FAMILY = Family("site", "A night at a site: topocentric places, rising and setti
         summary="Angular distance of a target from the Moon as seen from a site "
         "(topocentric).",
         args=(angle_arg("ra", "RA of the target (ICRS)"), angle_arg("dec", "Dec of the "
-              "target (ICRS)"), _AT, LATITUDE, LONGITUDE, SCALE, _SITE_HEIGHT, SOURCE, DUT1),
+              "target (ICRS)"), _AT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, SOURCE, DUT1),
         result="degrees in [0, 180]", impl="windows:moon_separation_cells",
         model="The Moon's topocentric astrometric place against the catalogue direction, "
         "both on the ICRS axes (up to 1 degree from the geocentric separation). "

@@ -1,8 +1,8 @@
 """Minor planets and comets from their orbital elements (SKY.ORBIT.*)."""
 
 from .. import vocabulary as vocab
-from .common import (DUT1, EVENT_RESULT_SCALE, INSTANT, LATITUDE, LONGITUDE, PLACE_KIND, SCALE,
-                     SOURCE, SOURCE_NOTE, Arg,
+from .common import (DUT1, EVENT_RESULT_SCALE, INSTANT, LATITUDE, LONGITUDE, PARALLAX_HEIGHT,
+                     PLACE_KIND, PRESSURE, SCALE, SOURCE, SOURCE_NOTE, TEMPERATURE, Arg,
                      CellFunction, Family, span_text)
 
 _ORBIT = Arg("orbit", "text",
@@ -71,12 +71,6 @@ _PLAIN_ARGS = (_ORBIT, INSTANT, SCALE, SOURCE, _MODEL)
 
 
 # Seen from a site: the place as SKY.TOPO.RA and its kin give it for the planets.
-_HEIGHT = Arg("height", "number", "Height of the site above the WGS84 ellipsoid in metres "
-              "(for the parallax). Default 0.", default=0.0)
-_PRESSURE = Arg("pressure", "real", "Air pressure at the site in hPa for refraction. Default "
-                "0: no refraction.", default=0.0)
-_TEMPERATURE = Arg("temperature", "real", "Air temperature at the site in degrees C, used "
-                   "with the pressure. Default 10.", default=10.0)
 _TOPOCENTRIC = (
     "Seen from the site: the site (WGS84) is added to the Earth's barycentric state and the "
     "light time, the Sun's light deflection and the aberration (annual plus diurnal) are "
@@ -204,19 +198,19 @@ FAMILY = Family("smallbodies", "Minor planets and comets from their orbital elem
         result_kind="datetime"),
     _fn("SKY.ORBIT.TOPO.RA", "skyOrbitTopoRa", "Right ascension of the body of an orbit "
         "seen from a site.", "degrees in [0, 360)", "smallbodies:topo_ra_cells",
-        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, _HEIGHT, _EQ_FRAME, PLACE_KIND, SOURCE,
+        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, _EQ_FRAME, PLACE_KIND, SOURCE,
          _MODEL, DUT1), _TOPOCENTRIC + " " + _GEOCENTRIC),
     _fn("SKY.ORBIT.TOPO.DEC", "skyOrbitTopoDec", "Declination of the body of an orbit seen "
         "from a site.", "degrees", "smallbodies:topo_dec_cells",
-        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, _HEIGHT, _EQ_FRAME, PLACE_KIND, SOURCE,
+        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, _EQ_FRAME, PLACE_KIND, SOURCE,
          _MODEL, DUT1), _TOPOCENTRIC + " " + _GEOCENTRIC),
     _fn("SKY.ORBIT.TOPO.ALT", "skyOrbitTopoAlt", "Altitude of the body of an orbit at a site "
         "and time, parallax included.", "degrees in [-90, 90]", "smallbodies:topo_alt_cells",
-        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, _HEIGHT, _PRESSURE, _TEMPERATURE,
+        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, PRESSURE, TEMPERATURE,
          SOURCE, _MODEL, DUT1), _TOPOCENTRIC + " " + _GEOCENTRIC),
     _fn("SKY.ORBIT.TOPO.AZ", "skyOrbitTopoAz", "Azimuth of the body of an orbit at a site "
         "and time (from north through east).", "degrees in [0, 360)",
         "smallbodies:topo_az_cells",
-        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, _HEIGHT, _PRESSURE, _TEMPERATURE,
+        (_ORBIT, INSTANT, LATITUDE, LONGITUDE, SCALE, PARALLAX_HEIGHT, PRESSURE, TEMPERATURE,
          SOURCE, _MODEL, DUT1), _TOPOCENTRIC + " " + _GEOCENTRIC),
 ))
