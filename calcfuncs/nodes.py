@@ -47,23 +47,37 @@ class Nodes:
     holds the distinct node instants, ``index`` (rows x NODES) each row's nodes among
     them, ``origin`` each row's first node."""
 
-    def __init__(self, jd1, jd2):
+    def __init__(self, jd1, jd2, cells=None):
         self.shape = np.shape(jd1)
         self.jd1 = np.ravel(jd1)
         self.jd2 = np.ravel(jd2)
-        cell = np.floor((self.jd1 + self.jd2) / SPACING)
-        cells, inverse = np.unique(cell, return_inverse=True)
-        # The distinct nodes: every cell's six, merged.
-        around = (cells[:, None] + np.arange(-BEFORE, NODES - BEFORE)[None, :]) * SPACING
+        if cells is None:
+            cells = _half_days(self.jd1, self.jd2)
+        cell = cells[0][cells[1]]
+        # The distinct nodes: every half day's six, merged.
+        around = (cells[0][:, None] + np.arange(-BEFORE, NODES - BEFORE)[None, :]) * SPACING
         self.unique, where = np.unique(around, return_inverse=True)
-        self.index = where.reshape(around.shape)[inverse]
+        self.index = where.reshape(around.shape)[cells[1]]
         self.origin = (cell - BEFORE) * SPACING
+        self._weights = None
 
     def interpolate(self, values):
         """Per row, the polynomial through its nodes' ``values`` (distinct nodes x k)."""
-        x = ((self.jd1 - self.origin) + self.jd2) / SPACING
-        out = np.einsum("mk,mkc->mc", weights(x), values[self.index])
+        if self._weights is None:  # the same for every quantity over these instants
+            self._weights = weights(((self.jd1 - self.origin) + self.jd2) / SPACING)
+        out = np.einsum("mk,mkc->mc", self._weights, values[self.index])
         return out.reshape(self.shape + values.shape[1:])
+
+
+def _half_days(jd1, jd2):
+    """(distinct half days, each row's index among them) of flat two-part JDs."""
+    return np.unique(np.floor((jd1 + jd2) / SPACING), return_inverse=True)
+
+
+# The last dense column's nodes: the nutation and the Earth's state of one column are
+# asked for the same instants (TT, which the built-in theories take for TDB), and
+# finding the nodes (two sorts) costs as much as interpolating.
+_LAST = [None]
 
 
 def dense(jd1, jd2):
@@ -71,14 +85,23 @@ def dense(jd1, jd2):
     n = np.size(jd1)
     if n < 4 * DENSE_RATIO * NODES:
         return None
-    t = np.ravel(jd1) + np.ravel(jd2)
-    if not np.all(np.isfinite(t)):
+    flat1, flat2 = np.ravel(jd1), np.ravel(jd2)
+    last = _LAST[0]
+    if (last is not None and last.shape == np.shape(jd1) and np.array_equal(last.jd1, flat1)
+            and np.array_equal(last.jd2, flat2)):
+        return last
+    if not np.all(np.isfinite(flat1 + flat2)):
         return None
     # A cheap first look: the distinct half days bound the distinct nodes from below.
-    if np.unique(np.floor(t / SPACING)).size * DENSE_RATIO > n:
+    cells = _half_days(flat1, flat2)
+    if cells[0].size * DENSE_RATIO > n:
         return None
-    nodes = Nodes(jd1, jd2)
-    return nodes if nodes.unique.size * DENSE_RATIO <= n else None
+    nodes = Nodes(flat1.copy(), flat2.copy(), cells)
+    nodes.shape = np.shape(jd1)
+    if nodes.unique.size * DENSE_RATIO > n:
+        return None
+    _LAST[0] = nodes
+    return nodes
 
 
 def over_nodes(compute, jd1, jd2):
