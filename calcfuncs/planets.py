@@ -16,7 +16,7 @@ import numpy as np
 from . import bodies, ephemeris, frames, vectors
 from .errors import SkyError, rows_failing
 from .events import crossings, wrap180
-from .timescales import DateTimes, erfa_quietly
+from .timescales import DateTimes
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 INNER = ("MERCURY", "VENUS")
@@ -152,8 +152,8 @@ def _rough_places(body, tt1, tt2):
     ERFA plan94 alone (the Earth-Moon barycentre for the Earth, no light time, no
     aberration): within a few hundredths of a degree of the apparent places in longitude
     difference and elongation.  For locating events only."""
-    planet = erfa_quietly(erfa.plan94, tt1, tt2, ephemeris.PLAN94_NUMBERS[body])["p"]
-    earth = erfa_quietly(erfa.plan94, tt1, tt2, 3)["p"]
+    planet = erfa.ufunc.plan94(tt1, tt2, ephemeris.PLAN94_NUMBERS[body])[0]["p"]
+    earth = erfa.ufunc.plan94(tt1, tt2, 3)[0]["p"]  # statuses: warnings only (see ephemeris)
     to_ecliptic = frames.system_matrix("ECLIPTIC J2000")
     return vectors.apply(to_ecliptic, planet - earth), vectors.apply(to_ecliptic, -earth)
 
