@@ -595,6 +595,13 @@ def _kernel_stamps(fn, raw_args):
                  if k < len(raw_args) and isinstance(raw_args[k], str))
 
 
+def _cell_key(fn, raw_args, null_date, stamps):
+    """The key of a kept answer: everything that changes it.  Each argument with its
+    type, since 1, 1.0 and True are one key but not one input; the null date; what the
+    kernels named hold now (_kernel_stamps)."""
+    return (fn.method, tuple(zip(map(type, raw_args), raw_args)), tuple(null_date), stamps)
+
+
 def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     """The value a cell shows: a number, a text, or a tuple of row tuples for ranges.
 
@@ -605,9 +612,7 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     key = None
     types = tuple(map(type, raw_args))
     if tuple not in types and list not in types and _hashable(raw_args):
-        # With each argument's type, since 1, 1.0 and True are one key but not one input.
-        key = (fn.method, tuple(zip(types, raw_args)), tuple(null_date),
-               _kernel_stamps(fn, raw_args))
+        key = _cell_key(fn, raw_args, null_date, _kernel_stamps(fn, raw_args))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
             return hit
@@ -647,11 +652,11 @@ def _fill_down(fn, raw_args, null_date, key):
     k = next(i for i, a in enumerate(fn.args) if a.name == fn.fills_down)
     if k >= len(raw_args) or type(raw_args[k]) is not float:
         return
-    typed = list(key[1])
+    moved = list(raw_args)
 
-    def key_at(value):
-        typed[k] = (float, value)
-        return (key[0], tuple(typed)) + key[2:]
+    def key_at(value):  # the key of the cell whose stepped argument holds ``value``
+        moved[k] = value
+        return _cell_key(fn, moved, null_date, key[3])
 
     here = raw_args[k]
     if key_at(here - 1.0) in _SINGLE_CELL_CACHE:
