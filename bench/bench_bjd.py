@@ -10,12 +10,13 @@ between the three (in microseconds).  A measurement, not a test.
 import argparse
 import os
 import sys
-import time
 
 import erfa
 import numpy as np
 
 sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), ".."))
+from timing import best  # noqa: E402
+
 from calcfuncs import cells  # noqa: E402
 from calcfuncs.cells import evaluate  # noqa: E402
 
@@ -68,25 +69,15 @@ def astropy_bjd(mjd, ra, dec):
     return (t.tdb + t.light_travel_time(c, "barycentric", ephemeris="builtin")).mjd
 
 
-def best_of(fn, repeat, *args):
-    best, result = None, None
-    for _ in range(repeat):
-        start = time.perf_counter()
-        result = fn(*args)
-        took = time.perf_counter() - start
-        best = took if best is None else min(best, took)
-    return best, result
-
-
 def main(argv=None):
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--rows", type=int, default=10_000)
     ap.add_argument("--repeat", type=int, default=3)
     args = ap.parse_args(argv)
     mjd, ra, dec = invented_log(args.rows)
-    t_core, r_core = best_of(core, args.repeat, mjd, ra, dec)
-    t_rows, r_rows = best_of(per_row_pyerfa, 1, mjd, ra, dec)
-    t_astropy, r_astropy = best_of(astropy_bjd, args.repeat, mjd, ra, dec)
+    t_core, r_core = best(core, args.repeat, mjd, ra, dec)
+    t_rows, r_rows = best(per_row_pyerfa, 1, mjd, ra, dec)
+    t_astropy, r_astropy = best(astropy_bjd, args.repeat, mjd, ra, dec)
     us = 86400e6
     print(f"rows: {args.rows}")
     print(f"core column call (SKY.BJD.TDB):   {t_core:8.3f} s  {t_core / args.rows * 1e6:7.1f} us/row")

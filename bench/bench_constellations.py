@@ -20,7 +20,6 @@ import argparse
 import json
 import os
 import sys
-import time
 import warnings
 
 import numpy as np
@@ -28,16 +27,9 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
+from timing import best  # noqa: E402
+
 from calcfuncs import cells, constellations, frames  # noqa: E402
-
-
-def best(fn, repeat=3):
-    times, out = [], None
-    for _ in range(repeat):
-        t0 = time.perf_counter()
-        out = fn()
-        times.append(time.perf_counter() - t0)
-    return min(times), out
 
 
 def main(argv=None):

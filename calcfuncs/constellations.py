@@ -14,7 +14,7 @@ loads; a direction is then two binary searches and one table read.
 import erfa
 import numpy as np
 
-from . import bodies, ephemeris, frames, vectors
+from . import bodies, frames, vectors
 from .constellation_bounds import NAMES, STRIPS
 from .vocabulary import BUILTIN
 

@@ -23,7 +23,6 @@ from .calendars import (
 )
 from .errors import SkyError
 from .timescales import (
-    GREGORIAN_START_JD,
     JD_LIMIT,
     Instants,
     before_1960_message,

@@ -17,7 +17,7 @@ import erfa
 import numpy as np
 
 from .errors import SkyError, rows_failing
-from .vocabulary import (DELTA_T_MODELS, ERFA_SCALES, J2000_JD, JULIAN_YEAR_DAYS, MJD_ZERO,
+from .vocabulary import (DELTA_T_MODELS, ERFA_SCALES, J2000_JD, JULIAN_YEAR_DAYS,
                          SCALE_WORDS, UTC_START_JD, years_text)
 
 # Gregorian calendar reform: 1582 October 15 (Gregorian) is JD 2299160.5.
