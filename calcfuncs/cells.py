@@ -52,6 +52,14 @@ def _as_grid(raw):
     """A range as a 2-D object array; ``None`` for a single value."""
     if not isinstance(raw, (tuple, list)):
         return None
+    try:  # the usual range, one column: unpacking each row is three times numpy's walk
+        column = [value for (value,) in raw]
+    except (TypeError, ValueError):
+        pass
+    else:
+        grid = np.empty((len(column), 1), dtype=object)
+        grid[:, 0] = column
+        return grid
     try:
         grid = np.array(raw, dtype=object)  # C speed for the usual tuple of row tuples
         if grid.ndim == 2:
@@ -145,8 +153,11 @@ def _read_floats(values, what, finite_words, parse_text):
     raises a ``SkyError`` worded for the cell), each bad row with its own message."""
     fast = _all_floats(values)
     if fast is not None:
+        bad = ~np.isfinite(fast)
+        if not bad.any():  # the usual column: no message, and no array of Nones made
+            return fast, None
         messages = np.full(values.size, None, dtype=object)
-        messages[~np.isfinite(fast)] = f"{what} must be a finite {finite_words}"
+        messages[bad] = f"{what} must be a finite {finite_words}"
         return fast, messages
     out = np.zeros(values.size)
     messages = np.full(values.size, None, dtype=object)
@@ -187,10 +198,11 @@ _NOT_GIVEN = {"time": f"JD {J2000_JD}", "number": 0.0, "angle": 0.0}
 
 def _passed_on(values):
     """Messages for rows whose input is itself a #SKY: message from another cell: the
-    first problem is passed on as it is, instead of 'is not an angle'."""
-    out = np.full(len(values), None, dtype=object)
+    first problem is passed on as it is, instead of 'is not an angle'.  None when no row
+    holds text (the usual column of numbers)."""
     if str not in set(map(type, values)):  # the type walk in C
-        return out
+        return None
+    out = np.full(len(values), None, dtype=object)
     for i, v in enumerate(values):
         if type(v) is str and v.startswith(PREFIX):
             out[i] = v[len(PREFIX):]
@@ -198,7 +210,9 @@ def _passed_on(values):
 
 
 def _merge(messages, new):
-    """Keep each row's first message."""
+    """Keep each row's first message (``new`` None: no message in any row)."""
+    if new is None:
+        return
     take = np.not_equal(new, None) & np.equal(messages, None)
     messages[take] = new[take]
 
@@ -227,14 +241,22 @@ def _date_time_values(result, null_jd):
     return values, in_leap & ~has_words
 
 
-def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
-    """Results (object array) for rows that share their options.
+def _one(value):
+    """One cell's value for all rows, as a column of one row (spread by _compute_group)."""
+    column = np.empty(1, dtype=object)
+    column[0] = value
+    return column
 
-    Arguments named in ``shared`` came from one cell for every row: they are read
-    once and their value (or message) spread over the rows.
+
+def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
+    """Results (object array) for ``n`` rows that share their options.
+
+    Arguments named in ``shared`` came from one cell for every row (a column of one
+    row): they are read once and their value (or message) spread over the rows.
     """
     func, params = _impl(fn)
-    n = len(next(iter(rows.values()))) if rows else 1
+    if n is None:
+        n = len(next(iter(rows.values()))) if rows else 1
     if not any(a.kind in registry.ROW_KINDS for a in fn.args):
         kwargs = {k: v for k, v in options.items() if k in params}
         try:
@@ -245,6 +267,7 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
         except SkyError as err:
             return np.full(n, PREFIX + str(err), dtype=object)
     messages = np.full(n, None, dtype=object)
+    clean = True
     columns = {}
     for arg in fn.args:
         if arg.kind not in registry.ROW_KINDS:
@@ -258,7 +281,7 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
             # Left out means "not given" (a time only some systems need, a site that is
             # the geocentre): the core gets the mask and refuses rows where it matters;
             # the rows compute on a placeholder (J2000.0, or 0).
-            given = np.array([v is not None for v in values], dtype=bool)
+            given = np.not_equal(values, None).astype(bool)
             columns[arg.name + "_given"] = given
             values = np.where(given, values, _NOT_GIVEN[arg.kind])
         elif arg.optional:
@@ -274,8 +297,11 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
             columns[arg.name], msgs = _read_angles(values, arg.name)
         else:
             columns[arg.name], msgs = _read_texts(values, arg.name)
-        _merge(msgs_passed, msgs)
-        if spread:
+        if msgs_passed is None:
+            msgs_passed = msgs
+        else:
+            _merge(msgs_passed, msgs)
+        if spread and msgs_passed is not None:
             msgs_passed = np.full(n, msgs_passed[0], dtype=object)
             col = columns[arg.name]
             if arg.kind == "time":
@@ -284,10 +310,13 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
                 columns[arg.name] = np.full(n, col[0], dtype=col.dtype)
             if arg.name + "_given" in columns:
                 columns[arg.name + "_given"] = np.full(n, columns[arg.name + "_given"][0])
-        _merge(messages, msgs_passed)
+        if msgs_passed is not None:
+            _merge(messages, msgs_passed)
+            clean = False
 
     results = np.full(n, None, dtype=object)
-    good = np.equal(messages, None)
+    # ``clean``: no row has a message yet (the usual column), so no walk of the messages.
+    good = np.ones(n, dtype=bool) if clean else np.equal(messages, None)
     for _attempt in range(8):
         idx = np.flatnonzero(good)
         if idx.size == 0:
@@ -311,7 +340,9 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
             leap = None
             if isinstance(out, DateTimes):
                 out, leap = _date_time_values(out, null_jd)
-                messages[idx[leap]] = LEAP_SECOND_MESSAGE
+                if np.any(leap):
+                    messages[idx[leap]] = LEAP_SECOND_MESSAGE
+                    clean = False
             out = np.asarray(out)
         except RowErrors as err:
             row_messages = err.messages.ravel()
@@ -320,25 +351,32 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset()):
             failing = np.array([m is not None for m in row_messages], dtype=bool)
             messages[idx[failing]] = row_messages[failing]
             good[idx[failing]] = False
+            clean = False
             continue
         except SkyError as err:
             messages[idx] = str(err)
+            clean = False
             break
         out = out.reshape(-1)
         if out.dtype.kind == "f":
             finite = np.isfinite(out)
             if leap is not None:
                 finite |= leap  # their NaN is explained by the leap-second message
-            as_objects = np.empty(out.size, dtype=object)
-            as_objects[:] = out.tolist()  # Python floats, as UNO wants them
-            results[idx[finite]] = as_objects[finite]
-            messages[idx[~finite]] = "no result for these arguments"
+            if idx.size == n and finite.all():
+                results[:] = out.tolist()  # Python floats, as UNO wants them
+            else:
+                as_objects = np.empty(out.size, dtype=object)
+                as_objects[:] = out.tolist()
+                results[idx[finite]] = as_objects[finite]
+                messages[idx[~finite]] = "no result for these arguments"
+                clean = False
         else:
             for k, i in enumerate(idx):
                 results[i] = out[k] if isinstance(out[k], str) else float(out[k])
         break
-    for i in np.flatnonzero(np.not_equal(messages, None)):
-        results[i] = PREFIX + messages[i]
+    if not clean:
+        for i in np.flatnonzero(np.not_equal(messages, None)):
+            results[i] = PREFIX + messages[i]
     return results
 
 
@@ -495,14 +533,8 @@ def _evaluate(fn, raw_args, null_date):
         raise SkyError(f"the ranges have different shapes ({dims}); give ranges of one shape")
     shape = shapes.pop()
     n = shape[0] * shape[1]
-    flat = []
-    for raw, grid in zip(raw_args, grids):
-        if grid is None:
-            column = np.empty(n, dtype=object)
-            column[:] = [raw] * n
-        else:
-            column = grid.reshape(-1)
-        flat.append(column)
+    # Each range's values row by row; one value for all rows stays one value (None here).
+    flat = [None if grid is None else grid.reshape(-1) for grid in grids]
 
     out = np.full(n, "", dtype=object)
     first_row_arg = next(
@@ -525,8 +557,10 @@ def _evaluate(fn, raw_args, null_date):
             read[memo] = value
         return value
 
-    if first_row_arg is not None:  # an empty row of a column call stays empty
-        filled = np.not_equal(flat[first_row_arg], None)
+    if first_row_arg is not None and flat[first_row_arg] is not None:
+        filled = np.not_equal(flat[first_row_arg], None)  # an empty row stays empty
+    elif first_row_arg is not None:
+        filled = np.full(n, raw_args[first_row_arg] is not None)
     else:
         filled = np.ones(n, dtype=bool)
     if not any(grids[k] is not None for k, _ in option_args):
@@ -545,7 +579,7 @@ def _evaluate(fn, raw_args, null_date):
         key = [None] * len(fn.args)
         problem = None
         for k, a in option_args:
-            value = option(k, a, flat[k][i])
+            value = option(k, a, raw_args[k] if flat[k] is None else flat[k][i])
             if isinstance(value, SkyError):
                 problem = value
                 break
@@ -559,13 +593,18 @@ def _evaluate(fn, raw_args, null_date):
     for key, members in groups.items():
         members = np.array(members)
         options = {a.name: key[k] for k, a in enumerate(fn.args) if a.kind in registry.OPTION_KINDS}
-        rows = {
-            a.name: flat[k][members] for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS
-        }
+        rows = {a.name: (_one(raw_args[k]) if flat[k] is None else flat[k][members])
+                for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS}
         shared = frozenset(a.name for k, a in enumerate(fn.args)
                            if a.kind in registry.ROW_KINDS and grids[k] is None)
-        out[members] = _compute_group(fn, rows, options, null_jd, shared)
+        found = _compute_group(fn, rows, options, null_jd, shared, members.size)
+        if members.size == n:  # the usual column: one group, every row filled
+            out = found
+        else:
+            out[members] = found
 
+    if shape[1] == 1:  # one column: the row tuples made by zip, in C
+        return tuple(zip(out.tolist()))
     return tuple(map(tuple, out.reshape(shape).tolist()))
 
 
