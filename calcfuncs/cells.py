@@ -383,7 +383,7 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
 def _evaluate_single(fn, raw_args, null_date):
     """One cell: the same path as a column of one row, without the grid bookkeeping."""
     options, rows = {}, {}
-    plain = fn.result_kind == "number"
+    plain = fn.result_kind in ("number", "datetime")
     for a, raw in zip(fn.args, raw_args):
         if a.kind in registry.OPTION_KINDS:
             options[a.name] = _read_option(a, raw)
@@ -405,7 +405,7 @@ _PLAIN_KINDS = ("number", "angle", "time")
 
 def _plain_single(fn, rows, options, null_jd):
     """The usual single cell, its row arguments all numbers (a value, an angle, a
-    date-time value) and its result a number: the core called on one-element arrays
+    date-time value) and its result a number or a date-time value: the core called on one-element arrays
     as the general path calls it, without that path's checks for texts, blanks and
     messages from other cells.  None where anything is unusual (a message to give, a
     result that is not one finite number): the general path then says what it says."""
@@ -433,7 +433,11 @@ def _plain_single(fn, rows, options, null_jd):
     except (RowErrors, SkyError):
         return None
     if isinstance(out, DateTimes):
-        return None
+        if out.words is not None:
+            return None
+        out, in_leap = _date_time_values(out, null_jd)
+        if np.any(in_leap):
+            return None
     out = np.asarray(out).reshape(-1)
     if out.size != 1 or out.dtype.kind != "f" or not np.isfinite(out[0]):
         return None

@@ -368,3 +368,80 @@ def rising_and_falling(f, start, end, step, tolerance=1e-8, jump=None, extrema=F
 def wrap180(degrees):
     """Angles in [-180, 180), for functions whose zero is an angle reached."""
     return np.mod(np.asarray(degrees) + 180.0, 360.0) - 180.0
+
+
+# ---- the next event after an instant, from canonical windows ---------------------------
+
+# Searches kept across calls: (what, window start) -> the roots found in that window.
+# A sheet asks "the next full Moon after" each instant of a log, one cell at a time; the
+# instants of one block share a window whose roots are a function of the window alone,
+# so every cell gets the answer a whole-column call gives, whichever cell came first.
+WINDOW_CACHE_SIZE = 20_000
+_WINDOWS = {}
+
+
+def first_after(search, tt1, tt2, block, reach, keys):
+    """Per row: (jd1, jd2, found) of the first root later than the row's TT instant
+    (``tt1 + tt2``), found by ``search(starts, ends, rep)`` (``Roots`` whose rows index
+    the windows; ``rep``, a row of each window, for per-row parameters).
+
+    A row's window starts on the ``block``-day grid at or below its instant and spans
+    ``block + reach`` days, so it holds every root within ``reach`` days after the
+    instant.  Rows with one window and one entry of ``keys`` (a hashable per row: the
+    event and whatever else moves its roots) share one search, kept across calls.  A
+    ``RowErrors`` from the search (a window beyond a source's years) is given to the rows
+    of the windows that failed, the others searched without them."""
+    tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
+    n = tt1.size
+    starts = np.floor((tt1 + tt2) / block) * block
+    ids = {}
+    window_of = np.empty(n, dtype=int)
+    for i, wk in enumerate(zip(keys, starts.tolist())):
+        window_of[i] = ids.setdefault(wk, len(ids))
+    windows = list(ids)
+    rep = np.zeros(len(windows), dtype=int)
+    rep[window_of[::-1]] = np.arange(n)[::-1]  # the first row of each window
+    found = [_WINDOWS.get(w) for w in windows]
+    messages = [None] * len(windows)
+    todo = [k for k, f in enumerate(found) if f is None]
+    while todo:
+        s = np.array([windows[k][1] for k in todo])
+        try:
+            roots = search(s, s + (block + reach), rep[todo])
+        except RowErrors as err:
+            per_window = np.ravel(err.messages)
+            if per_window.size != len(todo):
+                raise
+            failing = [k for k, m in zip(todo, per_window) if m is not None]
+            for k, m in zip(todo, per_window):
+                messages[k] = m
+            todo = [k for k in todo if messages[k] is None]
+            if not failing:
+                raise
+            continue
+        edges = np.searchsorted(roots.row, np.arange(len(todo) + 1))
+        for j, k in enumerate(todo):
+            found[k] = (roots.jd1[edges[j]:edges[j + 1]], roots.jd2[edges[j]:edges[j + 1]])
+            if len(_WINDOWS) >= WINDOW_CACHE_SIZE:
+                del _WINDOWS[next(iter(_WINDOWS))]
+            _WINDOWS[windows[k]] = found[k]
+        break
+    # Each window's roots as a row of a padded table, then every row at once: its
+    # window's roots later than its instant, and the first of them.
+    width = max([1] + [f[0].size for f in found if f is not None])
+    r1 = np.full((len(windows), width), np.nan)
+    r2 = np.zeros((len(windows), width))
+    for k, f in enumerate(found):
+        if f is not None:
+            r1[k, :f[0].size], r2[k, :f[0].size] = f
+    c1, c2 = r1[window_of], r2[window_of]
+    later = (c1 - tt1[:, None]) + (c2 - tt2[:, None]) > 0.0  # NaN padding: False
+    first = np.argmax(later, axis=1)
+    got = later[np.arange(n), first]
+    pick = np.arange(n)
+    jd1 = np.where(got, c1[pick, first], np.nan)
+    jd2 = np.where(got, c2[pick, first], np.nan)
+    failed = np.array([messages[k] for k in window_of], dtype=object)
+    if np.any(np.not_equal(failed, None)):
+        raise RowErrors(failed)
+    return jd1, jd2, got

@@ -13,7 +13,8 @@ import numpy as np
 
 from . import bodies, ephemeris, frames, vectors
 from .errors import rows_failing
-from .events import crossings, wrap180
+from .ephemeris import content_stamp
+from .events import crossings, first_after, wrap180
 from .sun import sun_gcrs, sun_in
 from .timescales import DateTimes
 from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM, J2000_JD
@@ -156,11 +157,13 @@ def _phase_crossings(target, start, end, source=BUILTIN):
 
 def next_phase_cells(time, phase="NEW", result_scale=None, source=BUILTIN):
     """The first instant after ``time`` of a phase of the Moon."""
-    tt1, tt2 = time.tt()
-    tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
-    jd = tt1 + tt2  # where the sampling starts: the answers keep two parts
-    roots = _phase_crossings(PHASES[phase], jd, jd + 32.0, source)
-    jd1, jd2, found = roots.first(jd.size, roots.after(tt1, tt2))
+    tt1, tt2 = (np.ravel(t) for t in np.broadcast_arrays(*time.tt()))
+    target = PHASES[phase]
+    # Windows on a 4-day grid reaching a lunation and a bit past: the phases of one
+    # window are searched once for every instant in its block (events.first_after).
+    keys = [("MOON PHASE", target, source, content_stamp(source))] * tt1.size
+    jd1, jd2, found = first_after(lambda s, e, _rep: _phase_crossings(target, s, e, source),
+                                  tt1, tt2, 30.0, 32.0, keys)
     if not np.all(found):
         raise rows_failing(~found, "no such phase found in the month after")
     return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)

@@ -15,7 +15,7 @@ import numpy as np
 
 from . import bodies, ephemeris, frames, vectors
 from .errors import SkyError, rows_failing
-from .events import crossings, wrap180
+from .events import crossings, first_after, wrap180
 from .timescales import DateTimes
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
@@ -214,15 +214,17 @@ def next_event_cells(body, time, event="OPPOSITION", result_scale=None, source=B
     """The first instant after ``time`` of an opposition, a conjunction with the Sun or a
     greatest elongation."""
     f, rough, direction = _event_search(body, event, source)
-    tt1, tt2 = time.tt()
-    tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
-    jd = tt1 + tt2  # where the sampling starts: the answers keep two parts
+    tt1, tt2 = (np.ravel(t) for t in np.broadcast_arrays(*time.tt()))
     window = SYNODIC_DAYS[body] * 1.1 + 5.0
     # Five-day samples: the difference moves under 3 degrees a day for every planet,
     # and its zeros are weeks apart (Mercury's conjunctions at least 40 days); the rough
-    # places tell which samples to take.
-    roots = crossings(f, jd, jd + window, 5.0, direction=direction, jump=90.0, estimate=rough)
-    jd1, jd2, found = roots.first(jd.size, roots.after(tt1, tt2))
+    # places tell which samples to take.  Windows on a 60-day grid, each searched once
+    # for every instant in its block (events.first_after).
+    keys = [("PLANET EVENT", body, event, source, ephemeris.content_stamp(source))] * tt1.size
+    jd1, jd2, found = first_after(
+        lambda s, e, _rep: crossings(f, s, e, 5.0, direction=direction, jump=90.0,
+                                     estimate=rough),
+        tt1, tt2, 60.0, window, keys)
     if not np.all(found):
         raise rows_failing(~found, f"no {event.lower()} found in the {window:.0f} days after")
     return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)

@@ -208,11 +208,14 @@ def reaches_cells(longitude, time, frame="J2000", result_scale=None):
     tt1, tt2 = time.tt()
     lon, tt1, tt2 = np.broadcast_arrays(np.asarray(longitude, dtype=float) % 360.0, tt1, tt2)
     lon, tt1, tt2 = lon.ravel(), tt1.ravel(), tt2.ravel()
-    start = tt1 + tt2  # where the sampling starts: the answers keep two parts
     last = _year_start_tt(LAST_YEAR + 1) + 0.5  # the search stays inside the position's range
     ephemeris.check_builtin_years(tt1, tt2)  # a start outside it is refused as such
-    roots = longitude_crossings(lon, start, np.minimum(start + 367.0, last), frame)
-    jd1, jd2, found = roots.first(lon.size, roots.after(tt1, tt2))
+    # Windows on a 30-day grid reaching a year past each instant, searched once for
+    # every instant in the block that asks for the same longitude (events.first_after).
+    keys = [("SUN REACHES", x, frame) for x in lon.tolist()]
+    jd1, jd2, found = events.first_after(
+        lambda s, e, rep: longitude_crossings(lon[rep], s, np.minimum(e, last), frame),
+        tt1, tt2, 30.0, 367.0, keys)
     if not np.all(found):
         raise rows_failing(~found, f"the Sun does not reach that longitude before the year {LAST_YEAR + 1}")
     return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)
