@@ -39,7 +39,7 @@ sys.path.insert(0, ROOT)
 
 from timing import best  # noqa: E402
 
-from calcfuncs import cells  # noqa: E402
+from calcfuncs import cells, events  # noqa: E402
 
 SITE = (47.3814, 8.0542)
 NULL_JD = 2415018.5  # Calc's default null date, 1899-12-30
@@ -50,6 +50,9 @@ def column(values):
 
 
 def ours(name, args):
+    # Cold: the event windows kept from an earlier run would make repeats free (a
+    # sheet's later recalculations do find them kept).
+    events._WINDOWS.clear()
     out = cells.evaluate(name, args)
     values = [row[0] for row in out]
     bad = [v for v in values if isinstance(v, str)]
