@@ -179,6 +179,13 @@ FROZEN_METHODS = {
     "skyOrbitTopoDec": "SKY.ORBIT.TOPO.DEC",
     "skyOrbitTopoAlt": "SKY.ORBIT.TOPO.ALT",
     "skyOrbitTopoAz": "SKY.ORBIT.TOPO.AZ",
+    "skyLunarEclipseNext": "SKY.LUNAR.ECLIPSE.NEXT",
+    "skyLunarEclipseKind": "SKY.LUNAR.ECLIPSE.KIND",
+    "skyLunarEclipseMagnitude": "SKY.LUNAR.ECLIPSE.MAGNITUDE",
+    "skyLunarEclipseGamma": "SKY.LUNAR.ECLIPSE.GAMMA",
+    "skyLunarEclipseDuration": "SKY.LUNAR.ECLIPSE.DURATION",
+    "skyLunarEclipseMoonAlt": "SKY.LUNAR.ECLIPSE.MOON.ALT",
+    "skyLunarEclipseVisibility": "SKY.LUNAR.ECLIPSE.VISIBILITY",
 }
 
 
@@ -387,7 +394,9 @@ DECLARED_ORDER = (
     "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
     "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
     "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
-    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz"
+    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz "
+    "skyLunarEclipseNext skyLunarEclipseKind skyLunarEclipseMagnitude skyLunarEclipseGamma "
+    "skyLunarEclipseDuration skyLunarEclipseMoonAlt skyLunarEclipseVisibility"
 ).split()
 
 

@@ -1,0 +1,512 @@
+"""Lunar eclipses: the next one after a date, its kind, greatest eclipse, gamma, the
+umbral and penumbral magnitudes, the six contacts, and how it looks from a site.
+
+Geometry (the classical one of the Explanatory Supplement and the NASA canons): at the
+Moon's distance the Earth's shadow is two circles round the axis that points away from
+the Sun.  Seen from the Earth's centre their angular radii are
+
+  umbra      f * pi_M + pi_S - s_S      penumbra   f * pi_M + pi_S + s_S
+
+with pi_M and pi_S the Moon's and the Sun's equatorial horizontal parallaxes and s_S the
+Sun's semi-diameter; the factor f and the enlargement for the Earth's atmosphere are the
+rule's:
+
+  DANJON     Danjon (1951): the atmosphere is taken as a layer that adds 1/85 to the
+             Earth's radius, and the radius is the one at latitude 45 degrees (less by
+             half the flattening, 1/600): f = 1.01, as Espenak and Meeus's Five
+             Millennium Canon of Lunar Eclipses (2009) writes it; the same absolute
+             widening for both shadows.
+  CHAUVENET  Chauvenet (1891), the Astronomical Almanac's older practice: both radii,
+             with pi_M scaled by 0.998340 to the 45-degree radius, grow by 1/50
+             (times 1.02); magnitudes come out about 0.005 (umbral) and 0.026
+             (penumbral) larger than by Danjon's rule.
+
+The Moon's semi-diameter is asin(k sin pi_M) with k = 0.2725076 (the IAU's ratio of the
+Moon's radius to the Earth's equatorial radius), the Sun's 959.63" at 1 au.
+
+Which places: the shadow's axis is the direction opposite the apparent Sun (the light
+that grazes the Earth arrives from there in the Earth's frame, aberration included); the
+Moon is its geometric geocentric place at the same instant.  An event is where the Moon
+meets a shadow's edge; it is seen from the Earth's centre one light time (about 1.3 s)
+later, and the instants given are those seen.
+
+Search: full Moons from a cheap series of the elongation (events.crossings); the ones
+whose argument of latitude puts the Moon within 1.9 degrees of the ecliptic are kept;
+greatest eclipse is the instant of the least distance of the Moon's centre from the
+axis (the zero of the rate of change of its square), and the contacts are the zeros of
+that distance minus the edge, all through the one event search, every eclipse of a
+call together.
+"""
+
+import erfa
+import numpy as np
+
+from . import bodies, frames, vectors
+from .errors import SkyError, rows_failing
+from .events import crossings
+from .moon import rough_elongation
+from .timescales import DateTimes, Instants, julian_year, universal_of
+from .vocabulary import (AU_KM, AU_M, BUILTIN, EARTH_RADIUS_KM, IAU2006_YEARS, J2000_JD,
+                         LIGHT_DAYS_PER_AU)
+
+RULES = ("DANJON", "CHAUVENET")
+DANJON_FACTOR = 1.01          # Espenak and Meeus (2009): (1 + 1/85) at the 45-degree radius
+CHAUVENET_FACTOR = 1.02       # Chauvenet (1891): both shadows enlarged by 1/50
+CHAUVENET_PARALLAX = 0.998340  # pi_M scaled to the Earth's radius at latitude 45 degrees
+MOON_K = 0.2725076            # Moon radius / Earth equatorial radius (IAU 1982)
+SUN_SEMIDIAMETER_1AU = np.radians(959.63 / 3600.0)
+CONTACTS = ("P1", "U1", "U2", "U3", "U4", "P4")
+EVENTS = ("GREATEST",) + CONTACTS
+KINDS = ("penumbral", "partial", "total")
+PHASES = {"PENUMBRAL": ("P1", "P4"), "PARTIAL": ("U1", "U4"), "TOTAL": ("U2", "U3")}
+# Where the search for the next eclipse looks: the next ~7 months, then the year after
+# for the rows still without one (no 14 months pass without a lunar eclipse).
+FIRST_WINDOW_DAYS = 215.0
+SECOND_WINDOW_DAYS = 430.0
+# A full Moon is a candidate when 5.15 |sin F| (the Moon's latitude by its mean argument
+# of latitude) is under this: the widest penumbral eclipse needs under 1.6 degrees.
+CANDIDATE_LATITUDE_DEG = 1.9
+# The refraction at the horizon (34') with which "above the horizon" is judged: the
+# Moon's upper limb risen, as almanacs time moonrise.
+HORIZON_REFRACTION_DEG = 34.0 / 60.0
+
+
+def check_rule(rule):
+    word = str(rule).strip().upper()
+    if word not in RULES:
+        raise SkyError(f'unknown shadow rule "{rule}"; use ' + ", ".join(RULES))
+    return word
+
+
+# ---- the shadow at some instants --------------------------------------------------------
+
+
+class Shadow:
+    """The Moon against the Earth's shadow at TT instants: ``m`` the angle of the Moon's
+    centre from the shadow's axis, ``umbra`` and ``penumbra`` the radii, ``moon`` its
+    semi-diameter (radians), ``north`` +1 where the Moon's centre is north of the axis,
+    ``moon_km`` its distance."""
+
+    __slots__ = ("m", "umbra", "penumbra", "moon", "north", "moon_km")
+
+    def __init__(self, tt1, tt2, rule, source):
+        p = bodies.place_at_tt("MOON", tt1, tt2, "GEOMETRIC", source)
+        axis = -p.sun_direction
+        self.m = vectors.angle_between(p.direction, axis)
+        self.moon_km = p.distance * AU_KM
+        sun_au = vectors.norm(p.earth_helio)
+        pi_m = np.arcsin(EARTH_RADIUS_KM / self.moon_km)
+        pi_s = np.arcsin(EARTH_RADIUS_KM / (sun_au * AU_KM))
+        s_s = np.arcsin(np.sin(SUN_SEMIDIAMETER_1AU) / sun_au)
+        self.moon = np.arcsin(MOON_K * np.sin(pi_m))
+        if rule == "DANJON":
+            self.umbra = DANJON_FACTOR * pi_m + pi_s - s_s
+            self.penumbra = DANJON_FACTOR * pi_m + pi_s + s_s
+        else:
+            self.umbra = CHAUVENET_FACTOR * (CHAUVENET_PARALLAX * pi_m + pi_s - s_s)
+            self.penumbra = CHAUVENET_FACTOR * (CHAUVENET_PARALLAX * pi_m + pi_s + s_s)
+        # North of the axis: the Moon's offset from it along the celestial pole's
+        # direction projected on the plane across the axis (GCRS axes).
+        pole = np.array([0.0, 0.0, 1.0])
+        across = pole - axis * vectors.dot(axis, pole)[..., None]
+        self.north = np.where(vectors.dot(p.direction - axis, across) >= 0.0, 1.0, -1.0)
+
+    def edge(self, contact):
+        """The distance of the Moon's centre from the axis at a contact (radians)."""
+        if contact in ("P1", "P4"):
+            return self.penumbra + self.moon
+        if contact in ("U1", "U4"):
+            return self.umbra + self.moon
+        return self.umbra - self.moon
+
+    def umbral_magnitude(self):
+        return (self.umbra + self.moon - self.m) / (2.0 * self.moon)
+
+    def penumbral_magnitude(self):
+        return (self.penumbra + self.moon - self.m) / (2.0 * self.moon)
+
+    def gamma(self):
+        """The Moon's centre's distance from the axis in Earth equatorial radii, positive
+        north of it."""
+        return self.north * self.moon_km * np.sin(self.m) / EARTH_RADIUS_KM
+
+
+# ---- the search ---------------------------------------------------------------------------
+
+
+class Eclipses:
+    """Lunar eclipses found by a search: per eclipse the TT two-part instant of greatest
+    eclipse as seen from the Earth's centre (``g1 + g2``), the ``Shadow`` there, its
+    ``row`` (which search), and ``contacts``: name -> (jd1, jd2, occurs)."""
+
+    def __init__(self, g1, g2, row, shadow, contacts, rule, source):
+        self.g1, self.g2, self.row, self.shadow = g1, g2, row, shadow
+        self.contacts, self.rule, self.source = contacts, rule, source
+
+    def kind_index(self):
+        """0 penumbral, 1 partial, 2 total."""
+        s = self.shadow
+        return (s.m < s.umbra + s.moon).astype(int) + (s.m < s.umbra - s.moon).astype(int)
+
+    def event(self, name):
+        """(jd1, jd2, occurs) of GREATEST or a contact."""
+        if name == "GREATEST":
+            return self.g1, self.g2, np.ones(self.g1.shape, bool)
+        return self.contacts[name]
+
+
+def _rough_full_moons(start, end):
+    """Full Moons in each row's window [start, end] (TT JDs) from the cheap elongation
+    (to about an hour): ``Roots``."""
+    def rough(jd1, jd2, row):
+        return np.mod(rough_elongation(jd1, jd2) - 180.0 + 180.0, 360.0) - 180.0
+    return crossings(rough, start, end, 1.0, direction=+1, jump=90.0, tolerance=1e-3)
+
+
+def _rough_latitude_deg(jd1, jd2):
+    """The Moon's latitude from its mean argument of latitude (Meeus ch. 47), degrees."""
+    t = ((jd1 - J2000_JD) + jd2) / 36525.0
+    f = np.radians(93.2720950 + 483202.0175233 * t)
+    return np.degrees(np.arcsin(np.sin(np.radians(5.145)) * np.sin(f)))
+
+
+def _light_days(shadow):
+    return shadow.moon_km / AU_KM * LIGHT_DAYS_PER_AU
+
+
+def _greatest(c1, c2, rule, source):
+    """Greatest eclipse near each candidate (TT two-part, at the Moon): the zero of the
+    rate of the squared distance from the axis within 7 hours of the rough full Moon."""
+    h = 1.0 / 1440.0  # a central difference over two minutes
+
+    def rate(jd1, jd2, row):
+        j1 = np.concatenate([jd1, jd1])
+        j2 = np.concatenate([jd2 + h, jd2 - h])
+        m = Shadow(j1, j2, rule, source).m
+        n = jd1.size
+        return (m[:n] ** 2 - m[n:] ** 2) / (2.0 * h)
+
+    base = c1 + c2
+    roots = crossings(lambda j1, j2, r: rate(j1, j2, r), base - 0.3, base + 0.3, 0.6,
+                      direction=+1, tolerance=2e-7)
+    g1, g2, found = roots.first(base.size)
+    return g1, g2, found
+
+
+def find(start, end, rule="DANJON", source=BUILTIN):
+    """Every lunar eclipse whose greatest eclipse falls in the rows' windows [start, end]
+    (TT JDs, one pair per row): ``Eclipses`` ordered by row and time."""
+    rule = check_rule(rule)
+    start = np.atleast_1d(np.asarray(start, dtype=float))
+    end = np.broadcast_to(np.asarray(end, dtype=float), start.shape)
+    full = _rough_full_moons(start - 0.5, end + 0.5)
+    near = np.abs(_rough_latitude_deg(full.jd1, full.jd2)) < CANDIDATE_LATITUDE_DEG
+    full = full.subset(near)
+    g1, g2, found = _greatest(full.jd1, full.jd2, rule, source)
+    row = full.row
+    if not np.all(found):  # never seen; a candidate without a minimum is no eclipse
+        g1, g2, row = g1[found], g2[found], row[found]
+    at = Shadow(g1, g2, rule, source)
+    eclipse = at.m < at.penumbra + at.moon
+    g1, g2, row = g1[eclipse], g2[eclipse], row[eclipse]
+    at = Shadow(g1, g2, rule, source)
+    contacts = _contacts(g1, g2, at, rule, source)
+    seen = _light_days(at)
+    g2 = g2 + seen
+    ends = (start[row] <= (g1 + g2)) & ((g1 + g2) <= end[row])
+    keep = np.flatnonzero(ends)
+    return _subset(Eclipses(g1, g2, row, at, contacts, rule, source), keep)
+
+
+def _subset(e, keep):
+    s = object.__new__(Shadow)
+    for k in Shadow.__slots__:
+        setattr(s, k, getattr(e.shadow, k)[keep])
+    contacts = {k: tuple(v[keep] for v in val) for k, val in e.contacts.items()}
+    return Eclipses(e.g1[keep], e.g2[keep], e.row[keep], s, contacts, e.rule, e.source)
+
+
+def _contacts(g1, g2, at, rule, source):
+    """The six contacts of the eclipses greatest at ``g1 + g2`` (``at`` the shadow
+    there): the zeros of distance minus edge within 0.2 day (a penumbral eclipse lasts
+    at most about 6 hours)."""
+    n = g1.size
+    names, idx = [], []
+    for k, name in enumerate(CONTACTS):
+        occurs = at.m < at.edge(name)
+        names.append(np.full(np.count_nonzero(occurs), k))
+        idx.append(np.flatnonzero(occurs))
+    which, eclipse = np.concatenate(names), np.concatenate(idx)
+    before = which < 3
+
+    def f(jd1, jd2, row):
+        e, kinds = eclipse[row], which[row]
+        s = Shadow(jd1, jd2, rule, source)
+        edge = np.select([kinds == 0, kinds == 1, kinds == 2, kinds == 3, kinds == 4],
+                         [s.edge("P1"), s.edge("U1"), s.edge("U2"), s.edge("U3"),
+                          s.edge("U4")], s.edge("P4"))
+        return s.m - edge
+
+    base = g1[eclipse] + g2[eclipse]
+    start = np.where(before, base - 0.2, base)
+    stop = np.where(before, base, base + 0.2)
+    roots = crossings(f, start, stop, 0.2, tolerance=2e-7)
+    c1, c2, found = roots.first(which.size)
+    out = {}
+    for k, name in enumerate(CONTACTS):
+        j1, j2, occurs = np.full(n, np.nan), np.full(n, np.nan), np.zeros(n, bool)
+        mine = (which == k) & found
+        j1[eclipse[mine]], j2[eclipse[mine]], occurs[eclipse[mine]] = c1[mine], c2[mine], True
+        if np.any(occurs):
+            seen = _light_days(Shadow(j1[occurs], j2[occurs], rule, source))
+            j2[occurs] += seen
+        out[name] = (j1, j2, occurs)
+    return out
+
+
+def next_after(tt1, tt2, rule="DANJON", source=BUILTIN):
+    """The first lunar eclipse whose greatest eclipse is after each instant: (``Eclipses``
+    with one eclipse per row, in row order)."""
+    tt1, tt2 = np.ravel(np.asarray(tt1, float)), np.ravel(np.asarray(tt2, float))
+    n = tt1.size
+    jd = tt1 + tt2
+    chosen = np.full(n, -1)
+    parts = []
+    for lo, hi in ((0.0, FIRST_WINDOW_DAYS), (FIRST_WINDOW_DAYS - 1.0, SECOND_WINDOW_DAYS)):
+        todo = np.flatnonzero(chosen < 0)
+        if not todo.size:
+            break
+        e = find(jd[todo] + lo - 0.01, jd[todo] + hi, rule, source)
+        later = ((e.g1 - tt1[todo][e.row]) + (e.g2 - tt2[todo][e.row])) > 0.0
+        idx = np.flatnonzero(later)
+        rows, at = np.unique(e.row[idx], return_index=True)
+        picked = _subset(e, idx[at])
+        picked.row = todo[rows]
+        chosen[todo[rows]] = len(parts) * 0 + 1
+        parts.append(picked)
+    missing = chosen < 0
+    if np.any(missing):
+        raise rows_failing(missing, "no lunar eclipse found in the 14 months after")
+    return _concat(parts, n)
+
+
+def _concat(parts, n):
+    """One ``Eclipses`` with the row-th eclipse in place row."""
+    order = np.argsort(np.concatenate([p.row for p in parts]))
+
+    def cat(get):
+        return np.concatenate([get(p) for p in parts])[order]
+
+    s = object.__new__(Shadow)
+    for k in Shadow.__slots__:
+        setattr(s, k, cat(lambda p, k=k: getattr(p.shadow, k)))
+    contacts = {name: tuple(cat(lambda p, i=i, name=name: p.contacts[name][i])
+                            for i in range(3)) for name in CONTACTS}
+    return Eclipses(cat(lambda p: p.g1), cat(lambda p: p.g2), np.arange(n), s, contacts,
+                    parts[0].rule, parts[0].source)
+
+
+# ---- cell functions -------------------------------------------------------------------
+
+
+def _next(time, rule, source):
+    return next_after(*time.tt(), rule, source)
+
+
+def _no_contact(e, name):
+    jd1, jd2, occurs = e.event(name)
+    if not np.all(occurs):
+        kinds = np.array(KINDS, dtype=object)[e.kind_index()]
+        messages = np.full(occurs.shape, None, dtype=object)
+        what = {"P1": "penumbral", "P4": "penumbral", "U1": "umbral", "U4": "umbral",
+                "U2": "total", "U3": "total"}[name]
+        for k in np.flatnonzero(~occurs):
+            messages[k] = (f"no {name} contact: the next lunar eclipse is {kinds[k]}, with no "
+                           f"{what} phase")
+        from .errors import RowErrors
+        raise RowErrors(messages)
+    return jd1, jd2
+
+
+def next_cells(time, event="GREATEST", result_scale=None, rule="DANJON", source=BUILTIN):
+    """The instant of greatest eclipse, or of a contact, of the next lunar eclipse."""
+    e = _next(time, rule, source)
+    jd1, jd2 = _no_contact(e, event)
+    return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)
+
+
+def kind_cells(time, rule="DANJON", source=BUILTIN):
+    e = _next(time, rule, source)
+    return np.array(KINDS, dtype=object)[e.kind_index()]
+
+
+def magnitude_cells(time, shadow="UMBRAL", rule="DANJON", source=BUILTIN):
+    e = _next(time, rule, source)
+    if shadow == "UMBRAL":
+        return e.shadow.umbral_magnitude()
+    return e.shadow.penumbral_magnitude()
+
+
+def gamma_cells(time, rule="DANJON", source=BUILTIN):
+    return _next(time, rule, source).shadow.gamma()
+
+
+def duration_cells(time, phase="TOTAL", rule="DANJON", source=BUILTIN):
+    """Minutes between the phase's contacts."""
+    e = _next(time, rule, source)
+    first, last = PHASES[phase]
+    a1, a2 = _no_contact(e, first)
+    b1, b2 = _no_contact(e, last)
+    return ((b1 - a1) + (b2 - a2)) * 1440.0
+
+
+# ---- seen from a site --------------------------------------------------------------------
+
+
+def _delta_t_shift(time, jd1, jd2, sigmas):
+    """Seconds to add to the default Delta T at TT instants: the difference the scale's
+    own rule makes (a named model, or a value in seconds given with UT), plus ``sigmas``
+    published standard errors (deltat.uncertainty)."""
+    from . import deltat
+
+    tt = Instants(jd1, jd2, "TT")
+    shift = np.zeros(np.shape(jd1))
+    rule = universal_of(time.scale)
+    if rule != "UT":
+        mine, default = tt.to(rule), tt.to("UT")
+        shift = -((mine.jd1 - default.jd1) + (mine.jd2 - default.jd2)) * 86400.0
+    sigmas = np.broadcast_to(np.asarray(sigmas, dtype=float), np.shape(jd1))
+    if np.any(sigmas != 0.0):
+        sigma = np.zeros(np.shape(jd1))
+        wanted = sigmas != 0.0
+        sigma[wanted] = deltat.uncertainty(julian_year(jd1[wanted], jd2[wanted]))
+        shift = shift + sigmas * sigma
+    return shift
+
+
+def _check_sigmas(sigmas):
+    sigmas = np.asarray(sigmas, dtype=float)
+    bad = np.abs(sigmas) > 5.0
+    if np.any(bad):
+        raise rows_failing(bad, "delta_t_sigmas must be within -5 to +5 standard errors")
+    return sigmas
+
+
+def _moon_altitude(jd1, jd2, latitude, longitude, height, shift_seconds, source):
+    """Airless topocentric altitude (degrees) of the Moon's centre at TT instants, with
+    Delta T larger by ``shift_seconds`` (the Earth has then turned less by the TT
+    instant).  The geocentric apparent Moon on the true equator and equinox of date
+    (the long-term frames outside IAU2006_YEARS), Greenwich apparent sidereal time (ERFA
+    gst06 of that matrix; outside those years GMST of IAU 2006 plus the equation of the
+    equinoxes from IAU 2000B, the few arcminutes between the models being nothing beside
+    Delta T's own error), the site's WGS84 geocentric position (ERFA gd2gc) taken off,
+    the altitude from the geodetic vertical."""
+    jd1, jd2 = np.broadcast_arrays(np.ravel(np.asarray(jd1, float)), np.ravel(np.asarray(jd2, float)))
+    lat = np.radians(np.broadcast_to(np.asarray(latitude, float), jd1.shape))
+    lon = np.radians(np.broadcast_to(np.asarray(longitude, float), jd1.shape))
+    hgt = np.broadcast_to(np.asarray(height, float), jd1.shape)
+    frames.check_latitudes(np.degrees(lat))
+    bad = (hgt < -1000.0) | (hgt > 20000.0)
+    if np.any(bad):
+        raise rows_failing(bad, "the height must be within -1000 to 20000 m above the ellipsoid")
+    p = bodies.place_at_tt("MOON", jd1, jd2, "APPARENT", source)
+    npb = frames.system_matrix("EQUATORIAL TRUE", jd1, jd2, long_term=True)
+    v = vectors.apply(npb, p.direction * p.distance[:, None])
+    ut = Instants(jd1, jd2, "TT").to("UT")
+    u1, u2 = ut.jd1, ut.jd2 - np.broadcast_to(shift_seconds, jd1.shape) / 86400.0
+    years = julian_year(jd1, jd2)
+    inside = (years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])
+    gast = np.empty(jd1.shape)
+    if np.any(inside):
+        gast[inside] = erfa.gst06(u1[inside], u2[inside], jd1[inside], jd2[inside], npb[inside])
+    if not np.all(inside):
+        o = ~inside
+        dpsi, _ = erfa.nut00b(jd1[o], jd2[o])
+        gast[o] = (erfa.gmst06(u1[o], u2[o], jd1[o], jd2[o])
+                   + dpsi * np.cos(erfa.obl06(jd1[o], jd2[o])))
+    c, s = np.cos(gast), np.sin(gast)
+    x = c * v[:, 0] + s * v[:, 1]
+    y = -s * v[:, 0] + c * v[:, 1]
+    site = erfa.gd2gc(1, lon, lat, hgt) / AU_M
+    topo = np.stack([x, y, v[:, 2]], axis=-1) - site
+    up = np.stack([np.cos(lat) * np.cos(lon), np.cos(lat) * np.sin(lon), np.sin(lat)], axis=-1)
+    sin_alt = vectors.dot(up, topo) / vectors.norm(topo)
+    return np.degrees(np.arcsin(np.clip(sin_alt, -1.0, 1.0)))
+
+
+def moon_altitude_cells(time, latitude, longitude, event="GREATEST", height=0.0,
+                        delta_t_sigmas=0.0, rule="DANJON", source=BUILTIN):
+    """The Moon's altitude at a site at an instant of the next lunar eclipse."""
+    sigmas = _check_sigmas(delta_t_sigmas)
+    e = _next(time, rule, source)
+    jd1, jd2 = _no_contact(e, event)
+    shift = _delta_t_shift(time, jd1, jd2, sigmas)
+    return _moon_altitude(jd1, jd2, latitude, longitude, height, shift, source)
+
+
+SAMPLES_PER_PHASE = 24
+SIGMA_STEPS = 9
+
+
+def visibility_cells(time, latitude, longitude, height=0.0, delta_t_sigmas=0.0,
+                     rule="DANJON", source=BUILTIN):
+    """Which phases of the next lunar eclipse have the Moon above the site's horizon,
+    in words; over Delta T -k..+k sigma when ``delta_t_sigmas`` is k."""
+    sigmas = np.abs(_check_sigmas(delta_t_sigmas))
+    e = _next(time, rule, source)
+    n = e.g1.size
+    lat = np.broadcast_to(np.asarray(latitude, float), (n,))
+    lon = np.broadcast_to(np.asarray(longitude, float), (n,))
+    hgt = np.broadcast_to(np.asarray(height, float), (n,))
+    sig = np.broadcast_to(sigmas, (n,))
+    steps = np.linspace(-1.0, 1.0, SIGMA_STEPS)
+    frac = np.linspace(0.0, 1.0, SAMPLES_PER_PHASE)
+    kind = e.kind_index()
+    # Rows x phases x instants x Delta T steps, all in one call of the altitude.
+    phases = list(PHASES)
+    a1 = np.stack([e.contacts[PHASES[p][0]][0] for p in phases], axis=1)
+    a2 = np.stack([e.contacts[PHASES[p][0]][1] for p in phases], axis=1)
+    b1 = np.stack([e.contacts[PHASES[p][1]][0] for p in phases], axis=1)
+    b2 = np.stack([e.contacts[PHASES[p][1]][1] for p in phases], axis=1)
+    occurs = np.stack([e.contacts[PHASES[p][0]][2] for p in phases], axis=1)
+    a1 = np.where(occurs, a1, e.g1[:, None])
+    a2 = np.where(occurs, a2, e.g2[:, None])
+    span = np.where(occurs, (b1 - a1) + (b2 - a2), 0.0)
+    shape = (n, len(phases), SAMPLES_PER_PHASE, SIGMA_STEPS)
+    j1 = np.broadcast_to(a1[:, :, None, None], shape)
+    j2 = np.broadcast_to(a2[:, :, None, None] + span[:, :, None, None] * frac[None, None, :, None],
+                         shape)
+    shift = _delta_t_shift(time, j1.ravel(), j2.ravel(), 0.0).reshape(shape)
+    if np.any(sig > 0.0):
+        wanted = sig > 0.0
+        one = np.zeros(n)
+        one[wanted] = _delta_t_shift(time, e.g1[wanted], e.g2[wanted], 1.0) - \
+            _delta_t_shift(time, e.g1[wanted], e.g2[wanted], 0.0)
+        shift = shift + (one * sig)[:, None, None, None] * steps[None, None, None, :]
+    rows = np.broadcast_to(np.arange(n)[:, None, None, None], shape).ravel()
+    alt = _moon_altitude(j1.ravel(), j2.ravel(), lat[rows], lon[rows], hgt[rows],
+                         shift.ravel(), e.source).reshape(shape)
+    limb = np.degrees(e.shadow.moon)[:, None, None, None]
+    up = alt > -(HORIZON_REFRACTION_DEG + limb)
+    whole = np.all(up, axis=2)   # rows x phases x steps
+    some = np.any(up, axis=2)
+    out = np.empty(n, dtype=object)
+    for r in range(n):
+        used = slice(None) if sig[r] > 0.0 else slice(SIGMA_STEPS // 2, SIGMA_STEPS // 2 + 1)
+        parts = []
+        for k, p in reversed(list(enumerate(phases))):
+            if not occurs[r, k]:
+                continue
+            words = []
+            for w, s in zip(whole[r, k, used], some[r, k, used]):
+                word = "all seen" if w else "part seen" if s else "not seen"
+                if word not in words:
+                    words.append(word)
+            words.sort(key=("all seen", "part seen", "not seen").index)
+            parts.append(f"{p.lower()} phase: " + " or ".join(words))
+        text = "; ".join(parts)
+        if sig[r] > 0.0 and any(" or " in x for x in parts):
+            text += f" (over Delta T +-{sig[r]:g} sigma)"
+        out[r] = text
+    del kind
+    return out
