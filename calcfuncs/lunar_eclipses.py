@@ -45,7 +45,7 @@ from . import bodies, frames, vectors
 from .errors import SkyError, rows_failing
 from .events import crossings
 from .moon import rough_elongation
-from .timescales import DateTimes, Instants, julian_year, universal_of
+from .timescales import DateTimes, Instants, julian_year, tt_to_tdb, universal_of
 from .vocabulary import (AU_KM, AU_M, BUILTIN, EARTH_RADIUS_KM, IAU2006_YEARS, J2000_JD,
                          LIGHT_DAYS_PER_AU)
 
@@ -89,8 +89,13 @@ class Shadow:
 
     __slots__ = ("m", "umbra", "penumbra", "moon", "north", "moon_km")
 
-    def __init__(self, tt1, tt2, rule, source):
-        p = bodies.place_at_tt("MOON", tt1, tt2, "GEOMETRIC", source)
+    def __init__(self, tt1, tt2, rule, source, offset=None):
+        # TDB - TT (under 2 ms, changing by under 0.1 us over an eclipse) once per
+        # eclipse from the caller, not ERFA dtdb at every step of a search.
+        tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+        if offset is None:
+            offset = tdb_offset(tt1, tt2, source)
+        p = bodies.place("MOON", tt1, tt2 + offset, "GEOMETRIC", source)
         axis = -p.sun_direction
         self.m = vectors.angle_between(p.direction, axis)
         self.moon_km = p.distance * AU_KM
@@ -129,6 +134,15 @@ class Shadow:
         """The Moon's centre's distance from the axis in Earth equatorial radii, positive
         north of it."""
         return self.north * self.moon_km * np.sin(self.m) / EARTH_RADIUS_KM
+
+
+def tdb_offset(tt1, tt2, source):
+    """TDB - TT in days as the source takes its argument (none for the built-in one)."""
+    if source == BUILTIN:
+        return np.zeros(np.shape(tt1))
+    tt1, tt2 = np.asarray(tt1, float), np.asarray(tt2, float)
+    tdb1, tdb2 = tt_to_tdb(tt1, tt2)
+    return (tdb1 - tt1) + (tdb2 - tt2)
 
 
 # ---- the search ---------------------------------------------------------------------------
@@ -174,7 +188,7 @@ def _light_days(shadow):
     return shadow.moon_km / AU_KM * LIGHT_DAYS_PER_AU
 
 
-def _greatest(c1, c2, rule, source):
+def _greatest(c1, c2, rule, source, offset):
     """Greatest eclipse near each candidate (TT two-part, at the Moon): the zero of the
     rate of the squared distance from the axis within 7 hours of the rough full Moon."""
     h = 1.0 / 1440.0  # a central difference over two minutes
@@ -182,7 +196,7 @@ def _greatest(c1, c2, rule, source):
     def rate(jd1, jd2, row):
         j1 = np.concatenate([jd1, jd1])
         j2 = np.concatenate([jd2 + h, jd2 - h])
-        m = Shadow(j1, j2, rule, source).m
+        m = Shadow(j1, j2, rule, source, np.concatenate([offset[row], offset[row]])).m
         n = jd1.size
         return (m[:n] ** 2 - m[n:] ** 2) / (2.0 * h)
 
@@ -202,15 +216,16 @@ def find(start, end, rule="DANJON", source=BUILTIN):
     full = _rough_full_moons(start - 0.5, end + 0.5)
     near = np.abs(_rough_latitude_deg(full.jd1, full.jd2)) < CANDIDATE_LATITUDE_DEG
     full = full.subset(near)
-    g1, g2, found = _greatest(full.jd1, full.jd2, rule, source)
+    offset = tdb_offset(full.jd1, full.jd2, source)
+    g1, g2, found = _greatest(full.jd1, full.jd2, rule, source, offset)
     row = full.row
     if not np.all(found):  # never seen; a candidate without a minimum is no eclipse
-        g1, g2, row = g1[found], g2[found], row[found]
-    at = Shadow(g1, g2, rule, source)
+        g1, g2, row, offset = g1[found], g2[found], row[found], offset[found]
+    at = Shadow(g1, g2, rule, source, offset)
     eclipse = at.m < at.penumbra + at.moon
-    g1, g2, row = g1[eclipse], g2[eclipse], row[eclipse]
-    at = Shadow(g1, g2, rule, source)
-    contacts = _contacts(g1, g2, at, rule, source)
+    g1, g2, row, offset = g1[eclipse], g2[eclipse], row[eclipse], offset[eclipse]
+    at = _subset_shadow(at, eclipse)
+    contacts = _contacts(g1, g2, at, rule, source, offset)
     seen = _light_days(at)
     g2 = g2 + seen
     ends = (start[row] <= (g1 + g2)) & ((g1 + g2) <= end[row])
@@ -218,15 +233,20 @@ def find(start, end, rule="DANJON", source=BUILTIN):
     return _subset(Eclipses(g1, g2, row, at, contacts, rule, source), keep)
 
 
-def _subset(e, keep):
+def _subset_shadow(shadow, keep):
     s = object.__new__(Shadow)
     for k in Shadow.__slots__:
-        setattr(s, k, getattr(e.shadow, k)[keep])
+        setattr(s, k, getattr(shadow, k)[keep])
+    return s
+
+
+def _subset(e, keep):
+    s = _subset_shadow(e.shadow, keep)
     contacts = {k: tuple(v[keep] for v in val) for k, val in e.contacts.items()}
     return Eclipses(e.g1[keep], e.g2[keep], e.row[keep], s, contacts, e.rule, e.source)
 
 
-def _contacts(g1, g2, at, rule, source):
+def _contacts(g1, g2, at, rule, source, offset):
     """The six contacts of the eclipses greatest at ``g1 + g2`` (``at`` the shadow
     there): the zeros of distance minus edge within 0.2 day (a penumbral eclipse lasts
     at most about 6 hours)."""
@@ -241,7 +261,7 @@ def _contacts(g1, g2, at, rule, source):
 
     def f(jd1, jd2, row):
         e, kinds = eclipse[row], which[row]
-        s = Shadow(jd1, jd2, rule, source)
+        s = Shadow(jd1, jd2, rule, source, offset[e])
         edge = np.select([kinds == 0, kinds == 1, kinds == 2, kinds == 3, kinds == 4],
                          [s.edge("P1"), s.edge("U1"), s.edge("U2"), s.edge("U3"),
                           s.edge("U4")], s.edge("P4"))
@@ -258,7 +278,7 @@ def _contacts(g1, g2, at, rule, source):
         mine = (which == k) & found
         j1[eclipse[mine]], j2[eclipse[mine]], occurs[eclipse[mine]] = c1[mine], c2[mine], True
         if np.any(occurs):
-            seen = _light_days(Shadow(j1[occurs], j2[occurs], rule, source))
+            seen = _light_days(Shadow(j1[occurs], j2[occurs], rule, source, offset[occurs]))
             j2[occurs] += seen
         out[name] = (j1, j2, occurs)
     return out
@@ -364,24 +384,43 @@ def duration_cells(time, phase="TOTAL", rule="DANJON", source=BUILTIN):
 
 
 def _delta_t_shift(time, jd1, jd2, sigmas):
-    """Seconds to add to the default Delta T at TT instants: the difference the scale's
-    own rule makes (a named model, or a value in seconds given with UT), plus ``sigmas``
-    published standard errors (deltat.uncertainty)."""
-    from . import deltat
-
-    tt = Instants(jd1, jd2, "TT")
-    shift = np.zeros(np.shape(jd1))
+    """Seconds to add to the default Delta T at TT instants (one per row): the difference
+    the scale's own rule makes (a named model, or a value in seconds given with UT), plus
+    ``sigmas`` published standard errors (deltat.uncertainty)."""
+    jd1, jd2 = np.asarray(jd1, float), np.asarray(jd2, float)
+    shift = np.zeros(jd1.shape)
     rule = universal_of(time.scale)
     if rule != "UT":
+        tt = Instants(jd1, jd2, "TT")
         mine, default = tt.to(rule), tt.to("UT")
         shift = -((mine.jd1 - default.jd1) + (mine.jd2 - default.jd2)) * 86400.0
-    sigmas = np.broadcast_to(np.asarray(sigmas, dtype=float), np.shape(jd1))
-    if np.any(sigmas != 0.0):
-        sigma = np.zeros(np.shape(jd1))
-        wanted = sigmas != 0.0
-        sigma[wanted] = deltat.uncertainty(julian_year(jd1[wanted], jd2[wanted]))
+    sigmas = np.broadcast_to(np.asarray(sigmas, dtype=float), jd1.shape)
+    wanted = sigmas != 0.0
+    if np.any(wanted):
+        years = julian_year(jd1, jd2)
+        known = np.isfinite(_published_sigma(years))
+        if np.any(wanted & ~known):
+            raise rows_failing(wanted & ~known, "no published uncertainty of Delta T for "
+                               "this date (the estimates used cover 1000 BC to AD 1200, "
+                               "and 1700, 1800, 1900); give delta_t_sigmas 0")
+        sigma = np.where(wanted, _published_sigma(years), 0.0)
         shift = shift + sigmas * sigma
     return shift
+
+
+def _published_sigma(years):
+    """deltat.uncertainty where it is published, NaN elsewhere (row by row)."""
+    from . import deltat
+    from .errors import RowErrors
+
+    try:
+        return deltat.uncertainty(years)
+    except RowErrors as err:
+        out = np.full(np.shape(years), np.nan)
+        ok = np.equal(err.messages, None)
+        if np.any(ok):
+            out[ok] = deltat.uncertainty(np.asarray(years)[ok])
+        return out
 
 
 def _check_sigmas(sigmas):
@@ -459,6 +498,12 @@ def visibility_cells(time, latitude, longitude, height=0.0, delta_t_sigmas=0.0,
     lon = np.broadcast_to(np.asarray(longitude, float), (n,))
     hgt = np.broadcast_to(np.asarray(height, float), (n,))
     sig = np.broadcast_to(sigmas, (n,))
+    frames.check_latitudes(lat)
+    bad = (hgt < -1000.0) | (hgt > 20000.0)
+    if np.any(bad):
+        raise rows_failing(bad, "the height must be within -1000 to 20000 m above the ellipsoid")
+    one = _delta_t_shift(time, e.g1, e.g2, np.where(sig > 0.0, 1.0, 0.0)) - \
+        _delta_t_shift(time, e.g1, e.g2, 0.0)
     steps = np.linspace(-1.0, 1.0, SIGMA_STEPS)
     frac = np.linspace(0.0, 1.0, SAMPLES_PER_PHASE)
     kind = e.kind_index()
@@ -478,10 +523,6 @@ def visibility_cells(time, latitude, longitude, height=0.0, delta_t_sigmas=0.0,
                          shape)
     shift = _delta_t_shift(time, j1.ravel(), j2.ravel(), 0.0).reshape(shape)
     if np.any(sig > 0.0):
-        wanted = sig > 0.0
-        one = np.zeros(n)
-        one[wanted] = _delta_t_shift(time, e.g1[wanted], e.g2[wanted], 1.0) - \
-            _delta_t_shift(time, e.g1[wanted], e.g2[wanted], 0.0)
         shift = shift + (one * sig)[:, None, None, None] * steps[None, None, None, :]
     rows = np.broadcast_to(np.arange(n)[:, None, None, None], shape).ravel()
     alt = _moon_altitude(j1.ravel(), j2.ravel(), lat[rows], lon[rows], hgt[rows],

@@ -440,7 +440,8 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
         "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
-        "SKY.EPHEMERIS", "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
+        "SKY.EPHEMERIS", "SKY.LUNAR.ECLIPSE.KIND", "SKY.LUNAR.ECLIPSE.VISIBILITY",
+        "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
         "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
 
 

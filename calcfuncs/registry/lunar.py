@@ -91,7 +91,7 @@ FAMILY = Family("lunar", "Lunar eclipses", (
         summary="The Moon's altitude at a site at greatest eclipse or at a contact of the "
         "next lunar eclipse after a time, optionally with Delta T moved by some published "
         "standard errors.",
-        args=(_START, LATITUDE, LONGITUDE, _EVENT, _HEIGHT, SCALE, _SIGMAS) + _TAIL,
+        args=(_START, LATITUDE, LONGITUDE, SCALE, _EVENT, _HEIGHT, _SIGMAS) + _TAIL,
         result="degrees (the Moon's centre, no refraction)",
         impl="lunar_eclipses:moon_altitude_cells", model=_SITE_MODEL, fills_down="time"),
     CellFunction(
@@ -99,7 +99,7 @@ FAMILY = Family("lunar", "Lunar eclipses", (
         summary="Which phases of the next lunar eclipse after a time a site sees with the "
         "Moon above its horizon, in words: for each phase (total, partial, penumbral) "
         "all seen, part seen or not seen; over a Delta T range, every outcome it allows.",
-        args=(_START, LATITUDE, LONGITUDE, _HEIGHT, SCALE, _SIGMA_RANGE) + _TAIL,
+        args=(_START, LATITUDE, LONGITUDE, SCALE, _HEIGHT, _SIGMA_RANGE) + _TAIL,
         result='text such as "total phase: all seen; partial phase: all seen; penumbral '
         'phase: part seen"', result_kind="text",
         impl="lunar_eclipses:visibility_cells",
