@@ -30,8 +30,9 @@ Moon is its geometric geocentric place at the same instant.  An event is where t
 meets a shadow's edge; it is seen from the Earth's centre one light time (about 1.3 s)
 later, and the instants given are those seen.
 
-Search: full Moons from a cheap series of the elongation (events.crossings); the ones
-whose argument of latitude puts the Moon within 1.9 degrees of the ecliptic are kept;
+Search: each lunation's full Moon from a cheap series of the elongation (Newton steps
+from the mean full Moon); the ones whose argument of latitude puts the Moon within 1.9
+degrees of the ecliptic are kept;
 greatest eclipse is the instant of the least distance of the Moon's centre from the
 axis (the zero of the rate of change of its square), and the contacts are the zeros of
 that distance minus the edge, all through the one event search, every eclipse of a
@@ -169,12 +170,24 @@ class Eclipses:
         return self.contacts[name]
 
 
-def _rough_full_moons(start, end):
-    """Full Moons in each row's window [start, end] (TT JDs) from the cheap elongation
-    (to about an hour): ``Roots``."""
-    def rough(jd1, jd2, row):
-        return np.mod(rough_elongation(jd1, jd2) - 180.0 + 180.0, 360.0) - 180.0
-    return crossings(rough, start, end, 1.0, direction=+1, jump=90.0, tolerance=1e-3)
+# Meeus, Astronomical Algorithms ch. 49: the mean new Moon of lunation k (k = 0 the first
+# of 2000) and the mean synodic month; a full Moon is at k + 0.5.
+MEAN_NEW_MOON_JD = 2451550.09766
+SYNODIC_MONTH = 29.530588861
+ROUGH_ELONGATION_RATE = 12.19  # degrees a day, the mean rate of the elongation
+
+
+def _rough_full_moon(k):
+    """The full Moon of lunation k from the cheap elongation (moon.rough_elongation, to
+    about an hour), by Newton steps from the mean one: a function of k alone, so every
+    search that meets the eclipse computes it from the same instant, bit for bit."""
+    jd = MEAN_NEW_MOON_JD + SYNODIC_MONTH * (k + 0.5)
+    base = np.floor(jd) + 0.5
+    frac = jd - base
+    for _ in range(4):
+        off = np.mod(rough_elongation(base, frac) - 180.0 + 180.0, 360.0) - 180.0
+        frac = frac - off / ROUGH_ELONGATION_RATE
+    return base, frac
 
 
 def _rough_latitude_deg(jd1, jd2):
@@ -201,36 +214,54 @@ def _greatest(c1, c2, rule, source, offset):
         return (m[:n] ** 2 - m[n:] ** 2) / (2.0 * h)
 
     base = c1 + c2
-    roots = crossings(lambda j1, j2, r: rate(j1, j2, r), base - 0.3, base + 0.3, 0.6,
-                      direction=+1, tolerance=2e-7)
-    g1, g2, found = roots.first(base.size)
-    return g1, g2, found
+    roots = crossings(rate, base - 0.3, base + 0.3, 0.6, direction=+1, tolerance=2e-7)
+    return roots.first(base.size)
+
+
+def _of_lunations(ks, rule, source):
+    """The lunar eclipses at the full Moons of lunations ``ks`` (unique integers):
+    ``Eclipses`` whose ``row`` is the index into ``ks``."""
+    c1, c2 = _rough_full_moon(ks.astype(float))
+    cand = np.flatnonzero(np.abs(_rough_latitude_deg(c1, c2)) < CANDIDATE_LATITUDE_DEG)
+    c1, c2 = c1[cand], c2[cand]
+    offset = tdb_offset(c1, c2, source)
+    g1, g2, found = _greatest(c1, c2, rule, source, offset)
+    keep = np.flatnonzero(found)  # a candidate without a minimum is no eclipse
+    g1, g2, offset, cand = g1[keep], g2[keep], offset[keep], cand[keep]
+    at = Shadow(g1, g2, rule, source, offset)
+    eclipse = at.m < at.penumbra + at.moon
+    g1, g2, offset, cand = g1[eclipse], g2[eclipse], offset[eclipse], cand[eclipse]
+    at = _subset_shadow(at, eclipse)
+    contacts = _contacts(g1, g2, at, rule, source, offset)
+    return Eclipses(g1, g2 + _light_days(at), cand, at, contacts, rule, source)
 
 
 def find(start, end, rule="DANJON", source=BUILTIN):
     """Every lunar eclipse whose greatest eclipse falls in the rows' windows [start, end]
-    (TT JDs, one pair per row): ``Eclipses`` ordered by row and time."""
+    (TT JDs, one pair per row): ``Eclipses`` ordered by row and time.  Each full Moon is
+    searched once however many rows' windows hold it."""
     rule = check_rule(rule)
-    start = np.atleast_1d(np.asarray(start, dtype=float))
-    end = np.broadcast_to(np.asarray(end, dtype=float), start.shape)
-    full = _rough_full_moons(start - 0.5, end + 0.5)
-    near = np.abs(_rough_latitude_deg(full.jd1, full.jd2)) < CANDIDATE_LATITUDE_DEG
-    full = full.subset(near)
-    offset = tdb_offset(full.jd1, full.jd2, source)
-    g1, g2, found = _greatest(full.jd1, full.jd2, rule, source, offset)
-    row = full.row
-    if not np.all(found):  # never seen; a candidate without a minimum is no eclipse
-        g1, g2, row, offset = g1[found], g2[found], row[found], offset[found]
-    at = Shadow(g1, g2, rule, source, offset)
-    eclipse = at.m < at.penumbra + at.moon
-    g1, g2, row, offset = g1[eclipse], g2[eclipse], row[eclipse], offset[eclipse]
-    at = _subset_shadow(at, eclipse)
-    contacts = _contacts(g1, g2, at, rule, source, offset)
-    seen = _light_days(at)
-    g2 = g2 + seen
-    ends = (start[row] <= (g1 + g2)) & ((g1 + g2) <= end[row])
-    keep = np.flatnonzero(ends)
-    return _subset(Eclipses(g1, g2, row, at, contacts, rule, source), keep)
+    start = np.atleast_1d(np.asarray(start, dtype=float)).ravel()
+    end = np.broadcast_to(np.asarray(end, dtype=float), start.shape).ravel()
+    k_lo = np.floor((start - 1.0 - MEAN_NEW_MOON_JD) / SYNODIC_MONTH - 0.5).astype(np.int64) - 1
+    k_hi = np.ceil((end + 1.0 - MEAN_NEW_MOON_JD) / SYNODIC_MONTH - 0.5).astype(np.int64) + 1
+    counts = k_hi - k_lo + 1
+    row = np.repeat(np.arange(start.size), counts)
+    k = k_lo[row] + (np.arange(row.size) - np.repeat(np.cumsum(counts) - counts, counts))
+    ks, which = np.unique(k, return_inverse=True)
+    e = _of_lunations(ks, rule, source)
+    # Pair each row's lunations with the eclipses among them.
+    index = np.full(ks.size, -1)
+    index[e.row] = np.arange(e.row.size)
+    pick = index[which]
+    has = pick >= 0
+    row, pick = row[has], pick[has]
+    g = e.g1[pick] + e.g2[pick]
+    inside = (start[row] <= g) & (g <= end[row])
+    row, pick = row[inside], pick[inside]
+    out = _subset(e, pick)
+    out.row = row
+    return out
 
 
 def _subset_shadow(shadow, keep):
@@ -285,15 +316,15 @@ def _contacts(g1, g2, at, rule, source, offset):
 
 
 def next_after(tt1, tt2, rule="DANJON", source=BUILTIN):
-    """The first lunar eclipse whose greatest eclipse is after each instant: (``Eclipses``
-    with one eclipse per row, in row order)."""
+    """The first lunar eclipse whose greatest eclipse is after each instant: ``Eclipses``
+    with one eclipse per row, in row order."""
     tt1, tt2 = np.ravel(np.asarray(tt1, float)), np.ravel(np.asarray(tt2, float))
     n = tt1.size
     jd = tt1 + tt2
-    chosen = np.full(n, -1)
+    chosen = np.zeros(n, bool)
     parts = []
     for lo, hi in ((0.0, FIRST_WINDOW_DAYS), (FIRST_WINDOW_DAYS - 1.0, SECOND_WINDOW_DAYS)):
-        todo = np.flatnonzero(chosen < 0)
+        todo = np.flatnonzero(~chosen)
         if not todo.size:
             break
         e = find(jd[todo] + lo - 0.01, jd[todo] + hi, rule, source)
@@ -302,11 +333,10 @@ def next_after(tt1, tt2, rule="DANJON", source=BUILTIN):
         rows, at = np.unique(e.row[idx], return_index=True)
         picked = _subset(e, idx[at])
         picked.row = todo[rows]
-        chosen[todo[rows]] = len(parts) * 0 + 1
+        chosen[todo[rows]] = True
         parts.append(picked)
-    missing = chosen < 0
-    if np.any(missing):
-        raise rows_failing(missing, "no lunar eclipse found in the 14 months after")
+    if not np.all(chosen):
+        raise rows_failing(~chosen, "no lunar eclipse found in the 14 months after")
     return _concat(parts, n)
 
 
