@@ -355,6 +355,19 @@ EXAMPLES["SKY.ORBIT.TOPO.ALT"] = [('"' + _MP_LINE + '";A{r};D{r};E{r};;250',
                                    lambda v: [_MP_LINE, v[0], v[3], v[4], None, 250.0])]
 EXAMPLES["SKY.ORBIT.TOPO.AZ"] = [('"' + _MP_LINE + '";A{r};D{r};E{r}',
                                   lambda v: [_MP_LINE, v[0], v[3], v[4]])]
+# Lunar eclipses: the next after each row's date, at the row's site; an ancient one
+# (about 440 BC, on UT through Delta T) with Delta T moved by a published sigma.
+EXAMPLES["SKY.LUNAR.ECLIPSE.NEXT"] = [
+    ("A{r}", lambda v: [v[0]]),
+    ('A{r};;"U1";"TT";"CHAUVENET"', lambda v: [v[0], None, "U1", "TT", "CHAUVENET"])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.KIND"] = [("A{r}", lambda v: [v[0]])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.MAGNITUDE"] = [('A{r};;"PENUMBRAL"', lambda v: [v[0], None, "PENUMBRAL"])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.GAMMA"] = [('A{r};;;"' + DE440 + '"', lambda v: [v[0], None, None, DE440])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.DURATION"] = [('A{r};;"PARTIAL"', lambda v: [v[0], None, "PARTIAL"])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.MOON.ALT"] = [
+    ('A{r};D{r};E{r};;"U2"', lambda v: [v[0], v[3], v[4], None, "U2"]),
+    ('A{r}-900000;D{r};E{r};"UT";;;1', lambda v: [v[0] - 900000, v[3], v[4], "UT", None, None, 1.0])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.VISIBILITY"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
