@@ -31,7 +31,7 @@ meets a shadow's edge; it is seen from the Earth's centre one light time (about 
 later, and the instants given are those seen.
 
 Search: each lunation's full Moon from a cheap series of the elongation (Newton steps
-from the mean full Moon); the ones whose argument of latitude puts the Moon within 1.9
+from the mean full Moon); the ones whose argument of latitude puts the Moon within 2.4
 degrees of the ecliptic are kept;
 greatest eclipse is the instant of the least distance of the Moon's centre from the
 axis (the zero of the rate of change of its square), and the contacts are the zeros of
@@ -44,7 +44,7 @@ import numpy as np
 
 from . import bodies, frames, vectors
 from .errors import SkyError, rows_failing
-from .events import crossings
+from .events import Roots, crossings, polish
 from .moon import rough_elongation
 from .timescales import DateTimes, Instants, julian_year, tt_to_tdb, universal_of
 from .vocabulary import (AU_KM, AU_M, BUILTIN, EARTH_RADIUS_KM, IAU2006_YEARS, J2000_JD,
@@ -64,9 +64,11 @@ PHASES = {"PENUMBRAL": ("P1", "P4"), "PARTIAL": ("U1", "U4"), "TOTAL": ("U2", "U
 # for the rows still without one (no 14 months pass without a lunar eclipse).
 FIRST_WINDOW_DAYS = 215.0
 SECOND_WINDOW_DAYS = 430.0
-# A full Moon is a candidate when 5.15 |sin F| (the Moon's latitude by its mean argument
-# of latitude) is under this: the widest penumbral eclipse needs under 1.6 degrees.
-CANDIDATE_LATITUDE_DEG = 1.9
+# A full Moon is a candidate when 5.145 sin F (the Moon's latitude by its mean argument
+# of latitude) is under this: the widest penumbral eclipse needs under 1.6 degrees, and
+# that rough latitude is off by up to about 0.35 degree (penumbral eclipses of magnitude
+# 0.02 to 0.05 in 1615, 2367, 2479 had it at 1.92 to 1.94).
+CANDIDATE_LATITUDE_DEG = 2.4
 # The refraction at the horizon (34') with which "above the horizon" is judged: the
 # Moon's upper limb risen, as almanacs time moonrise.
 HORIZON_REFRACTION_DEG = 34.0 / 60.0
@@ -201,9 +203,32 @@ def _light_days(shadow):
     return shadow.moon_km / AU_KM * LIGHT_DAYS_PER_AU
 
 
+def _solve(f, guesses, slope, window, n, direction=0):
+    """Roots of ``f`` next to ``guesses`` (``Roots``, one per row of ``n``) by the event
+    search's Newton-secant polish; a row where that does not settle is searched by
+    brackets over ``window`` (lo, hi offsets in days) round its guess.  Each row's answer
+    depends on its own guess alone."""
+    roots, good = polish(f, guesses, slope, n, tolerance=2e-7, steps=6)
+    jd1, jd2 = roots.jd1.copy(), roots.jd2.copy()
+    bad = np.flatnonzero(~good)
+    if bad.size:
+        base = guesses.jd1[bad] + guesses.jd2[bad]
+        again = crossings(lambda j1, j2, r: f(j1, j2, bad[r]), base + window[0][bad],
+                          base + window[1][bad], 0.6, direction=direction, tolerance=2e-7)
+        a1, a2, found = again.first(bad.size)
+        jd1[bad], jd2[bad] = a1, a2
+        good[bad] = found
+    return jd1, jd2, good
+
+
+# The Moon's mean motion from the shadow's axis (13.18 less 0.99 degrees a day), radians
+# a day: the Newton step's slope before the secant takes over.
+MEAN_RELATIVE_RATE = np.radians(12.19)
+
+
 def _greatest(c1, c2, rule, source, offset):
     """Greatest eclipse near each candidate (TT two-part, at the Moon): the zero of the
-    rate of the squared distance from the axis within 7 hours of the rough full Moon."""
+    rate of the squared distance from the axis, within 7 hours of the rough full Moon."""
     h = 1.0 / 1440.0  # a central difference over two minutes
 
     def rate(jd1, jd2, row):
@@ -213,9 +238,10 @@ def _greatest(c1, c2, rule, source, offset):
         n = jd1.size
         return (m[:n] ** 2 - m[n:] ** 2) / (2.0 * h)
 
-    base = c1 + c2
-    roots = crossings(rate, base - 0.3, base + 0.3, 0.6, direction=+1, tolerance=2e-7)
-    return roots.first(base.size)
+    n = c1.size
+    window = (np.full(n, -0.3), np.full(n, 0.3))
+    return _solve(rate, Roots(c1, c2, np.arange(n)), 2.0 * MEAN_RELATIVE_RATE ** 2, window, n,
+                  direction=+1)
 
 
 def _of_lunations(ks, rule, source):
@@ -279,16 +305,29 @@ def _subset(e, keep):
 
 def _contacts(g1, g2, at, rule, source, offset):
     """The six contacts of the eclipses greatest at ``g1 + g2`` (``at`` the shadow
-    there): the zeros of distance minus edge within 0.2 day (a penumbral eclipse lasts
-    at most about 6 hours)."""
+    there, TT at the Moon): the zeros of distance minus edge, first guessed from the
+    Moon's path as a straight line at the speed it has at greatest eclipse (so that
+    m^2 = m0^2 + v^2 (t - G)^2), then polished; brackets within 0.2 day (a penumbral
+    eclipse lasts at most about 6 hours) where the polish does not settle.  The Moon's
+    light time at greatest eclipse serves for every contact (its distance changes by
+    under 100 km, 0.3 ms of light, over an eclipse)."""
     n = g1.size
+    h = 0.01
+    near = Shadow(np.concatenate([g1, g1]), np.concatenate([g2 - h, g2 + h]), rule, source,
+                  np.concatenate([offset, offset]))
+    speed2 = (near.m[:n] ** 2 + near.m[n:] ** 2 - 2.0 * at.m ** 2) / (2.0 * h * h)
     names, idx = [], []
     for k, name in enumerate(CONTACTS):
         occurs = at.m < at.edge(name)
         names.append(np.full(np.count_nonzero(occurs), k))
         idx.append(np.flatnonzero(occurs))
     which, eclipse = np.concatenate(names), np.concatenate(idx)
-    before = which < 3
+    sign = np.where(which < 3, -1.0, 1.0)
+    edges = np.stack([at.edge(c) for c in CONTACTS])[which, eclipse]
+    v2 = speed2[eclipse]
+    half = np.sqrt(np.maximum(edges ** 2 - at.m[eclipse] ** 2, 0.0) / v2)
+    guess = Roots(g1[eclipse], g2[eclipse] + sign * half, np.arange(which.size))
+    slope = v2 * sign * half / edges
 
     def f(jd1, jd2, row):
         e, kinds = eclipse[row], which[row]
@@ -298,19 +337,17 @@ def _contacts(g1, g2, at, rule, source, offset):
                           s.edge("U4")], s.edge("P4"))
         return s.m - edge
 
-    base = g1[eclipse] + g2[eclipse]
-    start = np.where(before, base - 0.2, base)
-    stop = np.where(before, base, base + 0.2)
-    roots = crossings(f, start, stop, 0.2, tolerance=2e-7)
-    c1, c2, found = roots.first(which.size)
+    # Brackets between greatest eclipse and 0.2 day before or after it.
+    window = (np.where(sign < 0, -0.2 - sign * half, -sign * half),
+              np.where(sign < 0, -sign * half, 0.2 - sign * half))
+    c1, c2, found = _solve(f, guess, slope, window, which.size)
+    seen = _light_days(at)
     out = {}
     for k, name in enumerate(CONTACTS):
         j1, j2, occurs = np.full(n, np.nan), np.full(n, np.nan), np.zeros(n, bool)
         mine = (which == k) & found
         j1[eclipse[mine]], j2[eclipse[mine]], occurs[eclipse[mine]] = c1[mine], c2[mine], True
-        if np.any(occurs):
-            seen = _light_days(Shadow(j1[occurs], j2[occurs], rule, source, offset[occurs]))
-            j2[occurs] += seen
+        j2[occurs] += seen[occurs]
         out[name] = (j1, j2, occurs)
     return out
 
