@@ -498,38 +498,52 @@ def _check_sigmas(sigmas):
     return sigmas
 
 
-def _moon_altitude(jd1, jd2, latitude, longitude, height, shift_seconds, source):
-    """Airless topocentric altitude (degrees) of the Moon's centre at TT instants, with
-    Delta T larger by ``shift_seconds`` (the Earth has then turned less by the TT
-    instant).  The geocentric apparent Moon on the true equator and equinox of date
-    (the long-term frames outside IAU2006_YEARS), Greenwich apparent sidereal time (ERFA
-    gst06 of that matrix; outside those years GMST of IAU 2006 plus the equation of the
-    equinoxes from IAU 2000B, the few arcminutes between the models being nothing beside
-    Delta T's own error), the site's WGS84 geocentric position (ERFA gd2gc) taken off,
-    the altitude from the geodetic vertical."""
-    jd1, jd2 = np.broadcast_arrays(np.ravel(np.asarray(jd1, float)), np.ravel(np.asarray(jd2, float)))
-    lat = np.radians(np.broadcast_to(np.asarray(latitude, float), jd1.shape))
-    lon = np.radians(np.broadcast_to(np.asarray(longitude, float), jd1.shape))
-    hgt = np.broadcast_to(np.asarray(height, float), jd1.shape)
-    frames.check_latitudes(np.degrees(lat))
+# The Earth rotation angle's rate, radians per second of UT (IAU 2000: 1.00273781191135448
+# turns per UT day): a Delta T larger by a second turns the sky back by this much.
+ERA_RATE = 2.0 * np.pi * 1.00273781191135448 / 86400.0
+
+
+def _check_site(latitude, longitude, height, shape):
+    lat = np.broadcast_to(np.asarray(latitude, float), shape)
+    lon = np.broadcast_to(np.asarray(longitude, float), shape)
+    hgt = np.broadcast_to(np.asarray(height, float), shape)
+    frames.check_latitudes(lat)
     bad = (hgt < -1000.0) | (hgt > 20000.0)
     if np.any(bad):
         raise rows_failing(bad, "the height must be within -1000 to 20000 m above the ellipsoid")
+    return np.radians(lat), np.radians(lon), hgt
+
+
+def _moon_on_the_sky(jd1, jd2, source):
+    """(geocentric apparent Moon on the true equator and equinox of date in au, Greenwich
+    apparent sidereal time in radians with the default Delta T) at TT instants.
+
+    The true equator and equinox from IAU 2006/2000A inside IAU2006_YEARS and the
+    long-term frames outside; the sidereal time ERFA gst06 of that same matrix inside,
+    outside GMST of IAU 2006 plus the equation of the equinoxes from IAU 2000B (the few
+    arcminutes between the models are nothing beside Delta T's own error there)."""
     p = bodies.place_at_tt("MOON", jd1, jd2, "APPARENT", source)
     npb = frames.system_matrix("EQUATORIAL TRUE", jd1, jd2, long_term=True)
     v = vectors.apply(npb, p.direction * p.distance[:, None])
     ut = Instants(jd1, jd2, "TT").to("UT")
-    u1, u2 = ut.jd1, ut.jd2 - np.broadcast_to(shift_seconds, jd1.shape) / 86400.0
     years = julian_year(jd1, jd2)
     inside = (years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])
     gast = np.empty(jd1.shape)
     if np.any(inside):
-        gast[inside] = erfa.gst06(u1[inside], u2[inside], jd1[inside], jd2[inside], npb[inside])
+        gast[inside] = erfa.gst06(ut.jd1[inside], ut.jd2[inside], jd1[inside], jd2[inside],
+                                  npb[inside])
     if not np.all(inside):
         o = ~inside
         dpsi, _ = erfa.nut00b(jd1[o], jd2[o])
-        gast[o] = (erfa.gmst06(u1[o], u2[o], jd1[o], jd2[o])
+        gast[o] = (erfa.gmst06(ut.jd1[o], ut.jd2[o], jd1[o], jd2[o])
                    + dpsi * np.cos(erfa.obl06(jd1[o], jd2[o])))
+    return v, gast
+
+
+def _altitude(v, gast, lat, lon, hgt):
+    """Airless altitude (degrees) of the Moon's centre from a site (radians, metres):
+    the site's WGS84 geocentric position (ERFA gd2gc) taken off, measured from the
+    geodetic vertical."""
     c, s = np.cos(gast), np.sin(gast)
     x = c * v[:, 0] + s * v[:, 1]
     y = -s * v[:, 0] + c * v[:, 1]
@@ -538,6 +552,17 @@ def _moon_altitude(jd1, jd2, latitude, longitude, height, shift_seconds, source)
     up = np.stack([np.cos(lat) * np.cos(lon), np.cos(lat) * np.sin(lon), np.sin(lat)], axis=-1)
     sin_alt = vectors.dot(up, topo) / vectors.norm(topo)
     return np.degrees(np.arcsin(np.clip(sin_alt, -1.0, 1.0)))
+
+
+def _moon_altitude(jd1, jd2, latitude, longitude, height, shift_seconds, source):
+    """Airless topocentric altitude (degrees) of the Moon's centre at TT instants, with
+    Delta T larger by ``shift_seconds``: the Earth has then turned less by the TT
+    instant, by ERA_RATE a second."""
+    jd1, jd2 = np.broadcast_arrays(np.ravel(np.asarray(jd1, float)),
+                                   np.ravel(np.asarray(jd2, float)))
+    lat, lon, hgt = _check_site(latitude, longitude, height, jd1.shape)
+    v, gast = _moon_on_the_sky(jd1, jd2, source)
+    return _altitude(v, gast - ERA_RATE * np.broadcast_to(shift_seconds, jd1.shape), lat, lon, hgt)
 
 
 def moon_altitude_cells(time, latitude, longitude, event="GREATEST", height=0.0,
@@ -561,60 +586,47 @@ def visibility_cells(time, latitude, longitude, height=0.0, delta_t_sigmas=0.0,
     sigmas = np.abs(_check_sigmas(delta_t_sigmas))
     e = _next(time, rule, source)
     n = e.g1.size
-    lat = np.broadcast_to(np.asarray(latitude, float), (n,))
-    lon = np.broadcast_to(np.asarray(longitude, float), (n,))
-    hgt = np.broadcast_to(np.asarray(height, float), (n,))
+    lat, lon, hgt = _check_site(latitude, longitude, height, (n,))
     sig = np.broadcast_to(sigmas, (n,))
-    frames.check_latitudes(lat)
-    bad = (hgt < -1000.0) | (hgt > 20000.0)
-    if np.any(bad):
-        raise rows_failing(bad, "the height must be within -1000 to 20000 m above the ellipsoid")
     one = _delta_t_shift(time, e.g1, e.g2, np.where(sig > 0.0, 1.0, 0.0)) - \
         _delta_t_shift(time, e.g1, e.g2, 0.0)
-    steps = np.linspace(-1.0, 1.0, SIGMA_STEPS)
+    steps = np.linspace(-1.0, 1.0, SIGMA_STEPS) if np.any(sig > 0.0) else np.zeros(1)
     frac = np.linspace(0.0, 1.0, SAMPLES_PER_PHASE)
-    kind = e.kind_index()
-    # Rows x phases x instants x Delta T steps, all in one call of the altitude.
+    # Rows x phases x instants: the Moon's place once; x Delta T steps: the Earth turned.
     phases = list(PHASES)
-    a1 = np.stack([e.contacts[PHASES[p][0]][0] for p in phases], axis=1)
-    a2 = np.stack([e.contacts[PHASES[p][0]][1] for p in phases], axis=1)
-    b1 = np.stack([e.contacts[PHASES[p][1]][0] for p in phases], axis=1)
-    b2 = np.stack([e.contacts[PHASES[p][1]][1] for p in phases], axis=1)
-    occurs = np.stack([e.contacts[PHASES[p][0]][2] for p in phases], axis=1)
+    a1, a2, b1, b2, occurs = (np.stack([e.contacts[PHASES[p][end]][i] for p in phases], axis=1)
+                              for end, i in ((0, 0), (0, 1), (1, 0), (1, 1), (0, 2)))
     a1 = np.where(occurs, a1, e.g1[:, None])
     a2 = np.where(occurs, a2, e.g2[:, None])
     span = np.where(occurs, (b1 - a1) + (b2 - a2), 0.0)
-    shape = (n, len(phases), SAMPLES_PER_PHASE, SIGMA_STEPS)
-    j1 = np.broadcast_to(a1[:, :, None, None], shape)
-    j2 = np.broadcast_to(a2[:, :, None, None] + span[:, :, None, None] * frac[None, None, :, None],
-                         shape)
-    shift = _delta_t_shift(time, j1.ravel(), j2.ravel(), 0.0).reshape(shape)
-    if np.any(sig > 0.0):
-        shift = shift + (one * sig)[:, None, None, None] * steps[None, None, None, :]
-    rows = np.broadcast_to(np.arange(n)[:, None, None, None], shape).ravel()
-    alt = _moon_altitude(j1.ravel(), j2.ravel(), lat[rows], lon[rows], hgt[rows],
-                         shift.ravel(), e.source).reshape(shape)
-    limb = np.degrees(e.shadow.moon)[:, None, None, None]
-    up = alt > -(HORIZON_REFRACTION_DEG + limb)
+    shape = (n, len(phases), SAMPLES_PER_PHASE)
+    j1 = np.broadcast_to(a1[:, :, None], shape).ravel()
+    j2 = (a2[:, :, None] + span[:, :, None] * frac[None, None, :]).ravel()
+    v, gast = _moon_on_the_sky(j1, j2, e.source)
+    shift = _delta_t_shift(time, j1, j2, 0.0)
+    rows = np.repeat(np.arange(n), len(phases) * SAMPLES_PER_PHASE)
+    up = np.empty(shape + (steps.size,), dtype=bool)
+    limb = np.degrees(e.shadow.moon)[rows] + HORIZON_REFRACTION_DEG
+    for k, step in enumerate(steps):
+        turned = gast - ERA_RATE * (shift + (one * sig)[rows] * step)
+        alt = _altitude(v, turned, lat[rows], lon[rows], hgt[rows])
+        up[..., k] = (alt > -limb).reshape(shape)
     whole = np.all(up, axis=2)   # rows x phases x steps
     some = np.any(up, axis=2)
+    middle = steps.size // 2
     out = np.empty(n, dtype=object)
     for r in range(n):
-        used = slice(None) if sig[r] > 0.0 else slice(SIGMA_STEPS // 2, SIGMA_STEPS // 2 + 1)
+        used = slice(None) if sig[r] > 0.0 else slice(middle, middle + 1)
         parts = []
         for k, p in reversed(list(enumerate(phases))):
             if not occurs[r, k]:
                 continue
-            words = []
-            for w, s in zip(whole[r, k, used], some[r, k, used]):
-                word = "all seen" if w else "part seen" if s else "not seen"
-                if word not in words:
-                    words.append(word)
-            words.sort(key=("all seen", "part seen", "not seen").index)
-            parts.append(f"{p.lower()} phase: " + " or ".join(words))
+            words = {"all seen" if w else "part seen" if s else "not seen"
+                     for w, s in zip(whole[r, k, used], some[r, k, used])}
+            order = [w for w in ("all seen", "part seen", "not seen") if w in words]
+            parts.append(f"{p.lower()} phase: " + " or ".join(order))
         text = "; ".join(parts)
         if sig[r] > 0.0 and any(" or " in x for x in parts):
             text += f" (over Delta T +-{sig[r]:g} sigma)"
         out[r] = text
-    del kind
     return out

@@ -325,3 +325,17 @@ def test_visibility_words():
         "total phase: not seen; partial phase: not seen; penumbral phase: not seen")
     wide = evaluate("SKY.LUNAR.ECLIPSE.VISIBILITY", ["-0584-05-01", 37.9, 23.7, "UT", 0, 2])
     assert wide.startswith("penumbral phase:") or wide.startswith("total phase:")
+
+
+@pytest.mark.parametrize("search,date", [
+    # Historical record, dates from memory (Julian calendar, astronomical years):
+    ("-0720-03-01", "-0720-03-19"),  # the Babylonian eclipse Ptolemy's Almagest uses, total
+    ("-0412-08-01", "-0412-08-27"),  # the eclipse at Syracuse in Thucydides, total
+    ("-0330-09-01", "-0330-09-20"),  # eleven days before Gaugamela, total
+])
+def test_ancient_total_eclipses_on_their_dates(search, date):
+    # The long-range built-in source on UT through the default Delta T (SMH2016).
+    got = evaluate("SKY.LUNAR.ECLIPSE.NEXT", [search, "UT"])
+    text = evaluate("SKY.TEXT.DATE", [got, "UT", None, "JULIAN", "ASTRONOMICAL", 0])
+    assert text.startswith(date)
+    assert evaluate("SKY.LUNAR.ECLIPSE.KIND", [search, "UT"]) == "total"
