@@ -43,7 +43,7 @@ import erfa
 import numpy as np
 
 from . import bodies, frames, vectors
-from .errors import SkyError, rows_failing
+from .errors import RowErrors, SkyError, rows_failing
 from .events import Roots, crossings, polish
 from .moon import rough_elongation
 from .timescales import DateTimes, Instants, julian_year, tt_to_tdb, universal_of
@@ -262,6 +262,20 @@ def _of_lunations(ks, rule, source):
     return Eclipses(g1, g2 + _light_days(at), cand, at, contacts, rule, source)
 
 
+def _check_span(start, end, rule, source):
+    """Refuse, row by row, the windows that the source does not cover (a day beyond both
+    ends, where the search looks): the searches below are per lunation, shared by rows,
+    so a date out of range must be caught here, where it is still a row's."""
+    n = start.size
+    probe = np.concatenate([start - 1.0, end + 1.0])
+    try:
+        Shadow(probe, np.zeros(probe.shape), rule, source)
+    except RowErrors as err:
+        messages = np.asarray(err.messages, dtype=object).reshape(2, n)
+        raise RowErrors(np.where(np.equal(messages[0], None), messages[1], messages[0])) \
+            from None
+
+
 def find(start, end, rule="DANJON", source=BUILTIN):
     """Every lunar eclipse whose greatest eclipse falls in the rows' windows [start, end]
     (TT JDs, one pair per row): ``Eclipses`` ordered by row and time.  Each full Moon is
@@ -269,6 +283,7 @@ def find(start, end, rule="DANJON", source=BUILTIN):
     rule = check_rule(rule)
     start = np.atleast_1d(np.asarray(start, dtype=float)).ravel()
     end = np.broadcast_to(np.asarray(end, dtype=float), start.shape).ravel()
+    _check_span(start, end, rule, source)
     k_lo = np.floor((start - 1.0 - MEAN_NEW_MOON_JD) / SYNODIC_MONTH - 0.5).astype(np.int64) - 1
     k_hi = np.ceil((end + 1.0 - MEAN_NEW_MOON_JD) / SYNODIC_MONTH - 0.5).astype(np.int64) + 1
     counts = k_hi - k_lo + 1
@@ -364,7 +379,12 @@ def next_after(tt1, tt2, rule="DANJON", source=BUILTIN):
         todo = np.flatnonzero(~chosen)
         if not todo.size:
             break
-        e = find(jd[todo] + lo - 0.01, jd[todo] + hi, rule, source)
+        try:
+            e = find(jd[todo] + lo - 0.01, jd[todo] + hi, rule, source)
+        except RowErrors as err:  # aligned with the rows searched: with all rows
+            messages = np.full(n, None, dtype=object)
+            messages[todo] = np.ravel(err.messages)
+            raise RowErrors(messages) from None
         later = ((e.g1 - tt1[todo][e.row]) + (e.g2 - tt2[todo][e.row])) > 0.0
         idx = np.flatnonzero(later)
         rows, at = np.unique(e.row[idx], return_index=True)
@@ -410,7 +430,6 @@ def _no_contact(e, name):
         for k in np.flatnonzero(~occurs):
             messages[k] = (f"no {name} contact: the next lunar eclipse is {kinds[k]}, with no "
                            f"{what} phase")
-        from .errors import RowErrors
         raise RowErrors(messages)
     return jd1, jd2
 
@@ -478,7 +497,6 @@ def _delta_t_shift(time, jd1, jd2, sigmas):
 def _published_sigma(years):
     """deltat.uncertainty where it is published, NaN elsewhere (row by row)."""
     from . import deltat
-    from .errors import RowErrors
 
     try:
         return deltat.uncertainty(years)
