@@ -227,7 +227,7 @@ def test_contacts_in_order_and_symmetric_about_greatest(two_centuries):
 
 
 def test_a_missing_contact_says_so():
-    # 2021 November 19 was partial (NASA canon: umbral magnitude 0.974): no U2.
+    # 2021 November 19 was partial (NASA canon, from memory: umbral magnitude 0.974): no U2.
     got = evaluate("SKY.LUNAR.ECLIPSE.NEXT", ["2021-11-01", None, "U2"])
     assert got.startswith("#SKY: no U2 contact") and "partial" in got
     assert evaluate("SKY.LUNAR.ECLIPSE.KIND", ["2021-11-01"]) == "partial"
