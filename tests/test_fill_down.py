@@ -47,7 +47,10 @@ def test_the_functions_that_fill_down():
                      "SKY.BODY.TRANSIT", "SKY.STAR.RISE", "SKY.STAR.SET", "SKY.STAR.TRANSIT",
                      "SKY.WINDOW.START", "SKY.WINDOW.END", "SKY.WINDOW.HOURS",
                      "SKY.WINDOW.BEST", "SKY.WINDOW.MOON", "SKY.DARK.START", "SKY.DARK.END",
-                     "SKY.DARK.HOURS"}
+                     "SKY.DARK.HOURS", "SKY.LUNAR.ECLIPSE.NEXT", "SKY.LUNAR.ECLIPSE.KIND",
+                     "SKY.LUNAR.ECLIPSE.MAGNITUDE", "SKY.LUNAR.ECLIPSE.GAMMA",
+                     "SKY.LUNAR.ECLIPSE.DURATION", "SKY.LUNAR.ECLIPSE.MOON.ALT",
+                     "SKY.LUNAR.ECLIPSE.VISIBILITY"}
 
 
 @pytest.mark.parametrize("fn", FILLS_DOWN, ids=lambda f: f.name)

@@ -355,6 +355,21 @@ EXAMPLES["SKY.ORBIT.TOPO.ALT"] = [('"' + _MP_LINE + '";A{r};D{r};E{r};;250',
                                    lambda v: [_MP_LINE, v[0], v[3], v[4], None, 250.0])]
 EXAMPLES["SKY.ORBIT.TOPO.AZ"] = [('"' + _MP_LINE + '";A{r};D{r};E{r}',
                                   lambda v: [_MP_LINE, v[0], v[3], v[4]])]
+# Lunar eclipses: the next after each row's date, at the row's site; an ancient one
+# (about 440 BC, on UT through Delta T) with Delta T moved by a published sigma.  Only
+# contacts every eclipse has (P1, P4): a missing one is a message, and the rows'
+# dates run through penumbral and partial eclipses.
+EXAMPLES["SKY.LUNAR.ECLIPSE.NEXT"] = [
+    ("A{r}", lambda v: [v[0]]),
+    ('A{r};;"P4";"TT";"CHAUVENET"', lambda v: [v[0], None, "P4", "TT", "CHAUVENET"])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.KIND"] = [("A{r}", lambda v: [v[0]])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.MAGNITUDE"] = [('A{r};;"PENUMBRAL"', lambda v: [v[0], None, "PENUMBRAL"])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.GAMMA"] = [('A{r};;;"' + DE440 + '"', lambda v: [v[0], None, None, DE440])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.DURATION"] = [('A{r};;"PENUMBRAL"', lambda v: [v[0], None, "PENUMBRAL"])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.MOON.ALT"] = [
+    ('A{r};D{r};E{r};;"P1"', lambda v: [v[0], v[3], v[4], None, "P1"]),
+    ('A{r}-900000;D{r};E{r};"UT";;;1', lambda v: [v[0] - 900000, v[3], v[4], "UT", None, None, 1.0])]
+EXAMPLES["SKY.LUNAR.ECLIPSE.VISIBILITY"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
@@ -465,6 +480,14 @@ HOSTILE = [
     ('=SKY.BODY.RISE("VULCAN";45500;50;0)', 'unknown body "VULCAN"'),
     ('=SKY.BODY.SET("MARS";45500;50;400)', "longitude must be within"),
     ('=SKY.TOPO.ALT("MOON";45500;50;0;;-5000)', "height must be within"),
+    ('=SKY.LUNAR.ECLIPSE.NEXT("-9000-01-01";"TT")', "valid -4000 to 8000"),
+    ('=SKY.LUNAR.ECLIPSE.NEXT(45500;;"U5")', 'unknown event "U5"'),
+    ('=SKY.LUNAR.ECLIPSE.NEXT(45500;;"U2")', "no U2 contact"),
+    ('=SKY.LUNAR.ECLIPSE.KIND(45500;;"NEWTON")', 'unknown shadow rule "NEWTON"'),
+    ('=SKY.LUNAR.ECLIPSE.MOON.ALT(45500;95;0)', "latitude must be within"),
+    ('=SKY.LUNAR.ECLIPSE.MOON.ALT(45500;50;0;;;;9)', "delta_t_sigmas must be within"),
+    ('=SKY.LUNAR.ECLIPSE.MOON.ALT(45500;50;0;;;;1)', "no published uncertainty"),
+    ('=SKY.LUNAR.ECLIPSE.GAMMA("1500-01-01";"TT";;"' + DE440 + '")', "outside the span of de440.bsp"),
     ('=SKY.WINDOW.HOURS(10;20;45500;50;0;;;0.5;"AIRMASS")', "air mass limit"),
     ('=SKY.ORBIT.RA("00001    3.34  0.15 K205V 188.70269";45500)', "too short"),
     ('=SKY.ORBIT.FROM.Q(45500;0.5;-0.2;10;20;30)', "eccentricity must be"),

@@ -179,6 +179,13 @@ FROZEN_METHODS = {
     "skyOrbitTopoDec": "SKY.ORBIT.TOPO.DEC",
     "skyOrbitTopoAlt": "SKY.ORBIT.TOPO.ALT",
     "skyOrbitTopoAz": "SKY.ORBIT.TOPO.AZ",
+    "skyLunarEclipseNext": "SKY.LUNAR.ECLIPSE.NEXT",
+    "skyLunarEclipseKind": "SKY.LUNAR.ECLIPSE.KIND",
+    "skyLunarEclipseMagnitude": "SKY.LUNAR.ECLIPSE.MAGNITUDE",
+    "skyLunarEclipseGamma": "SKY.LUNAR.ECLIPSE.GAMMA",
+    "skyLunarEclipseDuration": "SKY.LUNAR.ECLIPSE.DURATION",
+    "skyLunarEclipseMoonAlt": "SKY.LUNAR.ECLIPSE.MOON.ALT",
+    "skyLunarEclipseVisibility": "SKY.LUNAR.ECLIPSE.VISIBILITY",
 }
 
 
@@ -387,7 +394,9 @@ DECLARED_ORDER = (
     "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
     "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
     "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
-    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz"
+    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz "
+    "skyLunarEclipseNext skyLunarEclipseKind skyLunarEclipseMagnitude skyLunarEclipseGamma "
+    "skyLunarEclipseDuration skyLunarEclipseMoonAlt skyLunarEclipseVisibility"
 ).split()
 
 
@@ -431,7 +440,8 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
         "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
-        "SKY.EPHEMERIS", "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
+        "SKY.EPHEMERIS", "SKY.LUNAR.ECLIPSE.KIND", "SKY.LUNAR.ECLIPSE.VISIBILITY",
+        "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
         "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
 
 

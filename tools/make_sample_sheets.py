@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Ten workbooks, one office session, one module each in tools/samples/:
+Eleven workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -33,6 +33,9 @@ Ten workbooks, one office session, one module each in tools/samples/:
   minor_planets.ods      the minor-planet section's target list of orbits (MPC lines and
                          elements in cells) and a month's ephemeris of one target (the
                          orbits family)
+  lunar_eclipses.ods     the circle's lunar-eclipse nights of 2025-2032 from Kettle Hill,
+                         and ancient lunar eclipses seen from Holmwray Abbey with Delta T
+                         moved by its published standard error (the lunar-eclipse family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -55,6 +58,7 @@ import officekit  # noqa: E402
 from samples import (  # noqa: E402
     common,
     historical_record,
+    lunar_eclipses,
     meteor_watch,
     minor_planets,
     night_plan,
@@ -69,7 +73,7 @@ from samples import (  # noqa: E402
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
          planet_watch, reductions, night_plan, sky_charts,
-         minor_planets)
+         minor_planets, lunar_eclipses)
 
 
 def build(oxt, out_dir, only=()):
