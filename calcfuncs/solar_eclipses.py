@@ -44,12 +44,12 @@ import numpy as np
 from numpy.polynomial import chebyshev
 
 from . import bodies, deltat, frames, vectors
-from .errors import SkyError, rows_failing
+from .errors import RowErrors, rows_failing
 from .events import brackets, crossings, refine, sample
 from .moon import _phase_crossings
-from .timescales import Instants, check_scale, julian_year, universal_of
+from .timescales import DateTimes, Instants, julian_year, universal_of
 from .topocentric import SUN_RADIUS_KM
-from .vocabulary import AU_KM, BUILTIN, J2000_JD
+from .vocabulary import AU_KM, BUILTIN
 
 WGS84_A_KM = 6378.137
 WGS84_F = 1.0 / 298.257223563
@@ -362,15 +362,9 @@ class Site:
         return st
 
 
-def _min_rate(site, extra=None):
-    h = 4e-5  # days, 3.5 s
-
-    def f(jd1, jd2, row):
-        turn = 0.0 if extra is None else extra[row]
-        a = site.state(jd1, jd2 + h, row, turn).m
-        b = site.state(jd1, jd2 - h, row, turn).m
-        return (a * a - b * b) / (2.0 * h)
-    return f
+def _min_rate(site):
+    """d/dt of m^2 at a site, whose rising zero is the local maximum."""
+    return lambda jd1, jd2, row: _rate_turned(site, jd1, jd2, row, 0.0)
 
 
 class Local:
@@ -483,19 +477,14 @@ def delta_t_limits(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", sou
                      else np.ravel(a) for a in (latitude, longitude, height))
     site = Site(series, e, lat, lon, hgt, ut_scale, np.zeros(n), dut1)
     c1, c2 = series.c1[e], series.c2[e]
-    rate = _min_rate(site)
-
     def central_margin(j1, j2, row):
         # j1 + j2 is the change of Delta T in days; the Earth is then turned back by it.
         delta = j1 + j2
         turn = -ROTATION * delta
-        extra = np.zeros(n)
         t1, t2 = c1[row], np.array(c2[row])
-        f = _min_rate(site, None)
         # Newton steps on d(m^2)/dt, the site turned: m^2 is close to a parabola in time.
         h = 2e-4
         for _ in range(6):
-            extra_rows = np.zeros(n)
             a = _rate_turned(site, t1, t2, row, turn)
             b = _rate_turned(site, t1, t2 + h, row, turn)
             slope = np.where(b != a, (b - a) / h, 1.0)
@@ -533,3 +522,183 @@ def _rate_turned(site, t1, t2, row, turn):
     a = site.state(t1, t2 + h, row, turn).m
     b = site.state(t1, t2 - h, row, turn).m
     return (a * a - b * b) / (2.0 * h)
+
+
+# ---- cell functions ----------------------------------------------------------------------
+
+_TT_LIKE = ("TT", "TDB", "TAI")
+
+
+def _found_for(time, source):
+    tt1, tt2 = time.tt()
+    return next_eclipse(tt1, tt2, source)
+
+
+def next_cells(time, result_scale=None, source=BUILTIN):
+    """Greatest eclipse of the first solar eclipse after ``time``."""
+    found = _found_for(time, source)
+    e = found.of_row
+    return DateTimes.of_tt(found.g1[e], found.g2[e], result_scale or time.scale)
+
+
+def kind_cells(time, source=BUILTIN):
+    found = _found_for(time, source)
+    return found.kind[found.of_row]
+
+
+def greatest_point(found, ut_scale="UT", dut1=0.0):
+    """Geodetic (latitude, longitude) in degrees of the point of greatest eclipse of each
+    eclipse found: where the axis meets the ellipsoid, or for an eclipse whose axis
+    misses, the point of the Earth's limb nearest the axis."""
+    s = found.series
+    e = np.arange(s.c1.size)
+    el = Elements(*s.vectors(e, s.tau(e, found.g1, found.g2)))
+    zeta = _ellipsoid_zeta(el)
+    central = np.isfinite(zeta)
+    b2 = (1.0 - WGS84_F) ** 2
+    sin_d = el.g[:, 2]
+    rho1 = np.sqrt(sin_d * sin_d + b2 * (1.0 - sin_d * sin_d))
+    scaled = np.hypot(el.x, el.y / rho1)
+    x = np.where(central, el.x, el.x / scaled)
+    y = np.where(central, el.y, el.y / scaled)
+    q = x[:, None] * el.ex + y[:, None] * el.ey + np.where(central, zeta, 0.0)[:, None] * el.g
+    ut = Instants(found.g1, found.g2, "TT", dut1).to(ut_scale)
+    theta = erfa.gst06(ut.jd1, ut.jd2, found.g1, found.g2, s.rnpb)
+    c, sn = np.cos(theta), np.sin(theta)
+    itrs = np.stack([c * q[:, 0] + sn * q[:, 1], -sn * q[:, 0] + c * q[:, 1], q[:, 2]], axis=-1)
+    lon, lat, _ = erfa.gc2gd(1, itrs * WGS84_A_KM * 1000.0)
+    return np.degrees(lat), np.degrees(lon)
+
+
+def global_cells(time, quantity="GAMMA", source=BUILTIN):
+    found = _found_for(time, source)
+    e = found.of_row
+    if quantity in ("LAT", "LON"):
+        lat, lon = greatest_point(found, universal_of(time.scale), time.dut1)
+        return (lat if quantity == "LAT" else lon)[e]
+    return (found.gamma if quantity == "GAMMA" else found.magnitude)[e]
+
+
+def _shift_seconds(time, nsigma, found):
+    """Seconds added to Delta T in each row: ``nsigma`` times the published sigma at the
+    eclipse's date (deltat.uncertainty); rows that ask for it where none is published
+    say so."""
+    n = np.size(time.jd1)
+    ns = np.broadcast_to(np.ravel(np.asarray(nsigma, float)), (n,)).copy()
+    shift = np.zeros(n)
+    asked = ns != 0.0
+    if np.any(asked):
+        e = found.of_row
+        years = julian_year(found.g1[e], found.g2[e])
+        bad = asked & ~((years >= -1000.0) & (years < 1201.0)
+                        | np.any([np.abs(years - y) < 0.5 for y in (1700, 1800, 1900)], axis=0))
+        if np.any(bad):
+            raise rows_failing(bad, "no published uncertainty of Delta T for this eclipse's date "
+                                    "(the estimates used cover 1000 BC to AD 1200, and 1700, "
+                                    "1800, 1900); give nsigma 0 or a Delta T in the scale")
+        shift[asked] = ns[asked] * deltat.uncertainty(years[asked])
+    return shift
+
+
+def _local_for(time, latitude, longitude, height, nsigma, source):
+    found = _found_for(time, source)
+    shift = _shift_seconds(time, nsigma, found)
+    tt1, tt2 = time.tt()
+    out = local(tt1, tt2, latitude, longitude, height, universal_of(time.scale), shift, source,
+                time.dut1)
+    out.shift = shift
+    return out
+
+
+def _check_lost(out):
+    if np.any(out.lost):
+        raise rows_failing(out.lost, "the contacts of this eclipse fall outside the hours "
+                                     "searched around the new Moon")
+
+
+def contact_cells(time, latitude, longitude, contact="MAX", result_scale=None, height=0.0,
+                  nsigma=0.0, source=BUILTIN):
+    """The instant of a contact at a site (words where there is none)."""
+    out = _local_for(time, latitude, longitude, height, nsigma, source)
+    _check_lost(out)
+    j1, j2 = out.times[contact]
+    words = status_words(out)
+    if contact in ("C2", "C3"):
+        words[out.inside & out.sun_up & ~out.central] = (
+            "no total or annular phase here (a partial eclipse)")
+    missing = np.not_equal(words, None) | ~np.isfinite(j1)
+    j1 = np.where(missing, out.found.g1[out.e], j1)
+    j2 = np.where(missing, out.found.g2[out.e], j2)
+    scale = result_scale or time.scale
+    if not (scale in _TT_LIKE):
+        j2 = j2 - out.shift / 86400.0  # shown on UT with the shifted Delta T
+    return DateTimes.of_tt(j1, j2, scale, words=words if np.any(missing) else None)
+
+
+def local_cells(time, latitude, longitude, quantity="MAGNITUDE", contact="MAX", height=0.0,
+                nsigma=0.0, source=BUILTIN):
+    out = _local_for(time, latitude, longitude, height, nsigma, source)
+    _check_lost(out)
+    words = status_words(out)
+    if quantity in ("ALT", "AZ"):
+        words[out.inside & ~out.sun_up] = None  # the altitude says why it is not seen
+    bad = np.not_equal(words, None)
+    if np.any(bad):
+        raise RowErrors(words)
+    if quantity == "MAGNITUDE":
+        return out.magnitude
+    if quantity == "OBSCURATION":
+        return out.obscuration
+    if quantity == "DURATION":
+        return out.duration
+    values = (out.alt if quantity == "ALT" else out.az)[contact]
+    none = ~np.isfinite(values)
+    if np.any(none):
+        raise rows_failing(none, f"no contact {contact} here (a partial eclipse has no C2 or C3)")
+    return values
+
+
+def seen_cells(time, latitude, longitude, height=0.0, nsigma=0.0, source=BUILTIN):
+    """What the site sees, in words."""
+    out = _local_for(time, latitude, longitude, height, nsigma, source)
+    _check_lost(out)
+    words = status_words(out)
+    text = np.empty(words.shape, dtype=object)
+    for i in range(words.size):  # the rows' words: formatting only
+        if words[i] is not None:
+            text[i] = words[i]
+            continue
+        if out.central[i]:
+            what = ("total" if out.total[i] else "annular") + \
+                   f" eclipse seen, {out.duration[i]:.0f} s of " + \
+                   ("totality" if out.total[i] else "annularity")
+        else:
+            what = f"partial eclipse seen, magnitude {out.magnitude[i]:.3f}"
+        notes = []
+        if out.alt["C1"][i] < 0.0:
+            notes.append("begins before sunrise")
+        if out.alt["MAX"][i] < 0.0:
+            notes.append("maximum below the horizon")
+        if out.alt["C4"][i] < 0.0:
+            notes.append("ends after sunset")
+        sun = f"the Sun {out.alt['MAX'][i]:.0f} degrees high at maximum"
+        text[i] = what + "; " + ("; ".join(notes) if notes else sun)
+    return text
+
+
+def delta_t_cells(time, latitude, longitude, quantity="LOW", height=0.0, source=BUILTIN):
+    tt1, tt2 = time.tt()
+    found = _found_for(time, source)
+    if quantity == "SIGMA":
+        e = found.of_row
+        return deltat.uncertainty(julian_year(found.g1[e], found.g2[e]))
+    low, high, model = delta_t_limits(tt1, tt2, latitude, longitude, height,
+                                      universal_of(time.scale), source, dut1=time.dut1)
+    if quantity == "MODEL":
+        return model
+    values = low if quantity == "LOW" else high
+    none = ~np.isfinite(values)
+    if np.any(none):
+        raise rows_failing(none, "no Delta T within 3 hours of the model's brings the total or "
+                                 "annular phase to this site with the Sun up")
+    return values
