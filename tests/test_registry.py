@@ -179,6 +179,13 @@ FROZEN_METHODS = {
     "skyOrbitTopoDec": "SKY.ORBIT.TOPO.DEC",
     "skyOrbitTopoAlt": "SKY.ORBIT.TOPO.ALT",
     "skyOrbitTopoAz": "SKY.ORBIT.TOPO.AZ",
+    "skySolarEclipseNext": "SKY.SOLAR.ECLIPSE.NEXT",
+    "skySolarEclipseKind": "SKY.SOLAR.ECLIPSE.KIND",
+    "skySolarEclipseGlobal": "SKY.SOLAR.ECLIPSE.GLOBAL",
+    "skySolarEclipseContact": "SKY.SOLAR.ECLIPSE.CONTACT",
+    "skySolarEclipseLocal": "SKY.SOLAR.ECLIPSE.LOCAL",
+    "skySolarEclipseSeen": "SKY.SOLAR.ECLIPSE.SEEN",
+    "skySolarEclipseDeltat": "SKY.SOLAR.ECLIPSE.DELTAT",
 }
 
 
@@ -387,7 +394,9 @@ DECLARED_ORDER = (
     "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
     "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
     "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
-    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz"
+    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz "
+    "skySolarEclipseNext skySolarEclipseKind skySolarEclipseGlobal skySolarEclipseContact "
+    "skySolarEclipseLocal skySolarEclipseSeen skySolarEclipseDeltat"
 ).split()
 
 
@@ -432,7 +441,7 @@ def test_result_kinds_of_known_functions():
     assert sorted(n for n, k in kinds.items() if k == "text") == [
         "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
         "SKY.EPHEMERIS", "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
-        "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
+        "SKY.SOLAR.ECLIPSE.KIND", "SKY.SOLAR.ECLIPSE.SEEN", "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
 
 
 def test_every_argument_has_a_noun_for_its_messages():

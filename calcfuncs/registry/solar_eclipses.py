@@ -65,7 +65,7 @@ FAMILY = Family("solar_eclipses", "Solar eclipses: the next one anywhere, what a
     _f("SKY.SOLAR.ECLIPSE.GLOBAL", "skySolarEclipseGlobal",
        "Gamma, magnitude or the place of greatest eclipse of the next solar eclipse after a "
        "time.",
-       (_AFTER, Arg("quantity", "choice", "GAMMA (default: the least distance of the "
+       (_AFTER, SCALE, Arg("quantity", "choice", "GAMMA (default: the least distance of the "
                     "shadow's axis from the Earth's centre in equatorial radii, negative "
                     "south) or MAGNITUDE (central: the ratio of the Moon's apparent "
                     "diameter to the Sun's on the axis; partial: the fraction of the Sun's "
@@ -73,26 +73,26 @@ FAMILY = Family("solar_eclipses", "Solar eclipses: the next one anywhere, what a
                     "LON (geodetic latitude and east longitude of the point of greatest "
                     "eclipse: where the axis meets the Earth, else the limb point nearest "
                     "it).", default="GAMMA", choices=("GAMMA", "MAGNITUDE", "LAT", "LON")),
-        SCALE, SOURCE, DUT1),
+        SOURCE, DUT1),
        "Earth radii (gamma), a fraction (magnitude) or degrees", "solar_eclipses:global_cells",
        _GLOBAL),
     _f("SKY.SOLAR.ECLIPSE.CONTACT", "skySolarEclipseContact",
        "A contact of the next solar eclipse after a time, at a site: C1, C2, MAX, C3 or C4.",
-       (_AFTER, LATITUDE, LONGITUDE, _CONTACT, SCALE, EVENT_RESULT_SCALE, _HEIGHT, _NSIGMA,
+       (_AFTER, LATITUDE, LONGITUDE, SCALE, _CONTACT, EVENT_RESULT_SCALE, _HEIGHT, _NSIGMA,
         SOURCE, DUT1),
        "a date-time value on the result scale (on UT, with Delta T moved by nsigma), or "
        "words when there is none", "solar_eclipses:contact_cells", _LOCAL, "datetime"),
     _f("SKY.SOLAR.ECLIPSE.LOCAL", "skySolarEclipseLocal",
        "What a site sees of the next solar eclipse after a time: magnitude, obscuration, "
        "duration of totality or annularity, or the Sun's altitude or azimuth at a contact.",
-       (_AFTER, LATITUDE, LONGITUDE,
+       (_AFTER, LATITUDE, LONGITUDE, SCALE,
         Arg("quantity", "choice", "MAGNITUDE (default: the fraction of the Sun's diameter "
             "covered at maximum), OBSCURATION (the fraction of its disc covered), DURATION "
             "(seconds of totality or annularity, 0 for a partial eclipse), ALT or AZ (the "
             "Sun's altitude or azimuth at the contact, degrees; azimuth from north through "
             "east).", default="MAGNITUDE",
             choices=("MAGNITUDE", "OBSCURATION", "DURATION", "ALT", "AZ")),
-        _CONTACT, SCALE, _HEIGHT, _NSIGMA, SOURCE, DUT1),
+        _CONTACT, _HEIGHT, _NSIGMA, SOURCE, DUT1),
        "a fraction, seconds or degrees", "solar_eclipses:local_cells", _LOCAL),
     _f("SKY.SOLAR.ECLIPSE.SEEN", "skySolarEclipseSeen",
        "In words, what a site sees of the next solar eclipse after a time.",
@@ -104,12 +104,12 @@ FAMILY = Family("solar_eclipses", "Solar eclipses: the next one anywhere, what a
        "For a historical record: the range of Delta T for which the total or annular phase "
        "of the next solar eclipse after a time reaches a site with the Sun up, the model's "
        "Delta T, or its published uncertainty.",
-       (_AFTER, LATITUDE, LONGITUDE,
+       (_AFTER, LATITUDE, LONGITUDE, SCALE,
         Arg("quantity", "choice", "LOW (default: the least Delta T of the range), HIGH (the "
             "greatest), MODEL (the Delta T of the scale at the eclipse) or SIGMA (the "
             "published standard error there).", default="LOW",
             choices=("LOW", "HIGH", "MODEL", "SIGMA")),
-        SCALE, _HEIGHT, SOURCE, DUT1),
+        _HEIGHT, SOURCE, DUT1),
        "seconds", "solar_eclipses:delta_t_cells",
        "Searched over Delta T within 3 hours of the model's: a change of Delta T turns the "
        "Earth under the shadow (15.04\" of longitude a second). Of several ranges, the one "
