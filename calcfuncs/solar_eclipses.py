@@ -156,11 +156,15 @@ def _limb_distance(el):
 
 
 def _mean_lunations(jd):
-    """Meeus (Astronomical Algorithms, ch. 49 and 54): mean new Moons (TT JD) near and
-    after ``jd`` and the Moon's argument of latitude F there; an eclipse needs |sin F|
-    under 0.36 (we keep 0.40 to be safe)."""
+    """Meeus (Astronomical Algorithms, ch. 49 and 54): the lunation numbers k (0 at the
+    new Moon of 2000 January 6) of the ten mean new Moons from the one before ``jd``."""
     k0 = np.floor((jd - 2451550.09766) / SYNODIC_MONTH) - 1.0
-    k = k0[:, None] + np.arange(10)[None, :]
+    return k0[:, None] + np.arange(10)[None, :]
+
+
+def _mean_new_moon(k):
+    """(TT JD of the mean new Moon, whether an eclipse may come there): Meeus's test is
+    |sin F| under 0.36, F the Moon's argument of latitude; we keep 0.40 to be safe."""
     t = k / 1236.85
     mean = 2451550.09766 + SYNODIC_MONTH * k + 0.00015437 * t * t
     f = np.radians(160.7108 + 390.67050284 * k - 0.0016118 * t * t)
@@ -172,59 +176,81 @@ class Found:
     magnitude, kind; ``of_row`` maps each searched row to its eclipse."""
 
 
-_CACHE = {}
-_CACHE_SIZE = 256
+# What each lunation holds, once computed: (source, k) -> the new Moon, its series and
+# its greatest eclipse.  A sheet asks about the same few eclipses from many cells.
+_LUNATIONS = {}
+_LUNATIONS_SIZE = 20000
+_FIELDS = ("c1", "c2", "coef", "rnpb", "g1", "g2", "gamma", "magnitude", "kind", "touches")
+
+
+def _lunations(ks, source):
+    """Per lunation number: a dict of arrays (_FIELDS) and a mask of those with a new
+    Moon found; computed for the lunations not yet known, in one vectorised pass."""
+    key = str(source)
+    todo = np.array([k for k in ks if (key, k) not in _LUNATIONS])
+    if todo.size:
+        mean, _ = _mean_new_moon(todo)
+        # The true new Moon (the elongation in longitude zero) within a day of the mean.
+        roots = _phase_crossings(0.0, mean - 1.2, mean + 1.2, source)
+        n1, n2, ok = roots.first(todo.size)
+        idx = np.flatnonzero(ok)
+        series = Series(n1[idx], n2[idx], source)
+        g1, g2, gamma, mag, kind, touches = _greatest(series, np.arange(idx.size))
+        rnpb = np.reshape(series.rnpb, (-1, 3, 3))
+        if len(_LUNATIONS) + todo.size > _LUNATIONS_SIZE:
+            _LUNATIONS.clear()
+        for j, k in enumerate(todo):
+            _LUNATIONS[(key, k)] = None
+        for j, i in enumerate(idx):  # storing what the pass computed, lunation by lunation
+            _LUNATIONS[(key, todo[i])] = (series.c1[j], series.c2[j], series.coef[j], rnpb[j],
+                                          g1[j], g2[j], gamma[j], mag[j], kind[j], touches[j])
+    records = [_LUNATIONS[(key, k)] for k in ks]
+    have = np.array([r is not None for r in records], dtype=bool)
+    filler = next((r for r in records if r is not None), None)
+    if filler is None:
+        return None, have
+    records = [r if r is not None else filler for r in records]
+    return {name: np.array([r[i] for r in records]) for i, name in enumerate(_FIELDS)}, have
 
 
 def next_eclipse(tt1, tt2, source=BUILTIN):
     """The first solar eclipse whose greatest eclipse follows each TT instant."""
     tt1, tt2 = np.ravel(np.asarray(tt1, float)), np.ravel(np.asarray(tt2, float))
-    key = (tt1.tobytes(), tt2.tobytes(), str(source))
-    hit = _CACHE.get(key)
-    if hit is not None:
-        return hit
     pairs, of_row = np.unique(np.stack([tt1, tt2], axis=-1), axis=0, return_inverse=True)
     of_row = np.ravel(of_row)
     u1, u2 = pairs[:, 0], pairs[:, 1]
-    mean, maybe = _mean_lunations(u1 + u2)
+    ks = _mean_lunations(u1 + u2)
+    mean, maybe = _mean_new_moon(ks)
     late = mean > (u1 + u2)[:, None] - 2.0
-    cand_row, cand_k = np.nonzero(maybe & late)
-    m = mean[cand_row, cand_k]
-    # The true new Moon (the elongation in longitude zero) within a day of the mean one.
-    roots = _phase_crossings(0.0, m - 1.2, m + 1.2, source)
-    n1, n2, ok = roots.first(m.size)
-    keep = np.flatnonzero(ok)
-    cand_row, n1, n2 = cand_row[keep], n1[keep], n2[keep]
-    series = Series(n1, n2, source)
-    g1, g2, gamma, mag, kind, touches = _greatest(series, np.arange(n1.size))
+    cand_row, cand_j = np.nonzero(maybe & late)
+    cand_k = ks[cand_row, cand_j]
+    unique_k, at = np.unique(cand_k, return_inverse=True)
+    rec, have = _lunations([int(k) for k in unique_k], source)
+    if rec is None:
+        raise rows_failing(np.ones(tt1.size, bool), "no solar eclipse found in the 9 months "
+                                                     "after")
+    at = np.ravel(at)
+    g1, g2 = rec["g1"][at], rec["g2"][at]
     after = ((g1 - u1[cand_row]) + (g2 - u2[cand_row])) > 0.0
-    good = touches & after
-    order = np.lexsort((g1 + g2, ~good, cand_row))
-    first_of = {}
-    for i in order:  # the first good candidate of each searched instant
-        r = cand_row[i]
-        if r not in first_of and good[i]:
-            first_of[r] = i
-    missing = np.array([r not in first_of for r in range(u1.size)])
+    good = have[at] & rec["touches"][at] & after
+    # Per searched instant, its first good candidate (the candidates come in time order).
+    rows_good = cand_row[good]
+    first_rows, first_at = np.unique(rows_good, return_index=True)
+    missing = np.ones(u1.size, bool)
+    missing[first_rows] = False
     if np.any(missing):
         raise rows_failing(missing[of_row], "no solar eclipse found in the 9 months after")
-    pick = np.array([first_of[r] for r in range(u1.size)])
+    pick = at[np.flatnonzero(good)[first_at]]
     found = Found()
-    found.series = _subset(series, pick)
-    found.g1, found.g2 = g1[pick], g2[pick]
-    found.gamma, found.magnitude, found.kind = gamma[pick], mag[pick], kind[pick]
+    series = Series.__new__(Series)
+    series.c1, series.c2 = rec["c1"][pick], rec["c2"][pick]
+    series.coef, series.rnpb = rec["coef"][pick], rec["rnpb"][pick]
+    found.series = series
+    found.g1, found.g2 = rec["g1"][pick], rec["g2"][pick]
+    found.gamma, found.magnitude = rec["gamma"][pick], rec["magnitude"][pick]
+    found.kind = rec["kind"][pick].astype(object)
     found.of_row = of_row
-    if len(_CACHE) >= _CACHE_SIZE:
-        _CACHE.pop(next(iter(_CACHE)))
-    _CACHE[key] = found
     return found
-
-
-def _subset(series, pick):
-    s = Series.__new__(Series)
-    s.c1, s.c2, s.coef = series.c1[pick], series.c2[pick], series.coef[pick]
-    s.rnpb = np.reshape(series.rnpb, (-1, 3, 3))[pick]
-    return s
 
 
 def _axis_rate(series, e):
