@@ -510,7 +510,7 @@ def delta_t_limits(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", sou
         t1, t2 = c1[row], np.array(c2[row])
         # Newton steps on d(m^2)/dt, the site turned: m^2 is close to a parabola in time.
         h = 2e-4
-        for _ in range(6):
+        for _ in range(NEWTON_STEPS):
             a = _rate_turned(site, t1, t2, row, turn)
             b = _rate_turned(site, t1, t2 + h, row, turn)
             slope = np.where(b != a, (b - a) / h, 1.0)
@@ -519,7 +519,8 @@ def delta_t_limits(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", sou
         return np.maximum(s.m - np.abs(s.L2), -np.sin(np.radians(s.alt)) * 0.01)
 
     span = span_s / 86400.0
-    grid = sample(central_margin, np.full(n, -span), np.full(n, span), 0.0005, extrema=True)
+    grid = sample(central_margin, np.full(n, -span), np.full(n, span), DELTA_T_STEP_DAYS,
+                  extrema=True)
     roots = refine(central_margin, brackets(grid), 1e-7)
     low, high = np.full(n, np.nan), np.full(n, np.nan)
     dt0 = site.delta_t
@@ -541,6 +542,13 @@ def delta_t_limits(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", sou
             k = np.argmin(np.abs(pairs).min(axis=1))
         low[r], high[r] = dt0[r] + pairs[k, 0] * 86400.0, dt0[r] + pairs[k, 1] * 86400.0
     return low, high, dt0
+
+
+# The search over Delta T: samples 86 s apart (a path at least 40 km wide crossing the
+# site's parallel; narrower ones are caught by the extrema samples), and Newton steps on
+# the time of the site's maximum, m^2 being close to a parabola in time.
+DELTA_T_STEP_DAYS = 0.001
+NEWTON_STEPS = 4
 
 
 def _rate_turned(site, t1, t2, row, turn):
@@ -718,6 +726,10 @@ def delta_t_cells(time, latitude, longitude, quantity="LOW", height=0.0, source=
     if quantity == "SIGMA":
         e = found.of_row
         return deltat.uncertainty(julian_year(found.g1[e], found.g2[e]))
+    if quantity == "MODEL":
+        site = Site(found.series, found.of_row, latitude, longitude, height,
+                    universal_of(time.scale), 0.0, time.dut1)
+        return site.delta_t
     low, high, model = delta_t_limits(tt1, tt2, latitude, longitude, height,
                                       universal_of(time.scale), source, dut1=time.dut1)
     if quantity == "MODEL":
