@@ -355,6 +355,24 @@ EXAMPLES["SKY.ORBIT.TOPO.ALT"] = [('"' + _MP_LINE + '";A{r};D{r};E{r};;250',
                                    lambda v: [_MP_LINE, v[0], v[3], v[4], None, 250.0])]
 EXAMPLES["SKY.ORBIT.TOPO.AZ"] = [('"' + _MP_LINE + '";A{r};D{r};E{r}',
                                   lambda v: [_MP_LINE, v[0], v[3], v[4]])]
+# Solar eclipses: the next after each row's date, at each row's site (most rows see
+# nothing and say so in words; the rows that see one give numbers).
+EXAMPLES["SKY.SOLAR.ECLIPSE.NEXT"] = [("A{r}", lambda v: [v[0]]),
+                                      ('A{r};;"TT"', lambda v: [v[0], None, "TT"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.KIND"] = [("A{r}", lambda v: [v[0]])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.GLOBAL"] = [("A{r}", lambda v: [v[0]]),
+                                        ('A{r};;"MAGNITUDE"', lambda v: [v[0], None, "MAGNITUDE"]),
+                                        ('A{r};;"LON"', lambda v: [v[0], None, "LON"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.CONTACT"] = [
+    ('A{r};D{r};E{r};;"C1"', lambda v: [v[0], v[3], v[4], None, "C1"]),
+    ('A{r};D{r};E{r};;"C2"', lambda v: [v[0], v[3], v[4], None, "C2"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.LOCAL"] = [
+    ("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]]),
+    ('A{r};D{r};E{r};;"ALT";"C4"', lambda v: [v[0], v[3], v[4], None, "ALT", "C4"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.SEEN"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.DELTAT"] = [
+    ('A{r};D{r};E{r};;"MODEL"', lambda v: [v[0], v[3], v[4], None, "MODEL"]),
+    ("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
@@ -471,6 +489,9 @@ HOSTILE = [
     ('=SKY.ORBIT.FROM.Q(45500;-0.5;0.2;10;20;30)', "perihelion distance q"),
     ('=SKY.ORBIT.RA("' + _MP_LINE.replace("K205V", "K2Z5V") + '";45500)', "epoch (columns 21-25)"),
     ('=SKY.ORBIT.FROM.A("2025-02-30";2.5;0.1;10;20;30;40)', "has day 30"),
+    ('=SKY.SOLAR.ECLIPSE.LOCAL(45500;95;0)', "latitude must be within"),
+    ('=SKY.SOLAR.ECLIPSE.CONTACT("-0135-04-14";32.5;44.4)', "UTC is defined from 1960"),
+    ('=SKY.SOLAR.ECLIPSE.LOCAL("2024-04-08";32.8;-96.8;;;;;1)', "no published uncertainty"),
 ]
 
 
@@ -481,6 +502,10 @@ NO_EVENT = [
     ('=SKY.BODY.SET("SUN";"2024-06-21";78.2;15.6)', "stays above the horizon"),
     ('=SKY.DARK.START("2024-06-21";78.2;15.6)', "no Moon-free dark time"),
     ('=SKY.WINDOW.START(10;-80;45500;60;10)', "no window"),
+    ('=SKY.SOLAR.ECLIPSE.CONTACT("2024-04-08";39.9;116.4)', "no eclipse seen from here"),
+    ('=SKY.SOLAR.ECLIPSE.SEEN("2024-04-08";48.85;2.35)', "no eclipse seen from here"),
+    ('=SKY.SOLAR.ECLIPSE.LOCAL("2024-04-08";39.9;116.4)', "no eclipse seen from here"),
+    ('=SKY.SOLAR.ECLIPSE.CONTACT("2024-04-08";40.7;-74;;"C2")', "no total or annular phase"),
 ]
 
 

@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Ten workbooks, one office session, one module each in tools/samples/:
+Eleven workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -33,6 +33,10 @@ Ten workbooks, one office session, one module each in tools/samples/:
   minor_planets.ods      the minor-planet section's target list of orbits (MPC lines and
                          elements in cells) and a month's ephemeris of one target (the
                          orbits family)
+  eclipses.ods           an invented eclipse-chasing club's trips to real solar eclipses
+                         with the local circumstances at its camps, and an invented
+                         historian's table of recorded eclipses tested against Delta T
+                         (the solar-eclipse family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -54,6 +58,7 @@ sys.path.insert(0, os.path.dirname(HERE))
 import officekit  # noqa: E402
 from samples import (  # noqa: E402
     common,
+    eclipses,
     historical_record,
     meteor_watch,
     minor_planets,
@@ -69,7 +74,7 @@ from samples import (  # noqa: E402
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
          planet_watch, reductions, night_plan, sky_charts,
-         minor_planets)
+         minor_planets, eclipses)
 
 
 def build(oxt, out_dir, only=()):
