@@ -225,11 +225,24 @@ def next_eclipse(tt1, tt2, source=BUILTIN):
     cand_row, cand_j = np.nonzero(maybe & late)
     cand_k = ks[cand_row, cand_j]
     unique_k, at = np.unique(cand_k, return_inverse=True)
-    rec, have = _lunations([int(k) for k in unique_k], source)
+    at = np.ravel(at)
+    try:
+        rec, have = _lunations([int(k) for k in unique_k], source)
+    except RowErrors as err:
+        # Aligned with the lunations searched: each searched instant takes the message
+        # of its first failing lunation (a date beyond the source's span).
+        messages = np.ravel(err.messages)
+        if messages.size != unique_k.size:
+            raise
+        per_row = np.full(u1.size, None, dtype=object)
+        for i in np.flatnonzero(np.not_equal(messages[at], None))[::-1]:
+            per_row[cand_row[i]] = messages[at[i]]
+        if not np.any(np.not_equal(per_row, None)):
+            raise
+        raise RowErrors(per_row[of_row]) from None
     if rec is None:
         raise rows_failing(np.ones(tt1.size, bool), "no solar eclipse found in the 9 months "
                                                      "after")
-    at = np.ravel(at)
     g1, g2 = rec["g1"][at], rec["g2"][at]
     after = ((g1 - u1[cand_row]) + (g2 - u2[cand_row])) > 0.0
     good = have[at] & rec["touches"][at] & after
