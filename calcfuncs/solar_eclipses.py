@@ -528,6 +528,9 @@ def delta_t_limits(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", sou
             b = _rate_turned(site, t1, t2 + h, row, turn)
             slope = np.where(b != a, (b - a) / h, 1.0)
             t2 = t2 - np.clip(a / slope, -0.1, 0.1)
+            # Kept inside the series' span (a Chebyshev series diverges outside it).
+            t2 = c2[row] + np.clip((t1 - c1[row]) + (t2 - c2[row]), -0.95 * HALF_WINDOW,
+                                   0.95 * HALF_WINDOW) - (t1 - c1[row])
         s = site.state(t1, t2, row, turn)
         return np.maximum(s.m - np.abs(s.L2), -np.sin(np.radians(s.alt)) * 0.01)
 
