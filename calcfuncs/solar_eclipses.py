@@ -191,11 +191,25 @@ def _lunations(ks, source):
     if todo.size:
         mean, _ = _mean_new_moon(todo)
         # The true new Moon (the elongation in longitude zero) within a day of the mean.
-        roots = _phase_crossings(0.0, mean - 1.2, mean + 1.2, source)
+        try:
+            roots = _phase_crossings(0.0, mean - 1.2, mean + 1.2, source)
+        except RowErrors as err:  # aligned with ``todo``: made aligned with ``ks``
+            messages = np.ravel(err.messages)
+            if messages.size != todo.size:
+                raise
+            where = {k: m for k, m in zip(todo.tolist(), messages)}
+            raise RowErrors(np.array([where.get(k) for k in ks], dtype=object)) from None
         n1, n2, ok = roots.first(todo.size)
         idx = np.flatnonzero(ok)
-        series = Series(n1[idx], n2[idx], source)
-        g1, g2, gamma, mag, kind, touches = _greatest(series, np.arange(idx.size))
+        try:
+            series = Series(n1[idx], n2[idx], source)
+            g1, g2, gamma, mag, kind, touches = _greatest(series, np.arange(idx.size))
+        except RowErrors as err:  # aligned with the new Moons found: made aligned with ks
+            messages = np.ravel(err.messages)
+            if messages.size != idx.size:
+                raise
+            where = {k: m for k, m in zip(todo[idx].tolist(), messages)}
+            raise RowErrors(np.array([where.get(k) for k in ks], dtype=object)) from None
         rnpb = np.reshape(series.rnpb, (-1, 3, 3))
         if len(_LUNATIONS) + todo.size > _LUNATIONS_SIZE:
             _LUNATIONS.clear()
