@@ -206,6 +206,10 @@ def _lunations(ks, source):
             g1, g2, gamma, mag, kind, touches = _greatest(series, np.arange(idx.size))
         except RowErrors as err:  # aligned with the new Moons found: made aligned with ks
             messages = np.ravel(err.messages)
+            if messages.size == idx.size * NODES:  # the series' nodes, lunation by lunation
+                nodes = messages.reshape(idx.size, NODES)
+                messages = np.array([next((m for m in r if m is not None), None)
+                                     for r in nodes], dtype=object)
             if messages.size != idx.size:
                 raise
             where = {k: m for k, m in zip(todo[idx].tolist(), messages)}
