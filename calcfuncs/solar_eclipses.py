@@ -45,8 +45,8 @@ from numpy.polynomial import chebyshev
 
 from . import bodies, deltat, frames, vectors
 from .errors import RowErrors, rows_failing
-from .events import brackets, crossings, refine, sample
-from .moon import _phase_crossings
+from .events import brackets, crossings, refine, sample, wrap180
+from .moon import elongation_lon, rough_elongation
 from .timescales import DateTimes, Instants, julian_year, universal_of
 from .topocentric import SUN_RADIUS_KM
 from .vocabulary import AU_KM, BUILTIN
@@ -171,6 +171,15 @@ def _mean_new_moon(k):
     return mean, np.abs(np.sin(f)) < 0.40
 
 
+def _new_moons(start, end, source):
+    """``events.Roots`` of the new Moon (apparent elongation in longitude zero, rising)
+    in each window, the same search as moon.py's phases: daily samples near where the
+    rough elongation (Meeus's largest terms) changes sign, then the full theory."""
+    return crossings(lambda j1, j2, row: wrap180(elongation_lon(j1, j2, source)),
+                     start, end, 1.0, direction=+1, jump=90.0,
+                     estimate=lambda j1, j2, row: wrap180(rough_elongation(j1, j2)))
+
+
 class Found:
     """Eclipses found: per eclipse the series, greatest eclipse (TT two parts), gamma,
     magnitude, kind; ``of_row`` maps each searched row to its eclipse."""
@@ -192,7 +201,7 @@ def _lunations(ks, source):
         mean, _ = _mean_new_moon(todo)
         # The true new Moon (the elongation in longitude zero) within a day of the mean.
         try:
-            roots = _phase_crossings(0.0, mean - 1.2, mean + 1.2, source)
+            roots = _new_moons(mean - 1.2, mean + 1.2, source)
         except RowErrors as err:  # aligned with ``todo``: made aligned with ``ks``
             messages = np.ravel(err.messages)
             if messages.size != todo.size:
