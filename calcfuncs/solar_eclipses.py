@@ -777,7 +777,10 @@ def delta_t_cells(time, latitude, longitude, quantity="LOW", height=0.0, source=
                                       universal_of(time.scale), source, dut1=time.dut1)
     if quantity == "MODEL":
         return model
-    values = low if quantity == "LOW" else high
+    # To the millisecond: the search settles the limits to about 9 ms (1e-7 day), and
+    # the last digits would otherwise follow which lunations a call happened to compute
+    # together (rounding of 1e-16 in the shared ephemeris calls).
+    values = np.round(low if quantity == "LOW" else high, 3)
     none = ~np.isfinite(values)
     if np.any(none):
         raise rows_failing(none, "no Delta T within 3 hours of the model's brings the total or "

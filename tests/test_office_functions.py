@@ -366,9 +366,20 @@ EXAMPLES["SKY.SOLAR.ECLIPSE.GLOBAL"] = [("A{r}", lambda v: [v[0]]),
 EXAMPLES["SKY.SOLAR.ECLIPSE.CONTACT"] = [
     ('A{r};D{r};E{r};;"C1"', lambda v: [v[0], v[3], v[4], None, "C1"]),
     ('A{r};D{r};E{r};;"C2"', lambda v: [v[0], v[3], v[4], None, "C2"])]
+# At the point of greatest eclipse (computed in the sheet too), where the eclipse is
+# always in progress: the Sun's altitude and azimuth there, and the magnitude.
+_GREATEST_AT = ('A{r};SKY.SOLAR.ECLIPSE.GLOBAL(A{r};;"LAT");'
+                'SKY.SOLAR.ECLIPSE.GLOBAL(A{r};;"LON")')
+
+
+def _greatest_at(v):
+    return [v[0], evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", [v[0], None, "LAT"]),
+            evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", [v[0], None, "LON"])]
+
+
 EXAMPLES["SKY.SOLAR.ECLIPSE.LOCAL"] = [
-    ("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]]),
-    ('A{r};D{r};E{r};;"ALT";"C4"', lambda v: [v[0], v[3], v[4], None, "ALT", "C4"])]
+    (_GREATEST_AT + ';;"ALT"', lambda v: _greatest_at(v) + [None, "ALT"]),
+    (_GREATEST_AT + ';;"AZ";"C1"', lambda v: _greatest_at(v) + [None, "AZ", "C1"])]
 EXAMPLES["SKY.SOLAR.ECLIPSE.SEEN"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 EXAMPLES["SKY.SOLAR.ECLIPSE.DELTAT"] = [
     ('A{r};D{r};E{r};;"MODEL"', lambda v: [v[0], v[3], v[4], None, "MODEL"]),
