@@ -43,11 +43,12 @@ import erfa
 import numpy as np
 from numpy.polynomial import chebyshev
 
-from . import bodies, deltat, frames, vectors
+from . import bodies, deltat, frames, horizon, vectors
 from .errors import RowErrors, rows_failing
 from .events import brackets, crossings, refine, sample, wrap180
 from .moon import elongation_lon, rough_elongation
 from .timescales import DateTimes, Instants, julian_year, universal_of
+from .sun import check_site
 from .topocentric import SUN_RADIUS_KM
 from .vocabulary import AU_KM, BUILTIN
 
@@ -246,6 +247,11 @@ def next_eclipse(tt1, tt2, source=BUILTIN):
     pairs, of_row = np.unique(np.stack([tt1, tt2], axis=-1), axis=0, return_inverse=True)
     of_row = np.ravel(of_row)
     u1, u2 = pairs[:, 0], pairs[:, 1]
+    # The dates themselves first: a date outside the source's span is named row by row.
+    try:
+        bodies.place_at_tt("MOON", u1, u2, "GEOMETRIC", source)
+    except RowErrors as err:
+        raise RowErrors(np.ravel(err.messages)[of_row]) from None
     ks = _mean_lunations(u1 + u2)
     mean, maybe = _mean_new_moon(ks)
     late = mean > (u1 + u2)[:, None] - 2.0
@@ -383,12 +389,9 @@ class Site:
 
     def __init__(self, series, e, latitude, longitude, height, ut_scale, shift_s, dut1=0.0):
         self.series, self.e = series, e
-        lat = np.radians(np.asarray(latitude, float))
-        lon = np.radians(np.asarray(longitude, float))
-        h = np.asarray(height, float)
-        lat, lon, h = np.broadcast_arrays(lat, lon, h)
-        if np.any(np.abs(lat) > np.pi / 2):
-            raise rows_failing(np.abs(lat) > np.pi / 2, "the latitude must be within -90 to 90")
+        # Checked as every site is (latitude, longitude and height within their ranges).
+        check_site(latitude, longitude)
+        lon, lat, h = np.broadcast_arrays(*horizon.site_radians(latitude, longitude, height))
         self.itrs = erfa.gd2gc(1, lon, lat, h) / (WGS84_A_KM * 1000.0)
         cl, sl, co, so = np.cos(lat), np.sin(lat), np.cos(lon), np.sin(lon)
         self.up = np.stack([cl * co, cl * so, sl], axis=-1)

@@ -296,3 +296,17 @@ def test_every_description_carries_the_safety_caution():
         if fn.name.startswith("SKY.SOLAR.ECLIPSE"):
             assert "without a proper solar filter" in fn.description
             assert "only during totality" in fn.description
+
+
+def test_hostile_input_gives_messages():
+    cases = [
+        (["2024-04-08", 32.5, -96.0, "UTC", "MAGNITUDE", "MAX", 1e7], "height must be within"),
+        (["2024-04-08", 95.0, -96.0], "latitude must be within"),
+        (["2024-04-08", 45.0, 400.0], "longitude must be within"),
+        (["2024-04-08", 32.5, -96.0, "UTC", "MAGNITUDE", "MAX", 0.0, float("nan")],
+         "must be a finite number"),
+        (["JD 1000000000", 32.5, -96.0, "TT"], "valid -4000 to 8000"),
+    ]
+    for args, mention in cases:
+        got = evaluate("SKY.SOLAR.ECLIPSE.LOCAL", args)
+        assert got.startswith("#SKY:") and mention in got, got
