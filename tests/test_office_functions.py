@@ -381,9 +381,22 @@ EXAMPLES["SKY.SOLAR.ECLIPSE.LOCAL"] = [
     (_GREATEST_AT + ';;"ALT"', lambda v: _greatest_at(v) + [None, "ALT"]),
     (_GREATEST_AT + ';;"AZ";"C1"', lambda v: _greatest_at(v) + [None, "AZ", "C1"])]
 EXAMPLES["SKY.SOLAR.ECLIPSE.SEEN"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+# The Delta T range of 2024's totality at sites scattered up to 0.7 degrees of latitude
+# about its point of greatest eclipse (inside the path, so every row has a range).
+_NEAR_2024 = ('"2024-03-01";SKY.SOLAR.ECLIPSE.GLOBAL("2024-03-01";;"LAT")+D{r}/100;'
+              'SKY.SOLAR.ECLIPSE.GLOBAL("2024-03-01";;"LON")+E{r}/100')
+
+
+def _near_2024(v):
+    return ["2024-03-01",
+            evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", ["2024-03-01", None, "LAT"]) + v[3] / 100,
+            evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", ["2024-03-01", None, "LON"]) + v[4] / 100]
+
+
 EXAMPLES["SKY.SOLAR.ECLIPSE.DELTAT"] = [
     ('A{r};D{r};E{r};;"MODEL"', lambda v: [v[0], v[3], v[4], None, "MODEL"]),
-    ("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+    (_NEAR_2024, _near_2024),
+    (_NEAR_2024 + ';;"HIGH"', lambda v: _near_2024(v) + [None, "HIGH"])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
