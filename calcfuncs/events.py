@@ -380,6 +380,50 @@ WINDOW_CACHE_SIZE = 20_000
 _WINDOWS = {}
 
 
+def _search_each(search, starts, ends, rep):
+    """``search`` over windows, as lists per window: (jd1, jd2) of its roots, or None and
+    the message of a window that failed (a ``RowErrors`` of the search, per window; the
+    other windows are searched again without it)."""
+    count = len(starts)
+    found, messages = [None] * count, [None] * count
+    todo = list(range(count))
+    while todo:
+        try:
+            roots = search(starts[todo], ends[todo], rep[todo])
+        except RowErrors as err:
+            per_window = np.ravel(err.messages)
+            if per_window.size != len(todo) or all(m is None for m in per_window):
+                raise
+            for k, m in zip(todo, per_window):
+                messages[k] = m
+            todo = [k for k in todo if messages[k] is None]
+            continue
+        edges = np.searchsorted(roots.row, np.arange(len(todo) + 1))
+        for j, k in enumerate(todo):
+            found[k] = (roots.jd1[edges[j]:edges[j + 1]], roots.jd2[edges[j]:edges[j + 1]])
+        break
+    return found, messages
+
+
+def _first_later(found, window_of, tt1, tt2):
+    """Per row: (jd1, jd2, found) of the first root of its window later than its instant:
+    each window's roots a row of a padded table, then every row at once."""
+    n = tt1.size
+    width = max([1] + [f[0].size for f in found if f is not None])
+    r1 = np.full((len(found), width), np.nan)
+    r2 = np.zeros((len(found), width))
+    for k, f in enumerate(found):
+        if f is not None:
+            r1[k, :f[0].size], r2[k, :f[0].size] = f
+    c1, c2 = r1[window_of], r2[window_of]
+    later = (c1 - tt1[:, None]) + (c2 - tt2[:, None]) > 0.0  # NaN padding: False
+    first = np.argmax(later, axis=1)
+    got = later[np.arange(n), first]
+    pick = np.arange(n)
+    return (np.where(got, c1[pick, first], np.nan), np.where(got, c2[pick, first], np.nan),
+            got)
+
+
 def first_after(search, tt1, tt2, block, reach, keys):
     """Per row: (jd1, jd2, found) of the first root later than the row's TT instant
     (``tt1 + tt2``), found by ``search(starts, ends, rep)`` (``Roots`` whose rows index
@@ -389,8 +433,9 @@ def first_after(search, tt1, tt2, block, reach, keys):
     ``block + reach`` days, so it holds every root within ``reach`` days after the
     instant.  Rows with one window and one entry of ``keys`` (a hashable per row: the
     event and whatever else moves its roots) share one search, kept across calls.  A
-    ``RowErrors`` from the search (a window beyond a source's years) is given to the rows
-    of the windows that failed, the others searched without them."""
+    window the search refuses (its start before a kernel's span, say, up to ``block``
+    days before the instant) leaves its rows to a window of their own from the instant
+    itself, not kept; a ``RowErrors`` there is the rows' message."""
     tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
     n = tt1.size
     starts = np.floor((tt1 + tt2) / block) * block
@@ -402,46 +447,28 @@ def first_after(search, tt1, tt2, block, reach, keys):
     rep = np.zeros(len(windows), dtype=int)
     rep[window_of[::-1]] = np.arange(n)[::-1]  # the first row of each window
     found = [_WINDOWS.get(w) for w in windows]
-    messages = [None] * len(windows)
-    todo = [k for k, f in enumerate(found) if f is None]
-    while todo:
+    todo = np.array([k for k, f in enumerate(found) if f is None], dtype=int)
+    refused = np.zeros(len(windows), dtype=bool)
+    if todo.size:
         s = np.array([windows[k][1] for k in todo])
-        try:
-            roots = search(s, s + (block + reach), rep[todo])
-        except RowErrors as err:
-            per_window = np.ravel(err.messages)
-            if per_window.size != len(todo):
-                raise
-            failing = [k for k, m in zip(todo, per_window) if m is not None]
-            for k, m in zip(todo, per_window):
-                messages[k] = m
-            todo = [k for k in todo if messages[k] is None]
-            if not failing:
-                raise
-            continue
-        edges = np.searchsorted(roots.row, np.arange(len(todo) + 1))
-        for j, k in enumerate(todo):
-            found[k] = (roots.jd1[edges[j]:edges[j + 1]], roots.jd2[edges[j]:edges[j + 1]])
+        fresh, messages = _search_each(search, s, s + (block + reach), rep[todo])
+        for k, f, m in zip(todo, fresh, messages):
+            if f is None:
+                refused[k] = True
+                continue
+            found[k] = f
             if len(_WINDOWS) >= WINDOW_CACHE_SIZE:
                 del _WINDOWS[next(iter(_WINDOWS))]
-            _WINDOWS[windows[k]] = found[k]
-        break
-    # Each window's roots as a row of a padded table, then every row at once: its
-    # window's roots later than its instant, and the first of them.
-    width = max([1] + [f[0].size for f in found if f is not None])
-    r1 = np.full((len(windows), width), np.nan)
-    r2 = np.zeros((len(windows), width))
-    for k, f in enumerate(found):
-        if f is not None:
-            r1[k, :f[0].size], r2[k, :f[0].size] = f
-    c1, c2 = r1[window_of], r2[window_of]
-    later = (c1 - tt1[:, None]) + (c2 - tt2[:, None]) > 0.0  # NaN padding: False
-    first = np.argmax(later, axis=1)
-    got = later[np.arange(n), first]
-    pick = np.arange(n)
-    jd1 = np.where(got, c1[pick, first], np.nan)
-    jd2 = np.where(got, c2[pick, first], np.nan)
-    failed = np.array([messages[k] for k in window_of], dtype=object)
-    if np.any(np.not_equal(failed, None)):
-        raise RowErrors(failed)
+            _WINDOWS[windows[k]] = f
+    jd1, jd2, got = _first_later(found, window_of, tt1, tt2)
+    alone = np.flatnonzero(refused[window_of])
+    if alone.size:
+        t = tt1[alone] + tt2[alone]
+        own, messages = _search_each(search, t, t + reach, alone)
+        a1, a2, a_got = _first_later(own, np.arange(alone.size), tt1[alone], tt2[alone])
+        jd1[alone], jd2[alone], got[alone] = a1, a2, a_got
+        failed = np.full(n, None, dtype=object)
+        failed[alone] = messages
+        if np.any(np.not_equal(failed, None)):
+            raise RowErrors(failed)
     return jd1, jd2, got

@@ -238,6 +238,33 @@ def test_a_kernel_replaced_on_disk_is_read_again(tmp_path):
     assert sum(1 for k in ephemeris._OPEN if k[1][0] == path) == 1
 
 
+def test_kept_searches_never_outlive_a_kernel_replaced_on_disk(tmp_path):
+    # Searches kept across calls (the next phase's windows, the solar eclipses'
+    # lunations) are keyed by what the kernel files hold.  The kept ones are spoiled
+    # here on purpose, then the file is replaced by a new copy of the same excerpt: the
+    # answers must be computed anew (and so equal the first ones), never read from the
+    # spoiled searches.
+    from calcfuncs import events, solar_eclipses
+    path = str(tmp_path / "mine.bsp")
+    _excerpt(path, "2023/11/01", "2024/09/01", "3,10,301,399")
+    phase = ["2024-01-20", "UTC", "FULL", None, path]
+    eclipse = ["2024-01-20", "UTC", None, path]
+    first_phase = evaluate("SKY.MOON.PHASE.NEXT", phase)
+    first_eclipse = evaluate("SKY.SOLAR.ECLIPSE.NEXT", eclipse)
+    assert isinstance(first_phase, float) and isinstance(first_eclipse, float)
+    assert events._WINDOWS and solar_eclipses._LUNATIONS
+    for key, (jd1, jd2) in list(events._WINDOWS.items()):
+        events._WINDOWS[key] = (jd1 + 1.0, jd2)
+    for key in list(solar_eclipses._LUNATIONS):
+        solar_eclipses._LUNATIONS[key] = None
+    spoiled_phase = events._WINDOWS.copy()
+    _excerpt(tmp_path / "again.bsp", "2023/11/01", "2024/09/01", "3,10,301,399")
+    os.replace(tmp_path / "again.bsp", path)
+    assert evaluate("SKY.MOON.PHASE.NEXT", phase) == first_phase
+    assert evaluate("SKY.SOLAR.ECLIPSE.NEXT", eclipse) == first_eclipse
+    assert len(events._WINDOWS) > len(spoiled_phase)  # a new window, for the new file
+
+
 # ---- kernels by their word -------------------------------------------------------------
 
 

@@ -370,6 +370,48 @@ EXAMPLES["SKY.LUNAR.ECLIPSE.MOON.ALT"] = [
     ('A{r};D{r};E{r};;"P1"', lambda v: [v[0], v[3], v[4], None, "P1"]),
     ('A{r}-900000;D{r};E{r};"UT";;;1', lambda v: [v[0] - 900000, v[3], v[4], "UT", None, None, 1.0])]
 EXAMPLES["SKY.LUNAR.ECLIPSE.VISIBILITY"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+# Solar eclipses: the next after each row's date, at each row's site (most rows see
+# nothing and say so in words; the rows that see one give numbers).
+EXAMPLES["SKY.SOLAR.ECLIPSE.NEXT"] = [("A{r}", lambda v: [v[0]]),
+                                      ('A{r};;"TT"', lambda v: [v[0], None, "TT"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.KIND"] = [("A{r}", lambda v: [v[0]])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.GLOBAL"] = [("A{r}", lambda v: [v[0]]),
+                                        ('A{r};;"MAGNITUDE"', lambda v: [v[0], None, "MAGNITUDE"]),
+                                        ('A{r};;"LON"', lambda v: [v[0], None, "LON"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.CONTACT"] = [
+    ('A{r};D{r};E{r};;"C1"', lambda v: [v[0], v[3], v[4], None, "C1"]),
+    ('A{r};D{r};E{r};;"C2"', lambda v: [v[0], v[3], v[4], None, "C2"])]
+# At the point of greatest eclipse (computed in the sheet too), where the eclipse is
+# always in progress: the Sun's altitude and azimuth there, and the magnitude.
+_GREATEST_AT = ('A{r};SKY.SOLAR.ECLIPSE.GLOBAL(A{r};;"LAT");'
+                'SKY.SOLAR.ECLIPSE.GLOBAL(A{r};;"LON")')
+
+
+def _greatest_at(v):
+    return [v[0], evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", [v[0], None, "LAT"]),
+            evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", [v[0], None, "LON"])]
+
+
+EXAMPLES["SKY.SOLAR.ECLIPSE.LOCAL"] = [
+    (_GREATEST_AT + ';;"ALT"', lambda v: _greatest_at(v) + [None, "ALT"]),
+    (_GREATEST_AT + ';;"AZ";"C1"', lambda v: _greatest_at(v) + [None, "AZ", "C1"])]
+EXAMPLES["SKY.SOLAR.ECLIPSE.SEEN"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+# The Delta T range of 2024's totality at sites scattered up to 0.7 degrees of latitude
+# about its point of greatest eclipse (inside the path, so every row has a range).
+_NEAR_2024 = ('"2024-03-01";SKY.SOLAR.ECLIPSE.GLOBAL("2024-03-01";;"LAT")+D{r}/100;'
+              'SKY.SOLAR.ECLIPSE.GLOBAL("2024-03-01";;"LON")+E{r}/100')
+
+
+def _near_2024(v):
+    return ["2024-03-01",
+            evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", ["2024-03-01", None, "LAT"]) + v[3] / 100,
+            evaluate("SKY.SOLAR.ECLIPSE.GLOBAL", ["2024-03-01", None, "LON"]) + v[4] / 100]
+
+
+EXAMPLES["SKY.SOLAR.ECLIPSE.DELTAT"] = [
+    ('A{r};D{r};E{r};;"MODEL"', lambda v: [v[0], v[3], v[4], None, "MODEL"]),
+    (_NEAR_2024, _near_2024),
+    (_NEAR_2024 + ';;"HIGH"', lambda v: _near_2024(v) + [None, "HIGH"])]
 # Formulas whose core arguments need Calc arithmetic first (the core call is rebuilt
 # from the value Calc computed for the same expression).
 EXAMPLES["SKY.ECLIPSE.POSSIBLE"][0] = (
@@ -494,6 +536,9 @@ HOSTILE = [
     ('=SKY.ORBIT.FROM.Q(45500;-0.5;0.2;10;20;30)', "perihelion distance q"),
     ('=SKY.ORBIT.RA("' + _MP_LINE.replace("K205V", "K2Z5V") + '";45500)', "epoch (columns 21-25)"),
     ('=SKY.ORBIT.FROM.A("2025-02-30";2.5;0.1;10;20;30;40)', "has day 30"),
+    ('=SKY.SOLAR.ECLIPSE.LOCAL(45500;95;0)', "latitude must be within"),
+    ('=SKY.SOLAR.ECLIPSE.CONTACT("-0135-04-14";32.5;44.4)', "UTC is defined from 1960"),
+    ('=SKY.SOLAR.ECLIPSE.LOCAL("2024-04-08";32.8;-96.8;;;;;1)', "no published uncertainty"),
 ]
 
 
@@ -504,6 +549,10 @@ NO_EVENT = [
     ('=SKY.BODY.SET("SUN";"2024-06-21";78.2;15.6)', "stays above the horizon"),
     ('=SKY.DARK.START("2024-06-21";78.2;15.6)', "no Moon-free dark time"),
     ('=SKY.WINDOW.START(10;-80;45500;60;10)', "no window"),
+    ('=SKY.SOLAR.ECLIPSE.CONTACT("2024-04-08";39.9;116.4)', "no eclipse seen from here"),
+    ('=SKY.SOLAR.ECLIPSE.SEEN("2024-04-08";48.85;2.35)', "no eclipse seen from here"),
+    ('=SKY.SOLAR.ECLIPSE.LOCAL("2024-04-08";39.9;116.4)', "no eclipse seen from here"),
+    ('=SKY.SOLAR.ECLIPSE.CONTACT("2024-04-08";40.7;-74;;"C2")', "no total or annular phase"),
 ]
 
 

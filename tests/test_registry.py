@@ -186,6 +186,13 @@ FROZEN_METHODS = {
     "skyLunarEclipseDuration": "SKY.LUNAR.ECLIPSE.DURATION",
     "skyLunarEclipseMoonAlt": "SKY.LUNAR.ECLIPSE.MOON.ALT",
     "skyLunarEclipseVisibility": "SKY.LUNAR.ECLIPSE.VISIBILITY",
+    "skySolarEclipseNext": "SKY.SOLAR.ECLIPSE.NEXT",
+    "skySolarEclipseKind": "SKY.SOLAR.ECLIPSE.KIND",
+    "skySolarEclipseGlobal": "SKY.SOLAR.ECLIPSE.GLOBAL",
+    "skySolarEclipseContact": "SKY.SOLAR.ECLIPSE.CONTACT",
+    "skySolarEclipseLocal": "SKY.SOLAR.ECLIPSE.LOCAL",
+    "skySolarEclipseSeen": "SKY.SOLAR.ECLIPSE.SEEN",
+    "skySolarEclipseDeltat": "SKY.SOLAR.ECLIPSE.DELTAT",
 }
 
 
@@ -396,7 +403,9 @@ DECLARED_ORDER = (
     "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
     "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz "
     "skyLunarEclipseNext skyLunarEclipseKind skyLunarEclipseMagnitude skyLunarEclipseGamma "
-    "skyLunarEclipseDuration skyLunarEclipseMoonAlt skyLunarEclipseVisibility"
+    "skyLunarEclipseDuration skyLunarEclipseMoonAlt skyLunarEclipseVisibility "
+    "skySolarEclipseNext skySolarEclipseKind skySolarEclipseGlobal skySolarEclipseContact "
+    "skySolarEclipseLocal skySolarEclipseSeen skySolarEclipseDeltat"
 ).split()
 
 
@@ -441,8 +450,9 @@ def test_result_kinds_of_known_functions():
     assert sorted(n for n, k in kinds.items() if k == "text") == [
         "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
         "SKY.EPHEMERIS", "SKY.LUNAR.ECLIPSE.KIND", "SKY.LUNAR.ECLIPSE.VISIBILITY",
-        "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
-        "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
+        "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME", "SKY.SOLAR.ECLIPSE.KIND",
+        "SKY.SOLAR.ECLIPSE.SEEN", "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS",
+        "SKY.TEXT.ISO", "SKY.VERSION"]
 
 
 def test_every_argument_has_a_noun_for_its_messages():

@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Eleven workbooks, one office session, one module each in tools/samples/:
+Thirteen workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -36,6 +36,10 @@ Eleven workbooks, one office session, one module each in tools/samples/:
   lunar_eclipses.ods     the circle's lunar-eclipse nights of 2025-2032 from Kettle Hill,
                          and ancient lunar eclipses seen from Holmwray Abbey with Delta T
                          moved by its published standard error (the lunar-eclipse family)
+  eclipses.ods           an invented eclipse-chasing club's trips to real solar eclipses
+                         with the local circumstances at its camps, and an invented
+                         historian's table of recorded eclipses tested against Delta T
+                         (the solar-eclipse family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
@@ -57,6 +61,7 @@ sys.path.insert(0, os.path.dirname(HERE))
 import officekit  # noqa: E402
 from samples import (  # noqa: E402
     common,
+    eclipses,
     historical_record,
     lunar_eclipses,
     meteor_watch,
@@ -73,7 +78,7 @@ from samples import (  # noqa: E402
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
          planet_watch, reductions, night_plan, sky_charts,
-         minor_planets, lunar_eclipses)
+         minor_planets, lunar_eclipses, eclipses)
 
 
 def build(oxt, out_dir, only=()):
