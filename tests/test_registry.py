@@ -179,6 +179,10 @@ FROZEN_METHODS = {
     "skyOrbitTopoDec": "SKY.ORBIT.TOPO.DEC",
     "skyOrbitTopoAlt": "SKY.ORBIT.TOPO.ALT",
     "skyOrbitTopoAz": "SKY.ORBIT.TOPO.AZ",
+    "skyCrescent": "SKY.CRESCENT",
+    "skyCrescentTime": "SKY.CRESCENT.TIME",
+    "skyCrescentCriterion": "SKY.CRESCENT.CRITERION",
+    "skyCrescentClass": "SKY.CRESCENT.CLASS",
 }
 
 
@@ -387,7 +391,8 @@ DECLARED_ORDER = (
     "skyOrbitHelioLat skyOrbitHelioRa skyOrbitHelioDec skyOrbitSunDist skyOrbitRa "
     "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
     "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
-    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz"
+    "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz "
+    "skyCrescent skyCrescentTime skyCrescentCriterion skyCrescentClass"
 ).split()
 
 
@@ -430,7 +435,8 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.SUN.RISE"] == "datetime"  # words where the Sun does not rise
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
-        "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
+        "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.CRESCENT.CLASS",
+        "SKY.ECLIPSE.POSSIBLE",
         "SKY.EPHEMERIS", "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
         "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
 

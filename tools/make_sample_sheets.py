@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Ten workbooks, one office session, one module each in tools/samples/:
+Eleven workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -33,12 +33,15 @@ Ten workbooks, one office session, one module each in tools/samples/:
   minor_planets.ods      the minor-planet section's target list of orbits (MPC lines and
                          elements in cells) and a month's ephemeris of one target (the
                          orbits family)
+  first_crescent.ods     the crescent watch's evenings after each new Moon of a year with
+                         Yallop's and Odeh's criteria, and heliacal dates (the
+                         visibility family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
 made up too; the Annals of Holmwray Abbey; the Tollmere Meteor Section at Whinburn
-Common.  Observers, nights, fields, stars, entries and counts are made up.  The sheets
-hold formulas (no macros), so opening them never asks about macro security.  Every
+Common; the Harrowdene Crescent Watch at Sarrow Ridge.  Observers, nights, fields, stars,
+entries and counts are made up.  The sheets hold formulas (no macros), so opening them never asks about macro security.  Every
 sheet about the Sun carries the caution never to look at it, or point optics at it,
 without a proper solar filter.
 """
@@ -54,6 +57,7 @@ sys.path.insert(0, os.path.dirname(HERE))
 import officekit  # noqa: E402
 from samples import (  # noqa: E402
     common,
+    first_crescent,
     historical_record,
     meteor_watch,
     minor_planets,
@@ -69,7 +73,7 @@ from samples import (  # noqa: E402
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
          planet_watch, reductions, night_plan, sky_charts,
-         minor_planets)
+         minor_planets, first_crescent)
 
 
 def build(oxt, out_dir, only=()):
