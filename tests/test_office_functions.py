@@ -299,6 +299,13 @@ EXAMPLES["SKY.CRESCENT.CRITERION"] = [('A{r};D{r};E{r};"ODEH"',
 EXAMPLES["SKY.CRESCENT.CLASS"] = [('A{r};D{r};E{r};"YALLOP";;;;"WORDS"',
                                    lambda v: [v[0], v[3], v[4], "YALLOP", None, None, None,
                                               "WORDS"])]
+EXAMPLES["SKY.HELIACAL.STAR"] = [('B{r};C{r};L{r}/100;A{r};D{r};E{r};"RISING"',
+                                   lambda v: [v[1], v[2], v[11] / 100, v[0], v[3], v[4],
+                                              "RISING"])]
+EXAMPLES["SKY.HELIACAL.PLANET"] = [('"VENUS";A{r};D{r};E{r};"SETTING";;2',
+                                    lambda v: ["VENUS", v[0], v[3], v[4], "SETTING", None,
+                                               2.0])]
+EXAMPLES["SKY.ARCUS.VISIONIS"] = [("L{r}/100", lambda v: [v[11] / 100])]
 # Minor planets and comets: an MPC minor-planet line and a comet line typed into the
 # formula (written for the tests in the MPC's layouts), and orbits made row by row from
 # the input columns by SKY.ORBIT.FROM.Q and .FROM.A.

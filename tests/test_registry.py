@@ -183,6 +183,9 @@ FROZEN_METHODS = {
     "skyCrescentTime": "SKY.CRESCENT.TIME",
     "skyCrescentCriterion": "SKY.CRESCENT.CRITERION",
     "skyCrescentClass": "SKY.CRESCENT.CLASS",
+    "skyHeliacalStar": "SKY.HELIACAL.STAR",
+    "skyHeliacalPlanet": "SKY.HELIACAL.PLANET",
+    "skyArcusVisionis": "SKY.ARCUS.VISIONIS",
 }
 
 
@@ -392,7 +395,8 @@ DECLARED_ORDER = (
     "skyOrbitDec skyOrbitLon skyOrbitLat skyOrbitEarthDist skyOrbitElongation "
     "skyOrbitPhaseAngle skyOrbitRate skyOrbitRatePa skyOrbitMag skyOrbitEventNext "
     "skyOrbitTopoRa skyOrbitTopoDec skyOrbitTopoAlt skyOrbitTopoAz "
-    "skyCrescent skyCrescentTime skyCrescentCriterion skyCrescentClass"
+    "skyCrescent skyCrescentTime skyCrescentCriterion skyCrescentClass "
+    "skyHeliacalStar skyHeliacalPlanet skyArcusVisionis"
 ).split()
 
 

@@ -220,3 +220,154 @@ def test_cells_and_columns():
 def test_bad_input_says_so(call, mention):
     got = evaluate(*call)
     assert isinstance(got, str) and got.startswith("#SKY: ") and mention in got, got
+
+
+# ---- heliacal rising and setting ----------------------------------------------------------
+
+from calcfuncs import heliacal  # noqa: E402
+
+# Sirius, ICRS (Hipparcos, as SIMBAD gives it; from memory): RA 06h45m08.917s, Dec
+# -16d42m58.02s, proper motion -546.01 and -1223.07 mas a year, V -1.46.
+SIRIUS = [101.28715533, -16.71611586, -1.46]
+SIRIUS_PM = [-546.01, -1223.07]
+MEMPHIS = (29.85, 31.25)      # common practice, approximate
+ELEPHANTINE = (24.09, 32.89)  # common practice, approximate
+
+
+def julian_jd(year, month, day):
+    """JD of 0h of a Julian-calendar date (astronomical years; Meeus, Astronomical
+    Algorithms, ch. 7, the formula with B = 0)."""
+    if month <= 2:
+        year, month = year - 1, month + 12
+    return (np.floor(365.25 * (year + 4716)) + np.floor(30.6001 * (month + 1)) + day
+            - 1524.5)
+
+
+def _sirius_rising(year, site, arcus=None):
+    lat, lon = site
+    cell = evaluate("SKY.HELIACAL.STAR", SIRIUS + [f"{year:+05d}-06-01", lat, lon, "RISING",
+                                                   "UT", lon / 15.0, arcus] + SIRIUS_PM)
+    assert not isinstance(cell, str), cell
+    return cell + 2415018.5  # the local mean time's JD (Calc's default null date)
+
+
+@pytest.mark.parametrize("year,published,tolerance", [
+    # Memphis, about 1450 and 1314 BC: about 19 July (Julian), the date the Sothic
+    # literature gives for the heliacal rising of Sirius at Memphis over these centuries
+    # (from memory).
+    (-1449, 19, 2.0),
+    (-1313, 19, 2.0),
+    # AD 139: Censorinus (De die natali 21.10) puts the rising of the Dog Star on the
+    # Egyptian New Year of that year, a. d. XIII Kal. Aug. = 20 July (from memory).
+    (139, 20, 2.0),
+])
+def test_sirius_at_memphis_in_antiquity(year, published, tolerance):
+    # Arcus visionis: the table's 10.0 degrees for magnitude -1.46 (stated; the
+    # literature's values for Sirius scatter from about 8.5 to 11).
+    assert heliacal.arcus_of_magnitude(-1.46) == pytest.approx(10.0, abs=0.02)
+    jd = _sirius_rising(year, MEMPHIS)
+    day = jd - julian_jd(year, 7, 1) + 1.0
+    assert abs(np.floor(day) - published) <= tolerance, (year, day)
+    assert 0.1 < jd % 1.0 + 0.5 - np.floor(jd % 1.0 + 0.5) < 0.25  # before dawn, local time
+
+
+def test_the_rising_comes_earlier_up_the_nile():
+    # Common knowledge of the Sothic literature (from memory): the heliacal rising is
+    # seen about a day earlier for each degree further south; Elephantine lies almost six
+    # degrees south of Memphis.
+    for year in (-1449, -1313):
+        gap = _sirius_rising(year, MEMPHIS) - _sirius_rising(year, ELEPHANTINE)
+        assert 4.0 <= gap <= 8.0, (year, gap)
+
+
+def test_a_larger_arcus_visionis_comes_later():
+    # Each degree of arcus visionis moves the date by about a day (common practice).
+    early = _sirius_rising(-1313, MEMPHIS, 8.5)
+    late = _sirius_rising(-1313, MEMPHIS, 11.5)
+    assert 1.5 <= late - early <= 5.0
+
+
+@pytest.mark.parametrize("what", [
+    ("STAR", "RISING", 29.85, 31.25), ("STAR", "SETTING", 29.85, 31.25),
+    ("STAR", "RISING", 51.5, -0.1), ("JUPITER", "RISING", 40.0, -3.7),
+    ("JUPITER", "SETTING", 40.0, -3.7), ("VENUS", "RISING", -33.9, 18.4),
+    ("SATURN", "SETTING", 35.0, 139.0), ("MERCURY", "RISING", 21.4, 39.8),
+])
+def test_heliacal_condition_against_skyfield(sky, what):
+    # The definition checked with skyfield 1.55 + DE440: on the morning (evening) we give,
+    # at the target's rising (setting) found by almanac.find_risings / find_settings with
+    # horizon -34', the Sun's airless altitude (skyfield's apparent place, altaz() without
+    # refraction) is at or below -arcus visionis; on the morning before (evening after)
+    # it is not.  Margin 0.03 degrees for what we leave out (the star's annual aberration,
+    # 20"; the site's parallax of the Sun, 9") and the built-in theories.
+    from skyfield.api import Star
+
+    target_name, event, lat, lon = what
+    ts, eph = sky["ts"], sky["eph"]
+    obs = eph["earth"] + wgs84.latlon(lat, lon)
+    if target_name == "STAR":
+        target = Star(ra_hours=SIRIUS[0] / 15.0, dec_degrees=SIRIUS[1],
+                      ra_mas_per_year=SIRIUS_PM[0], dec_mas_per_year=SIRIUS_PM[1])
+        arcus = heliacal.arcus_of_magnitude(SIRIUS[2])
+        cell = evaluate("SKY.HELIACAL.STAR", SIRIUS + ["2025-01-01", lat, lon, event,
+                                                       "UTC", 0.0, None] + SIRIUS_PM)
+    else:
+        target = eph[{"JUPITER": "jupiter barycenter", "SATURN": "saturn barycenter"}.get(
+            target_name, target_name.lower())]
+        arcus = heliacal.PLANET_ARCUS[target_name]
+        cell = evaluate("SKY.HELIACAL.PLANET", [target_name, "2025-01-01", lat, lon, event])
+    assert not isinstance(cell, str), cell
+    ours = ts.utc(1899, 12, 30 + cell)
+    find = almanac.find_risings if event == "RISING" else almanac.find_settings
+    t, ok = find(obs, target, ts.tt_jd(ours.tt - 2.5), ts.tt_jd(ours.tt + 2.5),
+                 horizon_degrees=-34.0 / 60.0)
+    t = t[ok]
+    k = int(np.argmin(np.abs(t.tt - ours.tt)))
+    assert abs(t.tt[k] - ours.tt) * 86400.0 < 120.0  # the same event, within 2 minutes
+    depression = [-obs.at(t[j]).observe(eph["sun"]).apparent().altaz()[0].degrees
+                  for j in range(len(t))]
+    assert depression[k] >= arcus - 0.03
+    neighbour = k - 1 if event == "RISING" else k + 1
+    assert depression[neighbour] < arcus + 0.03
+
+
+def test_arcus_visionis_table_and_cells():
+    # The table (from memory; see calcfuncs/heliacal.py): first magnitude 11 degrees.
+    assert evaluate("SKY.ARCUS.VISIONIS", [1.0]) == pytest.approx(11.0)
+    assert evaluate("SKY.ARCUS.VISIONIS", [-4.0]) == pytest.approx(10.0)
+    assert evaluate("SKY.ARCUS.VISIONIS", [2.5]) == pytest.approx(13.25)
+    # Ptolemy's planetary values (from memory).
+    assert heliacal.PLANET_ARCUS == {"MERCURY": 10.0, "VENUS": 5.0, "MARS": 11.5,
+                                     "JUPITER": 10.0, "SATURN": 11.0}
+
+
+def test_heliacal_column_equals_cells():
+    dates = tuple((45658.0 + 37.0 * k,) for k in range(6))
+    column = evaluate("SKY.HELIACAL.PLANET", ["JUPITER", dates, 40.0, -3.7, "SETTING"])
+    for (d,), (c,) in zip(dates, column):
+        assert evaluate("SKY.HELIACAL.PLANET", ["JUPITER", d, 40.0, -3.7, "SETTING"]) == c
+
+
+def test_no_event_says_so_in_words():
+    # Polaris from 51.5 N never rises: words, as a sunrise in the polar night has them.
+    got = evaluate("SKY.HELIACAL.STAR", [37.95, 89.26, 2.0, "2025-01-01", 51.5, 0.0,
+                                         "RISING"])
+    assert got.startswith("no heliacal rising within 400 days")
+
+
+@pytest.mark.parametrize("call,mention", [
+    (["SKY.HELIACAL.STAR", SIRIUS[:2] + [7.0, "2025-01-01", 51.5, 0.0, "RISING"]],
+     "magnitude 5"),
+    (["SKY.HELIACAL.STAR", SIRIUS + ["2025-01-01", 51.5, 0.0, "DAWN"]], 'unknown event'),
+    (["SKY.HELIACAL.STAR", SIRIUS + ["2025-01-01", 51.5, 0.0, "RISING", "UTC", 0, 40]],
+     "1 to 25 degrees"),
+    (["SKY.HELIACAL.STAR", SIRIUS + ["-6000-01-01", 51.5, 0.0, "RISING", "UT"]],
+     "-4000 to 8000"),
+    (["SKY.HELIACAL.PLANET", ["URANUS", "2025-01-01", 51.5, 0.0, "RISING"]],
+     'unknown body "URANUS"'),
+    (["SKY.HELIACAL.PLANET", ["VENUS", "2025-01-01", 91.0, 0.0, "RISING"]], "latitude"),
+    (["SKY.ARCUS.VISIONIS", ["bright"]], "must be a number"),
+])
+def test_heliacal_bad_input_says_so(call, mention):
+    got = evaluate(*call)
+    assert isinstance(got, str) and got.startswith("#SKY: ") and mention in got, got

@@ -2,7 +2,8 @@
 rising and setting of stars and planets by the arcus visionis."""
 
 from .. import vocabulary as vocab
-from .common import DUT1, LATITUDE, LONGITUDE, SCALE, SOURCE, Arg, CellFunction, Family
+from .common import (DUT1, LATITUDE, LONGITUDE, SCALE, SOURCE, Arg, CellFunction, Family,
+                     angle_arg)
 
 _EVENING = Arg("date", "time", "The local calendar date of the evening (a date cell or date "
                "text; the time of day is ignored).")
@@ -56,6 +57,49 @@ _CRITERIA_MODEL = (
     "remember the papers. "
 )
 _EVENING_ARGS = (_EVENING, LATITUDE, LONGITUDE)
+
+_MAGNITUDE = Arg("magnitude", "number", "The star's visual magnitude (e.g. -1.46 for "
+                 "Sirius); 5 at most.")
+_FROM_DATE = Arg("date", "time", "The local date to search from: the first event on or "
+                 "after it is given (within 400 days for a star, 800 for a planet). For "
+                 'antiquity give text such as "-1313-06-01" with scale UT (Julian calendar '
+                 "before 1582).")
+_HELIACAL_EVENT = Arg("event", "choice", "RISING (the first morning the target is seen "
+                      "in the dawn) or SETTING (the last evening it is seen in the dusk). "
+                      "Required.", choices=("RISING", "SETTING"))
+_PLANET = Arg("body", "choice", "The planet: MERCURY, VENUS, MARS, JUPITER or SATURN.",
+              choices=("MERCURY", "VENUS", "MARS", "JUPITER", "SATURN"))
+_ARCUS = Arg("arcus_visionis", "number", "Your own arcus visionis in degrees (1 to 25). "
+             "Default: from the magnitude for a star (SKY.ARCUS.VISIONIS), Ptolemy's "
+             "value for a planet.", default=None)
+_PROPER_MOTION = (
+    Arg("pm_ra", "number", "Proper motion in RA, mu_alpha* = mu_alpha cos Dec, in mas a "
+        "year (as Hipparcos and Gaia give it; Sirius -546). Default 0.", default=0.0),
+    Arg("pm_dec", "number", "Proper motion in Dec in mas a year (Sirius -1223). Default 0.",
+        default=0.0),
+    Arg("epoch", "number", "The epoch of the RA and Dec, a year. Default 2000.",
+        default=2000.0),
+)
+_ARCUS_TABLE = (
+    "Linear in the magnitude between the values -1.5: 10.0, 0: 10.5, 1: 11.0, 2: 12.5, 3: "
+    "14.0, 4: 15.0, 5: 16.0 degrees (brighter than -1.5: 10.0): rounded values of the "
+    "classical tables (after Schoch), as we remember them. Planets (Ptolemy, from "
+    "memory): Mercury 10, Venus 5, Mars 11.5, Jupiter 10, Saturn 11. The published values "
+    "scatter by a degree or two; each degree moves a heliacal date by about a day."
+)
+_HELIACAL_MODEL = (
+    "The classical criterion: seen when, at the target's apparent rising (setting: its "
+    "true altitude -34'), the Sun's centre is at least the arcus visionis below the "
+    "horizon (true altitude). Heliacal rising: the first such morning; setting: the last "
+    "such evening. " + _ARCUS_TABLE + " Places from the built-in theories (VSOP87D and "
+    "Vondrak et al. 2011 outside 1000-3000), a star moved along its proper motion, "
+    "annual aberration (20\") and the site's parallax left out. Valid -4000 to +8000 for "
+    "the geometry; the date is as good as the arcus visionis (a day or two; haze more). "
+    "For Sirius at Memphis our dates fall on 18 to 20 July (Julian) from 1450 BC to AD "
+    "139, the dates of the Sothic literature within a day or two (tests/"
+    "test_visibility.py). Result on the date's scale plus utc_offset (for antiquity "
+    "scale UT and e.g. longitude/15 hours for local mean time). " + vocab.SUN_CAUTION
+)
 _TAIL = (SCALE, _UTC_OFFSET, _HEIGHT)
 
 
@@ -91,4 +135,29 @@ FAMILY = Family("visibility", "Visibility: the first crescent and heliacal risin
         result="text: the class letter, or the letter and its meaning",
         result_kind="text", impl="crescent:class_cells",
         model=_CRITERIA_MODEL + _CRESCENT_MODEL, fills_down="date"),
+    CellFunction(
+        name="SKY.HELIACAL.STAR", method="skyHeliacalStar",
+        summary="The heliacal rising (first morning seen) or setting (last evening seen) "
+        "of a star at a site, by the arcus visionis: the first such event from a date.",
+        args=(angle_arg("ra", "RA of the star (ICRS, the catalogue place at its epoch)"),
+              angle_arg("dec", "Dec of the star (ICRS)"), _MAGNITUDE, _FROM_DATE, LATITUDE,
+              LONGITUDE, _HELIACAL_EVENT, SCALE, _UTC_OFFSET, _ARCUS) + _PROPER_MOTION,
+        result="a date-time value: the star's rising (setting) on that morning (evening), "
+        "local; or words when there is none", result_kind="datetime",
+        impl="heliacal:star_cells", model=_HELIACAL_MODEL, fills_down="date"),
+    CellFunction(
+        name="SKY.HELIACAL.PLANET", method="skyHeliacalPlanet",
+        summary="The heliacal rising or setting of a naked-eye planet at a site, by "
+        "Ptolemy's arcus visionis: the first such event from a date.",
+        args=(_PLANET, _FROM_DATE, LATITUDE, LONGITUDE, _HELIACAL_EVENT, SCALE, _UTC_OFFSET,
+              _ARCUS),
+        result="a date-time value: the planet's rising (setting) on that morning (evening), "
+        "local; or words when there is none", result_kind="datetime",
+        impl="heliacal:planet_cells", model=_HELIACAL_MODEL, fills_down="date"),
+    CellFunction(
+        name="SKY.ARCUS.VISIONIS", method="skyArcusVisionis",
+        summary="The arcus visionis of a star of a visual magnitude: how far the Sun must "
+        "be below the horizon for it to be seen rising or setting.",
+        args=(_MAGNITUDE,), result="degrees of the Sun's depression",
+        impl="heliacal:arcus_cells", model=_ARCUS_TABLE),
 ))

@@ -113,5 +113,90 @@ def crescent_sheet(doc, sheet):
                    1.6, 1.5, 6.5, 3.2])
 
 
+# Bright stars for the watch's heliacal calendar: ICRS J2000 places, proper motions (mas
+# a year) and V magnitudes as catalogues give them (rounded, from memory; for the
+# example only).
+STARS = [
+    ("Sirius", 101.2872, -16.7161, -1.46, -546.01, -1223.07),
+    ("Canopus", 95.9880, -52.6957, -0.74, 19.93, 23.24),
+    ("Arcturus", 213.9153, 19.1824, -0.05, -1093.39, -2000.06),
+    ("Aldebaran", 68.9802, 16.5093, 0.86, 63.45, -188.94),
+    ("Regulus", 152.0930, 11.9672, 1.40, -248.73, 5.59),
+    ("Spica", 201.2983, -11.1613, 0.97, -42.35, -30.67),
+    ("Antares", 247.3519, -26.4320, 1.09, -12.11, -23.30),
+    ("Alcyone (Pleiades)", 56.8712, 24.1051, 2.87, 19.34, -43.67),
+]
+PLANETS = ("MERCURY", "VENUS", "MARS", "JUPITER", "SATURN")
+# The watch's history evening (invented): Sirius's heliacal rising at Memphis (about
+# 29.85 N, 31.25 E) in years of the Sothic literature, local mean time.
+HISTORY_YEARS = ("-1449-06-01", "-1313-06-01", "-0238-06-01", "0139-06-01")
+
+
+def heliacal_sheet(doc, sheet):
+    note(sheet, 0,
+         f"The {CLUB}'s heliacal calendar for {YEAR} at {SITE} (the site on the first "
+         "sheet): the first morning each bright star and planet is seen again in the dawn "
+         "(heliacal rising) and the last evening it is seen in the dusk (heliacal "
+         "setting), by the arcus visionis: the Sun's depression at the target's rising or "
+         "setting must reach it. The cells show the target's rising (setting) on that "
+         "morning (evening), local time. The arcus visionis of a star comes from its "
+         "magnitude (SKY.ARCUS.VISIONIS), of a planet from Ptolemy; values scatter by a "
+         "degree or two, a day or two in the date. Below: the watch's history evening, "
+         "Sirius at Memphis in antiquity (scale UT, local mean time, Julian calendar). "
+         "Uses SKY.HELIACAL.STAR, SKY.HELIACAL.PLANET, SKY.ARCUS.VISIONIS and "
+         "SKY.TEXT.DATE.", 10)
+    sheet.getRows().getByIndex(0).Height = 2400
+    note(sheet, 1, CRESCENT_CAUTION, 10)
+    sheet.getRows().getByIndex(1).Height = 900
+    sheet.getCellByPosition(0, 1).CharWeight = 150.0
+    site = "'Crescent watch'.$A$4;'Crescent watch'.$B$4"
+    offset = "'Crescent watch'.$D$4"
+    header(sheet, 2, ["Star", "RA (deg)", "Dec (deg)", "V", "pm RA (mas/yr)",
+                      "pm Dec (mas/yr)", "Arcus visionis (deg)",
+                      f"Heliacal rising {YEAR}", f"Heliacal setting {YEAR}"])
+    first = 3
+    last = first + len(STARS) - 1
+    sheet.getCellRangeByPosition(0, first, 5, last).setDataArray(tuple(STARS))
+    fill_columns(doc, sheet, first, last, 6, [
+        ("=SKY.ARCUS.VISIONIS(D{r})", "0.0"),
+        (f'=SKY.HELIACAL.STAR(B{{r}};C{{r}};D{{r}};DATE({YEAR};1;1);{site};"RISING";'
+         f'"UTC";{offset};;E{{r}};F{{r}})', "YYYY-MM-DD HH:MM"),
+        (f'=SKY.HELIACAL.STAR(B{{r}};C{{r}};D{{r}};DATE({YEAR};1;1);{site};"SETTING";'
+         f'"UTC";{offset};;E{{r}};F{{r}})', "YYYY-MM-DD HH:MM"),
+    ])
+    top = last + 2
+    header(sheet, top, ["Planet", "", "", "", "", "", "Arcus visionis (deg)",
+                        f"Heliacal rising from {YEAR}", f"Heliacal setting from {YEAR}"])
+    p_first = top + 1
+    p_last = p_first + len(PLANETS) - 1
+    sheet.getCellRangeByPosition(0, p_first, 0, p_last).setDataArray(
+        tuple((p,) for p in PLANETS))
+    arcs = {"MERCURY": 10.0, "VENUS": 5.0, "MARS": 11.5, "JUPITER": 10.0, "SATURN": 11.0}
+    sheet.getCellRangeByPosition(6, p_first, 6, p_last).setDataArray(
+        tuple((arcs[p],) for p in PLANETS))
+    fill_columns(doc, sheet, p_first, p_last, 7, [
+        (f'=SKY.HELIACAL.PLANET(A{{r}};DATE({YEAR};1;1);{site};"RISING";"UTC";{offset})',
+         "YYYY-MM-DD HH:MM"),
+        (f'=SKY.HELIACAL.PLANET(A{{r}};DATE({YEAR};1;1);{site};"SETTING";"UTC";{offset})',
+         "YYYY-MM-DD HH:MM"),
+    ])
+    top = p_last + 2
+    header(sheet, top, ["Sirius at Memphis", "Latitude", "Longitude", "Searched from",
+                        "", "", "Arcus visionis (deg)", "Heliacal rising (value)",
+                        "Heliacal rising (Julian calendar, local mean time)"])
+    h_first = top + 1
+    h_last = h_first + len(HISTORY_YEARS) - 1
+    sheet.getCellRangeByPosition(0, h_first, 3, h_last).setDataArray(
+        tuple(("Sirius", 29.85, 31.25, y) for y in HISTORY_YEARS))
+    fill_columns(doc, sheet, h_first, h_last, 6, [
+        ("=SKY.ARCUS.VISIONIS(-1.46)", "0.0"),
+        ('=SKY.HELIACAL.STAR(101.2872;-16.7161;-1.46;D{r};B{r};C{r};"RISING";"UT";'
+         'C{r}/15;;-546.01;-1223.07)', "0.000"),
+        ('=SKY.TEXT.DATE(H{r};"UT";;"JULIAN";"HISTORICAL")', "@"),
+    ])
+    widths(sheet, [3.8, 2.0, 2.0, 2.6, 2.4, 2.4, 2.6, 4.0, 5.6])
+
+
 def fill(doc):
     crescent_sheet(doc, sheet_at(doc, 0, "Crescent watch"))
+    heliacal_sheet(doc, sheet_at(doc, 1, "Heliacal dates"))
