@@ -94,7 +94,7 @@ def odeh_v(arcv_topocentric, width_topocentric):
 
 def classify(value, limits):
     """Class letters A, B ... for values against descending lower limits: A above the
-    first (Yallop's q > limit; Odeh's V >= limit, see ``_letters``)."""
+    first, a value on a limit in the class below (as Yallop's classes have it)."""
     value = np.asarray(value, dtype=float)
     below = np.zeros(value.shape, dtype=int)
     for limit in limits:

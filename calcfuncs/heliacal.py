@@ -42,7 +42,7 @@ import erfa
 import numpy as np
 
 from . import bodies, events, frames, nodes, vectors
-from .errors import RowErrors, SkyError, rows_failing
+from .errors import SkyError, rows_failing
 from .sun import check_site, local_day_start, local_times, row_values
 from .timescales import Instants, check_years
 from .vocabulary import BUILTIN, J2000_JD, LONG_RANGE_YEARS
@@ -180,8 +180,9 @@ class Search:
         n = self.start.size
         self.n = n
         tt = self.start
-        check_years(np.concatenate([tt, tt + days]), np.zeros(2 * n), LONG_RANGE_YEARS,
-                    "the heliacal search uses the built-in long-range theories")
+        for edge in (tt, tt + days):  # row-aligned, so one bad row fails alone
+            check_years(edge, np.zeros(n), LONG_RANGE_YEARS,
+                        "the heliacal search uses the built-in long-range theories")
         lat = np.radians(row_values(latitude, n))
         self.sin_lat, self.cos_lat = np.sin(lat), np.cos(lat)
         self.lon = np.radians(row_values(longitude, n))
@@ -356,5 +357,3 @@ def planet_cells(body, date, latitude, longitude, event, utc_offset=0.0, arcus_v
 def arcus_cells(magnitude):
     return arcus_of_magnitude(magnitude)
 
-
-__all__ = ["RowErrors"]
