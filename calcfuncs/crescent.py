@@ -248,10 +248,74 @@ def _first_per_row(roots, order, n):
     return (jd1, jd2), found
 
 
+# Evenings kept across calls: a sheet asks for one quantity per cell, a dozen cells of an
+# evening, and each would search the evening again.  Keyed by everything that moves the
+# evening (the TT of its local 0h, the site, DUT1, the source and what its files hold);
+# bounded, the oldest dropped.
+EVENING_CACHE_SIZE = 20_000
+_EVENING_CACHE = {}
+_LAYOUT = ("sunset", "moonset", "best", "new_moon")
+
+
+class _Kept:
+    """Rows of evenings put together from the kept ones: what ``Evening`` offers."""
+
+    quantity = Evening.quantity
+    raise_messages = Evening.raise_messages
+
+    def __init__(self, n, start, records, messages):
+        self.n, self.start, self.messages = n, start, messages
+        table = np.array(records, dtype=float).reshape(n, -1)
+        for k, name in enumerate(_LAYOUT):
+            setattr(self, name, (table[:, 2 * k], table[:, 2 * k + 1]))
+        self.lag_days, self.age_days = table[:, 8], table[:, 9]
+        self.values = {frame: {what: table[:, 10 + 5 * f + j] for j, what in
+                               enumerate(("ARCL", "ARCV", "DAZ", "ALTITUDE", "WIDTH"))}
+                       for f, frame in enumerate(FRAMES)}
+
+
+def _record(e, k):
+    parts = [v[k] for name in _LAYOUT for v in getattr(e, name)]
+    parts += [e.lag_days[k], e.age_days[k]]
+    parts += [e.values[frame][what][k] for frame in FRAMES
+              for what in ("ARCL", "ARCV", "DAZ", "ALTITUDE", "WIDTH")]
+    return np.array(parts, dtype=float)
+
+
 def _evening(date, latitude, longitude, utc_offset, height, source):
+    from .ephemeris import content_stamp
+    from .sun import local_day_start
+
     if not -14.0 <= float(utc_offset) <= 14.0:
         raise SkyError(f"the UTC offset must be within -14 to +14 hours, not {utc_offset:g}")
-    return Evening(date, latitude, longitude, utc_offset, height, source)
+    check_site(latitude, longitude)
+    start = local_day_start(date, utc_offset)
+    n = start.size
+    lat, lon, h = (row_values(v, n) for v in (latitude, longitude, height))
+    stamp = (str(source), content_stamp(source), float(date.dut1))
+    keys = [(t, a, b, c) + stamp for t, a, b, c in
+            zip(start.tolist(), lat.tolist(), lon.tolist(), h.tolist())]
+    missing = [k for k, key in enumerate(keys) if key not in _EVENING_CACHE]
+    if missing:
+        idx = np.array(missing)
+        sub = Instants(np.broadcast_to(date.jd1, (n,))[idx],
+                       np.broadcast_to(date.jd2, (n,))[idx], date.scale, date.dut1)
+        try:
+            e = Evening(sub, lat[idx], lon[idx], utc_offset, h[idx], source)
+        except RowErrors as err:
+            messages = np.ravel(err.messages)
+            if messages.size != idx.size:
+                raise
+            out = np.full(n, None, dtype=object)
+            out[idx] = messages
+            raise RowErrors(out) from None
+        for j, k in enumerate(missing):
+            if len(_EVENING_CACHE) >= EVENING_CACHE_SIZE:
+                del _EVENING_CACHE[next(iter(_EVENING_CACHE))]
+            _EVENING_CACHE[keys[k]] = (_record(e, j), e.messages[j])
+    kept = [_EVENING_CACHE[key] for key in keys]
+    messages = np.array([m for _, m in kept], dtype=object)
+    return _Kept(n, start, [r for r, _ in kept], messages)
 
 
 # ---- cell functions ------------------------------------------------------------------
