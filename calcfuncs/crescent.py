@@ -39,7 +39,7 @@ import numpy as np
 
 from . import bodies, events, topocentric
 from .errors import RowErrors, SkyError
-from .moon import _phase_crossings
+from .moon import elongation_lon, rough_elongation
 from .risings import STANDARD_REFRACTION_DEG, Site, Target, TargetOverDays, day_search
 from .sun import check_site, local_times, row_values
 from .timescales import Instants
@@ -214,11 +214,11 @@ class Evening:
         if (high - low) / 29.5 < min(self.n, 100):
             # Evenings close together (a column of days): one search over the span they
             # share finds every new Moon once, instead of once per row.
-            found = _phase_crossings(0.0, np.array([low]), np.array([high]), source)
+            found = _new_moons(np.array([low]), np.array([high]), source)
             row = np.repeat(np.arange(self.n), len(found))
             roots = events.Roots(np.tile(found.jd1, self.n), np.tile(found.jd2, self.n), row)
         else:
-            roots = _phase_crossings(0.0, jd - 16.0, jd + 16.0, source)
+            roots = _new_moons(jd - 16.0, jd + 16.0, source)
         gap = np.abs((roots.jd1 - b1[roots.row]) + (roots.jd2 - b2[roots.row]))
         order = np.lexsort((gap, roots.row))
         (n1, n2), found = _first_per_row(roots, order, self.n)
@@ -236,6 +236,19 @@ class Evening:
         bad = np.not_equal(self.messages, None)
         if np.any(bad):
             raise RowErrors(self.messages.copy())
+
+
+def _new_moons(start, end, source):
+    """``events.Roots`` of the new Moons in each row's window: the apparent elongation in
+    longitude crossing 0 upwards, sampled daily where the rough elongation says (as
+    SKY.MOON.PHASE.NEXT searches)."""
+    def f(jd1, jd2, row):
+        return events.wrap180(elongation_lon(jd1, jd2, source))
+
+    def rough(jd1, jd2, row):
+        return events.wrap180(rough_elongation(jd1, jd2))
+
+    return events.crossings(f, start, end, 1.0, direction=+1, jump=90.0, estimate=rough)
 
 
 def _first_per_row(roots, order, n):

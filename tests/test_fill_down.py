@@ -54,7 +54,9 @@ def test_the_functions_that_fill_down():
                      "SKY.BODY.TRANSIT", "SKY.STAR.RISE", "SKY.STAR.SET", "SKY.STAR.TRANSIT",
                      "SKY.WINDOW.START", "SKY.WINDOW.END", "SKY.WINDOW.HOURS",
                      "SKY.WINDOW.BEST", "SKY.WINDOW.MOON", "SKY.DARK.START", "SKY.DARK.END",
-                     "SKY.DARK.HOURS"}
+                     "SKY.DARK.HOURS", "SKY.CRESCENT", "SKY.CRESCENT.TIME",
+                     "SKY.CRESCENT.CRITERION", "SKY.CRESCENT.CLASS", "SKY.HELIACAL.STAR",
+                     "SKY.HELIACAL.PLANET"}
 
 
 @pytest.mark.parametrize("fn", FILLS_DOWN, ids=lambda f: f.name)
