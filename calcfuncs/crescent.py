@@ -200,12 +200,11 @@ class Evening:
     def _geocentric(sun, moon, b1, b2, source):
         """The directions from the Earth's centre, with the site's astrometry so that
         their altitudes are measured at the site's horizon."""
-        made = []
-        for body, topo in (("SUN", sun), ("MOON", moon)):
-            p = bodies.place_at_tt(body, b1, b2, "APPARENT", source)
-            made.append(topocentric.TopoPlace(p.direction, p.distance, topo.astrom,
-                                              topo.pressure))
-        return made
+        p = bodies.place_at_tt("MOON", b1, b2, "APPARENT", source)
+        # The apparent Sun from the same states of the Earth and the Sun (its distance is
+        # not used: only directions make altitudes and azimuths).
+        return (topocentric.TopoPlace(p.sun_direction, sun.distance, sun.astrom, sun.pressure),
+                topocentric.TopoPlace(p.direction, p.distance, moon.astrom, moon.pressure))
 
     def _age(self, source):
         b1, b2 = self.best
