@@ -32,6 +32,13 @@ def args_for(fn, value, latitude=SITE[0]):
     if fn.name.startswith(("SKY.STAR.", "SKY.WINDOW.")):
         # An invented field, high in the evening sky of January.
         return [101.3, 24.6, value, latitude, SITE[1], None, 1.0]
+    if fn.name.startswith("SKY.CRESCENT"):
+        word = {"SKY.CRESCENT": "ARCV", "SKY.CRESCENT.TIME": "BEST"}.get(fn.name, "YALLOP")
+        return [value, latitude, SITE[1], word, None, 1.0]
+    if fn.name == "SKY.HELIACAL.STAR":  # Sirius
+        return [101.29, -16.72, -1.46, value, latitude, SITE[1], "RISING", None, 1.0]
+    if fn.name == "SKY.HELIACAL.PLANET":
+        return ["JUPITER", value, latitude, SITE[1], "SETTING", None, 1.0]
     return [value, latitude, SITE[1], None, 1.0]
 
 
@@ -50,7 +57,9 @@ def test_the_functions_that_fill_down():
                      "SKY.DARK.HOURS", "SKY.LUNAR.ECLIPSE.NEXT", "SKY.LUNAR.ECLIPSE.KIND",
                      "SKY.LUNAR.ECLIPSE.MAGNITUDE", "SKY.LUNAR.ECLIPSE.GAMMA",
                      "SKY.LUNAR.ECLIPSE.DURATION", "SKY.LUNAR.ECLIPSE.MOON.ALT",
-                     "SKY.LUNAR.ECLIPSE.VISIBILITY"}
+                     "SKY.LUNAR.ECLIPSE.VISIBILITY", "SKY.CRESCENT", "SKY.CRESCENT.TIME",
+                     "SKY.CRESCENT.CRITERION", "SKY.CRESCENT.CLASS", "SKY.HELIACAL.STAR",
+                     "SKY.HELIACAL.PLANET"}
 
 
 @pytest.mark.parametrize("fn", FILLS_DOWN, ids=lambda f: f.name)

@@ -286,6 +286,26 @@ EXAMPLES["SKY.DARK.START"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
 EXAMPLES["SKY.DARK.END"] = [('A{r};D{r};E{r};;;"NAUTICAL"',
                             lambda v: [v[0], v[3], v[4], None, None, "NAUTICAL"])]
 EXAMPLES["SKY.DARK.HOURS"] = [("A{r};D{r};E{r}", lambda v: [v[0], v[3], v[4]])]
+# Visibility: crescent evenings at the random sites (rows without a sunset or a moonset
+# near it say so), Yallop's and Odeh's criteria.
+EXAMPLES["SKY.CRESCENT"] = [('A{r};D{r};E{r};"ARCV"', lambda v: [v[0], v[3], v[4], "ARCV"]),
+                            ('A{r};D{r};E{r};"AGE";;2;300;"GEOCENTRIC"',
+                             lambda v: [v[0], v[3], v[4], "AGE", None, 2.0, 300.0,
+                                        "GEOCENTRIC"])]
+EXAMPLES["SKY.CRESCENT.TIME"] = [('A{r};D{r};E{r};"BEST";;3',
+                                  lambda v: [v[0], v[3], v[4], "BEST", None, 3.0])]
+EXAMPLES["SKY.CRESCENT.CRITERION"] = [('A{r};D{r};E{r};"ODEH"',
+                                       lambda v: [v[0], v[3], v[4], "ODEH"])]
+EXAMPLES["SKY.CRESCENT.CLASS"] = [('A{r};D{r};E{r};"YALLOP";;;;"WORDS"',
+                                   lambda v: [v[0], v[3], v[4], "YALLOP", None, None, None,
+                                              "WORDS"])]
+EXAMPLES["SKY.HELIACAL.STAR"] = [('B{r};C{r};L{r}/100;A{r};D{r};E{r};"RISING"',
+                                   lambda v: [v[1], v[2], v[11] / 100, v[0], v[3], v[4],
+                                              "RISING"])]
+EXAMPLES["SKY.HELIACAL.PLANET"] = [('"VENUS";A{r};D{r};E{r};"SETTING";;2',
+                                    lambda v: ["VENUS", v[0], v[3], v[4], "SETTING", None,
+                                               2.0])]
+EXAMPLES["SKY.ARCUS.VISIONIS"] = [("L{r}/100", lambda v: [v[11] / 100])]
 # Minor planets and comets: an MPC minor-planet line and a comet line typed into the
 # formula (written for the tests in the MPC's layouts), and orbits made row by row from
 # the input columns by SKY.ORBIT.FROM.Q and .FROM.A.

@@ -193,6 +193,13 @@ FROZEN_METHODS = {
     "skySolarEclipseLocal": "SKY.SOLAR.ECLIPSE.LOCAL",
     "skySolarEclipseSeen": "SKY.SOLAR.ECLIPSE.SEEN",
     "skySolarEclipseDeltat": "SKY.SOLAR.ECLIPSE.DELTAT",
+    "skyCrescent": "SKY.CRESCENT",
+    "skyCrescentTime": "SKY.CRESCENT.TIME",
+    "skyCrescentCriterion": "SKY.CRESCENT.CRITERION",
+    "skyCrescentClass": "SKY.CRESCENT.CLASS",
+    "skyHeliacalStar": "SKY.HELIACAL.STAR",
+    "skyHeliacalPlanet": "SKY.HELIACAL.PLANET",
+    "skyArcusVisionis": "SKY.ARCUS.VISIONIS",
 }
 
 
@@ -405,7 +412,9 @@ DECLARED_ORDER = (
     "skyLunarEclipseNext skyLunarEclipseKind skyLunarEclipseMagnitude skyLunarEclipseGamma "
     "skyLunarEclipseDuration skyLunarEclipseMoonAlt skyLunarEclipseVisibility "
     "skySolarEclipseNext skySolarEclipseKind skySolarEclipseGlobal skySolarEclipseContact "
-    "skySolarEclipseLocal skySolarEclipseSeen skySolarEclipseDeltat"
+    "skySolarEclipseLocal skySolarEclipseSeen skySolarEclipseDeltat "
+    "skyCrescent skyCrescentTime skyCrescentCriterion skyCrescentClass "
+    "skyHeliacalStar skyHeliacalPlanet skyArcusVisionis"
 ).split()
 
 
@@ -448,11 +457,11 @@ def test_result_kinds_of_known_functions():
     assert kinds["SKY.SUN.RISE"] == "datetime"  # words where the Sun does not rise
     assert kinds["SKY.TEXT.ISO"] == kinds["SKY.VERSION"] == "text"
     assert sorted(n for n, k in kinds.items() if k == "text") == [
-        "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.ECLIPSE.POSSIBLE",
-        "SKY.EPHEMERIS", "SKY.LUNAR.ECLIPSE.KIND", "SKY.LUNAR.ECLIPSE.VISIBILITY",
-        "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME", "SKY.SOLAR.ECLIPSE.KIND",
-        "SKY.SOLAR.ECLIPSE.SEEN", "SKY.TEXT.DATE", "SKY.TEXT.DMS", "SKY.TEXT.HMS",
-        "SKY.TEXT.ISO", "SKY.VERSION"]
+        "SKY.CONSTELLATION", "SKY.CONSTELLATION.BODY", "SKY.CRESCENT.CLASS",
+        "SKY.ECLIPSE.POSSIBLE", "SKY.EPHEMERIS", "SKY.LUNAR.ECLIPSE.KIND",
+        "SKY.LUNAR.ECLIPSE.VISIBILITY", "SKY.ORBIT.FROM.A", "SKY.ORBIT.FROM.Q", "SKY.ORBIT.NAME",
+        "SKY.SOLAR.ECLIPSE.KIND", "SKY.SOLAR.ECLIPSE.SEEN", "SKY.TEXT.DATE", "SKY.TEXT.DMS",
+        "SKY.TEXT.HMS", "SKY.TEXT.ISO", "SKY.VERSION"]
 
 
 def test_every_argument_has_a_noun_for_its_messages():

@@ -2,7 +2,7 @@
 
     .venv/bin/python tools/make_sample_sheets.py --oxt dist/eclipsheet.oxt [--out sample_sheets]
 
-Thirteen workbooks, one office session, one module each in tools/samples/:
+Fourteen workbooks, one office session, one module each in tools/samples/:
 
   observing_log.ods      a season's estimate times: Julian dates, time scales, obliquity,
                          nutation, angle text (the time, angle and obliquity families)
@@ -40,12 +40,15 @@ Thirteen workbooks, one office session, one module each in tools/samples/:
                          with the local circumstances at its camps, and an invented
                          historian's table of recorded eclipses tested against Delta T
                          (the solar-eclipse family)
+  first_crescent.ods     the crescent watch's evenings after each new Moon of a year with
+                         Yallop's and Odeh's criteria, and heliacal dates (the
+                         visibility family)
 
 The scenarios are invented: the Saltmarsh Variable Star Circle, observing from its
 Kettle Hill site and from a second field site, Curlew Staithe, whose coordinates are
 made up too; the Annals of Holmwray Abbey; the Tollmere Meteor Section at Whinburn
-Common.  Observers, nights, fields, stars, entries and counts are made up.  The sheets
-hold formulas (no macros), so opening them never asks about macro security.  Every
+Common; the Harrowdene Crescent Watch at Sarrow Ridge.  Observers, nights, fields, stars,
+entries and counts are made up.  The sheets hold formulas (no macros), so opening them never asks about macro security.  Every
 sheet about the Sun carries the caution never to look at it, or point optics at it,
 without a proper solar filter.
 """
@@ -62,6 +65,7 @@ import officekit  # noqa: E402
 from samples import (  # noqa: E402
     common,
     eclipses,
+    first_crescent,
     historical_record,
     lunar_eclipses,
     meteor_watch,
@@ -78,7 +82,7 @@ from samples import (  # noqa: E402
 # In this order, in one office session.
 BOOKS = (observing_log, target_list, historical_record, meteor_watch, timing_and_moon,
          planet_watch, reductions, night_plan, sky_charts,
-         minor_planets, lunar_eclipses, eclipses)
+         minor_planets, lunar_eclipses, eclipses, first_crescent)
 
 
 def build(oxt, out_dir, only=()):

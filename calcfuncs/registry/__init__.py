@@ -9,7 +9,7 @@ Declare a function once, in the module of its family, and the build does the res
                  arguments several families share
     time, angles, obliquity, about, coordinates, horizon, sun, moon, planets,
     constellations, meteors, varstars, magnitudes, site,
-    smallbodies, lunar, solar_eclipses
+    smallbodies, lunar, solar_eclipses, visibility
                  one module per family, its name and title said once (``FAMILY``)
 
 Frozen names: ``IMPLEMENTATION_NAME`` and every ``method`` are stored inside each ODS
@@ -23,7 +23,7 @@ path inside ``calcfuncs`` that the cell layer imports on first use.
 
 from . import (about, angles, constellations, coordinates, horizon, lunar, magnitudes, meteors,
                moon, obliquity, planets, site, smallbodies, solar_eclipses, sun,
-               time, varstars)
+               time, varstars, visibility)
 from .common import (CATEGORY, EXTENSION_IDENTIFIER, IMPLEMENTATION_NAME, INTERFACE_MODULE,
                      INTERFACE_NAME, OPTION_KINDS, REQUIRED, RESULT_KINDS, ROW_KINDS,
                      SERIES_KINDS, SERVICE_NAMES, Arg, CellFunction, Family)
@@ -31,13 +31,14 @@ from .common import (CATEGORY, EXTENSION_IDENTIFIER, IMPLEMENTATION_NAME, INTERF
 # The families in the order the reference and the function list show them.
 FAMILY_ORDER = tuple(m.FAMILY for m in (
     about, time, angles, obliquity, coordinates, horizon, sun, moon, lunar, solar_eclipses,
-    planets, constellations, meteors, varstars, magnitudes, site, smallbodies))
+    planets, constellations, meteors, varstars, magnitudes, site, smallbodies, visibility))
 
 # Every function, in the order the interface has always declared them (the IDL, the xcu
 # and the reference list them so): SKY.VERSION came after the obliquity family.
 FUNCTIONS = tuple(f for m in (time, angles, obliquity, about, coordinates, horizon, sun,
                               moon, planets, constellations, meteors, varstars,
-                              magnitudes, site, smallbodies, lunar, solar_eclipses)
+                              magnitudes, site, smallbodies, lunar, solar_eclipses,
+                              visibility)
                   for f in m.FAMILY.functions)
 
 FAMILIES = {family.name: family.title for family in FAMILY_ORDER}
