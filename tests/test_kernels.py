@@ -238,13 +238,16 @@ def test_a_kernel_replaced_on_disk_is_read_again(tmp_path):
     assert sum(1 for k in ephemeris._OPEN if k[1][0] == path) == 1
 
 
-def test_kept_searches_never_outlive_a_kernel_replaced_on_disk(tmp_path):
+def test_kept_searches_never_outlive_a_kernel_replaced_on_disk(tmp_path, monkeypatch):
     # Searches kept across calls (the next phase's windows, the solar eclipses'
     # lunations) are keyed by what the kernel files hold.  The kept ones are spoiled
     # here on purpose, then the file is replaced by a new copy of the same excerpt: the
     # answers must be computed anew (and so equal the first ones), never read from the
     # spoiled searches.
     from calcfuncs import events, solar_eclipses
+    # Kept searches of this test alone (the spoiled ones must not reach other tests).
+    monkeypatch.setattr(events, "_WINDOWS", {})
+    monkeypatch.setattr(solar_eclipses, "_LUNATIONS", {})
     path = str(tmp_path / "mine.bsp")
     _excerpt(path, "2023/11/01", "2024/09/01", "3,10,301,399")
     phase = ["2024-01-20", "UTC", "FULL", None, path]
