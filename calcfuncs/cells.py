@@ -14,6 +14,7 @@ import numpy as np
 
 from . import ephemeris, registry
 from .angles import parse_angle
+from .bounded import NEWEST, keep
 from .errors import PREFIX, RowErrors, SkyError
 from .timeinput import null_date_jd, read_times, to_serial
 from .timescales import DUT1_LIMIT, DateTimes, Instants, check_scale
@@ -675,9 +676,7 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
 
 
 def _keep(key, result):
-    if len(_SINGLE_CELL_CACHE) >= _SINGLE_CELL_CACHE_SIZE:
-        _SINGLE_CELL_CACHE.popitem()
-    _SINGLE_CELL_CACHE[key] = result
+    keep(_SINGLE_CELL_CACHE, key, result, _SINGLE_CELL_CACHE_SIZE, evict=NEWEST)
 
 
 # A formula filled down a column of days (=SKY.SUN.SET(A5;...) with A5 = A4+1) asks for

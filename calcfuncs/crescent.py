@@ -38,7 +38,8 @@ fitted curve (Yallop's fit to Bruin's visibility curves), which the tests check.
 import numpy as np
 
 from . import bodies, events, topocentric
-from .errors import RowErrors, SkyError
+from .bounded import keep
+from .errors import RowErrors, SkyError, aligned_rows
 from .moon import elongation_lon, rough_elongation
 from .risings import STANDARD_REFRACTION_DEG, Site, Target, TargetOverDays, day_search
 from .sun import check_site, local_times, row_values
@@ -312,19 +313,10 @@ def _evening(date, latitude, longitude, utc_offset, height, source):
         idx = np.array(missing)
         sub = Instants(np.broadcast_to(date.jd1, (n,))[idx],
                        np.broadcast_to(date.jd2, (n,))[idx], date.scale, date.dut1)
-        try:
-            e = Evening(sub, lat[idx], lon[idx], utc_offset, h[idx], source)
-        except RowErrors as err:
-            messages = np.ravel(err.messages)
-            if messages.size != idx.size:
-                raise
-            out = np.full(n, None, dtype=object)
-            out[idx] = messages
-            raise RowErrors(out) from None
+        e = aligned_rows(lambda: Evening(sub, lat[idx], lon[idx], utc_offset, h[idx], source),
+                         idx, n)
         for j, k in enumerate(missing):
-            if len(_EVENING_CACHE) >= EVENING_CACHE_SIZE:
-                del _EVENING_CACHE[next(iter(_EVENING_CACHE))]
-            _EVENING_CACHE[keys[k]] = (_record(e, j), e.messages[j])
+            keep(_EVENING_CACHE, keys[k], (_record(e, j), e.messages[j]), EVENING_CACHE_SIZE)
     kept = [_EVENING_CACHE[key] for key in keys]
     messages = np.array([m for _, m in kept], dtype=object)
     return _Kept(n, start, [r for r, _ in kept], messages)

@@ -50,3 +50,19 @@ def per_row(n, compute):
     if any(m is not None for m in messages):
         raise RowErrors(messages)
     return results
+
+
+def aligned_rows(compute, idx, n):
+    """``compute()``, run for the rows ``idx`` of ``n``; a ``RowErrors`` it raises for
+    those rows comes back aligned with all ``n`` rows."""
+    import numpy as np
+
+    try:
+        return compute()
+    except RowErrors as err:
+        messages = np.ravel(err.messages)
+        if messages.size != idx.size:
+            raise
+        out = np.full(n, None, dtype=object)
+        out[idx] = messages
+        raise RowErrors(out) from None

@@ -13,6 +13,7 @@ lines on top of ``crossings``.
 
 import numpy as np
 
+from .bounded import keep
 from .errors import RowErrors
 
 SHORT_BRACKET_DAYS = 0.04  # about an hour
@@ -457,9 +458,7 @@ def first_after(search, tt1, tt2, block, reach, keys):
                 refused[k] = True
                 continue
             found[k] = f
-            if len(_WINDOWS) >= WINDOW_CACHE_SIZE:
-                del _WINDOWS[next(iter(_WINDOWS))]
-            _WINDOWS[windows[k]] = f
+            keep(_WINDOWS, windows[k], f, WINDOW_CACHE_SIZE)
     jd1, jd2, got = _first_later(found, window_of, tt1, tt2)
     alone = np.flatnonzero(refused[window_of])
     if alone.size:

@@ -29,6 +29,7 @@ import erfa
 import numpy as np
 
 from . import bodies, events, frames, nodes, vectors
+from .bounded import keep
 from .errors import SkyError, rows_failing
 from .events import wrap180
 from .sun import check_rows_of_nodes, check_site, local_day_start, local_times, row_values
@@ -66,9 +67,7 @@ def _cached(key_of, compute, tt):
         fresh = compute(tt[missing])
         out[missing] = fresh
         for t, v in zip(tt[missing].tolist(), fresh):
-            if len(_NODE_CACHE) >= NODE_CACHE_SIZE:
-                del _NODE_CACHE[next(iter(_NODE_CACHE))]
-            _NODE_CACHE[key_of(t)] = v
+            keep(_NODE_CACHE, key_of(t), v, NODE_CACHE_SIZE)
     return out
 
 
@@ -92,9 +91,7 @@ def _star_astrom(tt):
         a = _ASTROM_CACHE.get(t)
         if a is None:
             a = erfa.apci13(t, 0.0)[0]
-            if len(_ASTROM_CACHE) >= NODE_CACHE_SIZE:
-                del _ASTROM_CACHE[next(iter(_ASTROM_CACHE))]
-            _ASTROM_CACHE[t] = a
+            keep(_ASTROM_CACHE, t, a, NODE_CACHE_SIZE)
         out.append(a)
     return np.concatenate([np.atleast_1d(a) for a in out])
 

@@ -21,6 +21,7 @@ import erfa
 import numpy as np
 
 from . import bodies, ephemeris, events, frames, nodes, vectors
+from .bounded import keep
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
 from .timescales import DateTimes, Instants, check_years
@@ -350,9 +351,7 @@ def _search_days(start, lat, lon, h0, dut1):
 
 
 def _remember(key, day):
-    if len(_DAY_CACHE) >= DAY_CACHE_SIZE:
-        del _DAY_CACHE[next(iter(_DAY_CACHE))]
-    _DAY_CACHE[key] = day
+    keep(_DAY_CACHE, key, day, DAY_CACHE_SIZE)
 
 
 class _DayEvents:
@@ -468,9 +467,7 @@ def _node_values(tt):
         fresh = np.concatenate([frames.unit_vectors(ra, dec), origins[:, None]], axis=1)
         out[missing] = fresh
         for t, v in zip(todo.tolist(), fresh):
-            if len(_NODE_CACHE) >= NODE_CACHE_SIZE:
-                del _NODE_CACHE[next(iter(_NODE_CACHE))]
-            _NODE_CACHE[t] = v
+            keep(_NODE_CACHE, t, v, NODE_CACHE_SIZE)
     return out
 
 

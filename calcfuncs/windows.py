@@ -24,7 +24,8 @@ import erfa
 import numpy as np
 
 from . import events, horizon, topocentric, vectors
-from .errors import RowErrors, rows_failing
+from .bounded import keep
+from .errors import RowErrors, aligned_rows, rows_failing
 from .events import wrap180
 from .risings import (STANDARD_REFRACTION_DEG, Site, Target, TargetOverDays, star_target)
 from .sun import EVENT_ALTITUDES, check_site, local_day_start, row_values
@@ -142,28 +143,13 @@ def _nights(time, latitude, longitude, utc_offset, height, twilight, source):
                 extra=lambda alt, r: np.degrees(np.arcsin(radius_au / r)))
             moon_down = _intervals(st, downs, ups, above <= 0, m)
             for j, k in enumerate(missing):
-                if len(_NIGHT_CACHE) >= NIGHT_CACHE_SIZE:
-                    del _NIGHT_CACHE[next(iter(_NIGHT_CACHE))]
-                _NIGHT_CACHE[keys[k]] = (dark[j], _intersect(dark[j], moon_down[j]))
+                keep(_NIGHT_CACHE, keys[k], (dark[j], _intersect(dark[j], moon_down[j])),
+                     NIGHT_CACHE_SIZE)
 
-        _aligned(compute, idx, n)
+        aligned_rows(compute, idx, n)
 
     nights = [_NIGHT_CACHE[key] for key in keys]
     return start, [d for d, _ in nights], [f for _, f in nights]
-
-
-def _aligned(compute, idx, n):
-    """Run ``compute`` for the rows ``idx`` of ``n``; its per-row messages (for those
-    rows) come back aligned with all ``n`` rows."""
-    try:
-        compute()
-    except RowErrors as err:
-        messages = np.ravel(err.messages)
-        if messages.size != idx.size:
-            raise
-        out = np.full(n, None, dtype=object)
-        out[idx] = messages
-        raise RowErrors(out) from None
 
 
 def _longest(stretches):
@@ -244,9 +230,7 @@ class Window:
                                       limit_alt[idx], m)
             for k, result in zip(missing, results):
                 found[keys[k]] = result
-                if len(_WINDOW_CACHE) >= WINDOW_CACHE_SIZE:
-                    del _WINDOW_CACHE[next(iter(_WINDOW_CACHE))]
-                _WINDOW_CACHE[keys[k]] = result
+                keep(_WINDOW_CACHE, keys[k], result, WINDOW_CACHE_SIZE)
         rows = [found.get(key) or _WINDOW_CACHE[key] for key in keys]
         self.stretches = [r[0] for r in rows]
         self.longest = [_longest(r[0]) for r in rows]
