@@ -60,6 +60,12 @@ def _aberrate(u, earth_v, sun_distance):
     return erfa.ab(u, c, sun_distance, bm1)
 
 
+def _same_shape(jd1, jd2):
+    """Two-part dates as float arrays of one shape (broadcast only where they differ)."""
+    jd1, jd2 = np.asarray(jd1, float), np.asarray(jd2, float)
+    return (jd1, jd2) if jd1.shape == jd2.shape else np.broadcast_arrays(jd1, jd2)
+
+
 def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     """The ``Place`` of ``body`` (SUN, MOON or a planet, or an object whose
     ``heliocentric(t1, t2)`` gives (p, v): a two-body orbit) at the source's argument
@@ -70,7 +76,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     observer itself (light time, deflection and aberration all from its state), which
     brings the diurnal parallax and aberration with no first-order formula."""
     src = ephemeris.get(source)
-    tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+    tdb1, tdb2 = _same_shape(tdb1, tdb2)
     if observer is not None:
         shape = np.broadcast_shapes(tdb1.shape, np.shape(observer[0])[:-1])
         tdb1, tdb2 = np.broadcast_to(tdb1, shape), np.broadcast_to(tdb2, shape)
@@ -115,7 +121,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
 
 def place_at_tt(body, tt1, tt2, kind="APPARENT", source=BUILTIN):
     """The ``Place`` of ``body`` at TT instants, on the source's time scale."""
-    tt1, tt2 = np.broadcast_arrays(np.asarray(tt1, float), np.asarray(tt2, float))
+    tt1, tt2 = _same_shape(tt1, tt2)
     return place(body, *ephemeris.times_for(source, tt1, tt2), kind, source)
 
 
@@ -133,7 +139,7 @@ def body_in(body, tt1, tt2, system, kind="APPARENT", source=BUILTIN):
 def heliocentric(body, tdb1, tdb2, source=BUILTIN):
     """Geometric heliocentric position (au, ICRS axes) of a planet at the instants."""
     src = ephemeris.get(source)
-    tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+    tdb1, tdb2 = _same_shape(tdb1, tdb2)
     if body == "EARTH":
         (ep, _), (sp, _) = src.earth_and_sun(tdb1, tdb2)
         return ep - sp

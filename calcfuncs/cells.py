@@ -16,7 +16,7 @@ from . import ephemeris, registry
 from .angles import parse_angle
 from .bounded import NEWEST, keep
 from .errors import PREFIX, RowErrors, SkyError
-from .timeinput import null_date_jd, read_times, to_serial
+from .timeinput import null_date_jd, read_times, read_utc_serial, to_serial
 from .timescales import DUT1_LIMIT, DateTimes, Instants, check_scale
 from .vocabulary import J2000_JD, SCALE_WORDS, SOURCE_WORDS
 
@@ -418,9 +418,13 @@ def _plain_single(fn, rows, options, null_jd):
         value = rows[arg.name]
         if arg.kind == "time":
             scale, dut1 = options.get("scale", "UTC"), options.get("dut1", 0.0)
-            jd1, jd2, messages = read_times(value, scale, null_jd, dut1)
-            if messages[0] is not None:
-                return None
+            found = read_utc_serial(value[0], null_jd) if scale == "UTC" else None
+            if found is None:
+                jd1, jd2, messages = read_times(value, scale, null_jd, dut1)
+                if messages[0] is not None:
+                    return None
+            else:
+                jd1, jd2 = found
             kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
         else:
             number = value.astype(float)

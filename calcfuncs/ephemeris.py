@@ -95,13 +95,15 @@ class Builtin:
     def _by_theory(tdb1, tdb2, with_erfa, long_range):
         """The results (a tuple of arrays, rows first) of ``with_erfa`` for the rows
         inside BUILTIN_YEARS and of ``long_range`` for the others."""
-        check_builtin_years(tdb1, tdb2)
-        tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, float), np.asarray(tdb2, float))
+        tdb1, tdb2 = np.asarray(tdb1, float), np.asarray(tdb2, float)
+        if tdb1.shape != tdb2.shape:
+            tdb1, tdb2 = np.broadcast_arrays(tdb1, tdb2)
         years = julian_year(tdb1, tdb2)
         inside = (years >= BUILTIN_YEARS[0]) & (years <= BUILTIN_YEARS[1])
-        if np.all(inside):
+        if inside.all():
             return with_erfa(tdb1, tdb2)
-        if not np.any(inside):
+        check_builtin_years(tdb1, tdb2)
+        if not inside.any():
             return long_range(tdb1, tdb2)
         parts = [(mask, fn(tdb1[mask], tdb2[mask]))
                  for mask, fn in ((inside, with_erfa), (~inside, long_range))]
@@ -117,6 +119,9 @@ class Builtin:
         def with_erfa(t1, t2):
             # A dense column takes the states interpolated over half-day nodes (nodes.py:
             # within 0.5 m and 3 um/s of the series, which is good to kilometres).
+            if nodes.dense(t1, t2) is None:
+                pvh, pvb, _ = erfa.ufunc.epv00(t1, t2)  # as _earth_and_sun_states
+                return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
             s = nodes.over_nodes(_earth_and_sun_states, t1, t2)
             return s[..., 0:3], s[..., 3:6], s[..., 6:9], s[..., 9:12]
 

@@ -82,7 +82,7 @@ def _fixed(system):
 
 def _nutation(jd1, jd2):
     """IAU 2000A nutation (dpsi, deps, radians) adjusted to IAU 2006: ERFA nut06a."""
-    return erfa.nut06a(jd1, jd2)
+    return erfa.ufunc.nut06a(jd1, jd2)
 
 
 def nutation_over_nodes(jd1, jd2):
@@ -111,8 +111,11 @@ def _dated(system, jd1, jd2, nutation=_nutation):
 @lru_cache(maxsize=2048)
 def _dated_one(system, jd1, jd2):
     # A sheet asks for the same date in several columns and on every recalculation;
-    # the full IAU 2006/2000A matrix costs about 80 us.
-    return _dated(system, jd1, jd2)
+    # the full IAU 2006/2000A matrix costs about 80 us.  Read-only: every caller of
+    # the date shares it.
+    m = np.asarray(_dated(system, jd1, jd2))
+    m.flags.writeable = False
+    return m
 
 
 def _long_term(system, jd1, jd2):
@@ -174,16 +177,21 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
     jd2 = np.asarray(jd2, dtype=float)
     if given is not None and not np.all(given):
         raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
-    if long_term:
+    if jd1.shape != jd2.shape:
         jd1, jd2 = np.broadcast_arrays(jd1, jd2)
-        years = julian_year(jd1, jd2)
-        if not np.all((years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])):
+    years = julian_year(jd1, jd2)
+    if not ((years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])).all():
+        if long_term:
             return _dated_any_year(system, jd1, jd2)
-    check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
-                "for other dates precess with SKY.PRECESS.RA/DEC and model VONDRAK2011")
-    if jd1.size == 1 or (np.all(jd1 == jd1.flat[0]) and np.all(jd2 == jd2.flat[0])):
+        check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
+                    "for other dates precess with SKY.PRECESS.RA/DEC and model VONDRAK2011")
+    if jd1.size == 1:
+        # A single cell: its matrix (kept, and so read-only) shaped as the row.
+        return _dated_one(system, float(jd1.flat[0]), float(jd2.flat[0])).reshape(
+            jd1.shape + (3, 3))
+    if (jd1 == jd1.flat[0]).all() and (jd2 == jd2.flat[0]).all():
         # One date for every row (a single cell against a column): one matrix.
-        m = _dated_one(system, float(jd1.ravel()[0]), float(jd2.ravel()[0]))
+        m = _dated_one(system, float(jd1.flat[0]), float(jd2.flat[0]))
         return np.broadcast_to(m, jd1.shape + (3, 3))
     return _dated(system, jd1, jd2, nutation_over_nodes if smooth else _nutation)
 

@@ -22,7 +22,9 @@ def compose(m_to, m_from):
 
 
 def norm(vectors):
-    return np.linalg.norm(vectors, axis=-1)
+    # numpy.linalg.norm's own sum for an axis, without its checks (a third of its cost
+    # on the one row of a cell).
+    return np.sqrt(np.add.reduce(vectors * vectors, axis=-1))
 
 
 def unit(vectors):
