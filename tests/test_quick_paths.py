@@ -1,0 +1,120 @@
+"""The quick paths of a single cell give what the general paths give, to the bit.
+
+A cell alone skips the general path's bookkeeping (calcfuncs.timeinput.read_utc_serial,
+the ERFA ufuncs read for their status in timescales.erfa_quietly, the one-row matrix of
+frames.system_matrix, vectors.norm without numpy.linalg's checks).  Each is checked here
+against the path it stands in for, over dense random instants and the edge cases
+(UTC step days, 1960, the last date-time value), and the cell results against ERFA
+called directly (the IAU SOFA/ERFA routines are the reference of these models).
+"""
+
+import warnings
+
+import erfa
+import numpy as np
+import pytest
+
+from calcfuncs import cells, frames, timeinput, timescales, vectors
+
+NULL_JD = 2415018.5  # Calc's default null date 1899-12-30 (PLATFORM-NOTES.md)
+
+
+def _general(v, null_jd=NULL_JD):
+    column = np.empty(1, dtype=object)
+    column[0] = v
+    jd1, jd2, messages = timeinput.read_times(column, "UTC", null_jd)
+    return jd1, jd2, messages[0]
+
+
+def _step_day_values():
+    # Calc date-time values on the UTC days that end in a step of TAI - UTC (ERFA's
+    # leap-second table): 1961-1972 fractional steps and every leap second since.
+    return [float(d - NULL_JD) + f for d in timeinput._utc_step_days()
+            for f in (0.0, 0.5, 0.999999)]
+
+
+def test_quick_utc_reading_equals_the_general_one():
+    rng = np.random.default_rng(11)
+    values = list(21916.0 + rng.random(20_000) * 70_000)  # 1960-2151, dense and random
+    values += _step_day_values()
+    values += [21915.0, 21915.999, 21916.0, 0.0, -1.0, 45000.0, 1e7, -1e7, 1.1e7,
+               float("nan"), float("inf"), 3547272.5 - NULL_JD, 3547272.5 - NULL_JD - 1e-6]
+    quick_rows = 0
+    for v in values:
+        found = timeinput.read_utc_serial(v, NULL_JD)
+        jd1, jd2, message = _general(v)
+        if found is None:
+            continue
+        quick_rows += 1
+        assert message is None, v
+        assert found[0].tobytes() == jd1.tobytes() and found[1].tobytes() == jd2.tobytes(), v
+    assert quick_rows >= 19_900  # a random value now and then falls on a step day
+    # The step days always go the general way (their day is stretched by ERFA dtf2d).
+    assert all(timeinput.read_utc_serial(v, NULL_JD) is None for v in _step_day_values())
+
+
+def test_quick_utc_reading_with_another_null_date():
+    # 1904-01-01, the other null date Calc documents may carry (PLATFORM-NOTES.md).
+    null_jd = 2416480.5
+    for v in 21000.0 + np.random.default_rng(3).random(2000) * 30000:  # 1961-2044
+        found = timeinput.read_utc_serial(float(v), null_jd)
+        jd1, jd2, message = _general(float(v), null_jd)
+        assert message is None
+        if null_jd + np.floor(v) in timeinput._utc_step_days():
+            assert found is None  # a step day: the general way
+            continue
+        assert (found[0][0], found[1][0]) == (jd1[0], jd2[0])
+
+
+@pytest.mark.parametrize("func, extra", [(erfa.utctai, ()), (erfa.taiutc, ()),
+                                         (erfa.utcut1, (0.3,)), (erfa.ut1utc, (-0.2,))])
+def test_erfa_status_read_in_place_of_warnings(func, extra):
+    rng = np.random.default_rng(5)
+    # 1960-2200: past ERFA's leap-second table its status is "dubious year" (a warning).
+    jd = 2436934.5 + rng.random(5000) * 88_000
+    got = timescales.erfa_quietly(func, np.floor(jd), jd - np.floor(jd), *extra)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", erfa.ErfaWarning)
+        want = func(np.floor(jd), jd - np.floor(jd), *extra)
+    for a, b in zip(got, want):
+        assert np.array_equal(a, b)
+
+
+def test_erfa_error_status_still_raises():
+    # A date before ERFA's calendar (JD -1e8, before -4799) is its "unacceptable date": the
+    # wrapper's exception, as before the quick path.
+    with pytest.raises(erfa.ErfaError):
+        timescales.erfa_quietly(erfa.utctai, np.array([-1e8]), np.array([0.0]))
+
+
+@pytest.mark.parametrize("system", ["EQUATORIAL TRUE", "ECLIPTIC TRUE", "EQUATORIAL DATE",
+                                    "ECLIPTIC DATE"])
+def test_a_single_row_matrix_equals_its_row_of_a_column(system):
+    rng = np.random.default_rng(21)
+    tt1 = np.full(40, 2451545.0)
+    tt2 = rng.uniform(-30000.0, 30000.0, 40)
+    column = frames.system_matrix(system, tt1, tt2)
+    for k in range(tt1.size):
+        one = frames.system_matrix(system, tt1[k:k + 1], tt2[k:k + 1])
+        assert one.shape == (1, 3, 3)
+        assert np.array_equal(one[0], column[k])
+        assert not one.flags.writeable  # shared with every later cell of that date
+    # EQUATORIAL TRUE is ERFA pnm06a itself (IAU 2006/2000A), to the bit.
+    if system == "EQUATORIAL TRUE":
+        assert np.array_equal(column, erfa.pnm06a(tt1, tt2))
+
+
+def test_norm_is_numpys_own():
+    v = np.random.default_rng(2).normal(size=(10_000, 3)) * 10.0 ** np.arange(-5, 5).repeat(1000)[:, None]
+    assert np.array_equal(vectors.norm(v), np.linalg.norm(v, axis=-1))
+
+
+def test_a_cell_on_the_quick_path_equals_the_same_row_of_a_column():
+    # 30 log instants (under the interpolated columns' density): the column is computed
+    # directly, as each cell alone is.
+    rng = np.random.default_rng(8)
+    serials = list(45292.0 + rng.random(30) * 1000.0)
+    for name in ("SKY.JD", "SKY.SUN.LON", "SKY.MOON.RA", "SKY.OBLIQUITY.TRUE"):
+        column = cells.evaluate(name, [tuple((s,) for s in serials)])
+        for s, (want,) in zip(serials, column):
+            assert cells.evaluate(name, [s]) == want, (name, s)
