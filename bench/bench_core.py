@@ -6,6 +6,8 @@ compare): every case goes through ``calcfuncs.cells.evaluate`` as the office wou
 
   column   one call with a whole column of distinct rows (a whole-column formula)
   cell     one call per row (a formula filled down), the answer cache emptied first
+  log      places filled down a log of nine instants a day, one call per cell, with and
+           without the single-cell nodes (calcfuncs/nodes.py), and a sparse log
 
     .venv/bin/python bench/bench_core.py [--rows 10000] [--event-rows 40] [--json out.json]
 
@@ -105,13 +107,63 @@ def run(rows, event_rows):
     return out
 
 
+def _fresh_single_cell_state():
+    from calcfuncs import nodes
+
+    cells._SINGLE_CELL_CACHE.clear()
+    nodes._AT_NODE.clear()
+    nodes._STACKS.clear()
+    nodes._ASKED.clear()
+    nodes._LAST_ONE[0] = (None, None, None, False)
+
+
+def log_cells(rows, per_day=9.0, seed=11):
+    """Places filled down an observing log (``per_day`` instants a day, in time order),
+    one call per cell, cold: with the single-cell nodes (calcfuncs/nodes.py, for_one)
+    and with every cell computed directly; and a sparse log (one instant in two days)."""
+    from calcfuncs import nodes
+
+    rng = np.random.default_rng(seed)
+    dense = [float(x) for x in 45292.0 + np.sort(rng.uniform(0.0, rows / per_day, rows))]
+    sparse = [float(x) for x in 45292.0 + np.sort(rng.uniform(0.0, 2.0 * rows, rows))]
+    out = []
+    for label, name, lead in (("SUN.LON", "SKY.SUN.LON", []), ("MOON.LON", "SKY.MOON.LON", []),
+                              ("PLANET.RA MARS", "SKY.PLANET.RA", ["MARS"])):
+        cells.evaluate(name, [*lead, 45000.0])  # imports and first-use caches
+        row = {"case": label, "rows": rows}
+        for key, times, dense_cells in (("dense_nodes", dense, nodes.DENSE_CELLS),
+                                        ("dense_direct", dense, 10**9),
+                                        ("sparse", sparse, nodes.DENSE_CELLS)):
+            saved = nodes.DENSE_CELLS
+            nodes.DENSE_CELLS = dense_cells
+            try:
+                _fresh_single_cell_state()
+                t0 = time.perf_counter()
+                for t in times:
+                    cells.evaluate(name, [*lead, t])
+                row[key + "_us_per_cell"] = 1e6 * (time.perf_counter() - t0) / rows
+            finally:
+                nodes.DENSE_CELLS = saved
+        out.append(row)
+        print(f"{label:28s} a log filled down, {rows} cells, {per_day:g} a day: "
+              f"{row['dense_nodes_us_per_cell']:6.1f} us a cell with the nodes, "
+              f"{row['dense_direct_us_per_cell']:6.1f} without (x"
+              f"{row['dense_direct_us_per_cell'] / row['dense_nodes_us_per_cell']:.2f}); "
+              f"sparse {row['sparse_us_per_cell']:6.1f} us", flush=True)
+    _fresh_single_cell_state()
+    return out
+
+
 def main(argv=None):
     parser = argparse.ArgumentParser(description=__doc__.split("\n")[0])
     parser.add_argument("--rows", type=int, default=10_000)
     parser.add_argument("--event-rows", type=int, default=40)
+    parser.add_argument("--log-rows", type=int, default=2000,
+                        help="cells of the filled-down log cases (default 2000)")
     parser.add_argument("--json", metavar="FILE")
     opts = parser.parse_args(argv)
     result = run(opts.rows, opts.event_rows)
+    result.extend(log_cells(opts.log_rows))
     if opts.json:
         with open(opts.json, "w") as f:
             json.dump(result, f, indent=1)

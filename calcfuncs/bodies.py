@@ -15,7 +15,7 @@ applied.  Times are TDB; the built-in theories take TT for TDB (under 2 ms apart
 import erfa
 import numpy as np
 
-from . import ephemeris, frames, vectors
+from . import ephemeris, frames, nodes, vectors
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 
@@ -180,7 +180,8 @@ def place_cells(place_in):
     TRUE, equatorial the same or ICRS."""
     def component(systems, index):
         def cells(time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-            return frames.spherical(place_in(*time.tt(), systems[frame], kind, source))[index]
+            with nodes.single_cells():  # a log filled down: nodes.for_one
+                return frames.spherical(place_in(*time.tt(), systems[frame], kind, source))[index]
         return cells
 
     return (component(ECLIPTIC_OF_FRAME, 0), component(ECLIPTIC_OF_FRAME, 1),

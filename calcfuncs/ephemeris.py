@@ -119,6 +119,9 @@ class Builtin:
         def with_erfa(t1, t2):
             # A dense column takes the states interpolated over half-day nodes (nodes.py:
             # within 0.5 m and 3 um/s of the series, which is good to kilometres).
+            one = nodes.for_one("epv00", _earth_and_sun_states, t1, t2)  # a cell of a log
+            if one is not None:
+                return one[..., 0:3], one[..., 3:6], one[..., 6:9], one[..., 9:12]
             if nodes.dense(t1, t2) is None:
                 pvh, pvb, _ = erfa.ufunc.epv00(t1, t2)  # as _earth_and_sun_states
                 return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]

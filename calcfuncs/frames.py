@@ -85,6 +85,10 @@ def _nutation(jd1, jd2):
     return erfa.ufunc.nut06a(jd1, jd2)
 
 
+def _nutation_rows(jd1, jd2):
+    return np.stack(_nutation(jd1, jd2), axis=-1)
+
+
 def nutation_over_nodes(jd1, jd2):
     """The same, interpolated over half-day nodes for a dense column (nodes.py: within
     1.5 uas of the series), computed directly otherwise."""
@@ -185,6 +189,12 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
             return _dated_any_year(system, jd1, jd2)
         check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
                     "for other dates precess with SKY.PRECESS.RA/DEC and model VONDRAK2011")
+    if jd1.size == 1 and smooth:
+        # A cell of a dense log of places (nodes.single_cells): the nutation from kept
+        # nodes.
+        both = nodes.for_one("nut06a", _nutation_rows, jd1, jd2)
+        if both is not None:
+            return _dated(system, jd1, jd2, lambda a, b: (both[..., 0], both[..., 1]))
     if jd1.size == 1:
         # A single cell: its matrix (kept, and so read-only) shaped as the row.
         return _dated_one(system, float(jd1.flat[0]), float(jd2.flat[0])).reshape(

@@ -12,14 +12,20 @@ measured), the Earth's position within 0.5 m (0.41) and its velocity within 3 um
 (2.1).
 
 A column is interpolated only when it is dense: fewer distinct nodes than a quarter of
-its rows.  One instant, a short column, or instants spread over the centuries are
-computed directly, so a cell alone gives ERFA's own value; a dense column differs from
-it by the bounds above, far below the stated accuracy of every model involved (the
-built-in theories are good to tens of milliarcseconds, the nutation model to a fraction
-of a milliarcsecond).
+its rows.  A short column, or instants spread over the centuries, are computed
+directly.  A cell alone is computed directly too, unless it is one of a dense run of
+cells of places (``for_one`` below: a log filled down, computed one cell at a time).
+An interpolated value differs from ERFA's own by the bounds above, far below the stated
+accuracy of every model involved (the built-in theories are good to tens of
+milliarcseconds, the nutation model to a fraction of a milliarcsecond).
 """
 
+import math
+from contextlib import contextmanager
+
 import numpy as np
+
+from .bounded import keep
 
 SPACING = 0.5   # days between nodes
 NODES = 6       # nodes around each instant
@@ -29,6 +35,9 @@ DENSE_RATIO = 4  # rows per distinct node, at least, before a column is interpol
 # Each node's Lagrange denominator: the product of its distances to the others.
 _DENOMINATORS = np.array([np.prod([k - j for j in range(NODES) if j != k])
                           for k in range(NODES)], dtype=float)
+
+
+_DENOMINATORS_LIST = _DENOMINATORS.tolist()
 
 
 def weights(x):
@@ -112,3 +121,115 @@ def over_nodes(compute, jd1, jd2):
         return compute(jd1, jd2)
     at_nodes = compute(nodes.unique, np.zeros(nodes.unique.shape))
     return nodes.interpolate(at_nodes)
+
+
+# ---- single cells of a log ------------------------------------------------------------
+#
+# A log's column of places filled down is computed one cell at a time, each with its own
+# call of the nutation series and epv00 (about 45 and 35 us for a new instant, half of
+# a place cell).  Inside ``single_cells()`` (the cell functions of places), a one-instant
+# call notes its instant; once cells have asked for DENSE_CELLS distinct instants within
+# the five half days around one, it is interpolated from its six nodes (those not yet
+# kept computed, in one call, and kept), as a dense column is.  A log of nine instants
+# a day: SKY.SUN.LON 183 -> 154 us a cell (bench/bench_core.py's single-cell rows);
+# a sparse sheet never reaches the count, is computed directly and pays about 5 us a
+# cell for the noting.
+# A cell can therefore give either ERFA's own value or the interpolated one, which
+# differ by the bounds above (1.5 uas, 0.5 m): each is a function of the instant alone,
+# and which one a cell shows depends on the cells computed before it, twelve digits down.
+
+DENSE_CELLS = 8        # distinct instants asked for near a half day before its nodes are made
+# Bounded: at most NODES_KEPT node values (each at most 12 floats), NODES_KEPT / 6 stacks
+# of six and HALF_DAYS_KEPT half days of asked instants (at most DENSE_CELLS each): 15 MB
+# when every one is full (measured with tracemalloc over 200,000 instants).
+NODES_KEPT = 20_000
+HALF_DAYS_KEPT = 2_000
+
+_AT_NODE = {}   # (quantity, node instant) -> values at the node
+_STACKS = {}    # (quantity, half day) -> its six nodes' values, stacked
+_ASKED = {}     # half day -> distinct instants asked for in it
+_IN_CELLS = [0]
+_LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, half day, dense)
+
+
+@contextmanager
+def single_cells():
+    """Within: one-instant calls may be interpolated (``for_one``)."""
+    _IN_CELLS[0] += 1
+    try:
+        yield
+    finally:
+        _IN_CELLS[0] -= 1
+
+
+def for_one(quantity, compute, jd1, jd2):
+    """``compute(jd1, jd2)`` -> (1, k) interpolated over kept nodes, for a one-row instant
+    inside ``single_cells()`` where the cells are dense around it; None otherwise (the
+    caller computes directly).  ``quantity`` names what ``compute`` gives (its kept
+    nodes are keyed by it)."""
+    if not _IN_CELLS[0] or np.size(jd1) != 1:
+        return None
+    t1, t2 = np.asarray(jd1).item(), np.asarray(jd2).item()
+    last = _LAST_ONE[0]
+    if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
+        cell, dense = last[2], last[3]
+    else:
+        if not math.isfinite(t1 + t2):
+            return None
+        cell = math.floor((t1 + t2) / SPACING)
+        dense = _note(cell, t1, t2)
+        _LAST_ONE[0] = (t1, t2, cell, dense)
+    if not dense:
+        return None
+    stack = _STACKS.get((quantity, cell))
+    if stack is None:
+        stack = _stack(quantity, compute, cell)
+    first = (cell - BEFORE) * SPACING
+    return np.dot(_weights_at(((t1 - first) + t2) / SPACING), stack).reshape(
+        np.shape(jd1) + (-1,))
+
+
+def _note(cell, t1, t2):
+    """Note an instant asked for in the half day ``cell``; whether the cells are dense
+    around it (DENSE_CELLS distinct instants asked for in the five half days)."""
+    asked = _ASKED.get(cell)
+    if asked is None:
+        asked = set()
+        keep(_ASKED, cell, asked, HALF_DAYS_KEPT)
+    if len(asked) >= DENSE_CELLS:  # (no more kept: the count is all that is asked of it)
+        return True
+    asked.add((t1, t2))
+    if len(asked) >= DENSE_CELLS:
+        return True
+    get = _ASKED.get
+    return (len(asked) + len(get(cell - 2, ())) + len(get(cell - 1, ())) + len(get(cell + 1, ()))
+            + len(get(cell + 2, ()))) >= DENSE_CELLS
+
+
+def _stack(quantity, compute, cell):
+    """The six nodes' values (6, k) around the half day ``cell``, kept."""
+    at = [(cell + k) * SPACING for k in range(-BEFORE, NODES - BEFORE)]
+    values = [_AT_NODE.get((quantity, t)) for t in at]
+    todo = [t for t, v in zip(at, values) if v is None]
+    if todo:
+        fresh = compute(np.array(todo), np.zeros(len(todo)))
+        for t, v in zip(todo, fresh):
+            keep(_AT_NODE, (quantity, t), v, NODES_KEPT)
+        found = dict(zip(todo, fresh))
+        values = [found[t] if v is None else v for t, v in zip(at, values)]
+    stack = np.array(values)
+    keep(_STACKS, (quantity, cell), stack, NODES_KEPT // NODES)
+    return stack
+
+
+def _weights_at(x):
+    """``weights`` at one point, in plain floats (a tenth of the array version's cost)."""
+    gaps = [x - j for j in range(NODES)]
+    out = []
+    for k in range(NODES):
+        p = 1.0
+        for j in range(NODES):
+            if j != k:
+                p *= gaps[j]
+        out.append(p / _DENOMINATORS_LIST[k])
+    return np.array(out)

@@ -13,7 +13,7 @@ Greatest elongations (Mercury, Venus) are the maxima of the apparent elongation,
 import erfa
 import numpy as np
 
-from . import bodies, ephemeris, frames, vectors
+from . import bodies, ephemeris, frames, nodes, vectors
 from .errors import SkyError, rows_failing
 from .events import crossings, first_after, wrap180
 from .timescales import DateTimes
@@ -76,8 +76,9 @@ def _place(body, time, kind, source):
 
 
 def _spherical_in(body, time, system, kind, source):
-    p, tt1, tt2 = _place(body, time, kind, source)
-    return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
+    with nodes.single_cells():  # a log filled down: nodes.for_one
+        p, tt1, tt2 = _place(body, time, kind, source)
+        return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
 
 
 def lon_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):

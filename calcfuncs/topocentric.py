@@ -20,7 +20,7 @@ import erfa
 import numpy as np
 
 from . import bodies, ephemeris, frames, horizon, vectors
-from .errors import SkyError, rows_failing
+from .errors import SkyError, aligned_rows, rows_failing
 from .timescales import Instants
 from .vocabulary import AU_KM, AU_M, BUILTIN, DAY_SECONDS, EARTH_RADIUS_KM, EQUATORIAL_OF_FRAME
 
@@ -162,8 +162,10 @@ def moon_semidiameter_cells(time, latitude=None, longitude=None, height=0.0, sou
         rows = np.flatnonzero(at_site)
         sub = Instants(np.ravel(tt1)[rows], np.ravel(tt2)[rows], "TT", time.dut1)
         pick = lambda v: np.broadcast_to(np.ravel(v), at_site.shape)[rows]  # noqa: E731
-        d[rows] = place("MOON", sub, pick(latitude), pick(longitude), pick(height),
-                        "GEOMETRIC", source).distance
+        # A bad site in one row is that row's message, aligned with every row.
+        d[rows] = aligned_rows(lambda: place("MOON", sub, pick(latitude), pick(longitude),
+                                             pick(height), "GEOMETRIC", source).distance,
+                               rows, at_site.size)
     return semidiameter_degrees("MOON", d) * 60.0
 
 

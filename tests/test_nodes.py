@@ -5,6 +5,8 @@ VSOP2000-based Earth of the SOFA/ERFA standard) evaluated at every instant; the
 interpolated column must stay within the bounds stated in nodes.py.
 """
 
+import warnings
+
 import erfa
 import numpy as np
 import pytest
@@ -78,7 +80,8 @@ def column(values):
     ("SKY.PLANET.RA", ["UTC", "TRUE", "APPARENT"]),
 ])
 def test_a_dense_column_agrees_with_each_cell_alone(name, extra):
-    # A dense column is interpolated, a cell alone is not: they differ by the bounds
+    # A dense column is interpolated; a cell alone is computed directly or, one of a
+    # dense run of cells, interpolated too (nodes.for_one): they differ by the bounds
     # above, under 2 uas in a place (a column of 2,000 instants over ten days).
     rng = np.random.default_rng(6)
     serials = 46000.0 + rng.uniform(0.0, 10.0, 2000)
@@ -89,3 +92,89 @@ def test_a_dense_column_agrees_with_each_cell_alone(name, extra):
                      dtype=float)
     difference = np.abs((whole[::50] - alone + 180.0) % 360.0 - 180.0) * 3.6e9
     assert np.max(difference) < 2.0
+
+
+# ---- single cells of a dense log (nodes.for_one) -----------------------------------------
+
+
+def log_instants(seed, n=3000, per_day=9.0, start=2451545.0):
+    """A log's instants, about ``per_day`` a day, as one-row two-part TT JDs in the
+    order a sheet computes them (row by row; the log itself in time order)."""
+    rng = np.random.default_rng(seed)
+    t = start + np.sort(rng.uniform(0.0, n / per_day, n))
+    return [(np.array([np.floor(v)]), np.array([v - np.floor(v)])) for v in t]
+
+
+def test_dense_single_cells_interpolate_within_the_bounds():
+    # The same bounds as a dense column (1.5 uas, 0.5 m, 3 um/s), over logs at the
+    # start of the IAU models' range, near J2000 and near their end.
+    interpolated = 0
+    with nodes.single_cells():
+        for seed, start in ((1, 2086500.5), (2, 2451545.0), (3, 2816500.5)):
+            for j1, j2 in log_instants(seed, n=1500, start=start):
+                got = nodes.for_one("nut06a", frames._nutation_rows, j1, j2)
+                earth = nodes.for_one("epv00", ephemeris._earth_and_sun_states, j1, j2)
+                if got is None:
+                    assert earth is None  # one decision per instant
+                    continue
+                interpolated += 1
+                dpsi, deps = erfa.nut06a(j1, j2)
+                assert abs(got[0, 0] - dpsi[0]) * UAS_PER_RAD < 1.5
+                assert abs(got[0, 1] - deps[0]) * UAS_PER_RAD < 1.5
+                with np.errstate(all="ignore"), warnings.catch_warnings():
+                    warnings.simplefilter("ignore", erfa.ErfaWarning)
+                    pvh, pvb = erfa.epv00(j1, j2)
+                assert np.max(np.abs(earth[0, 0:3] - pvb["p"][0])) * AU_M < 0.5
+                assert np.max(np.abs(earth[0, 3:6] - pvb["v"][0])) * AU_M / erfa.DAYSEC < 3e-6
+                sun = earth[0, 6:9] - (pvb["p"][0] - pvh["p"][0])
+                assert np.max(np.abs(sun)) * AU_M < 0.5
+    # Nine a day is dense: most cells take the nodes (91 % measured; the first cells of a
+    # half day that follows a thinner stretch of the log are computed directly).
+    assert interpolated > 0.85 * 4500
+
+
+def test_sparse_single_cells_and_calls_outside_cells_are_computed_directly():
+    with nodes.single_cells():
+        for j1, j2 in log_instants(4, n=400, per_day=1.0):  # one a day: sparse
+            assert nodes.for_one("nut06a", frames._nutation_rows, j1, j2) is None
+    for j1, j2 in log_instants(5, n=200):  # dense, but not inside single_cells()
+        assert nodes.for_one("nut06a", frames._nutation_rows, j1, j2) is None
+    assert nodes._STACKS == {}
+
+
+@pytest.mark.parametrize("name, body", [("SKY.SUN.LON", []), ("SKY.SUN.DEC", []),
+                                        ("SKY.MOON.RA", []), ("SKY.MOON.LAT", []),
+                                        ("SKY.PLANET.RA", ["JUPITER"]),
+                                        ("SKY.PLANET.LON", ["MERCURY"])])
+def test_a_dense_log_of_cells_agrees_with_each_cell_computed_directly(name, body, monkeypatch):
+    # The places of a log of 600 instants, nine a day, filled down one cell at a time:
+    # within 2 uas of the same cells computed directly (DENSE_CELLS out of reach), and
+    # most of them interpolated.
+    rng = np.random.default_rng(9)
+    serials = 45300.0 + np.sort(rng.uniform(0.0, 600 / 9.0, 600))
+    got = np.array([cells.evaluate(name, [*body, float(s)]) for s in serials])
+    assert len(nodes._STACKS) > 100
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    direct = np.array([cells.evaluate(name, [*body, float(s)]) for s in serials])
+    difference = np.abs((got - direct + 180.0) % 360.0 - 180.0) * 3.6e9
+    assert np.max(difference) < 2.0
+    assert np.count_nonzero(difference) > 300  # the interpolated ones differ, slightly
+
+
+def test_single_cell_nodes_stay_within_their_bounds(monkeypatch):
+    # The kept nodes, stacks and asked half days never outgrow their sizes (shrunk here
+    # so that a few thousand cells fill them many times over), and the answers stay
+    # within the bounds while entries are dropped.
+    monkeypatch.setattr(nodes, "NODES_KEPT", 60)
+    monkeypatch.setattr(nodes, "HALF_DAYS_KEPT", 40)
+    rng = np.random.default_rng(12)
+    serials = 45300.0 + np.sort(rng.uniform(0.0, 400.0, 4000))
+    for s in serials:
+        lon = cells.evaluate("SKY.SUN.LON", [float(s)])
+        assert len(nodes._AT_NODE) <= 60
+        assert len(nodes._STACKS) <= 60 // nodes.NODES
+        assert len(nodes._ASKED) <= 40
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    direct = cells.evaluate("SKY.SUN.LON", [(float(serials[-1]),)])[0][0]
+    assert abs(lon - direct) * 3.6e9 < 2.0
