@@ -51,7 +51,6 @@ import json
 import os
 import platform
 import pstats
-import statistics
 import sys
 import time
 import warnings
@@ -65,7 +64,8 @@ sys.path.insert(0, BENCH)
 import bench_recalc  # noqa: E402
 import erfa  # noqa: E402
 import numpy as np  # noqa: E402
-from bench_recalc import _best, _check_cells, _office_version, _us, log_times  # noqa: E402
+from bench_recalc import _office_version, _us, log_times  # noqa: E402
+from timing import best  # noqa: E402
 
 from calcfuncs import frames, horizon  # noqa: E402
 from calcfuncs.cells import evaluate  # noqa: E402
@@ -255,9 +255,9 @@ def _lon_wrap_diff(a, b):
 def core_part(core_rows, repeats, profile, report):
     out = {"rows": core_rows, "cases": {}}
     for label, (name, args, raw, core_fn) in core_cases(core_rows).items():
-        ours_s, ours = _best(lambda: evaluate(name, args), repeats)
-        raw_s, ref = _best(raw, repeats)
-        fn_s, _ = _best(core_fn, repeats)
+        ours_s, ours = best(lambda: evaluate(name, args), repeats)
+        raw_s, ref = best(raw, repeats)
+        fn_s, _ = best(core_fn, repeats)
         values = np.array([row[0] for row in ours], dtype=object)
         numeric = np.array([type(v) is float for v in values])
         got = values[numeric].astype(float)
@@ -420,54 +420,9 @@ def _first_call(office, probe_time):
 
 def run_office_case(office, inputs, per_row, array_formulas, warm_repeats, text_prefix=None):
     """Seconds to set, recalculate cold and warm (best of ``warm_repeats``) one case in
-    a fresh document; the cells it computed."""
-    from com.sun.star.sheet.FillDirection import TO_BOTTOM as FILL_TO_BOTTOM
-    from officekit import null_date
-
-    times, ra, dec = inputs
-    n = len(times)
-    doc = office.new_sheet()
-    try:
-        nd = null_date(doc)
-        null_jd = float(sum(erfa.cal2jd(*nd)))
-        sheet = doc.Sheets.getByIndex(0)
-        doc.enableAutomaticCalculation(False)
-        sheet.getCellRangeByName(f"A2:C{n + 1}").setDataArray(
-            tuple((float(t), float(x), float(y)) for t, x, y in zip(times, ra, dec))
-        )
-        target = sheet.getCellRangeByName(f"D2:G{n + 1}")
-        t0 = time.perf_counter()
-        if array_formulas is None:
-            # Row 2 filled down, as bench_recalc does: one formula text per cell through
-            # setFormulaArray costs more to compile than the recalculation measured.
-            sheet.getCellRangeByName("D2:G2").setFormulaArray((per_row(2, null_jd),))
-            target.fillAuto(FILL_TO_BOTTOM, 1)
-        else:
-            for k, formula in enumerate(array_formulas):
-                sheet.getCellRangeByPosition(3 + k, 1, 3 + k, n).setArrayFormula(formula)
-        set_s = time.perf_counter() - t0
-
-        t0 = time.perf_counter()
-        doc.calculateAll()
-        cold = time.perf_counter() - t0
-        warm = []
-        for _ in range(warm_repeats):
-            t0 = time.perf_counter()
-            doc.calculateAll()
-            warm.append(time.perf_counter() - t0)
-        data = target.getDataArray()
-        bad, example = _check_cells(data, text_prefix)
-        return {
-            "cells": 4 * n, "set_s": set_s, "cold_s": cold,
-            "warm_s": min(warm) if warm else None,
-            "warm_median_s": statistics.median(warm) if warm else None,
-            "warm_all_s": warm, "unexpected_cells": bad, "unexpected_example": example,
-            "null_date": list(nd),
-        }, data
-    finally:
-        doc.close(True)
-
-
+    a fresh document (time, RA and Dec in columns A to C); the cells it computed."""
+    return bench_recalc.office_case(office, list(inputs), per_row, array_formulas,
+                                    warm_repeats, text_prefix)
 def _diff_arcsec(a, b, k, how=np.max):
     """``how`` (max, median) of |a - b| over the rows where both are numbers, in arcsec
     (None if none).  Longitudes near a pole of their system differ much more than the

@@ -163,30 +163,38 @@ def _first_call(office, probe_time):
 def run_office_case(office, times, per_row, array_formulas, warm_repeats, text_prefix=None):
     """Seconds to set, first recalculate (cold) and recalculate again (warm, best of
     ``warm_repeats``) one case in a fresh document, and the cells it computed."""
+    return office_case(office, [times], per_row, array_formulas, warm_repeats, text_prefix)
+
+
+def office_case(office, columns, per_row, array_formulas, warm_repeats, text_prefix=None):
+    """``run_office_case`` for input columns from A on (numbers, one list a column) and
+    four formula columns right of them: row 2's formulas ``per_row(2, null_jd)`` filled
+    down, or ``array_formulas`` one per formula column."""
     from com.sun.star.sheet.FillDirection import TO_BOTTOM as FILL_TO_BOTTOM
     from officekit import null_date
 
-    n = len(times)
+    n = len(columns[0])
+    first = len(columns)  # the first formula column (0-based)
     doc = office.new_sheet()
     try:
         nd = null_date(doc)
         null_jd = float(sum(erfa.cal2jd(*nd)))
         sheet = doc.Sheets.getByIndex(0)
         doc.enableAutomaticCalculation(False)
-        sheet.getCellRangeByName(f"A2:A{n + 1}").setDataArray(
-            tuple((float(v),) for v in times)
-        )
-        target = sheet.getCellRangeByName(f"B2:E{n + 1}")
+        sheet.getCellRangeByPosition(0, 1, first - 1, n).setDataArray(
+            tuple(tuple(float(v) for v in row) for row in zip(*columns)))
+        target = sheet.getCellRangeByPosition(first, 1, first + 3, n)
         t0 = time.perf_counter()
         if array_formulas is None:
             # Row 2 filled down, as a user would: setFormulaArray with one formula text
             # per cell costs Calc about 0.25 ms a formula to compile, far more than the
             # recalculation being measured, and gives the same formulas.
-            sheet.getCellRangeByName("B2:E2").setFormulaArray((per_row(2, null_jd),))
+            sheet.getCellRangeByPosition(first, 1, first + 3, 1).setFormulaArray(
+                (per_row(2, null_jd),))
             target.fillAuto(FILL_TO_BOTTOM, 1)
         else:
             for k, formula in enumerate(array_formulas):
-                sheet.getCellRangeByPosition(1 + k, 1, 1 + k, n).setArrayFormula(formula)
+                sheet.getCellRangeByPosition(first + k, 1, first + k, n).setArrayFormula(formula)
         set_s = time.perf_counter() - t0
 
         t0 = time.perf_counter()
