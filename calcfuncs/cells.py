@@ -141,18 +141,18 @@ def _read_option(arg, value):
 # ---- row-wise values ----------------------------------------------------------------
 
 
-def _all_floats(values):
+def _all_floats(values, kinds=None):
     """The values as a float array when every one is a Python float (the usual column
-    of numbers from Calc), else None."""
-    if values.size > 1 and set(map(type, values)) == {float}:  # the type walk in C
+    of numbers from Calc), else None.  ``kinds``: the values' types, when known."""
+    if values.size > 1 and (kinds or set(map(type, values))) == {float}:  # walk in C
         return values.astype(float)
     return None
 
 
-def _read_floats(values, what, finite_words, parse_text):
+def _read_floats(values, what, finite_words, parse_text, kinds=None):
     """Numbers of a column: floats as they are, texts through ``parse_text`` (which
     raises a ``SkyError`` worded for the cell), each bad row with its own message."""
-    fast = _all_floats(values)
+    fast = _all_floats(values, kinds)
     if fast is not None:
         bad = ~np.isfinite(fast)
         if not bad.any():  # the usual column: no message, and no array of Nones made
@@ -181,12 +181,13 @@ def _refuse_text(value, what):
     raise SkyError(f'{what} must be a number, not "{value}"')
 
 
-def _read_numbers(values, what):
-    return _read_floats(values, what, "number", _refuse_text)
+def _read_numbers(values, what, kinds=None):
+    return _read_floats(values, what, "number", _refuse_text, kinds)
 
 
-def _read_angles(values, what):
-    return _read_floats(values, what, "number of degrees", lambda v, _what: parse_angle(v))
+def _read_angles(values, what, kinds=None):
+    return _read_floats(values, what, "number of degrees", lambda v, _what: parse_angle(v),
+                        kinds)
 
 
 def _read_texts(values, what):
@@ -197,11 +198,11 @@ def _read_texts(values, what):
 _NOT_GIVEN = {"time": f"JD {J2000_JD}", "number": 0.0, "angle": 0.0}
 
 
-def _passed_on(values):
+def _passed_on(values, kinds=None):
     """Messages for rows whose input is itself a #SKY: message from another cell: the
     first problem is passed on as it is, instead of 'is not an angle'.  None when no row
-    holds text (the usual column of numbers)."""
-    if str not in set(map(type, values)):  # the type walk in C
+    holds text (the usual column of numbers).  ``kinds``: the values' types, when known."""
+    if str not in (kinds or set(map(type, values))):  # the type walk in C
         return None
     out = np.full(len(values), None, dtype=object)
     for i, v in enumerate(values):
@@ -277,7 +278,10 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
         spread = arg.name in shared and n > 1
         if spread:
             values = values[:1]
-        msgs_passed = _passed_on(values)
+        kinds = set(map(type, values))  # the type walk in C, once for the column's readers
+        msgs_passed = _passed_on(values, kinds)
+        if type(None) in kinds:  # left-out rows take their placeholders below
+            kinds = None
         if arg.optional and arg.default is None:
             # Left out means "not given" (a time only some systems need, a site that is
             # the geocentre): the core gets the mask and refuses rows where it matters;
@@ -289,13 +293,13 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
             values = np.array([arg.default if v is None else v for v in values], dtype=object)
         if arg.kind == "time":
             jd1, jd2, msgs = read_times(
-                values, options.get("scale", "UTC"), null_jd, options.get("dut1", 0.0)
+                values, options.get("scale", "UTC"), null_jd, options.get("dut1", 0.0), kinds
             )
             columns[arg.name] = (jd1, jd2)
         elif arg.kind == "number":
-            columns[arg.name], msgs = _read_numbers(values, arg.name)
+            columns[arg.name], msgs = _read_numbers(values, arg.name, kinds)
         elif arg.kind == "angle":
-            columns[arg.name], msgs = _read_angles(values, arg.name)
+            columns[arg.name], msgs = _read_angles(values, arg.name, kinds)
         else:
             columns[arg.name], msgs = _read_texts(values, arg.name)
         if msgs_passed is None:
@@ -363,8 +367,10 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
             finite = np.isfinite(out)
             if leap is not None:
                 finite |= leap  # their NaN is explained by the leap-second message
+            if idx.size == n and finite.all() and clean:
+                return out.tolist()  # every row: Python floats, as UNO wants them
             if idx.size == n and finite.all():
-                results[:] = out.tolist()  # Python floats, as UNO wants them
+                results[:] = out.tolist()
             else:
                 as_objects = np.empty(out.size, dtype=object)
                 as_objects[:] = out.tolist()
@@ -612,8 +618,12 @@ def _evaluate(fn, raw_args, null_date):
         else:
             out[members] = found
 
+    if isinstance(out, list):  # the usual column: one group's list of floats
+        out = np.array(out, dtype=object) if shape[1] != 1 else out
+    else:
+        out = out.tolist() if shape[1] == 1 else out
     if shape[1] == 1:  # one column: the row tuples made by zip, in C
-        return tuple(zip(out.tolist()))
+        return tuple(zip(out))
     return tuple(map(tuple, out.reshape(shape).tolist()))
 
 

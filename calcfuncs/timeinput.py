@@ -261,12 +261,12 @@ def _serial_problem(v, null_jd):
     return None
 
 
-def read_times(values, scale, null_jd, dut1=0.0):
+def read_times(values, scale, null_jd, dut1=0.0, kinds=None):
     """Read a column of time cells.
 
     Returns ``(jd1, jd2, messages)``: two-part JDs on ``scale`` (rows with a message
     hold J2000.0 as a placeholder) and an object array of messages, ``None`` where the
-    row was read.
+    row was read.  ``kinds``: the values' types, when the caller knows them.
     """
     values = np.asarray(values, dtype=object).ravel()
     n = values.size
@@ -274,7 +274,7 @@ def read_times(values, scale, null_jd, dut1=0.0):
     jd2 = np.zeros(n)
     messages = np.full(n, None, dtype=object)
 
-    if n > 1 and set(map(type, values)) == {float}:  # the type walk in C
+    if n > 1 and (kinds or set(map(type, values))) == {float}:  # the type walk in C
         # The usual column of date-time cells: checked and converted in one go.
         serials = values.astype(float)
         with np.errstate(invalid="ignore"):
