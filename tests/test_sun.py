@@ -933,16 +933,19 @@ def test_a_day_of_minutes_near_the_polar_night_is_found(sky, lat, lon):
 
 def test_interpolated_sun_over_days_matches_the_direct_computation():
     # The searches of rise, set and transit take the Sun's place and GAST - ERA from
-    # SunOverDays (exact at half-day nodes, interpolated between); against the direct
-    # computation (sun_and_sidereal at each instant) over 400 random windows in
-    # 1000-3000 and 50 around the leap second at the end of 2016, 50 random instants
-    # each.  Measured 1.8 uas in RA cos Dec, 0.7 uas in Dec, 1.3 uas in GAST; the bound,
-    # 5 uas, is a thousandth of the 0.001" to which the event times are quoted.
+    # SunOverDays (exact at whole-day nodes for the Sun and GAST - ERA, half-day nodes for
+    # TT - UT, interpolated between); against the direct computation (sun_and_sidereal
+    # at each instant) over 400 random windows in 1000-3000, 50 around the leap second
+    # at the end of 2016 and 200 over the 1960s steps of UTC, 50 random instants each.
+    # Measured 89 uas in RA cos Dec, 36 in Dec, 79 in GAST (the short-period nutation,
+    # 5.6 to 13.7 days, over nodes a day apart); the bound, 0.15 mas, moves an event time
+    # by at most 10 microseconds (the Sun's altitude changes by at most 15" a second).
     from calcfuncs.timescales import Instants
 
     rng = np.random.default_rng(1)
     start = np.r_[rng.uniform(2086400.0, 2816700.0, 400),
-                  2457753.5 + rng.uniform(-1.0, 0.2, 50)]
+                  2457753.5 + rng.uniform(-1.0, 0.2, 50),
+                  2437000.5 + rng.uniform(0.0, 3650.0, 200)]
     interpolated = sun.SunOverDays(start, 0.3)
     row = np.repeat(np.arange(start.size), 50)
     base = np.floor(start[row]) + 0.5
@@ -950,9 +953,9 @@ def test_interpolated_sun_over_days_matches_the_direct_computation():
     ra, dec, gast = interpolated.at(base, offset, row)
     ra0, dec0, gast0 = sun.sun_and_sidereal(base, offset, Instants(base, offset, "TT", 0.3).to("UT"))
     uas = 3.6e9
-    assert np.max(np.abs((ra - ra0 + 180.0) % 360.0 - 180.0) * np.cos(np.radians(dec0))) * uas < 5.0
-    assert np.max(np.abs(dec - dec0)) * uas < 5.0
-    assert np.max(np.abs((gast - gast0 + np.pi) % (2.0 * np.pi) - np.pi)) * np.degrees(1.0) * uas < 5.0
+    assert np.max(np.abs((ra - ra0 + 180.0) % 360.0 - 180.0) * np.cos(np.radians(dec0))) * uas < 150.0
+    assert np.max(np.abs(dec - dec0)) * uas < 150.0
+    assert np.max(np.abs((gast - gast0 + np.pi) % (2.0 * np.pi) - np.pi)) * np.degrees(1.0) * uas < 150.0
 
 
 def test_the_node_cache_stays_bounded_and_never_changes_an_answer(monkeypatch):
