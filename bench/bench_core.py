@@ -111,10 +111,7 @@ def _fresh_single_cell_state():
     from calcfuncs import nodes
 
     cells._SINGLE_CELL_CACHE.clear()
-    nodes._AT_NODE.clear()
-    nodes._STACKS.clear()
-    nodes._ASKED.clear()
-    nodes._LAST_ONE[0] = (None, None, None, False)
+    nodes.forget_single_cells()
 
 
 def log_cells(rows, per_day=9.0, seed=11):

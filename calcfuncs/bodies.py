@@ -16,6 +16,7 @@ import erfa
 import numpy as np
 
 from . import ephemeris, frames, nodes, vectors
+from .timescales import same_shape
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 
@@ -60,12 +61,6 @@ def _aberrate(u, earth_v, sun_distance):
     return erfa.ab(u, c, sun_distance, bm1)
 
 
-def _same_shape(jd1, jd2):
-    """Two-part dates as float arrays of one shape (broadcast only where they differ)."""
-    jd1, jd2 = np.asarray(jd1, float), np.asarray(jd2, float)
-    return (jd1, jd2) if jd1.shape == jd2.shape else np.broadcast_arrays(jd1, jd2)
-
-
 def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     """The ``Place`` of ``body`` (SUN, MOON or a planet, or an object whose
     ``heliocentric(t1, t2)`` gives (p, v): a two-body orbit) at the source's argument
@@ -76,7 +71,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     observer itself (light time, deflection and aberration all from its state), which
     brings the diurnal parallax and aberration with no first-order formula."""
     src = ephemeris.get(source)
-    tdb1, tdb2 = _same_shape(tdb1, tdb2)
+    tdb1, tdb2 = same_shape(tdb1, tdb2)
     if observer is not None:
         shape = np.broadcast_shapes(tdb1.shape, np.shape(observer[0])[:-1])
         tdb1, tdb2 = np.broadcast_to(tdb1, shape), np.broadcast_to(tdb2, shape)
@@ -123,7 +118,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
 
 def place_at_tt(body, tt1, tt2, kind="APPARENT", source=BUILTIN):
     """The ``Place`` of ``body`` at TT instants, on the source's time scale."""
-    tt1, tt2 = _same_shape(tt1, tt2)
+    tt1, tt2 = same_shape(tt1, tt2)
     return place(body, *ephemeris.times_for(source, tt1, tt2), kind, source)
 
 
@@ -141,7 +136,7 @@ def body_in(body, tt1, tt2, system, kind="APPARENT", source=BUILTIN):
 def heliocentric(body, tdb1, tdb2, source=BUILTIN):
     """Geometric heliocentric position (au, ICRS axes) of a planet at the instants."""
     src = ephemeris.get(source)
-    tdb1, tdb2 = _same_shape(tdb1, tdb2)
+    tdb1, tdb2 = same_shape(tdb1, tdb2)
     if body == "EARTH":
         (ep, _), (sp, _) = src.earth_and_sun(tdb1, tdb2)
         return ep - sp

@@ -367,10 +367,10 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
             finite = np.isfinite(out)
             if leap is not None:
                 finite |= leap  # their NaN is explained by the leap-second message
-            if idx.size == n and finite.all() and clean:
-                return out.tolist()  # every row: Python floats, as UNO wants them
             if idx.size == n and finite.all():
-                results[:] = out.tolist()
+                if clean:  # the usual column: its floats as they are, no objects made
+                    return out.tolist()
+                results[:] = out.tolist()  # Python floats, as UNO wants them
             else:
                 as_objects = np.empty(out.size, dtype=object)
                 as_objects[:] = out.tolist()
@@ -618,13 +618,9 @@ def _evaluate(fn, raw_args, null_date):
         else:
             out[members] = found
 
-    if isinstance(out, list):  # the usual column: one group's list of floats
-        out = np.array(out, dtype=object) if shape[1] != 1 else out
-    else:
-        out = out.tolist() if shape[1] == 1 else out
     if shape[1] == 1:  # one column: the row tuples made by zip, in C
-        return tuple(zip(out))
-    return tuple(map(tuple, out.reshape(shape).tolist()))
+        return tuple(zip(out if isinstance(out, list) else out.tolist()))
+    return tuple(map(tuple, np.asarray(out, dtype=object).reshape(shape).tolist()))
 
 
 def _hashable(args):

@@ -32,7 +32,7 @@ import numpy as np
 
 from . import kernelfiles, nodes, spkfile, vectors
 from .errors import RowErrors, SkyError, rows_failing
-from .timescales import check_years, julian_year, tt_to_tdb
+from .timescales import check_years, julian_year, same_shape, tt_to_tdb
 from .vocabulary import (AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, LONG_RANGE_YEARS, PLANETS,
                          SOURCE_WORDS)
 
@@ -62,13 +62,17 @@ def _calendar(jd):
 # ---- the built-in theories ---------------------------------------------------------------
 
 
-def _earth_and_sun_states(tdb1, tdb2):
-    """Barycentric p and v of the Earth, then of the Sun (..., 12), from ERFA epv00."""
+def _earth_and_sun(tdb1, tdb2):
+    """Barycentric p and v of the Earth, then of the Sun, from ERFA epv00."""
     # ERFA's ufunc itself: the wrapper would warn outside epv00's 1900-2100 fit (a status
     # that is only ever a warning), and keeping that out of the cell costs 5 us a call.
     pvh, pvb, _ = erfa.ufunc.epv00(tdb1, tdb2)
-    return np.concatenate([pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]],
-                          axis=-1)
+    return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
+
+
+def _earth_and_sun_states(tdb1, tdb2):
+    """The same as one array (..., 12), for the nodes to interpolate."""
+    return np.concatenate(_earth_and_sun(tdb1, tdb2), axis=-1)
 
 
 class Builtin:
@@ -95,9 +99,7 @@ class Builtin:
     def _by_theory(tdb1, tdb2, with_erfa, long_range):
         """The results (a tuple of arrays, rows first) of ``with_erfa`` for the rows
         inside BUILTIN_YEARS and of ``long_range`` for the others."""
-        tdb1, tdb2 = np.asarray(tdb1, float), np.asarray(tdb2, float)
-        if tdb1.shape != tdb2.shape:
-            tdb1, tdb2 = np.broadcast_arrays(tdb1, tdb2)
+        tdb1, tdb2 = same_shape(tdb1, tdb2)
         years = julian_year(tdb1, tdb2)
         inside = (years >= BUILTIN_YEARS[0]) & (years <= BUILTIN_YEARS[1])
         if inside.all():
@@ -123,8 +125,7 @@ class Builtin:
             if one is not None:
                 return one[..., 0:3], one[..., 3:6], one[..., 6:9], one[..., 9:12]
             if nodes.dense(t1, t2) is None:
-                pvh, pvb, _ = erfa.ufunc.epv00(t1, t2)  # as _earth_and_sun_states
-                return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
+                return _earth_and_sun(t1, t2)
             s = nodes.over_nodes(_earth_and_sun_states, t1, t2)
             return s[..., 0:3], s[..., 3:6], s[..., 6:9], s[..., 9:12]
 

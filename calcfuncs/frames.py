@@ -28,7 +28,7 @@ import numpy as np
 
 from . import nodes, vectors
 from .errors import SkyError, rows_failing
-from .timescales import check_years, julian_year
+from .timescales import check_years, julian_year, same_shape
 from .vocabulary import (DATED_SYSTEMS, IAU2006_YEARS, J2000_JD, SYSTEM_ALIASES,
                          SYSTEMS, VONDRAK_YEARS, years_text)
 
@@ -181,8 +181,7 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
     jd2 = np.asarray(jd2, dtype=float)
     if given is not None and not np.all(given):
         raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
-    if jd1.shape != jd2.shape:
-        jd1, jd2 = np.broadcast_arrays(jd1, jd2)
+    jd1, jd2 = same_shape(jd1, jd2)
     years = julian_year(jd1, jd2)
     if not ((years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])).all():
         if long_term:

@@ -131,8 +131,8 @@ def over_nodes(compute, jd1, jd2):
 # call notes its instant; once cells have asked for DENSE_CELLS distinct instants within
 # the five half days around one, it is interpolated from its six nodes (those not yet
 # kept computed, in one call, and kept), as a dense column is.  A log of nine instants
-# a day: SKY.SUN.LON 183 -> 154 us a cell (bench/bench_core.py's single-cell rows);
-# a sparse sheet never reaches the count, is computed directly and pays about 5 us a
+# a day: SKY.SUN.LON 156 -> 122 us a cell (bench/bench_core.py, its log rows); a
+# sparse sheet never reaches the count, is computed directly and pays about 5 us a
 # cell for the noting.
 # A cell can therefore give either ERFA's own value or the interpolated one, which
 # differ by the bounds above (1.5 uas, 0.5 m): each is a function of the instant alone,
@@ -150,6 +150,14 @@ _STACKS = {}    # (quantity, half day) -> its six nodes' values, stacked
 _ASKED = {}     # half day -> distinct instants asked for in it
 _IN_CELLS = [0]
 _LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, half day, dense)
+
+
+def forget_single_cells():
+    """Empty what single cells have kept and noted (a benchmark's cold start)."""
+    _AT_NODE.clear()
+    _STACKS.clear()
+    _ASKED.clear()
+    _LAST_ONE[0] = (None, None, None, False)
 
 
 @contextmanager

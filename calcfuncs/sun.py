@@ -266,7 +266,7 @@ class SunOverDays:
     leap second or a step of UTC falls among a row's nodes.  The interpolation stays
     within 0.15 mas of the direct computation (tested against it over dense random
     instants), ten microseconds of an event time at most; half-day nodes for the Sun
-    would keep it within 5 uas at twice the cost of a cold year of sunrises."""
+    would keep it within 5 uas at 1.6 times the cost of a cold year of sunrises."""
 
     SPACING = nodes.SPACING  # days between the nodes of TT - UT
     SUN_SPACING = 1.0  # days between the nodes of the Sun and GAST - ERA

@@ -232,15 +232,14 @@ def read_utc_serial(v, null_jd):
     reads it, or None where that reading has more to do (a message to give, a UTC step
     day, a date before 1960): the quick path of a single cell."""
     global _STEP_DAY_SET
-    if not -SERIAL_LIMIT <= v <= SERIAL_LIMIT:
+    if _serial_problem(v, null_jd) is not None:
         return None
     whole = float(math.floor(v))
     day_start = null_jd + whole
     if _STEP_DAY_SET is None:
         _STEP_DAY_SET = frozenset(_utc_step_days().tolist())
     fraction = v - whole
-    if (null_jd + v >= LAST_SERIAL_JD or day_start in _STEP_DAY_SET
-            or day_start + fraction < UTC_START_JD):
+    if day_start in _STEP_DAY_SET or day_start + fraction < UTC_START_JD:
         return None
     return np.array([day_start]), np.array([fraction])
 

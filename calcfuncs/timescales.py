@@ -102,6 +102,13 @@ def universal_of(scale):
     return "UT"
 
 
+def same_shape(jd1, jd2):
+    """Two-part dates as float arrays of one shape, broadcast only where they differ (a
+    single cell's dates are alike, and broadcasting them costs more than its checks)."""
+    jd1, jd2 = np.asarray(jd1, float), np.asarray(jd2, float)
+    return (jd1, jd2) if jd1.shape == jd2.shape else np.broadcast_arrays(jd1, jd2)
+
+
 def julian_year(jd1, jd2):
     """The Julian epoch (2000.0 at J2000) of two-part JDs: the year count in which every
     model's validity is stated."""
