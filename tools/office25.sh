@@ -16,13 +16,25 @@
 # pytest process of their own whose `import uno` is this office's bridge (a process can
 # hold one office's bridge only):
 #   ECLIPSHEET_OFFICE=<program folder> PYTHONPATH=<program folder>:<its dist-packages>
+#
+# Where: as root, in a folder every user can enter (ECLIPSHEET_OFFICE25_STORE, by default
+# /var/tmp/eclipsheet-office25), with .office25 a link to it.  The tests install the
+# extension with unopkg run as 'nobody' (unopkg refuses a per-user install as root), and
+# 'nobody' cannot reach an office inside a checkout that lies in a private folder (a
+# mktemp -d folder is 0700).  An existing .office25 folder is used as it is.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
+if [ ! -e .office25 ] && [ ! -L .office25 ] && [ "$(id -u)" -eq 0 ]; then
+  store=${ECLIPSHEET_OFFICE25_STORE:-/var/tmp/eclipsheet-office25}
+  mkdir -p "$store"
+  chmod 755 "$store"
+  ln -s "$store" .office25
+fi
 root=.office25
 program=$root/root/usr/lib/libreoffice/program
 if [ -x "$program/soffice.bin" ] && [ -f "$root/ready" ]; then
-  echo "$PWD/$program"
+  realpath "$program"
   exit 0
 fi
 if ! grep -q 'VERSION_CODENAME=bookworm' /etc/os-release 2>/dev/null; then
@@ -93,4 +105,4 @@ case "$version" in
   *) echo "office25: the unpacked office says: $version" >&2; exit 1 ;;
 esac
 echo "$version" > "$root/ready"
-echo "$PWD/$program"
+realpath "$program"

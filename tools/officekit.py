@@ -26,6 +26,10 @@ from com.sun.star.beans import PropertyValue
 # (the tests run on both: LibreOffice 25.2 unpacked by tools/office25.sh beside 7.4).
 OFFICE_PROGRAM = os.environ.get("ECLIPSHEET_OFFICE")
 if OFFICE_PROGRAM:
+    # The real folder (tools/office25.sh links .office25 to a store every user can
+    # enter): unopkg runs as 'nobody' when root, and must not pass through a private
+    # checkout folder.
+    OFFICE_PROGRAM = os.path.realpath(OFFICE_PROGRAM)
     SOFFICE = os.path.join(OFFICE_PROGRAM, "soffice")
     UNOPKG = os.path.join(OFFICE_PROGRAM, "unopkg")
     # Debian's uno.py points URE_BOOTSTRAP at the system office's fundamentalrc in this
