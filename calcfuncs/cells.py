@@ -7,6 +7,8 @@ row.  Each row is read and computed on its own terms, so a bad row gets its own
 words (scale, model, unit ...) are computed in one vectorised core call.
 """
 
+import contextlib
+import gc
 import importlib
 import inspect
 
@@ -49,8 +51,10 @@ def _null_jd(null_date):
     return _NULL_JDS[key]
 
 
-def _as_grid(raw):
-    """A range as a 2-D object array; ``None`` for a single value."""
+def _as_grid(raw, floats=False):
+    """A range as a 2-D object array; ``None`` for a single value.  ``floats``: a column
+    of numbers only (Python floats, as Calc sends them) comes as a float array instead,
+    for an argument read as numbers: no objects made, walked and converted again."""
     if not isinstance(raw, (tuple, list)):
         return None
     try:  # the usual range, one column: unpacking each row is three times numpy's walk
@@ -58,6 +62,8 @@ def _as_grid(raw):
     except (TypeError, ValueError):
         pass
     else:
+        if floats and len(column) > 1 and set(map(type, column)) == {float}:
+            return np.fromiter(column, dtype=float, count=len(column)).reshape(-1, 1)
         grid = np.empty((len(column), 1), dtype=object)
         grid[:, 0] = column
         return grid
@@ -250,11 +256,13 @@ def _one(value):
     return column
 
 
-def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
+def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None, kinds_of=None):
     """Results (object array) for ``n`` rows that share their options.
 
     Arguments named in ``shared`` came from one cell for every row (a column of one
     row): they are read once and their value (or message) spread over the rows.
+    ``kinds_of``: argument name -> the set of its values' types, where the caller has
+    walked them already.
     """
     func, params = _impl(fn)
     if n is None:
@@ -278,7 +286,9 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
         spread = arg.name in shared and n > 1
         if spread:
             values = values[:1]
-        kinds = set(map(type, values))  # the type walk in C, once for the column's readers
+        kinds = (kinds_of or {}).get(arg.name)
+        if kinds is None or spread:
+            kinds = set(map(type, values))  # the type walk in C, once for the column's readers
         msgs_passed = _passed_on(values, kinds)
         if type(None) in kinds:  # left-out rows take their placeholders below
             kinds = None
@@ -286,10 +296,13 @@ def _compute_group(fn, rows, options, null_jd, shared=frozenset(), n=None):
             # Left out means "not given" (a time only some systems need, a site that is
             # the geocentre): the core gets the mask and refuses rows where it matters;
             # the rows compute on a placeholder (J2000.0, or 0).
-            given = np.not_equal(values, None).astype(bool)
+            if kinds is not None:  # no row left out (the usual column): no walk, no copy
+                given = np.ones(len(values), dtype=bool)
+            else:
+                given = np.not_equal(values, None).astype(bool)
+                values = np.where(given, values, _NOT_GIVEN[arg.kind])
             columns[arg.name + "_given"] = given
-            values = np.where(given, values, _NOT_GIVEN[arg.kind])
-        elif arg.optional:
+        elif arg.optional and kinds is None:  # some row left out: it takes the default
             values = np.array([arg.default if v is None else v for v in values], dtype=object)
         if arg.kind == "time":
             jd1, jd2, msgs = read_times(
@@ -408,6 +421,7 @@ def _evaluate_single(fn, raw_args, null_date):
 
 
 _PLAIN_KINDS = ("number", "angle", "time")
+_FLOAT_KINDS = _PLAIN_KINDS  # the row arguments whose all-number columns come as floats
 
 
 def _plain_single(fn, rows, options, null_jd):
@@ -427,7 +441,7 @@ def _plain_single(fn, rows, options, null_jd):
             found = read_utc_serial(value[0], null_jd) if scale == "UTC" else None
             if found is None:
                 jd1, jd2, messages = read_times(value, scale, null_jd, dut1)
-                if messages[0] is not None:
+                if messages is not None and messages[0] is not None:
                     return None
             else:
                 jd1, jd2 = found
@@ -541,7 +555,7 @@ def _evaluate(fn, raw_args, null_date):
         return _evaluate_series(fn, raw_args, null_date)
     if not any(isinstance(v, (tuple, list)) for v in raw_args):
         return _evaluate_single(fn, raw_args, null_date)
-    grids = [_as_grid(v) for v in raw_args]
+    grids = [_as_grid(v, a.kind in _FLOAT_KINDS) for v, a in zip(raw_args, fn.args)]
     shapes = {g.shape for g in grids if g is not None}
     if len(shapes) > 1:
         dims = " and ".join(f"{r}x{c}" for r, c in sorted(shapes))
@@ -572,8 +586,15 @@ def _evaluate(fn, raw_args, null_date):
             read[memo] = value
         return value
 
+    # Each column's types, walked once (in C) for every reader of the column below.
+    kinds_of = {k: {float} if flat[k].dtype.kind == "f" else set(map(type, flat[k]))
+                for k, a in enumerate(fn.args)
+                if a.kind in registry.ROW_KINDS and flat[k] is not None}
     if first_row_arg is not None and flat[first_row_arg] is not None:
-        filled = np.not_equal(flat[first_row_arg], None)  # an empty row stays empty
+        if type(None) in kinds_of[first_row_arg]:
+            filled = np.not_equal(flat[first_row_arg], None)  # an empty row stays empty
+        else:
+            filled = np.ones(n, dtype=bool)
     elif first_row_arg is not None:
         filled = np.full(n, raw_args[first_row_arg] is not None)
     else:
@@ -608,12 +629,16 @@ def _evaluate(fn, raw_args, null_date):
     for key, members in groups.items():
         members = np.array(members)
         options = {a.name: key[k] for k, a in enumerate(fn.args) if a.kind in registry.OPTION_KINDS}
-        rows = {a.name: (_one(raw_args[k]) if flat[k] is None else flat[k][members])
+        whole = members.size == n  # the usual column: one group, every row filled
+        rows = {a.name: (_one(raw_args[k]) if flat[k] is None
+                         else flat[k] if whole else flat[k][members])
                 for k, a in enumerate(fn.args) if a.kind in registry.ROW_KINDS}
         shared = frozenset(a.name for k, a in enumerate(fn.args)
                            if a.kind in registry.ROW_KINDS and grids[k] is None)
-        found = _compute_group(fn, rows, options, null_jd, shared, members.size)
-        if members.size == n:  # the usual column: one group, every row filled
+        found = _compute_group(
+            fn, rows, options, null_jd, shared, members.size,
+            {fn.args[k].name: kinds for k, kinds in kinds_of.items()} if whole else None)
+        if whole:
             out = found
         else:
             out[members] = found
@@ -671,8 +696,8 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         if hit is not None:
             return hit
     try:
-        with np.errstate(all="ignore"):  # bad rows are reported in their cells
-            result = _evaluate(fn, raw_args, null_date)
+        with np.errstate(all="ignore"), _no_collection_for(key is None):
+            result = _evaluate(fn, raw_args, null_date)  # bad rows: reported in their cells
     except SkyError as err:
         result = PREFIX + str(err)
     except Exception as err:  # a defect of ours: say so in the cell, keep the office up
@@ -683,6 +708,22 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         if fn.fills_down:
             _fill_down(fn, raw_args, null_date, key)
     return result
+
+
+@contextlib.contextmanager
+def _no_collection_for(ranges):
+    """Python's cyclic garbage collector held off while a range is computed: the row
+    tuples made for the reply would set off collections that walk every object of the
+    process, the office's too (an eighth of a 100,000-row column's time).  Nothing we
+    make here forms a cycle; the collector resumes as it was."""
+    if not ranges or not gc.isenabled():
+        yield
+        return
+    gc.disable()
+    try:
+        yield
+    finally:
+        gc.enable()
 
 
 def _keep(key, result):

@@ -207,6 +207,12 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
 
 def rotate(v, m_from, m_to):
     """Vectors (..., 3) from one system to another: M_to M_from^T v."""
+    # Both fixed: one 3x3 matrix for all rows.  Otherwise the vectors are turned in
+    # two steps rather than a matrix composed for every row (a third of a column's
+    # rotation).  einsum, not BLAS (@): its sums for a row do not depend on how many
+    # rows there are, so a column gives each row the value of its cell alone.
+    if m_from.ndim > 2 or m_to.ndim > 2:
+        return vectors.apply(m_to, vectors.apply_transposed(m_from, v))
     return vectors.apply(vectors.compose(m_to, m_from), v)
 
 

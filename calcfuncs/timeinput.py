@@ -265,24 +265,29 @@ def read_times(values, scale, null_jd, dut1=0.0, kinds=None):
 
     Returns ``(jd1, jd2, messages)``: two-part JDs on ``scale`` (rows with a message
     hold J2000.0 as a placeholder) and an object array of messages, ``None`` where the
-    row was read.  ``kinds``: the values' types, when the caller knows them.
+    row was read, or ``None`` itself when every row was read (the usual column: no
+    array of Nones made and walked).  ``kinds``: the values' types, when the caller
+    knows them.
     """
-    values = np.asarray(values, dtype=object).ravel()
+    if not (isinstance(values, np.ndarray) and values.dtype.kind == "f"):
+        values = np.asarray(values, dtype=object)  # a column of floats stays as it is
+    values = values.ravel()
     n = values.size
-    jd1 = np.full(n, J2000_JD)
-    jd2 = np.zeros(n)
-    messages = np.full(n, None, dtype=object)
 
-    if n > 1 and (kinds or set(map(type, values))) == {float}:  # the type walk in C
-        # The usual column of date-time cells: checked and converted in one go.
-        serials = values.astype(float)
+    if n > 1 and (values.dtype.kind == "f" or (kinds or set(map(type, values))) == {float}):
+        # The usual column of date-time cells: checked and converted in one go (the
+        # type walk in C).
+        serials = values.astype(float, copy=False)
         with np.errstate(invalid="ignore"):
             fine = np.isfinite(serials) & (np.abs(serials) <= SERIAL_LIMIT)
             jd = null_jd + serials
             fine &= jd < LAST_SERIAL_JD
         if fine.all():
             jd1, jd2 = _serial_pairs(serials, scale, null_jd)
-            return _check_scale_start(jd1, jd2, messages, scale)
+            return _check_scale_start(jd1, jd2, None, scale)
+    jd1 = np.full(n, J2000_JD)
+    jd2 = np.zeros(n)
+    messages = np.full(n, None, dtype=object)
     serial_rows, serials = [], []
     for i, v in enumerate(values):
         if isinstance(v, (np.floating, np.integer)) and not isinstance(v, np.bool_):
@@ -313,9 +318,12 @@ def read_times(values, scale, null_jd, dut1=0.0, kinds=None):
 
 
 def _check_scale_start(jd1, jd2, messages, scale):
-    """The scale's own limits (UTC and UT1 from 1960), row by row."""
+    """The scale's own limits (UTC and UT1 from 1960), row by row.  ``messages`` None:
+    no row had one, and none is made unless a row is early."""
     if scale in ("UTC", "UT1"):
         early = (jd1 + jd2) < UTC_START_JD
+        if messages is None and early.any():
+            messages = np.full(jd1.size, None, dtype=object)
         for i in np.flatnonzero(early):
             if messages[i] is None:
                 messages[i] = before_1960_message(scale)
@@ -325,7 +333,7 @@ def _check_scale_start(jd1, jd2, messages, scale):
 def instants(values, scale, null_jd=2415018.5, dut1=0.0):
     """Instants from time cells, raising ``SkyError`` on the first bad one (Python API)."""
     jd1, jd2, messages = read_times(values, scale, null_jd, dut1)
-    for m in messages:
+    for m in () if messages is None else messages:
         if m is not None:
             raise SkyError(m)
     return Instants(jd1, jd2, scale, dut1)

@@ -159,6 +159,49 @@ def erfa_quietly(func, *args):
         return func(*args)
 
 
+# From 1972 TAI - UTC is a whole number of seconds that changes only at the end of a UTC
+# day with a leap second.  ERFA's utctai reads its table three times a row (the day's
+# start, noon, the next day) to find the day's length; on every other day since 1972 it
+# comes to tai2 = utc2 + dat / 86400, and a column reads dat from the table in one lookup.
+LEAP_TABLE_START_JD = 2441317.5  # 1972-01-01, from which every step is a whole second
+_WHOLE_SECOND_TABLE = None
+
+
+def _whole_second_table():
+    """(JDs at 0h from which TAI - UTC holds, TAI - UTC in s, JDs at 0h of the days that
+    end in a leap second), from ERFA's own leap-second table so that both agree."""
+    global _WHOLE_SECOND_TABLE
+    if _WHOLE_SECOND_TABLE is None:
+        table = erfa.leap_seconds.get()
+        since = table[table["year"] >= 1972]
+        starts = np.array([sum(erfa.cal2jd(int(y), int(m), 1))
+                           for y, m in zip(since["year"], since["month"])])
+        _WHOLE_SECOND_TABLE = (starts, np.asarray(since["tai_utc"], dtype=float),
+                               starts[1:] - 1.0)
+    return _WHOLE_SECOND_TABLE
+
+
+def utc_to_tai(jd1, jd2):
+    """ERFA utctai to the bit, its usual rows read in one lookup (above): those whose
+    jd1 is the start of a UTC day since 1972 that ends without a leap second and whose
+    jd2 is the fraction of that day (how a column of date-time cells arrives).  The
+    other rows, and a few rows, go to ERFA itself."""
+    jd1, jd2 = same_shape(jd1, jd2)
+    if jd1.size < 16:
+        return erfa_quietly(erfa.utctai, jd1, jd2)
+    starts, dat, leap_days = _whole_second_table()
+    usual = ((jd1 >= LEAP_TABLE_START_JD) & (jd1 - np.floor(jd1) == 0.5)
+             & (jd2 >= 0.0) & (jd2 < 1.0))
+    usual &= leap_days[np.minimum(np.searchsorted(leap_days, jd1), leap_days.size - 1)] != jd1
+    tai2 = jd2 + dat[np.searchsorted(starts, jd1, side="right") - 1] / 86400.0
+    if usual.all():
+        return jd1.copy(), tai2
+    tai1 = jd1.copy()
+    rest = ~usual
+    tai1[rest], tai2[rest] = erfa_quietly(erfa.utctai, jd1[rest], jd2[rest])
+    return tai1, tai2
+
+
 class Instants:
     """An array of instants on one time scale, held as two-part JDs.
 
@@ -237,7 +280,7 @@ class Instants:
             tt1, tt2 = tdb_to_tt(self.jd1, self.jd2)
             return erfa.ufunc.tttai(tt1, tt2)[:2]
         if s == "UTC":
-            return erfa_quietly(erfa.utctai, self.jd1, self.jd2)
+            return utc_to_tai(self.jd1, self.jd2)
         # UT1
         utc1, utc2 = erfa_quietly(erfa.ut1utc, self.jd1, self.jd2, self.dut1)
         return erfa_quietly(erfa.utctai, utc1, utc2)

@@ -2,7 +2,8 @@
 
 A cell alone skips the general path's bookkeeping (calcfuncs.timeinput.read_utc_serial,
 the ERFA ufuncs read for their status in timescales.erfa_quietly, the one-row matrix of
-frames.system_matrix, vectors.norm without numpy.linalg's checks).  Each is checked here
+frames.system_matrix, vectors.norm without numpy.linalg's checks), and the quick paths
+of a column (timescales.utc_to_tai, its leap seconds read in one lookup).  Each is checked here
 against the path it stands in for, over dense random instants and the edge cases
 (UTC step days, 1960, the last date-time value), and the cell results against ERFA
 called directly (the IAU SOFA/ERFA routines are the reference of these models).
@@ -118,3 +119,28 @@ def test_a_cell_on_the_quick_path_equals_the_same_row_of_a_column():
         column = cells.evaluate(name, [tuple((s,) for s in serials)])
         for s, (want,) in zip(serials, column):
             assert cells.evaluate(name, [s]) == want, (name, s)
+
+
+def test_column_utc_to_tai_is_erfa_utctai_to_the_bit():
+    # ERFA utctai (the IAU SOFA routine) is the reference.  Date-time columns as the
+    # cells read them, over 1960-2100 with every UTC step day, the days either side of
+    # each, both ends of each day; then arbitrary two-part splits (ERFA's own way).
+    rng = np.random.default_rng(21)
+    steps = timeinput._utc_step_days()
+    days = np.concatenate([rng.integers(2436935, 2488070, 100_000) - 0.5,
+                           np.repeat(steps, 20), steps - 1.0, steps + 1.0])
+    fractions = np.concatenate([rng.uniform(0.0, 1.0, days.size - 4),
+                                [0.0, 0.5, np.nextafter(1.0, 0.0), 0.999999]])
+    rng.shuffle(fractions)
+    serials = days - NULL_JD + fractions
+    jd1, jd2 = timeinput._serial_pairs(serials, "UTC", NULL_JD)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", erfa.ErfaWarning)  # dates past the table
+        reference = erfa.utctai(jd1, jd2)
+        found = timescales.utc_to_tai(jd1, jd2)
+        assert np.array_equal(found[0], reference[0]) and np.array_equal(found[1], reference[1])
+        split1 = rng.uniform(2436935.0, 2488070.0, 50_000)
+        split2 = rng.uniform(-3.0, 3.0, split1.size)
+        found = timescales.utc_to_tai(split1, split2)
+        reference = erfa.utctai(split1, split2)
+    assert np.array_equal(found[0], reference[0]) and np.array_equal(found[1], reference[1])
