@@ -25,6 +25,7 @@ from calcfuncs import frames, obliquity
 from calcfuncs.cells import evaluate
 
 from astropy.utils import iers  # isort: skip
+from astropy_still_earth import still_earth_table  # noqa: E402
 
 iers.conf.auto_download = False  # astropy never goes to the network here
 
@@ -56,17 +57,6 @@ def convert(lon, lat, from_system, to_system, times=None, scale="TT"):
     t = col(times) if isinstance(times, (list, tuple, np.ndarray)) else times
     args = [col(lon), col(lat), from_system, to_system, t, scale]
     return flat(evaluate("SKY.COORD.LON", args)), flat(evaluate("SKY.COORD.LAT", args))
-
-
-def zero_earth_orientation():
-    """An IERS table with UT1 = UTC and no polar motion, for the years 1311 to 2954."""
-    from astropy.table import QTable
-    import astropy.units as u
-
-    mjd = np.array([-200000.0, 400000.0])
-    zeros = np.zeros(2)
-    return iers.IERS(QTable({"MJD": mjd * u.d, "UT1_UTC": zeros * u.s,
-                             "PM_x": zeros * u.arcsec, "PM_y": zeros * u.arcsec}))
 
 
 # ---- random directions and TT dates 1800-2200 -------------------------------------------------
@@ -141,7 +131,7 @@ def astropy_results(sample):
 
     t = Time(sample["jd1"], sample["jd2"], format="jd", scale="tt")
     out = {}
-    with warnings.catch_warnings(), iers.earth_orientation_table.set(zero_earth_orientation()):
+    with warnings.catch_warnings(), iers.earth_orientation_table.set(still_earth_table()):
         # UTC of 1800-1960 is "dubious" to ERFA; only geocentric rotations use it here
         # (UT1 and polar motion do not enter a rotation of directions).
         warnings.simplefilter("ignore")

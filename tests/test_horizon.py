@@ -28,6 +28,7 @@ from calcfuncs import horizon
 from calcfuncs.cells import evaluate
 
 from astropy.utils import iers  # isort: skip
+from astropy_still_earth import still_earth_table  # noqa: E402
 
 iers.conf.auto_download = False  # astropy never goes to the network here
 
@@ -62,17 +63,6 @@ def iso(day, millis):
     return f"{d.isoformat()}T{s // 3600:02d}:{s // 60 % 60:02d}:{s % 60:02d}.{ms:03d}"
 
 
-def zero_polar_motion():
-    """An IERS table with no polar motion (and UT1 = UTC unless a Time sets its own)."""
-    from astropy.table import QTable
-    import astropy.units as u
-
-    mjd = np.array([-200000.0, 400000.0])
-    zeros = np.zeros(2)
-    return iers.IERS(QTable({"MJD": mjd * u.d, "UT1_UTC": zeros * u.s,
-                             "PM_x": zeros * u.arcsec, "PM_y": zeros * u.arcsec}))
-
-
 # ---- astropy: 1000 random stars, sites and UTC instants 1960-2100 ------------------------------
 
 @pytest.fixture(scope="module")
@@ -103,7 +93,7 @@ def astropy_sky(sky):
     from astropy.time import Time
 
     out = {}
-    with warnings.catch_warnings(), iers.earth_orientation_table.set(zero_polar_motion()):
+    with warnings.catch_warnings(), iers.earth_orientation_table.set(still_earth_table()):
         warnings.simplefilter("ignore")  # ERFA's "dubious year" for UTC after 2030
         t = Time(sky["texts"], scale="utc")
         t.delta_ut1_utc = sky["dut1"]  # the same DUT1 as ours, row by row
