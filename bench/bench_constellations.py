@@ -17,7 +17,6 @@ skyfield with the nutation of B1875.0; see tests/test_constellations.py).
 """
 
 import argparse
-import json
 import os
 import sys
 import warnings
@@ -27,7 +26,7 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
-from timing import best  # noqa: E402
+from timing import best, save_figures  # noqa: E402
 
 from calcfuncs import cells, constellations, frames  # noqa: E402
 
@@ -88,8 +87,7 @@ def main(argv=None):
             line += f"   rows differing from ours: {figures[name + '_rows_differing']}"
         print(line)
     if opts.json:
-        with open(opts.json, "w") as f:
-            json.dump(figures, f, indent=1)
+        save_figures(opts.json, figures)
 
 
 if __name__ == "__main__":

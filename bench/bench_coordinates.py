@@ -47,7 +47,6 @@ machine disturb the timings; run it on a quiet machine for numbers to quote.
 
 import argparse
 import cProfile
-import json
 import os
 import platform
 import pstats
@@ -65,7 +64,7 @@ import bench_recalc  # noqa: E402
 import erfa  # noqa: E402
 import numpy as np  # noqa: E402
 from bench_recalc import _office_version, _us, log_times  # noqa: E402
-from timing import best  # noqa: E402
+from timing import best, save_figures  # noqa: E402
 
 from calcfuncs import frames, horizon  # noqa: E402
 from calcfuncs.cells import evaluate  # noqa: E402
@@ -638,10 +637,7 @@ def main(argv=None):
     print(table(result))
     print(f"\ntotal {result['total_s']:.0f} s", flush=True)
     if args.json:
-        partial = args.json + ".part"
-        with open(partial, "w", encoding="utf-8") as f:
-            json.dump(result, f, indent=2, default=str)
-        os.replace(partial, args.json)
+        save_figures(args.json, result)
     return 0
 
 

@@ -16,7 +16,6 @@ station of an invented club (47.3814 N, 8.0542 E, 455 m), random directions.
 """
 
 import argparse
-import json
 import os
 import sys
 import time
@@ -27,6 +26,7 @@ ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
 from calcfuncs import cells  # noqa: E402
+from timing import save_figures  # noqa: E402
 
 SITE = (47.3814, 8.0542)
 
@@ -162,8 +162,7 @@ def main(argv=None):
     result = run(opts.rows, opts.event_rows)
     result.extend(log_cells(opts.log_rows))
     if opts.json:
-        with open(opts.json, "w") as f:
-            json.dump(result, f, indent=1)
+        save_figures(opts.json, result)
 
 
 if __name__ == "__main__":

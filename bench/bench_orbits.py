@@ -25,7 +25,6 @@ The objects are invented: 100 orbits from e = 0 to e = 3 (a tenth near e = 1).
 
 import argparse
 import io
-import json
 import os
 import sys
 import time
@@ -35,7 +34,7 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
-from timing import best  # noqa: E402
+from timing import best, save_figures  # noqa: E402
 
 from calcfuncs import mpcformat, orbits, smallbodies  # noqa: E402
 from calcfuncs.cells import evaluate  # noqa: E402
@@ -133,8 +132,7 @@ def main():
     for k, v in out.items():
         print(f"{k:40s} {v:.4g}")
     if args.json:
-        with open(args.json, "w") as f:
-            json.dump(out, f, indent=1)
+        save_figures(args.json, out)
 
 
 if __name__ == "__main__":

@@ -28,7 +28,6 @@ club's variable-star watch, 2024-2026, one entry about every 2.6 hours (UTC).
 """
 
 import argparse
-import json
 import os
 import platform
 import statistics
@@ -43,7 +42,7 @@ sys.path.insert(0, os.path.join(ROOT, "tools"))
 import erfa  # noqa: E402
 import numpy as np  # noqa: E402
 
-from timing import best  # noqa: E402
+from timing import best, save_figures  # noqa: E402
 
 from calcfuncs import cells  # noqa: E402
 
@@ -498,10 +497,7 @@ def main(argv=None):
     print(table(result))
     print(f"\ntotal {result['total_s']:.0f} s", flush=True)
     if args.json:
-        partial = args.json + ".part"
-        with open(partial, "w", encoding="utf-8") as f:
-            json.dump(result, f, indent=2, default=str)
-        os.replace(partial, args.json)
+        save_figures(args.json, result)
     return 0
 
 

@@ -23,7 +23,6 @@ days of 2025 at an invented hill station (47.3814 N, 8.0542 E), years 1000 to 29
 """
 
 import argparse
-import json
 import os
 import sys
 import time
@@ -34,6 +33,7 @@ sys.path.insert(0, os.path.join(ROOT, "tools"))
 sys.path.insert(0, os.path.join(ROOT, "bench"))
 
 from bench_recalc import log_times  # noqa: E402
+from timing import save_figures  # noqa: E402
 
 SITE = "47.3814;8.0542"
 FIRST_DAY = 45658.0  # 2025-01-01 as a Calc date value (null date 1899-12-30)
@@ -188,8 +188,7 @@ def main(argv=None):
         report("meteor_watch.ods, a new site latitude")
         result["edit"] = edit_part(office, opts.sheets, report)
     if opts.json:
-        with open(opts.json, "w") as f:
-            json.dump(result, f, indent=1)
+        save_figures(opts.json, result)
 
 
 if __name__ == "__main__":
