@@ -7,10 +7,10 @@ row.  Each row is read and computed on its own terms, so a bad row gets its own
 words (scale, model, unit ...) are computed in one vectorised core call.
 """
 
-import contextlib
 import gc
 import importlib
 import inspect
+import math
 
 import numpy as np
 
@@ -447,10 +447,9 @@ def _plain_single(fn, rows, options, null_jd):
                 jd1, jd2 = found
             kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
         else:
-            number = value.astype(float)
-            if not np.isfinite(number[0]):
+            if not math.isfinite(value[0]):  # a Python float (the caller's check)
                 return None
-            kwargs[arg.name] = number
+            kwargs[arg.name] = value.astype(float)
         if arg.name + "_given" in params:
             kwargs[arg.name + "_given"] = np.ones(1, dtype=bool)
     try:
@@ -463,10 +462,11 @@ def _plain_single(fn, rows, options, null_jd):
         out, in_leap = _date_time_values(out, null_jd)
         if np.any(in_leap):
             return None
-    out = np.asarray(out).reshape(-1)
-    if out.size != 1 or out.dtype.kind != "f" or not np.isfinite(out[0]):
+    out = np.asarray(out)
+    if out.size != 1 or out.dtype.kind != "f":
         return None
-    return float(out[0])
+    value = out.item()
+    return value if math.isfinite(value) else None
 
 
 # ---- series: whole ranges reduced to one value -------------------------------------
@@ -549,11 +549,14 @@ def _evaluate_series(fn, raw_args, null_date):
     return value
 
 
-def _evaluate(fn, raw_args, null_date):
+def _evaluate(fn, raw_args, null_date, single=None):
+    """``single``: the caller knows whether any argument is a range (None: look)."""
     raw_args = list(raw_args) + [None] * (len(fn.args) - len(raw_args))
     if fn.reduces_series:
         return _evaluate_series(fn, raw_args, null_date)
-    if not any(isinstance(v, (tuple, list)) for v in raw_args):
+    if single is None:
+        single = not any(isinstance(v, (tuple, list)) for v in raw_args)
+    if single:
         return _evaluate_single(fn, raw_args, null_date)
     grids = [_as_grid(v, a.kind in _FLOAT_KINDS) for v, a in zip(raw_args, fn.args)]
     shapes = {g.shape for g in grids if g is not None}
@@ -689,15 +692,16 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     fn = name_or_fn if isinstance(name_or_fn, registry.CellFunction) else registry.BY_NAME[name_or_fn]
     raw_args = tuple(raw_args)
     key = None
-    types = tuple(map(type, raw_args))
-    if tuple not in types and list not in types and _hashable(raw_args):
+    ranged = any(isinstance(v, (tuple, list)) for v in raw_args)
+    if not ranged and _hashable(raw_args):
         key = _cell_key(fn, raw_args, null_date, _kernel_stamps(fn, raw_args))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
             return hit
     try:
-        with np.errstate(all="ignore"), _no_collection_for(key is None):
-            result = _evaluate(fn, raw_args, null_date)  # bad rows: reported in their cells
+        with np.errstate(all="ignore"):  # bad rows are reported in their cells
+            result = (_without_collection(_evaluate, fn, raw_args, null_date, False)
+                      if ranged else _evaluate(fn, raw_args, null_date, True))
     except SkyError as err:
         result = PREFIX + str(err)
     except Exception as err:  # a defect of ours: say so in the cell, keep the office up
@@ -710,18 +714,16 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     return result
 
 
-@contextlib.contextmanager
-def _no_collection_for(ranges):
-    """Python's cyclic garbage collector held off while a range is computed: the row
-    tuples made for the reply would set off collections that walk every object of the
-    process, the office's too (an eighth of a 100,000-row column's time).  Nothing we
-    make here forms a cycle; the collector resumes as it was."""
-    if not ranges or not gc.isenabled():
-        yield
-        return
+def _without_collection(call, *args):
+    """``call(*args)`` with Python's cyclic garbage collector held off, for a range: the
+    row tuples made for the reply would set off collections that walk every object of
+    the process, the office's too (an eighth of a 100,000-row column's time).  Nothing
+    made here forms a cycle; the collector resumes as it was."""
+    if not gc.isenabled():
+        return call(*args)
     gc.disable()
     try:
-        yield
+        return call(*args)
     finally:
         gc.enable()
 
