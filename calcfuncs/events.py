@@ -322,14 +322,21 @@ def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extre
     return refine(f, brackets(grid, direction, jump), tolerance)
 
 
-def polish(f, guesses, slope, n, tolerance=1e-8, steps=5):
+def polish(f, guesses, slope, n, tolerance=1e-8, steps=5, curvature=None):
     """Roots of ``f`` next to ``guesses`` (``Roots`` of a cheap function that follows
     ``f`` closely): a Newton step with the cheap function's ``slope`` (per guess, per
     day), then secant steps, each root on its own, until it moves by under a tenth of
     ``tolerance`` days.  Three or four evaluations of ``f`` per root where a bracketing
-    search takes a dozen.  ``n``: how many rows the caller searches.  Returns (``Roots``, mask of the roots that settled); a root
-    that did not settle, or moved by more than a day, is for the caller to search for
-    by brackets."""
+    search takes a dozen.  ``n``: how many rows the caller searches.
+
+    ``curvature``: a bound on |f'' / 2f'| (per day) over the roots' neighbourhoods, for
+    a smooth ``f``.  A secant step's error is at most that times the errors of its two
+    points, which the two steps' sizes bound: a root whose secant step lands within a
+    tenth of ``tolerance`` by that bound has settled, and the evaluation that would
+    only confirm it is spared (two evaluations a root).
+
+    Returns (``Roots``, mask of the roots that settled); a root that did not settle, or
+    moved by more than a day, is for the caller to search for by brackets."""
     jd1, row = guesses.jd1, guesses.row
     x0 = np.array(guesses.jd2, dtype=float)
     f0 = evaluate(f, jd1, x0, row, n)
@@ -344,7 +351,11 @@ def polish(f, guesses, slope, n, tolerance=1e-8, steps=5):
         with np.errstate(divide="ignore", invalid="ignore"):
             secant = np.where(x1 != x0, (f1 - f0) / (x1 - x0), slope)
         x2 = np.where(active, x1 - f1 / secant, x1)
-        settled |= active & (np.abs(x2 - x1) < 0.1 * tolerance)
+        moved = np.abs(x2 - x1)
+        done = moved < 0.1 * tolerance
+        if curvature is not None:
+            done |= curvature * moved * np.abs(x1 - x0) < 0.1 * tolerance
+        settled |= active & done
         x0 = np.where(active, x1, x0)
         f0 = np.where(active, f1, f0)
         x1 = x2

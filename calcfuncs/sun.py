@@ -116,6 +116,15 @@ def rough_longitude(tt1, tt2, frame="TRUE"):
     return apparent
 
 
+# |f'' / 2f'| of the Sun's apparent longitude, per day, bounded with a margin: the
+# orbit's eccentricity swings the daily motion between about 0.953 and 1.019 degrees over
+# the year, the Moon's pull on the Earth (6" over a synodic month) and nutation's
+# fortnightly term add a little; measured at most 3.6e-4 a day over -4000 to +8000
+# (tests/test_sun.py).  Set at 2e-3: a polished equinox then costs two evaluations of
+# the full theory instead of three.
+LONGITUDE_CURVATURE = 2e-3
+
+
 def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
     """``events.Roots``: per row, the TT instants in [start, end] when the Sun's apparent
     longitude reaches that row's target (degrees)."""
@@ -135,7 +144,7 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
     guesses = crossings(rough, start_tt - 1.0, end_tt + 1.0, 1.0, direction=+1, jump=90.0)
     at = guesses.jd1, guesses.jd2
     slope = (rough(at[0], at[1] + 0.01, guesses.row) - rough(at[0], at[1] - 0.01, guesses.row)) / 0.02
-    found, settled = events.polish(f, guesses, slope, n)
+    found, settled = events.polish(f, guesses, slope, n, curvature=LONGITUDE_CURVATURE)
     inside = (((found.jd1 - start_tt[found.row]) + found.jd2 >= 0.0)
               & ((found.jd1 - end_tt[found.row]) + found.jd2 <= 0.0))
     unsure = np.unique(found.row[~settled])

@@ -314,6 +314,32 @@ def test_polish_takes_near_guesses_to_the_roots_of_the_full_function():
     assert np.max(np.abs(root_days(found) - truth)) < TOL
 
 
+def test_polish_with_a_curvature_bound_spares_the_confirming_evaluation():
+    # The same zeros of sin(2 pi t / 7.3) (closed form), from guesses off by up to a
+    # quarter of an hour with the slope off by 0.01 per cent.
+    # Within 0.02 days of a zero |f''/2f'| = (w/2)|tan(w dt)| < 0.015 a day (w = 2 pi /
+    # 7.3): with that bound each root settles after two evaluations instead of three,
+    # still within the tolerance.
+    k = np.arange(1, 6)
+    truth = 3.65 * k
+    rng = np.random.default_rng(4)
+    guesses = events.Roots(np.full(k.size, J0), truth + rng.uniform(-0.01, 0.01, k.size),
+                           np.arange(k.size))
+    slope = 1.0001 * 2.0 * np.pi / 7.3 * np.cos(np.pi * k)
+    evaluated = []
+
+    def counted(jd1, jd2, row):
+        evaluated.append(np.size(jd2))
+        return sine(7.3)(jd1, jd2, row)
+
+    for curvature, evaluations in ((None, 3 * k.size), (0.015, 2 * k.size)):
+        evaluated.clear()
+        found, settled = events.polish(counted, guesses, slope, k.size, curvature=curvature)
+        assert settled.all()
+        assert np.max(np.abs(root_days(found) - truth)) < TOL
+        assert sum(evaluated) == evaluations, curvature
+
+
 def test_polish_leaves_a_guess_that_runs_away_to_the_caller():
     # A guess at the top of the sine (slope zero, closed form) is thrown far away by a
     # Newton step with the true slope; it is reported as not settled, and the row's
