@@ -14,7 +14,7 @@ import numpy as np
 from . import bodies, ephemeris, frames, vectors
 from .errors import rows_failing
 from .ephemeris import content_stamp
-from .events import crossings, first_after, wrap180
+from .events import first_after, polished_crossings, wrap180
 from .sun import sun_gcrs, sun_in
 from .timescales import DateTimes
 from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM, J2000_JD
@@ -151,8 +151,8 @@ def _phase_crossings(target, start, end, source=BUILTIN):
 
     # The elongation grows 10 to 15 degrees a day and a phase comes once a month:
     # daily samples never hold two crossings, and never leap 90 degrees; the rough
-    # elongation, off by under a degree, tells which days to sample.
-    return crossings(f, start, end, 1.0, direction=+1, jump=90.0, estimate=rough)
+    # elongation, off by under a degree (two hours), gives each phase to be polished.
+    return polished_crossings(f, rough, start, end, 1.0, jump=90.0)
 
 
 def next_phase_cells(time, phase="NEW", result_scale=None, source=BUILTIN):

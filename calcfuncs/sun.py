@@ -129,8 +129,6 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
     """``events.Roots``: per row, the TT instants in [start, end] when the Sun's apparent
     longitude reaches that row's target (degrees)."""
     target = np.ravel(np.asarray(target_deg, dtype=float))
-    start_tt, end_tt = np.ravel(start_tt), np.ravel(end_tt)
-    n = target.size
 
     def f(jd1, jd2, row):
         return wrap180(sun_longitude(jd1, jd2, frame) - target[row])
@@ -138,29 +136,10 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
     def rough(jd1, jd2, row):
         return wrap180(rough_longitude(jd1, jd2, frame) - target[row])
 
-    # The rough longitude's own crossings (cheap), over windows a day wider, each then
-    # polished on the full theory by Newton and secant steps: the rough longitude is
-    # off by a few hundredths of a degree, under an hour of the Sun's motion.
-    guesses = crossings(rough, start_tt - 1.0, end_tt + 1.0, 1.0, direction=+1, jump=90.0)
-    at = guesses.jd1, guesses.jd2
-    slope = (rough(at[0], at[1] + 0.01, guesses.row) - rough(at[0], at[1] - 0.01, guesses.row)) / 0.02
-    found, settled = events.polish(f, guesses, slope, n, curvature=LONGITUDE_CURVATURE)
-    inside = (((found.jd1 - start_tt[found.row]) + found.jd2 >= 0.0)
-              & ((found.jd1 - end_tt[found.row]) + found.jd2 <= 0.0))
-    unsure = np.unique(found.row[~settled])
-    if unsure.size == 0:
-        return found.subset(inside)
-    # Rows where a step went astray: searched by brackets on the full theory instead.
-    # The Sun moves about 1 degree a day: 1-day samples never skip a crossing.
-    again = crossings(lambda j1, j2, r: f(j1, j2, unsure[r]), start_tt[unsure], end_tt[unsure],
-                      1.0, direction=+1, jump=90.0,
-                      estimate=lambda j1, j2, r: rough(j1, j2, unsure[r]))
-    keep = inside & ~np.isin(found.row, unsure)
-    jd1 = np.concatenate([found.jd1[keep], again.jd1])
-    jd2 = np.concatenate([found.jd2[keep], again.jd2])
-    row = np.concatenate([found.row[keep], unsure[again.row]])
-    order = np.lexsort((jd2 + (jd1 - jd1.min() if jd1.size else 0.0), row))
-    return events.Roots(jd1[order], jd2[order], row[order])
+    # The rough longitude is off by a few hundredths of a degree, under an hour of the
+    # Sun's motion; it moves about 1 degree a day: 1-day samples never skip a crossing.
+    return events.polished_crossings(f, rough, start_tt, end_tt, 1.0, jump=90.0,
+                                     curvature=LONGITUDE_CURVATURE)
 
 
 def _year_start_tt(year):

@@ -195,3 +195,27 @@ def test_the_scales_differ_by_a_minute():
 def test_bad_input_gives_a_message(call, mention):
     got = evaluate(*call)
     assert isinstance(got, str) and got.startswith("#SKY: ") and mention in got, got
+
+
+def test_polished_phases_are_the_bracketed_ones():
+    # The phases are polished by Newton and secant steps from the rough elongation's
+    # crossings (events.polished_crossings); a search by brackets on the full theory
+    # (events.crossings, the rough elongation only saying where to sample) finds the
+    # same instants within its 1e-8 day (under a millisecond), every phase of 2020-2029.
+    from calcfuncs import events, moon
+
+    starts = 2458849.5 + 30.0 * np.arange(122)  # TT, 2020-01-01 onwards
+    for name, target in moon.PHASES.items():
+        def f(jd1, jd2, row, target=target):
+            return events.wrap180(moon.elongation_lon(jd1, jd2) - target)
+
+        def rough(jd1, jd2, row, target=target):
+            return events.wrap180(moon.rough_elongation(jd1, jd2) - target)
+
+        polished = moon._phase_crossings(target, starts, starts + 32.0)
+        bracketed = events.crossings(f, starts, starts + 32.0, 1.0, direction=+1, jump=90.0,
+                                     estimate=rough)
+        assert np.array_equal(polished.row, bracketed.row), name
+        assert polished.row.size >= 122, name
+        diff = (polished.jd1 - bracketed.jd1) + (polished.jd2 - bracketed.jd2)
+        assert np.max(np.abs(diff)) < 1e-8, name
