@@ -363,17 +363,17 @@ def polish(f, guesses, slope, n, tolerance=1e-8, steps=5, curvature=None):
     return Roots(jd1, x1, row), good
 
 
-def polished_crossings(f, rough, start, end, step, jump=None, curvature=None,
+def polished_crossings(f, rough, start, end, step, direction=+1, jump=None, curvature=None,
                        tolerance=1e-8):
-    """The rising crossings of ``f`` (as ``crossings`` with ``direction`` +1) found from
-    those of ``rough``, a cheap function with the same zeros to well within a day:
+    """The crossings of ``f`` (as ``crossings`` finds them) found from those of
+    ``rough``, a cheap function with the same zeros to well within a day:
     its own crossings, over windows a day wider, each polished on ``f`` by Newton and
     secant steps (``polish``; ``curvature`` as there), two to four evaluations of ``f``
     a root where brackets take a dozen.  Rows where a step went astray are searched by
     brackets on ``f`` instead (``rough`` then only says where to sample)."""
     start, end = np.ravel(start), np.ravel(end)
     n = start.size
-    guesses = crossings(rough, start - 1.0, end + 1.0, step, direction=+1, jump=jump)
+    guesses = crossings(rough, start - 1.0, end + 1.0, step, direction=direction, jump=jump)
     at = guesses.jd1, guesses.jd2
     slope = (rough(at[0], at[1] + 0.01, guesses.row)
              - rough(at[0], at[1] - 0.01, guesses.row)) / 0.02
@@ -384,7 +384,7 @@ def polished_crossings(f, rough, start, end, step, jump=None, curvature=None,
     if unsure.size == 0:
         return found.subset(inside)
     again = crossings(lambda j1, j2, r: f(j1, j2, unsure[r]), start[unsure], end[unsure],
-                      step, direction=+1, tolerance=tolerance, jump=jump,
+                      step, direction=direction, tolerance=tolerance, jump=jump,
                       estimate=lambda j1, j2, r: rough(j1, j2, unsure[r]))
     keep = inside & ~np.isin(found.row, unsure)
     jd1 = np.concatenate([found.jd1[keep], again.jd1])

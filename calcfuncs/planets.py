@@ -15,7 +15,7 @@ import numpy as np
 
 from . import bodies, ephemeris, frames, nodes, vectors
 from .errors import SkyError, rows_failing
-from .events import crossings, first_after, wrap180
+from .events import crossings, first_after, polished_crossings, wrap180
 from .timescales import DateTimes
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
@@ -25,6 +25,14 @@ INNER = ("MERCURY", "VENUS")
 SYNODIC_DAYS = {"MERCURY": 115.88, "VENUS": 583.92, "MARS": 779.94, "JUPITER": 398.88,
                 "SATURN": 378.09, "URANUS": 369.66, "NEPTUNE": 367.49, "PLUTO": 366.73}
 _DERIVATIVE_STEP_DAYS = 0.02  # half-width of the central difference for elongation's rate
+# A greatest elongation is a maximum of the elongation well away from the Sun: Mercury's
+# come at 17.9 to 27.8 degrees, Venus's at 45 to 47.  At a conjunction the elongation is
+# only the difference in latitude (under about 5 degrees for Mercury and 9 for Venus at
+# inferior conjunction; common practice, from memory), and its least value falls near,
+# not at, the moment the planet changes sides: there its rate may already (or still) be
+# negative on the side searched.  Below this elongation the rate is not looked at, so
+# that moment is never taken for a maximum.
+_GREATEST_ELONGATION_ABOVE_DEG = 12.0
 
 
 def _tdb_tt(time, source):
@@ -134,16 +142,19 @@ def _longitude_difference(p, tt1, tt2):
 
 def _elongation_rate(body, source, sign):
     """Rate of the elongation (degrees a day) where the planet is on the ``sign`` side of
-    the Sun (+1 east, -1 west); on the other side a constant, so it never crosses."""
+    the Sun (+1 east, -1 west) and over _GREATEST_ELONGATION_ABOVE_DEG from it; elsewhere
+    a constant, so it never crosses there."""
     h = _DERIVATIVE_STEP_DAYS
 
     def f(jd1, jd2, row=None):
         before = bodies.place(body, jd1, jd2 - h, "APPARENT", source)
         after = bodies.place(body, jd1, jd2 + h, "APPARENT", source)
-        rate = np.degrees(bodies.elongation(after) - bodies.elongation(before)) / (2.0 * h)
+        elongation = bodies.elongation(after)
+        rate = np.degrees(elongation - bodies.elongation(before)) / (2.0 * h)
         # The side changes only at conjunctions, weeks from a greatest elongation.
         side = np.sign(_longitude_difference(after, jd1, jd2 + h))
-        return np.where(side == sign, rate, 1.0)
+        searched = (side == sign) & (np.degrees(elongation) > _GREATEST_ELONGATION_ABOVE_DEG)
+        return np.where(searched, rate, 1.0)
 
     return f
 
@@ -172,9 +183,11 @@ def _rough_elongation_rate(body, sign):
 
     def rough(jd1, jd2, row=None):
         before, after = _rough_places(body, jd1, jd2 - h), _rough_places(body, jd1, jd2 + h)
-        rate = np.degrees(vectors.angle_between(*after) - vectors.angle_between(*before)) / (2.0 * h)
+        elongation = vectors.angle_between(*after)
+        rate = np.degrees(elongation - vectors.angle_between(*before)) / (2.0 * h)
         side = np.sign(wrap180(frames.spherical(after[0])[0] - frames.spherical(after[1])[0]))
-        return np.where(side == sign, rate, 1.0)
+        searched = (side == sign) & (np.degrees(elongation) > _GREATEST_ELONGATION_ABOVE_DEG)
+        return np.where(searched, rate, 1.0)
 
     return rough
 
@@ -219,13 +232,17 @@ def next_event_cells(body, time, event="OPPOSITION", result_scale=None, source=B
     window = SYNODIC_DAYS[body] * 1.1 + 5.0
     # Five-day samples: the difference moves under 3 degrees a day for every planet,
     # and its zeros are weeks apart (Mercury's conjunctions at least 40 days); the rough
-    # places tell which samples to take.  Windows on a 60-day grid, each searched once
-    # for every instant in its block (events.first_after).
+    # places' own events, within a day, are polished on the full theory (brackets where
+    # a step goes astray).  Windows on a 60-day grid, each searched once for every
+    # instant in its block (events.first_after).
     keys = [("PLANET EVENT", body, event, source, ephemeris.content_stamp(source))] * tt1.size
-    jd1, jd2, found = first_after(
-        lambda s, e, _rep: crossings(f, s, e, 5.0, direction=direction, jump=90.0,
-                                     estimate=rough),
-        tt1, tt2, 60.0, window, keys)
+    if rough is None:  # Pluto: brackets on the full theory alone
+        def search(s, e, _rep):
+            return crossings(f, s, e, 5.0, direction=direction, jump=90.0)
+    else:  # the rough places' own events, polished on the full theory
+        def search(s, e, _rep):
+            return polished_crossings(f, rough, s, e, 5.0, direction=direction, jump=90.0)
+    jd1, jd2, found = first_after(search, tt1, tt2, 60.0, window, keys)
     if not np.all(found):
         raise rows_failing(~found, f"no {event.lower()} found in the {window:.0f} days after")
     return DateTimes.of_tt(jd1, jd2, result_scale or time.scale)

@@ -480,6 +480,10 @@ def test_a_column_with_bad_bodies_keeps_its_good_rows():
     ("VENUS", "2023-01-01", "GREATEST WEST", "2023-10-23", 46.4),
     ("MERCURY", "2024-01-01", "GREATEST WEST", "2024-01-12", 23.5),
     ("MERCURY", "2024-01-01", "GREATEST EAST", "2024-03-24", 18.7),
+    # From ten days before a superior conjunction (2024-09-30), where the elongation's
+    # least value does not fall at the change of side: not that moment, but the next
+    # greatest elongation (almanacs, from memory: 2024-11-16, 22.5 degrees).
+    ("MERCURY", "2024-09-20", "GREATEST EAST", "2024-11-16", 22.5),
 ])
 def test_greatest_elongations(sky, body, start, event, day, degrees):
     got = evaluate("SKY.PLANET.EVENT.NEXT", [body, start, "UTC", event, None, DE440])
@@ -497,6 +501,28 @@ def test_greatest_elongations(sky, body, start, event, day, degrees):
     sep = earth.observe(eph[SKYFIELD_NAMES[body]]).apparent().separation_from(
         earth.observe(eph["sun"]).apparent()).degrees
     assert abs(minutes[np.argmax(sep)]) <= 5.0
+
+
+@pytest.mark.parametrize("body, least", [("MERCURY", 17.8), ("VENUS", 45.0)])
+def test_every_greatest_elongation_is_a_maximum_far_from_the_sun(body, least):
+    # From every tenth day of 2020-2029, the next greatest elongation east and west:
+    # each a maximum of the elongation (larger than a day before and after) and within
+    # the planet's published range (Mercury 17.9 to 27.8 degrees, Venus 45 to 47.3;
+    # common practice, from memory), never a conjunction, whose small elongation has
+    # its least value near the change of side.
+    starts = tuple((43831.0 + 10.0 * k,) for k in range(366))
+    for event in ("GREATEST EAST", "GREATEST WEST"):
+        got = [row[0] for row in evaluate("SKY.PLANET.EVENT.NEXT", [body, starts, "UTC", event])]
+        assert all(isinstance(g, float) for g in got), event
+
+        def elongation(shift):
+            column = tuple((g + shift,) for g in got)
+            return np.array([row[0] for row in evaluate("SKY.PLANET.ELONGATION",
+                                                         [body, column, "UTC"])])
+
+        at = elongation(0.0)
+        assert np.all(at > elongation(-1.0)) and np.all(at > elongation(1.0)), event
+        assert least < at.min() and at.max() < 47.5, event
 
 
 def test_greatest_elongation_is_refused_for_an_outer_planet():
@@ -541,3 +567,27 @@ def test_venus_apparent_place_against_the_worked_example():
     assert abs(dec - dec_ref) * ARCSEC < 0.01
     assert abs(evaluate("SKY.PLANET.DIST", when + [DE440]) - 0.910947) < 1e-6
     assert abs(evaluate("SKY.PLANET.LIGHTTIME", when + [DE440]) / 1440.0 - 0.0052612) < 1e-7
+
+
+@pytest.mark.parametrize("body, event", [
+    ("MERCURY", "INFERIOR"), ("MERCURY", "SUPERIOR"), ("MERCURY", "GREATEST EAST"),
+    ("VENUS", "CONJUNCTION"), ("VENUS", "GREATEST WEST"), ("MARS", "OPPOSITION"),
+    ("JUPITER", "CONJUNCTION"), ("SATURN", "OPPOSITION"), ("NEPTUNE", "CONJUNCTION"),
+])
+def test_polished_events_are_the_bracketed_ones(body, event):
+    # The events are the rough places' own (ERFA plan94) polished by Newton and secant
+    # steps on the full theory (events.polished_crossings); a search by brackets on the
+    # full theory (events.crossings, the rough places only saying where to sample)
+    # finds the same instants within its 1e-8 day (under a millisecond), 2000-2050.
+    from calcfuncs import events, planets
+
+    f, rough, direction = planets._event_search(body, event, "BUILTIN")
+    starts = 2451544.5 + 400.0 * np.arange(46)
+    polished = events.polished_crossings(f, rough, starts, starts + 400.0, 5.0,
+                                         direction=direction, jump=90.0)
+    bracketed = events.crossings(f, starts, starts + 400.0, 5.0, direction=direction,
+                                 jump=90.0, estimate=rough)
+    assert np.array_equal(polished.row, bracketed.row)
+    assert polished.row.size >= 20
+    diff = (polished.jd1 - bracketed.jd1) + (polished.jd2 - bracketed.jd2)
+    assert np.max(np.abs(diff)) < 1e-8
