@@ -2,7 +2,7 @@
 PY := .venv/bin/python
 OXT := dist/eclipsheet.oxt
 
-.PHONY: all setup generate oxt oxt-bundle office25 test test-office25 test-core demo bench clean
+.PHONY: all setup generate oxt oxt-bundle office25 test test-office25 test-core demo bench speed-tables clean
 
 all: oxt
 
@@ -62,6 +62,13 @@ bench: oxt
 	$(PY) bench/bench_kernels.py --oxt $(OXT) --json out/bench-kernels.json
 	$(PY) bench/bench_sheets.py --oxt $(OXT) --json out/bench-sheets.json
 	$(PY) bench/bench_engines.py --rows 1000000 --json out/bench-engines.json
+	$(PY) tools/speed_table.py --figures out > out/speed-tables.md
+
+# The README's speed tables from the last `make bench`: its figures kept in bench/figures/.
+speed-tables:
+	mkdir -p bench/figures
+	cp out/bench-libraries.json out/bench-sheets.json bench/figures/
+	python3 tools/speed_table.py --figures bench/figures --readme README.md
 
 clean:
 	rm -rf build dist out .pytest_cache
