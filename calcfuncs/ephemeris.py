@@ -70,6 +70,16 @@ def _earth_and_sun(tdb1, tdb2):
     return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
 
 
+@nodes.kept_per_instant
+def _earth_and_sun_one(tdb1, tdb2):
+    """The same for one instant (floats), kept for the row's other columns
+    (nodes.INSTANTS_KEPT).  Read-only arrays of one row."""
+    out = _earth_and_sun(np.array([tdb1]), np.array([tdb2]))
+    for a in out:
+        a.flags.writeable = False
+    return out
+
+
 def _earth_and_sun_states(tdb1, tdb2):
     """The same as one array (..., 12), for the nodes to interpolate."""
     return np.concatenate(_earth_and_sun(tdb1, tdb2), axis=-1)
@@ -124,6 +134,8 @@ class Builtin:
             one = nodes.for_one("epv00", _earth_and_sun_states, t1, t2)  # a cell of a log
             if one is not None:
                 return one[..., 0:3], one[..., 3:6], one[..., 6:9], one[..., 9:12]
+            if t1.shape == (1,):  # a single cell: kept for the row's other columns
+                return _earth_and_sun_one(float(t1[0]), float(t2[0]))
             if nodes.dense(t1, t2) is None:
                 return _earth_and_sun(t1, t2)
             s = nodes.over_nodes(_earth_and_sun_states, t1, t2)

@@ -21,7 +21,6 @@ stay those of the input.
                        ecliptic); longitudes count from that node
 """
 
-from functools import lru_cache
 
 import erfa
 import numpy as np
@@ -112,12 +111,18 @@ def _dated(system, jd1, jd2, nutation=_nutation):
     return m if system == "EQUATORIAL TRUE" else erfa.rx(epsa + deps, m)
 
 
-@lru_cache(maxsize=2048)
+@nodes.kept_per_instant
+def _nutation_one(jd1, jd2):
+    """The nutation of one instant (floats), kept for the row's other columns."""
+    return _nutation(jd1, jd2)
+
+
+@nodes.kept_per_instant
 def _dated_one(system, jd1, jd2):
     # A sheet asks for the same date in several columns and on every recalculation;
     # the full IAU 2006/2000A matrix costs about 80 us.  Read-only: every caller of
     # the date shares it.
-    m = np.asarray(_dated(system, jd1, jd2))
+    m = np.asarray(_dated(system, jd1, jd2, lambda a, b: _nutation_one(jd1, jd2)))
     m.flags.writeable = False
     return m
 

@@ -22,6 +22,7 @@ milliarcseconds, the nutation model to a fraction of a milliarcsecond).
 
 import math
 from contextlib import contextmanager
+from functools import lru_cache
 
 import numpy as np
 
@@ -145,6 +146,27 @@ DENSE_CELLS = 8        # distinct instants asked for near a half day before its 
 NODES_KEPT = 20_000
 HALF_DAYS_KEPT = 2_000
 
+# A row of a log asks for one instant in several columns (a longitude, a declination,
+# the Moon beside the Sun), and Calc computes a sheet column by column: a single cell's
+# nutation and Earth (45 and 35 us of ERFA) are kept for the next column's cell of the
+# same row, for the last INSTANTS_KEPT instants (frames._nutation_one, _dated_one and
+# ephemeris._earth_and_sun_one; 7.3 MB when all three are full, measured with tracemalloc).
+INSTANTS_KEPT = 4096
+_KEPT_PER_INSTANT = []  # the kept functions (kept_per_instant)
+
+
+def kept_per_instant(func):
+    """``func`` of one instant (floats) with its last INSTANTS_KEPT results kept."""
+    kept = lru_cache(maxsize=INSTANTS_KEPT)(func)
+    _KEPT_PER_INSTANT.append(kept)
+    return kept
+
+
+def forget_kept_instants():
+    for kept in _KEPT_PER_INSTANT:
+        kept.cache_clear()
+
+
 _AT_NODE = {}   # (quantity, node instant) -> values at the node
 _STACKS = {}    # (quantity, half day) -> its six nodes' values, stacked
 _ASKED = {}     # half day -> distinct instants asked for in it
@@ -158,6 +180,7 @@ def forget_single_cells():
     _STACKS.clear()
     _ASKED.clear()
     _LAST_ONE[0] = (None, None, None, False)
+    forget_kept_instants()
 
 
 @contextmanager

@@ -70,3 +70,4 @@ def _fresh_single_cell_nodes(monkeypatch):
     monkeypatch.setattr(nodes, "_ASKED", {})
     monkeypatch.setattr(nodes, "_LAST_ONE", [(None, None, None, False)])
     monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    nodes.forget_kept_instants()  # one instant's ERFA values (exact, but kept all the same)

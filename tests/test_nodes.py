@@ -178,3 +178,45 @@ def test_single_cell_nodes_stay_within_their_bounds(monkeypatch):
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     direct = cells.evaluate("SKY.SUN.LON", [(float(serials[-1]),)])[0][0]
     assert abs(lon - direct) * 3.6e9 < 2.0
+
+
+# ---- one instant's ERFA values kept for the row's other columns --------------------------
+
+
+def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers():
+    # Calc computes column by column: the nutation and the Earth of each instant, made
+    # for the first column's cells, are found again by the next column's.  The answers
+    # are those of each cell computed alone (exact values, not interpolated), and no more
+    # than nodes.INSTANTS_KEPT instants are kept.
+    from calcfuncs import cells, ephemeris, frames
+
+    rng = np.random.default_rng(46)
+    serials = np.sort(45292.0 + rng.uniform(0.0, 3000.0, 300)).tolist()  # sparse log
+    alone = {}
+    for name in ("SKY.SUN.LON", "SKY.MOON.RA", "SKY.PLANET.DEC"):
+        lead = ["MARS"] if name == "SKY.PLANET.DEC" else []
+        for s in serials:
+            nodes.forget_kept_instants()
+            cells._SINGLE_CELL_CACHE.clear()
+            alone[name, s] = cells.evaluate(name, [*lead, s])
+    nodes.forget_kept_instants()
+    cells._SINGLE_CELL_CACHE.clear()
+    for name in ("SKY.SUN.LON", "SKY.MOON.RA", "SKY.PLANET.DEC"):
+        lead = ["MARS"] if name == "SKY.PLANET.DEC" else []
+        for s in serials:  # column by column, as Calc computes
+            assert cells.evaluate(name, [*lead, s]) == alone[name, s]
+    assert frames._nutation_one.cache_info().hits >= 300
+    assert ephemeris._earth_and_sun_one.cache_info().hits >= 2 * 300
+
+
+def test_the_instants_kept_stay_within_their_bound(monkeypatch):
+    from calcfuncs import cells, ephemeris, frames
+
+    serials = (45292.0 + 0.37 * np.arange(nodes.INSTANTS_KEPT + 500)).tolist()
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)  # every cell computed directly
+    for s in serials:
+        cells.evaluate("SKY.SUN.RA", [s])
+    for kept in (frames._nutation_one, ephemeris._earth_and_sun_one):
+        assert kept.cache_info().currsize == nodes.INSTANTS_KEPT
+    nodes.forget_single_cells()  # the benchmarks' cold start forgets them too
+    assert frames._nutation_one.cache_info().currsize == 0
