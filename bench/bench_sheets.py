@@ -55,6 +55,9 @@ CASES = {
     "SKY.MOON.PHASE.NEXT": ("log", '=SKY.MOON.PHASE.NEXT(A{r};;"FULL")'),
     "SKY.PLANET.EVENT.NEXT": ("log", '=SKY.PLANET.EVENT.NEXT("MARS";A{r};;"OPPOSITION")'),
     "SKY.SEASON": ("years", '=SKY.SEASON(A{r};"JUNE";"TT")'),
+    # A log's row of places: four columns at one instant (Calc computes column by column).
+    "a row of places (four columns)": ("log", ("=SKY.SUN.LON(A{r})", "=SKY.SUN.DEC(A{r})",
+                                               "=SKY.MOON.LON(A{r})", "=SKY.MOON.RA(A{r})")),
 }
 
 
@@ -75,8 +78,11 @@ def function_case(office, kind, formula, n):
         doc.enableAutomaticCalculation(False)
         sheet.getCellRangeByName(f"A2:A{n + 1}").setDataArray(
             tuple((v,) for v in inputs(kind, n)))
-        sheet.getCellRangeByName("B2").setFormula(formula.format(r=2))
-        target = sheet.getCellRangeByName(f"B2:B{n + 1}")
+        formulas = (formula,) if isinstance(formula, str) else formula
+        last = chr(ord("A") + len(formulas))
+        for k, f in enumerate(formulas):
+            sheet.getCellByPosition(1 + k, 1).setFormula(f.format(r=2))
+        target = sheet.getCellRangeByName(f"B2:{last}{n + 1}")
         target.fillAuto(TO_BOTTOM, 1)
         t0 = time.perf_counter()
         doc.calculateAll()
@@ -84,9 +90,9 @@ def function_case(office, kind, formula, n):
         t0 = time.perf_counter()
         doc.calculateAll()
         warm = time.perf_counter() - t0
-        values = [row[0] for row in target.getDataArray()]
+        values = [v for row in target.getDataArray() for v in row]
         problems = [v for v in values if isinstance(v, str) and v.startswith("#SKY")]
-        return {"cold_s": cold, "warm_s": warm, "cells": n,
+        return {"cold_s": cold, "warm_s": warm, "cells": n * len(formulas),
                 "messages": len(problems), "example_message": problems[0] if problems else None}
     finally:
         doc.close(True)
