@@ -27,6 +27,7 @@ from .timescales import (
     Instants,
     before_1960_message,
     erfa_quietly,
+    leap_table,
     split_days,
 )
 from .vocabulary import J2000_JD, MJD_ZERO, UTC_START_JD
@@ -189,9 +190,7 @@ def _utc_step_days():
     the calendar reading of a date-time cell."""
     global _STEP_DAYS
     if _STEP_DAYS is None:
-        table = erfa.leap_seconds.get()
-        starts = [sum(erfa.cal2jd(int(y), int(m), 1)) for y, m in zip(table["year"], table["month"])]
-        _STEP_DAYS = np.array(sorted(j - 1.0 for j in starts[1:]))
+        _STEP_DAYS = np.sort(leap_table()[0][1:] - 1.0)
     return _STEP_DAYS
 
 

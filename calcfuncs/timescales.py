@@ -164,21 +164,26 @@ def erfa_quietly(func, *args):
 # start, noon, the next day) to find the day's length; on every other day since 1972 it
 # comes to tai2 = utc2 + dat / 86400, and a column reads dat from the table in one lookup.
 LEAP_TABLE_START_JD = 2441317.5  # 1972-01-01, from which every step is a whole second
-_WHOLE_SECOND_TABLE = None
+_LEAP_TABLE = None
+
+
+def leap_table():
+    """ERFA's own leap-second table as (JDs at 0h from which each TAI - UTC holds, its
+    TAI - UTC in s, 1960 onwards), read once: every reader agrees with ERFA."""
+    global _LEAP_TABLE
+    if _LEAP_TABLE is None:
+        table = erfa.leap_seconds.get()
+        starts = np.array([sum(erfa.cal2jd(int(y), int(m), 1))
+                           for y, m in zip(table["year"], table["month"])])
+        _LEAP_TABLE = (starts, np.asarray(table["tai_utc"], dtype=float))
+    return _LEAP_TABLE
 
 
 def _whole_second_table():
-    """(JDs at 0h from which TAI - UTC holds, TAI - UTC in s, JDs at 0h of the days that
-    end in a leap second), from ERFA's own leap-second table so that both agree."""
-    global _WHOLE_SECOND_TABLE
-    if _WHOLE_SECOND_TABLE is None:
-        table = erfa.leap_seconds.get()
-        since = table[table["year"] >= 1972]
-        starts = np.array([sum(erfa.cal2jd(int(y), int(m), 1))
-                           for y, m in zip(since["year"], since["month"])])
-        _WHOLE_SECOND_TABLE = (starts, np.asarray(since["tai_utc"], dtype=float),
-                               starts[1:] - 1.0)
-    return _WHOLE_SECOND_TABLE
+    """leap_table() from 1972, and the JDs at 0h of the days that end in a leap second."""
+    starts, dat = leap_table()
+    since = starts >= LEAP_TABLE_START_JD
+    return starts[since], dat[since], starts[since][1:] - 1.0
 
 
 def utc_to_tai(jd1, jd2):

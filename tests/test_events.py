@@ -299,15 +299,22 @@ def test_an_estimate_with_no_sign_change_finds_nothing_and_an_error_keeps_its_ro
     np.testing.assert_allclose(root_days(roots), [105.5], rtol=0, atol=TOL)
 
 
+def sine_zero_guesses(seed, off):
+    """The zeros of sin(2 pi t / 7.3) at k * 3.65 (closed form), k = 1..5, and guesses
+    off by up to ``off`` days from them."""
+    k = np.arange(1, 6)
+    truth = 3.65 * k
+    rng = np.random.default_rng(seed)
+    guesses = events.Roots(np.full(k.size, J0), truth + rng.uniform(-off, off, k.size),
+                           np.arange(k.size))
+    return k, truth, guesses
+
+
 def test_polish_takes_near_guesses_to_the_roots_of_the_full_function():
     # The zeros of sin(2 pi t / 7.3) at k * 3.65 (closed form), from guesses off by up
     # to an hour with the sine's slope at the root off by 5 per cent: Newton then secant
     # steps settle each one within the tolerance.
-    k = np.arange(1, 6)
-    truth = 3.65 * k
-    rng = np.random.default_rng(3)
-    guesses = events.Roots(np.full(k.size, J0), truth + rng.uniform(-0.04, 0.04, k.size),
-                           np.arange(k.size))
+    k, truth, guesses = sine_zero_guesses(3, 0.04)
     slope = 1.05 * 2.0 * np.pi / 7.3 * np.cos(np.pi * k)
     found, settled = events.polish(sine(7.3), guesses, slope, k.size)
     assert settled.all()
@@ -320,11 +327,7 @@ def test_polish_with_a_curvature_bound_spares_the_confirming_evaluation():
     # Within 0.02 days of a zero |f''/2f'| = (w/2)|tan(w dt)| < 0.015 a day (w = 2 pi /
     # 7.3): with that bound each root settles after two evaluations instead of three,
     # still within the tolerance.
-    k = np.arange(1, 6)
-    truth = 3.65 * k
-    rng = np.random.default_rng(4)
-    guesses = events.Roots(np.full(k.size, J0), truth + rng.uniform(-0.01, 0.01, k.size),
-                           np.arange(k.size))
+    k, truth, guesses = sine_zero_guesses(4, 0.01)
     slope = 1.0001 * 2.0 * np.pi / 7.3 * np.cos(np.pi * k)
     evaluated = []
 
