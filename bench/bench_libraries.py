@@ -218,14 +218,14 @@ def sunrise(eph, ts, report):
     from skyfield import almanac
     from skyfield.api import wgs84
 
-    from calcfuncs import sun
+    from calcfuncs import sun, sun_days
 
     days = 45658.0 + np.arange(365.0)  # 2025-01-01 ...
 
     def mine():
         # Cold every time: the kept days and nodes of the Sun would make repeats free.
         sun._DAY_CACHE.clear()
-        sun._NODE_CACHE.clear()
+        sun_days.forget()
         return reply("SKY.SUN.RISE", [column(days), SITE[0], SITE[1]])
 
     t_ours, rise = best(mine)

@@ -35,7 +35,7 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
-from calcfuncs import cells, risings, sun, windows  # noqa: E402
+from calcfuncs import cells, risings, sun, sun_days, windows  # noqa: E402
 from timing import save_figures  # noqa: E402
 
 LAT, LON, HEIGHT, OFFSET = 47.3, 8.5, 500.0, 1.0
@@ -45,8 +45,9 @@ WINDOW_FUNCTIONS = ("SKY.WINDOW.START", "SKY.WINDOW.END", "SKY.WINDOW.HOURS",
 
 def clear_caches():
     for cache in (cells._SINGLE_CELL_CACHE, windows._NIGHT_CACHE, windows._WINDOW_CACHE,
-                  risings._NODE_CACHE, risings._ASTROM_CACHE, sun._NODE_CACHE, sun._DAY_CACHE):
+                  risings._NODE_CACHE, risings._ASTROM_CACHE, sun._DAY_CACHE):
         cache.clear()
+    sun_days.forget()
 
 
 def ours_cells(targets, days):

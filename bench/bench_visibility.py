@@ -27,7 +27,7 @@ import numpy as np
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 
-from calcfuncs import crescent, risings, sun  # noqa: E402
+from calcfuncs import crescent, risings, sun, sun_days  # noqa: E402
 from calcfuncs.timescales import Instants  # noqa: E402
 
 LAT, LON, HEIGHT, OFFSET = 31.84, 35.47, 410.0, 2.0
@@ -35,9 +35,10 @@ FIRST_JD = 2461406.5  # 2027-01-01 0h UTC
 
 
 def clear_caches():
-    for cache in (risings._NODE_CACHE, risings._ASTROM_CACHE, sun._NODE_CACHE,
+    for cache in (risings._NODE_CACHE, risings._ASTROM_CACHE,
                   sun._DAY_CACHE):
         cache.clear()
+    sun_days.forget()
 
 
 def ours(n, source):

@@ -33,23 +33,25 @@ NODES = 6       # nodes around each instant
 BEFORE = 2      # nodes before the half day that holds the instant
 DENSE_RATIO = 4  # rows per distinct node, at least, before a column is interpolated
 
-# Each node's Lagrange denominator: the product of its distances to the others.
-_DENOMINATORS = np.array([np.prod([k - j for j in range(NODES) if j != k])
-                          for k in range(NODES)], dtype=float)
+@lru_cache(maxsize=None)
+def _denominators(points):
+    """Each node's Lagrange denominator: the product of its distances to the others."""
+    return np.array([np.prod([k - j for j in range(points) if j != k])
+                     for k in range(points)], dtype=float)
 
 
-_DENOMINATORS_LIST = _DENOMINATORS.tolist()
+_DENOMINATORS_LIST = _denominators(NODES).tolist()
 
 
-def weights(x):
-    """Lagrange weights (rows x NODES) at ``x``, in node steps from the first node: for
+def weights(x, points=NODES):
+    """Lagrange weights (rows x points) at ``x``, in node steps from the first node: for
     each node the product of the gaps to the other nodes, over its own denominator."""
-    gaps = x[:, None] - np.arange(NODES, dtype=float)[None, :]
-    before = np.ones((x.size, NODES + 1))
-    after = np.ones((x.size, NODES + 1))
+    gaps = x[:, None] - np.arange(points, dtype=float)[None, :]
+    before = np.ones((x.size, points + 1))
+    after = np.ones((x.size, points + 1))
     before[:, 1:] = np.cumprod(gaps, axis=1)
     after[:, :-1] = np.cumprod(gaps[:, ::-1], axis=1)[:, ::-1]
-    return before[:, :-1] * after[:, 1:] / _DENOMINATORS
+    return before[:, :-1] * after[:, 1:] / _denominators(points)
 
 
 class Nodes:

@@ -9,7 +9,7 @@ every cache emptied (its accuracy is checked against almanacs and skyfield elsew
 import numpy as np
 import pytest
 
-from calcfuncs import cells, registry, risings, sun, windows
+from calcfuncs import cells, registry, risings, sun, sun_days, windows
 
 FILLS_DOWN = [f for f in registry.FUNCTIONS if f.fills_down]
 SITE = (47.3814, 8.0542)  # an invented hill station
@@ -18,7 +18,7 @@ SITE = (47.3814, 8.0542)  # an invented hill station
 def forget():
     cells._SINGLE_CELL_CACHE.clear()
     sun._DAY_CACHE.clear()
-    sun._NODE_CACHE.clear()
+    sun_days.forget()
     for cache in (risings._NODE_CACHE, risings._ASTROM_CACHE, windows._NIGHT_CACHE,
                   windows._WINDOW_CACHE):
         cache.clear()
