@@ -43,15 +43,17 @@ def sun_longitude(tt1, tt2, frame="TRUE", kind="APPARENT"):
     return lon
 
 
-def sun_and_sidereal(tt1, tt2, ut):
+def sun_and_sidereal(tt1, tt2, ut, with_distance=False):
     """The apparent Sun's RA and Dec on the true equator and equinox of date (degrees)
     and Greenwich apparent sidereal time (radians, IAU 2006/2000A) at TT instants whose
     UT is ``ut`` (Instants): the one sidereal time of the Sun's module.  One
-    precession-nutation matrix serves both (ERFA gst06a is gst06 of that matrix)."""
-    u, _ = sun_gcrs(tt1, tt2)
+    precession-nutation matrix serves both (ERFA gst06a is gst06 of that matrix).
+    ``with_distance``: the Sun's distance (au) too."""
+    u, r = sun_gcrs(tt1, tt2)
     npb = frames.system_matrix("EQUATORIAL TRUE", tt1, tt2)
     ra, dec = frames.spherical(vectors.apply(npb, u))
-    return ra, dec, erfa.gst06(ut.jd1, ut.jd2, tt1, tt2, npb)
+    found = ra, dec, erfa.gst06(ut.jd1, ut.jd2, tt1, tt2, npb)
+    return found + (r,) if with_distance else found
 
 
 # ---- cell functions: position ---------------------------------------------------------
@@ -258,8 +260,8 @@ class SunOverDays:
 
     SPACING = nodes.SPACING  # days between the nodes of TT - UT
     NODES = nodes.NODES  # the window [start, start + 1] lies between the second and fifth
-    SUN_SPACING = 2.0  # days between the nodes of the Sun and GAST - ERA
-    SUN_NODES = 8      # the window lies between the fourth and the sixth
+    SUN_SPACING = sun_days.DAY_SPACING  # days between the nodes of the Sun and GAST - ERA
+    SUN_NODES = sun_days.DAY_POINTS     # the window lies between the fourth and the sixth
 
     def __init__(self, start, dut1=0.0):
         start = np.ravel(np.asarray(start, dtype=float))
@@ -271,7 +273,7 @@ class SunOverDays:
         check_rows_of_nodes(grid)
         unique, self.sun_index = np.unique(grid, return_inverse=True)
         self.sun_index = self.sun_index.reshape(grid.shape)
-        self.sun_values = sun_days.values(unique)
+        self.sun_values = sun_days.values(unique)[:, :4]
         # TT - UT (days) at half-day nodes, interpolated too where it is smooth over the
         # row's nodes; a leap second or a 1960s step of UTC (a jump in UT1 = UTC + DUT1)
         # shows in its second differences, and such rows take UT exactly everywhere.
@@ -364,20 +366,21 @@ def _hour_angle_and_dec(sun, start, lon):
     return wrap180(np.degrees(gast) + lon - ra), dec
 
 
-def _rise_and_set_by_hour_angle(sun, f, start, lat, lon, h0):
-    """(rows found, their rising and falling offsets from 0h, Sun above at 0h) for the
-    rows where the crossings are found from their hour angle (see SAFE_COS)."""
+def rise_and_set_by_hour_angle(f, start, ha, dec, lat, h0):
+    """(rows found, their rising and falling offsets from 0h in days, Sun above at 0h)
+    for the rows where the crossings of ``f`` (the altitude minus ``h0``, degrees) are
+    found from their hour angle (see SAFE_COS); ``ha`` and ``dec``: the Sun's hour angle
+    and declination (degrees) at each row's 0h + 12 h."""
     n = start.size
-    ha, dec = _hour_angle_and_dec(sun, start, lon)
     phi, delta = np.radians(lat), np.radians(dec)
     with np.errstate(divide="ignore", invalid="ignore"):
         c = ((np.sin(np.radians(h0)) - np.sin(phi) * np.sin(delta))
              / (np.cos(phi) * np.cos(delta)))
-    h_event = np.degrees(np.arccos(np.clip(np.nan_to_num(c, nan=2.0), -1.0, 1.0)))
+    c = np.nan_to_num(c, nan=2.0)
+    h_event = np.degrees(np.arccos(np.clip(c, -1.0, 1.0)))
     rising = 0.5 + wrap180(-h_event - ha) / SOLAR_DAY_DEG
     falling = 0.5 + wrap180(h_event - ha) / SOLAR_DAY_DEG
-    ok = ((np.abs(np.nan_to_num(c, nan=2.0)) < SAFE_COS)
-          & (np.minimum(rising, falling) > EDGE_DAYS)
+    ok = ((np.abs(c) < SAFE_COS) & (np.minimum(rising, falling) > EDGE_DAYS)
           & (np.maximum(rising, falling) < 1.0 - EDGE_DAYS))
     rows = np.flatnonzero(ok)
     # The altitude's rate at the crossing, degrees a day (d sin h = - cos phi cos delta
@@ -403,7 +406,8 @@ def _search_days(start, lat, lon, h0, dut1):
         return _altitude(ra, dec, gast, lat[row], lon[row]) - h0[row]
 
     out = [None] * n
-    quick, up, down, above = _rise_and_set_by_hour_angle(sun, f, start, lat, lon, h0)
+    ha, dec = _hour_angle_and_dec(sun, start, lon)
+    quick, up, down, above = rise_and_set_by_hour_angle(f, start, ha, dec, lat, h0)
     for j, (k, a) in enumerate(zip(quick.tolist(), above.tolist())):
         s = start[k:k + 1]
         out[k] = (s, up[j:j + 1], s, down[j:j + 1], a)

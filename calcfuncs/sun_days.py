@@ -54,6 +54,8 @@ SUN_SPACING, SUN_ANCHORS = 12.0, 10
 # anchors 12 or 48 days apart).
 NUTATION_SPACING, NUTATION_ANCHORS = 48.0, 8
 ANCHORED_YEARS = (1600.0, 2400.0)
+# The searches take the days DAY_SPACING apart and interpolate between DAY_POINTS of them.
+DAY_SPACING, DAY_POINTS = 2.0, 8
 ANCHORED_JD = tuple(2451545.0 + (y - 2000.0) * 365.25 for y in ANCHORED_YEARS)
 
 # The Moon's mass over the Earth's, 0.0123000371 (the IAU 2009 system of astronomical
@@ -64,7 +66,7 @@ LIGHT_AU_PER_DAY = 299792.458 * 86400.0 / 149597870.7
 
 DAYS_KEPT = 20_000      # about 55 years of days, 0.8 MB
 ANCHORS_KEPT = 5_000    # of each kind: 160 years of the Sun's, 0.2 MB
-_DAYS = {}          # TT JD of a day -> (unit vector of the apparent Sun, GAST - ERA in degrees)
+_DAYS = {}          # TT JD of a day -> (the apparent Sun's unit vector, GAST - ERA, distance)
 _SUN_ANCHORS = {}   # TT JD -> the apparent Sun less the swing (au)
 _NUTATION_ANCHORS = {}  # TT JD -> IAU 2000A - 2000B (dpsi, deps in radians)
 
@@ -76,17 +78,34 @@ def forget():
 
 def direct(tt):
     """Per TT instant: the apparent Sun's unit vector on the true equator and equinox of
-    date and GAST - ERA in degrees (minus the equation of the origins), computed in full
-    (sun.sun_and_sidereal)."""
+    date, GAST - ERA in degrees (minus the equation of the origins) and the Sun's
+    distance (au), computed in full (sun.sun_and_sidereal)."""
+    from .frames import unit_vectors
     from .sun import sun_and_sidereal
 
     zero = np.zeros(tt.shape)
     ut = Instants(tt, zero, "TT").to("UT")
-    ra, dec, gast = sun_and_sidereal(tt, zero, ut)
+    ra, dec, gast, distance = sun_and_sidereal(tt, zero, ut, with_distance=True)
     origins = wrap180(np.degrees(gast - erfa.era00(ut.jd1, ut.jd2)))
-    from .frames import unit_vectors
+    return np.concatenate([unit_vectors(ra, dec), origins[:, None], distance[:, None]], axis=1)
 
-    return np.concatenate([unit_vectors(ra, dec), origins[:, None]], axis=1)
+
+def at_instants(tt):
+    """``values`` at any TT instants, through the DAY_POINTS days around each (days
+    DAY_SPACING apart, Lagrange), as the searches of sun.py take them (the unit vector
+    then unit to 1e-12)."""
+    return _interpolated(tt, DAY_SPACING, DAY_POINTS, values)
+
+
+def cirs_vectors(tt):
+    """The apparent Sun's geocentric vectors (au) on the CIRS axes at TT instants: the
+    true equator's, turned about the pole by GAST - ERA (the equation of the origins: the
+    CIO's right ascension on the true equator), from ``at_instants``."""
+    v = at_instants(tt)
+    turn = np.radians(v[:, 3])
+    c, s = np.cos(turn), np.sin(turn)
+    x, y = v[:, 0], v[:, 1]
+    return np.stack([c * x + s * y, c * y - s * x, v[:, 2]], axis=1) * v[:, 4:5]
 
 
 def _swing(tt):
@@ -137,41 +156,47 @@ def _nutation_difference(tt):
     return full - np.stack(erfa.ufunc.nut00b(tt, zero), axis=-1)
 
 
-def _interpolated(tt, spacing, points, kept, compute):
-    """At TT instants: ``compute`` at anchors ``spacing`` days apart (kept), through the
-    ``points`` anchors around each instant."""
+def _interpolated(tt, spacing, points, at_nodes):
+    """At TT instants: ``at_nodes`` at TT JDs ``spacing`` days apart, through the
+    ``points`` of them around each instant (Lagrange)."""
     first = np.floor(tt / spacing) - (points // 2 - 1)
     grid = (first[:, None] + np.arange(points)) * spacing
     unique, index = np.unique(grid, return_inverse=True)
-    values = _kept(kept, ANCHORS_KEPT, compute, unique)[index.reshape(grid.shape)]
-    return np.einsum("mk,mkc->mc", nodes.weights(tt / spacing - first, points), values)
+    found = at_nodes(unique)[index.reshape(grid.shape)]
+    return np.einsum("mk,mkc->mc", nodes.weights(tt / spacing - first, points), found)
+
+
+def _at_anchors(kept, compute):
+    return lambda tt: _kept(kept, ANCHORS_KEPT, compute, tt)
 
 
 def anchored(tt):
     """Per TT day inside ANCHORED_YEARS: as ``direct``, from the anchors and the fast
     parts computed at the day (the module's words)."""
     shift, beta = _swing(tt)
-    sun = _interpolated(tt, SUN_SPACING, SUN_ANCHORS, _SUN_ANCHORS, _sun_less_swing) + shift
+    sun = _interpolated(tt, SUN_SPACING, SUN_ANCHORS,
+                        _at_anchors(_SUN_ANCHORS, _sun_less_swing)) + shift
     sun = sun - _aberration_part(sun, beta)
-    difference = _interpolated(tt, NUTATION_SPACING, NUTATION_ANCHORS, _NUTATION_ANCHORS,
-                               _nutation_difference)
+    difference = _interpolated(tt, NUTATION_SPACING, NUTATION_ANCHORS,
+                               _at_anchors(_NUTATION_ANCHORS, _nutation_difference))
     zero = np.zeros(tt.shape)
     dpsi, deps = erfa.ufunc.nut00b(tt, zero)
     gamb, phib, psib, epsa = erfa.ufunc.pfw06(tt, zero)
     npb = erfa.ufunc.fw2m(gamb, phib, psib + (dpsi + difference[:, 0]),
                           epsa + (deps + difference[:, 1]))
     seen = np.einsum("mij,mj->mi", npb, sun)
-    seen /= np.sqrt(np.einsum("mi,mi->m", seen, seen))[:, None]
+    distance = np.sqrt(np.einsum("mi,mi->m", seen, seen))
+    seen /= distance[:, None]
     x, y = erfa.ufunc.bpn2xy(npb)
     origins = -np.degrees(erfa.ufunc.eors(npb, erfa.ufunc.s06(tt, zero, x, y)))
-    return np.concatenate([seen, wrap180(origins)[:, None]], axis=1)
+    return np.concatenate([seen, wrap180(origins)[:, None], distance[:, None]], axis=1)
 
 
 def values(tt):
     """Per TT day (whole or half TT JDs, exact in one double): the apparent Sun's unit
-    vector on the true equator and equinox of date and GAST - ERA in degrees; kept
-    across calls."""
-    out = np.empty((tt.size, 4))
+    vector on the true equator and equinox of date, GAST - ERA in degrees and the Sun's
+    distance (au); kept across calls."""
+    out = np.empty((tt.size, 5))
     missing = []
     for k, t in enumerate(tt.tolist()):
         found = _DAYS.get(t)
@@ -182,7 +207,7 @@ def values(tt):
     if missing:
         todo = tt[missing]
         inside = (todo >= ANCHORED_JD[0]) & (todo <= ANCHORED_JD[1])
-        fresh = np.empty((todo.size, 4))
+        fresh = np.empty((todo.size, 5))
         if np.any(inside):
             fresh[inside] = anchored(todo[inside])
         if not np.all(inside):
