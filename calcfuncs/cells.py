@@ -460,7 +460,7 @@ def _plain_single(fn, rows, options, null_jd):
         if out.words is not None:
             return None
         out, in_leap = _date_time_values(out, null_jd)
-        if np.any(in_leap):
+        if in_leap.any():
             return None
     out = np.asarray(out)
     if out.size != 1 or out.dtype.kind != "f":

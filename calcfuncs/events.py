@@ -452,6 +452,13 @@ def _first_later(found, window_of, tt1, tt2):
     """Per row: (jd1, jd2, found) of the first root of its window later than its instant:
     each window's roots a row of a padded table, then every row at once."""
     n = tt1.size
+    if n == 1 and found[window_of[0]] is not None:
+        # One cell: the same comparison on Python floats, no padded table.
+        t1, t2 = float(tt1[0]), float(tt2[0])
+        for x1, x2 in zip(*(r.tolist() for r in found[window_of[0]])):
+            if (x1 - t1) + (x2 - t2) > 0.0:
+                return np.array([x1]), np.array([x2]), np.array([True])
+        return np.array([np.nan]), np.array([np.nan]), np.array([False])
     width = max([1] + [f[0].size for f in found if f is not None])
     r1 = np.full((len(found), width), np.nan)
     r2 = np.zeros((len(found), width))

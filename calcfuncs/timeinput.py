@@ -24,11 +24,13 @@ from .calendars import (
 from .errors import SkyError
 from .timescales import (
     JD_LIMIT,
+    LEAP_TABLE_START_JD,
     Instants,
     before_1960_message,
     erfa_quietly,
     leap_table,
     split_days,
+    utc_day_lengths,
 )
 from .vocabulary import J2000_JD, MJD_ZERO, UTC_START_JD
 
@@ -350,9 +352,14 @@ def _utc_clock(jd1, jd2):
     and its quasi-JD fraction spreads over that length.  ERFA d2dtf rescales only for
     whole seconds, so the 1960s days are handled here.
     """
-    iy, im, iday, fd = erfa.jd2cal(jd1, jd2)
-    day0, day1 = erfa.cal2jd(iy, im, iday)
+    iy, im, iday, fd, status = erfa.ufunc.jd2cal(jd1, jd2)
+    if status.any():  # ERFA's own message for a date it cannot take
+        iy, im, iday, fd = erfa.jd2cal(jd1, jd2)
+    day0, day1, _ = erfa.ufunc.cal2jd(iy, im, iday)  # a date jd2cal made: status 0
     start = day0 + day1
+    if (start >= LEAP_TABLE_START_JD).all():
+        length = utc_day_lengths(start)  # the same, from the table at once
+        return start, fd * length, length
     ny, nm, nd, _ = erfa.jd2cal(start, 1.0)
     dat0 = erfa_quietly(erfa.dat, iy, im, iday, 0.0)
     dat12 = erfa_quietly(erfa.dat, iy, im, iday, 0.5)

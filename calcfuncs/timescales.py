@@ -120,7 +120,7 @@ def check_years(jd1, jd2, span, what, hint=""):
     way for every model and source: "<what>, valid 1000 to 3000[; <hint>]"."""
     years = julian_year(np.asarray(jd1, dtype=float), np.asarray(jd2, dtype=float))
     outside = (years < span[0]) | (years > span[1])
-    if np.any(outside):
+    if outside.any():
         raise rows_failing(outside, f"{what}, valid {years_text(span)}"
                                     + (f"; {hint}" if hint else ""))
 
@@ -179,11 +179,26 @@ def leap_table():
     return _LEAP_TABLE
 
 
+_WHOLE_SECOND_TABLE = []
+
+
 def _whole_second_table():
     """leap_table() from 1972, and the JDs at 0h of the days that end in a leap second."""
-    starts, dat = leap_table()
-    since = starts >= LEAP_TABLE_START_JD
-    return starts[since], dat[since], starts[since][1:] - 1.0
+    if not _WHOLE_SECOND_TABLE:
+        starts, dat = leap_table()
+        since = starts >= LEAP_TABLE_START_JD
+        _WHOLE_SECOND_TABLE.append((starts[since], dat[since], starts[since][1:] - 1.0))
+    return _WHOLE_SECOND_TABLE[0]
+
+
+def utc_day_lengths(start):
+    """SI seconds in UTC days since 1972 (``start``: their JDs at 0h, array): 86,400,
+    plus the step of TAI - UTC for a day that ends in one; what ERFA's dat at the day's
+    start, noon and next start gives (``timeinput``), read from its table in one lookup."""
+    starts, dat, _ = _whole_second_table()
+    k = np.minimum(np.searchsorted(starts, start, side="right"), starts.size - 1)
+    step = np.where(starts[k] == start + 1.0, dat[k] - dat[k - 1], 0.0)
+    return 86400.0 + step
 
 
 def utc_to_tai(jd1, jd2):
@@ -226,7 +241,7 @@ class Instants:
             raise SkyError(f"DUT1 of {dut1} s is outside -1 to +1 s")
         if self.scale in ("UTC", "UT1"):
             early = (self.jd1 + self.jd2) < UTC_START_JD
-            if np.any(early):
+            if early.any():
                 raise rows_failing(early, before_1960_message(self.scale))
 
     def __len__(self):
@@ -344,7 +359,7 @@ class Instants:
                 return Instants(tt1, tt2, "TT", dut1)
             return Instants(*tt_to_tdb(tt1, tt2), "TDB", dut1)
         early = (tai1 + tai2) < UTC_START_JD
-        if np.any(early):
+        if early.any():
             raise rows_failing(early, before_1960_message(scale))
         utc1, utc2 = erfa_quietly(erfa.taiutc, tai1, tai2)
         if scale == "UTC":

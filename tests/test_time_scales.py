@@ -410,3 +410,31 @@ def test_tdb_far_from_j2000_is_not_silently_extrapolated(text):
     assert (isinstance(tdb, str) and tdb.startswith("#SKY: ")) or (
         abs(tdb - tt) * 86400.0 < 2e-3 + np.spacing(abs(tt)) * 86400.0
     )
+
+
+def test_utc_day_lengths_from_the_table_equal_erfa_dat_on_every_day_since_1972():
+    # Every UTC day of 1972-2040: the length read from ERFA's leap-second table in one
+    # lookup (timescales.utc_day_lengths, which writing a date-time value back uses)
+    # against ERFA's dat at the day's start, noon and the next day's start, as before.
+    import warnings
+
+    import erfa
+
+    from calcfuncs.timeinput import _utc_clock
+    from calcfuncs.timescales import utc_day_lengths
+
+    start = 2441317.5 + np.arange(0.0, 25000.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", erfa.ErfaWarning)
+        iy, im, iday, _ = erfa.jd2cal(start, 0.0)
+        ny, nm, nd, _ = erfa.jd2cal(start + 1.0, 0.0)
+        dat0, dat12 = erfa.dat(iy, im, iday, 0.0), erfa.dat(iy, im, iday, 0.5)
+        dat24 = erfa.dat(ny, nm, nd, 0.0)
+    expected = 86400.0 + (dat24 - (2.0 * dat12 - dat0))
+    assert np.array_equal(utc_day_lengths(start), expected)
+    assert np.sum(expected == 86401.0) == 27  # the 27 leap seconds of 1972-2016
+    # And the clock of instants on those days (0h, during the day, the leap second).
+    fraction = np.random.default_rng(5).uniform(0.0, 1.0, start.size)
+    day, seconds, length = _utc_clock(start, fraction)
+    assert np.array_equal(day, start) and np.array_equal(length, expected)
+    assert np.array_equal(seconds, fraction * expected)
