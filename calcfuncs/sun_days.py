@@ -42,6 +42,7 @@ import numpy as np
 
 from . import nodes
 from .bounded import keep
+from .frames import unit_vectors
 from .events import wrap180
 from .timescales import Instants
 
@@ -80,8 +81,7 @@ def direct(tt):
     """Per TT instant: the apparent Sun's unit vector on the true equator and equinox of
     date, GAST - ERA in degrees (minus the equation of the origins) and the Sun's
     distance (au), computed in full (sun.sun_and_sidereal)."""
-    from .frames import unit_vectors
-    from .sun import sun_and_sidereal
+    from .sun import sun_and_sidereal  # sun.py builds on this module
 
     zero = np.zeros(tt.shape)
     ut = Instants(tt, zero, "TT").to("UT")

@@ -38,21 +38,18 @@ def test_days_from_anchors_match_the_direct_computation(first_year):
     assert np.max(np.abs(got[:, 3] - want[:, 3])) * MAS < 5.0
 
 
-def test_the_moon_swing_is_what_the_anchors_could_not_follow():
+def test_the_moon_swing_is_what_the_anchors_could_not_follow(monkeypatch):
     # Without the Earth's monthly swing about the barycentre put back at each day, the
     # anchors 12 days apart miss it by far more than the bound: the swing is needed
     # (6.4" of the Sun's direction, a month and half a month in period).
     days = random_days(np.random.default_rng(7), 2025, 500)
     sun_days.forget()
     want = sun_days.direct(days)
-    swing = sun_days._swing
-    try:
-        sun_days._swing = lambda tt: (np.zeros((tt.size, 3)), np.zeros((tt.size, 3)))
-        sun_days.forget()
-        without = sun_days.anchored(days)
-    finally:
-        sun_days._swing = swing
-        sun_days.forget()
+    monkeypatch.setattr(sun_days, "_swing",
+                        lambda tt: (np.zeros((tt.size, 3)), np.zeros((tt.size, 3))))
+    sun_days.forget()
+    without = sun_days.anchored(days)
+    sun_days.forget()
     assert np.max(angle_mas(without[:, :3], want[:, :3])) > 100.0
 
 
