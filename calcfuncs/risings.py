@@ -37,7 +37,7 @@ from .bounded import keep
 from .errors import SkyError, rows_failing
 from .events import wrap180
 from .sun import (check_rows_of_nodes, check_site, local_day_start, local_times,
-                  rise_and_set_by_hour_angle, row_values)
+                  row_values, sun_rise_and_set)
 from .timescales import Instants
 from .topocentric import MOON_RADIUS_KM, SUN_RADIUS_KM, check_body
 from .vocabulary import AU_KM, AU_M, BUILTIN
@@ -238,12 +238,12 @@ class Target:
             body = self.body
             # The built-in Sun from the days of sun_days (within 5 mas of its exact
             # place, as for SKY.SUN.RISE), at a tenth of the cost.
-            exact = (sun_days.cirs_vectors if (body, source) == ("SUN", BUILTIN)
-                     else lambda tt: body_node_vectors(body, source, tt))
+            at_nodes = (sun_days.cirs_vectors if (body, source) == ("SUN", BUILTIN)
+                        else lambda tt: body_node_vectors(body, source, tt))
 
             def vectors_at(grid):
                 unique, index = np.unique(grid, return_inverse=True)
-                return exact(unique)[index.reshape(grid.shape)]
+                return at_nodes(unique)[index.reshape(grid.shape)]
             return vectors_at
         ra, dec, pm_ra, pm_dec, epoch = (row_values(v, n) for v in self.star)
         return lambda grid: star_node_vectors(ra, dec, pm_ra, pm_dec, epoch, grid)
@@ -301,41 +301,16 @@ def day_search(target, time, latitude, longitude, utc_offset, height, h_fixed, l
 
 
 def _sun_rise_and_set(above, over, site, start, h_fixed, radius_au):
-    """The Sun's (rising Roots, falling Roots, above at 0h): from the hour angle where the
-    crossings are well clear of culmination and of midnight (sun.rise_and_set_by_hour_
-    angle, the guess from the Sun's topocentric hour angle and geocentric declination at
-    0h + 12 h), by samples and brackets for the other rows."""
+    """The Sun's (rising Roots, falling Roots, above at 0h) by sun.sun_rise_and_set, the
+    hour-angle guess from its topocentric hour angle and geocentric declination at
+    0h + 12 h."""
     n = start.size
     rows = np.arange(n)
     v, era = over.at(start, np.full(n, 0.5), rows)
     _, ha, r = site.seen(v, era, rows)
     dec = np.degrees(np.arcsin(v[:, 2] / np.sqrt(np.einsum("mi,mi->m", v, v))))
     h0 = h_fixed - np.degrees(np.arcsin(radius_au / r)) if radius_au else h_fixed
-    quick, up, down, above_at_start = rise_and_set_by_hour_angle(
-        above, start, ha, dec, np.degrees(site.lat), h0)
-    at_start = np.zeros(n, dtype=bool)
-    at_start[quick] = above_at_start
-    rest = np.flatnonzero(~np.isin(rows, quick))
-    ups = events.Roots(start[quick], up, quick)
-    downs = events.Roots(start[quick], down, quick)
-    if rest.size:
-        more_ups, more_downs, rest_at_start = events.rising_and_falling(
-            lambda jd1, jd2, row: above(jd1, jd2, rest[row]), start[rest], start[rest] + 1.0,
-            1.0 / 24.0, extrema=True)
-        at_start[rest] = rest_at_start > 0
-        ups = _joined(ups, more_ups, rest)
-        downs = _joined(downs, more_downs, rest)
-    return ups, downs, at_start
-
-
-def _joined(roots, more, rows_of_more):
-    """Two Roots as one, ordered by row (``more``'s rows are indices into
-    ``rows_of_more``)."""
-    jd1 = np.concatenate([roots.jd1, more.jd1])
-    jd2 = np.concatenate([roots.jd2, more.jd2])
-    row = np.concatenate([roots.row, rows_of_more[more.row]])
-    order = np.argsort(row, kind="stable")
-    return events.Roots(jd1[order], jd2[order], row[order])
+    return sun_rise_and_set(above, start, ha, dec, np.degrees(site.lat), h0)
 
 
 def _no_event_words(target, rising, other_found, up_at_start):

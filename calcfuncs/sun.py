@@ -396,6 +396,38 @@ def rise_and_set_by_hour_angle(f, start, ha, dec, lat, h0):
     return rows[good], up, down, down < up
 
 
+def _joined(roots, more, rows_of_more):
+    """Two Roots as one, ordered by row (``more``'s rows are indices into
+    ``rows_of_more``)."""
+    jd1 = np.concatenate([roots.jd1, more.jd1])
+    jd2 = np.concatenate([roots.jd2, more.jd2])
+    row = np.concatenate([roots.row, rows_of_more[more.row]])
+    order = np.argsort(row, kind="stable")
+    return events.Roots(jd1[order], jd2[order], row[order])
+
+
+def sun_rise_and_set(f, start, ha, dec, lat, h0):
+    """The Sun's (rising Roots, falling Roots, above at 0h) over each row's local day:
+    by hour angle where that applies (rise_and_set_by_hour_angle), by hourly samples and
+    brackets for the other rows (near the polar day and night the Sun may clear the
+    horizon for minutes around noon only: the vertices of the samples' peaks and
+    troughs are sampled too)."""
+    n = start.size
+    quick, up, down, above = rise_and_set_by_hour_angle(f, start, ha, dec, lat, h0)
+    at_start = np.zeros(n, dtype=bool)
+    at_start[quick] = above
+    ups = events.Roots(start[quick], up, quick)
+    downs = events.Roots(start[quick], down, quick)
+    rest = np.flatnonzero(~np.isin(np.arange(n), quick))
+    if rest.size:
+        more_ups, more_downs, rest_at_start = events.rising_and_falling(
+            lambda jd1, jd2, row: f(jd1, jd2, rest[row]), start[rest], start[rest] + 1.0,
+            1.0 / 24.0, extrema=True)
+        at_start[rest] = rest_at_start > 0
+        ups, downs = _joined(ups, more_ups, rest), _joined(downs, more_downs, rest)
+    return ups, downs, at_start
+
+
 def _search_days(start, lat, lon, h0, dut1):
     """Per row: (rising jd1, jd2, falling jd1, jd2, Sun above at 0h), one search."""
     n = start.size
@@ -405,27 +437,14 @@ def _search_days(start, lat, lon, h0, dut1):
         ra, dec, gast = sun.at(jd1, jd2, row)
         return _altitude(ra, dec, gast, lat[row], lon[row]) - h0[row]
 
-    out = [None] * n
     ha, dec = _hour_angle_and_dec(sun, start, lon)
-    quick, up, down, above = rise_and_set_by_hour_angle(f, start, ha, dec, lat, h0)
-    for j, (k, a) in enumerate(zip(quick.tolist(), above.tolist())):
-        s = start[k:k + 1]
-        out[k] = (s, up[j:j + 1], s, down[j:j + 1], a)
-    rest = np.flatnonzero([o is None for o in out])
-    if rest.size:
-        # Hourly samples, and the vertices of their peaks and troughs: near the polar
-        # night the Sun may clear the horizon for minutes around noon only.
-        ups, downs, at_start = events.rising_and_falling(
-            lambda jd1, jd2, row: f(jd1, jd2, rest[row]), start[rest], start[rest] + 1.0,
-            1.0 / 24.0, extrema=True)
-        # Roots come ordered by row: each row's are one slice.
-        up = np.searchsorted(ups.row, np.arange(rest.size + 1))
-        down = np.searchsorted(downs.row, np.arange(rest.size + 1))
-        for j, k in enumerate(rest.tolist()):
-            out[k] = (ups.jd1[up[j]:up[j + 1]], ups.jd2[up[j]:up[j + 1]],
-                      downs.jd1[down[j]:down[j + 1]], downs.jd2[down[j]:down[j + 1]],
-                      bool(at_start[j] > 0))
-    return out
+    ups, downs, at_start = sun_rise_and_set(f, start, ha, dec, lat, h0)
+    # Roots come ordered by row: each row's are one slice.
+    up = np.searchsorted(ups.row, np.arange(n + 1))
+    down = np.searchsorted(downs.row, np.arange(n + 1))
+    return [(ups.jd1[up[k]:up[k + 1]], ups.jd2[up[k]:up[k + 1]],
+             downs.jd1[down[k]:down[k + 1]], downs.jd2[down[k]:down[k + 1]],
+             bool(at_start[k])) for k in range(n)]
 
 
 def _remember(key, day):
