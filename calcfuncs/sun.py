@@ -125,6 +125,7 @@ def rough_longitude(tt1, tt2, frame="TRUE"):
 # (tests/test_sun.py).  Set at 2e-3: a polished equinox then costs two evaluations of
 # the full theory instead of three.
 LONGITUDE_CURVATURE = 2e-3
+SAMPLE_DAYS = 30.0  # the rough longitude's samples in a search (longitude_crossings)
 
 
 def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
@@ -139,8 +140,11 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
         return wrap180(rough_longitude(jd1, jd2, frame) - target[row])
 
     # The rough longitude is off by a few hundredths of a degree, under an hour of the
-    # Sun's motion; it moves about 1 degree a day: 1-day samples never skip a crossing.
-    return events.polished_crossings(f, rough, start_tt, end_tt, 1.0, jump=90.0,
+    # Sun's motion.  The apparent longitude never goes back and moves 0.95 to 1.02
+    # degrees a day: samples SAMPLE_DAYS apart see each crossing as a rise through zero
+    # of about 30 degrees, which ``jump`` (90) tells from the wrap at 180; a few
+    # false-position steps on the rough function then place it within seconds.
+    return events.polished_crossings(f, rough, start_tt, end_tt, SAMPLE_DAYS, jump=90.0,
                                      curvature=LONGITUDE_CURVATURE)
 
 
