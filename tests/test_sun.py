@@ -1078,3 +1078,26 @@ def test_a_season_whose_polish_goes_astray_is_found_by_brackets(monkeypatch):
     monkeypatch.setattr(events, "polish", astray)
     k1, k2 = sun.season_instant(years, "SEPTEMBER")
     assert np.max(np.abs((k1 - j1) + (k2 - j2))) < 1e-8
+
+
+@pytest.mark.parametrize("event", list(sun.SEASONS))
+def test_seasons_over_the_whole_span_equal_a_daily_bracketing_search(event):
+    # longitude_crossings samples the rough longitude SAMPLE_DAYS apart, places each
+    # crossing by false position on it and polishes on the full theory by Newton and
+    # secant steps.  Against brackets on the full theory itself, sampled every day in a
+    # week around each answer (events.crossings): one crossing there, the same instant
+    # within the search's 1e-8 day, for years spread over the built-in source's span
+    # (where the rough longitude is off by the most).
+    from calcfuncs import events
+
+    years = np.unique(np.linspace(sun.FIRST_YEAR, sun.LAST_YEAR, 25).round().astype(int))
+    j1, j2 = sun.season_instant(years, event)
+    target = sun.SEASONS[event]
+
+    def f(t1, t2, row):
+        return wrap180(sun.sun_longitude(t1, t2) - target)
+
+    middle = j1 + np.round(j2)
+    roots = events.crossings(f, middle - 4.0, middle + 4.0, 1.0, direction=+1, jump=90.0)
+    assert np.array_equal(roots.row, np.arange(years.size))
+    assert np.max(np.abs((roots.jd1 - j1) + (roots.jd2 - j2))) < 1e-8
