@@ -4,7 +4,7 @@ sample sheets' opening, and a new site typed into the meteor sheet.
 A benchmark, not a test: it prints numbers and asserts nothing about speed.
 
     .venv/bin/python bench/bench_sheets.py --oxt dist/eclipsheet.oxt [--rows 2000]
-                                           [--json out.json]
+                                           [--json out.json] [--only SEASON ...]
 
 1 functions  one formula per row, filled down ``--rows`` rows of distinct inputs in a
              fresh document with automatic calculation off; the first ``calculateAll()``
