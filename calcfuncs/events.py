@@ -322,7 +322,7 @@ def crossings(f, start, end, step, direction=0, tolerance=1e-8, jump=None, extre
     return refine(f, brackets(grid, direction, jump), tolerance)
 
 
-def polish(f, guesses, slope, n, tolerance=1e-8, steps=5, curvature=None):
+def polish(f, guesses, slope, n, tolerance=1e-8, steps=5, curvature=None, split=None):
     """Roots of ``f`` next to ``guesses`` (``Roots`` of a cheap function that follows
     ``f`` closely): a Newton step with the cheap function's ``slope`` (per guess, per
     day), then secant steps, each root on its own, until it moves by under a tenth of
@@ -335,30 +335,48 @@ def polish(f, guesses, slope, n, tolerance=1e-8, steps=5, curvature=None):
     tenth of ``tolerance`` by that bound has settled, and the evaluation that would
     only confirm it is spared (two evaluations a root).
 
+    ``split``: (cheap, slow, drift) where ``f`` is ``cheap + slow``, ``slow`` the costly
+    part and changing by at most ``drift`` (f's unit) a day.  The guesses then take
+    ``cheap`` alone, and ``slow`` from the Newton step's point, where it is computed
+    anyway: one evaluation of ``slow`` a root fewer.  The first secant's slope is then
+    off by at most ``drift`` over the slope itself, which the settling test counts.
+
     Returns (``Roots``, mask of the roots that settled); a root that did not settle, or
     moved by more than a day, is for the caller to search for by brackets."""
     jd1, row = guesses.jd1, guesses.row
     x0 = np.array(guesses.jd2, dtype=float)
-    f0 = evaluate(f, jd1, x0, row, n)
+    f0 = evaluate(f if split is None else split[0], jd1, x0, row, n)
     x1 = x0 - f0 / slope
     settled = np.zeros(x0.shape, dtype=bool)
+    first = split is not None  # f0 is cheap's alone until the first step adds slow
     for _ in range(steps - 1):
         active = ~settled
         if not np.any(active):
             break
         f1 = np.zeros(x0.shape)
-        f1[active] = evaluate(f, jd1[active], x1[active], row[active], n)
+        if first:  # every root is active at the first step
+            cheap, slow, drift = split
+            later = evaluate(slow, jd1, x1, row, n)
+            f1 = evaluate(cheap, jd1, x1, row, n) + later
+            f0 = f0 + later  # off from f(x0) by at most drift |x1 - x0|
+        else:
+            f1[active] = evaluate(f, jd1[active], x1[active], row[active], n)
         with np.errstate(divide="ignore", invalid="ignore"):
             secant = np.where(x1 != x0, (f1 - f0) / (x1 - x0), slope)
         x2 = np.where(active, x1 - f1 / secant, x1)
         moved = np.abs(x2 - x1)
         done = moved < 0.1 * tolerance
         if curvature is not None:
-            done |= curvature * moved * np.abs(x1 - x0) < 0.1 * tolerance
+            bound = curvature * moved * np.abs(x1 - x0)
+            if first:
+                with np.errstate(divide="ignore", invalid="ignore"):
+                    bound = bound + moved * drift / np.abs(secant)
+            done |= bound < 0.1 * tolerance
         settled |= active & done
         x0 = np.where(active, x1, x0)
         f0 = np.where(active, f1, f0)
         x1 = x2
+        first = False
     good = settled & np.isfinite(x1) & (np.abs(x1 - guesses.jd2) < 1.0)
     return Roots(jd1, x1, row), good
 
@@ -390,13 +408,14 @@ def _rough_roots(f, found):
 
 
 def polished_crossings(f, rough, start, end, step, direction=+1, jump=None, curvature=None,
-                       tolerance=1e-8):
+                       tolerance=1e-8, split=None):
     """The crossings of ``f`` (as ``crossings`` finds them) found from those of
     ``rough``, a cheap function with the same zeros to well within a day:
     its own crossings, over windows a day wider, each polished on ``f`` by Newton and
     secant steps (``polish``; ``curvature`` as there), two to four evaluations of ``f``
-    a root where brackets take a dozen.  Rows where a step went astray are searched by
-    brackets on ``f`` instead (``rough`` then only says where to sample)."""
+    a root where brackets take a dozen (``split`` as there).  Rows where a step went
+    astray are searched by brackets on ``f`` instead (``rough`` then only says where to
+    sample)."""
     start, end = np.ravel(start), np.ravel(end)
     n = start.size
     grid = sample(rough, start - 1.0, end + 1.0, step)
@@ -407,7 +426,8 @@ def polished_crossings(f, rough, start, end, step, direction=+1, jump=None, curv
                     np.concatenate([guesses.jd2 + 0.01, guesses.jd2 - 0.01]),
                     np.tile(guesses.row, 2), n)
     slope = (ends[:count] - ends[count:]) / 0.02
-    found, settled = polish(f, guesses, slope, n, tolerance=tolerance, curvature=curvature)
+    found, settled = polish(f, guesses, slope, n, tolerance=tolerance, curvature=curvature,
+                            split=split)
     inside = (((found.jd1 - start[found.row]) + found.jd2 >= 0.0)
               & ((found.jd1 - end[found.row]) + found.jd2 <= 0.0))
     unsure = np.unique(found.row[~settled])
