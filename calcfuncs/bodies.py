@@ -61,6 +61,9 @@ def _aberrate(u, earth_v, sun_distance):
     return erfa.ab(u, c, sun_distance, bm1)
 
 
+LIGHT_TIME_ROUNDS = 2  # after the geometric distance (place, below)
+
+
 def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     """The ``Place`` of ``body`` (SUN, MOON or a planet, or an object whose
     ``heliocentric(t1, t2)`` gives (p, v): a two-body orbit) at the source's argument
@@ -102,9 +105,11 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     helio = helio_at(tau)
     vector = geocentric(helio, tau)
     if kind != "GEOMETRIC":
-        # Each round gains a factor v/c on the light time: three leave nanoseconds for a
-        # planet (minutes of light time); the Moon's 1.3 s is within 1e-11 s after two.
-        for _ in range(2 if isinstance(body, str) and body == "MOON" else 3):
+        # Each round gains a factor of the radial speed over c (up to about 2e-4, for
+        # Mercury) on the light time: after two, the places are within 0.6 micro-
+        # arcseconds and 1.1 m of the converged ones (measured over 1900-2100 against
+        # five rounds, tests/test_planets.py); the Moon's 1.3 s is off by 1e-11 s.
+        for _ in range(LIGHT_TIME_ROUNDS):
             tau = vectors.norm(vector) * LIGHT_DAYS_PER_AU
             helio = helio_at(tau)
             vector = geocentric(helio, tau)

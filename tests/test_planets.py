@@ -591,3 +591,25 @@ def test_polished_events_are_the_bracketed_ones(body, event):
     assert polished.row.size >= 20
     diff = (polished.jd1 - bracketed.jd1) + (polished.jd2 - bracketed.jd2)
     assert np.max(np.abs(diff)) < 1e-8
+
+
+@pytest.mark.parametrize("source", ["BUILTIN", DE440])
+def test_two_light_time_rounds_are_as_good_as_five(monkeypatch, source):
+    # bodies.place iterates the light time LIGHT_TIME_ROUNDS times after the geometric
+    # distance, each round gaining the radial speed over c (up to about 2e-4, Mercury).
+    # Against five rounds (converged to the last bit), 300 instants over 1900-2100,
+    # every planet of the source and the Moon: directions within 1 micro-arcsecond, distances within
+    # 2 m (measured 0.59 and 1.08, both Mercury's).
+    from calcfuncs import bodies
+
+    tt = _dates(300, 23)
+    z = np.zeros_like(tt)
+    bodies_of_source = [b for b in SKYFIELD_NAMES if source != "BUILTIN" or b != "PLUTO"]
+    for body in bodies_of_source + ["MOON"]:
+        two_u, two_r = bodies.geocentric(body, tt, z, "APPARENT", source)
+        monkeypatch.setattr(bodies, "LIGHT_TIME_ROUNDS", 5)
+        five_u, five_r = bodies.geocentric(body, tt, z, "APPARENT", source)
+        monkeypatch.setattr(bodies, "LIGHT_TIME_ROUNDS", 2)
+        angle = np.linalg.norm(two_u - five_u, axis=1)  # radians, for unit vectors this close
+        assert np.degrees(np.max(angle)) * 3600.0 < 1e-6, body
+        assert np.max(np.abs(two_r - five_r)) * KM_PER_AU < 2e-3, body
