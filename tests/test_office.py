@@ -212,6 +212,31 @@ def test_null_date_1904_moves_every_date_time_result(office):
         assert abs((a - b) - 1462.0) < 1e-9, formula
 
 
+def test_a_null_date_changed_in_an_open_document_moves_its_results(office):
+    # The add-in keeps the last NullDate it read and compares each new read with it
+    # (eclipsheet_addin._null_date): a document whose null date is changed while open
+    # must answer for the new one at the next calculation, back and forth.
+    import officekit
+
+    doc = office.new_sheet()
+    try:
+        sheet = doc.Sheets.getByIndex(0)
+        for row, formula in enumerate(NULL_DATE_RESULTS):
+            sheet.getCellByPosition(0, row).setFormula(formula)
+        cells = [sheet.getCellByPosition(0, row) for row in range(len(NULL_DATE_RESULTS))]
+        seen = []
+        for null_date in ((1899, 12, 30), (1904, 1, 1), (1899, 12, 30)):
+            officekit.set_null_date(doc, *null_date)
+            doc.calculateAll()
+            seen.append([c.getValue() for c in cells])
+    finally:
+        doc.close(True)
+    # Common practice: 1904-01-01 is 1462 days after 1899-12-30.
+    for formula, a, b, again in zip(NULL_DATE_RESULTS, *seen):
+        assert abs((a - b) - 1462.0) < 1e-9, formula
+        assert again == a, formula
+
+
 def test_saved_sheet_reopens_in_a_fresh_office_with_formulas_and_values(office, oxt, tmp_path):
     import officekit
 
