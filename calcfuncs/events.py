@@ -387,10 +387,11 @@ ROUGH_STEPS = 3  # false-position steps on a cheap function's brackets
 def _rough_roots(f, found):
     """The roots in ``Brackets`` of a cheap function, to about what it is good for:
     ROUGH_STEPS false-position steps (the last point not evaluated), no bisection.  On a
-    bracket where the function is nearly straight (a step of a day of the Sun's or the
-    Moon's motion) each step shrinks the error by the bend over the bracket; a guess good
-    to a small part of the cheap function's own error is all ``polish`` needs, where
-    ``refine`` would spend eight evaluations reaching a millisecond of its root."""
+    bracket where the function is nearly straight (30 days of the Sun's longitude, a
+    day of the Moon's elongation) each step shrinks the error by the bend over the
+    bracket; a guess good to a small part of the cheap function's own error is all
+    ``polish`` needs, where ``refine`` would spend eight evaluations reaching a
+    millisecond of its root."""
     lo, hi, f_lo, f_hi = (np.array(v, dtype=float) for v in
                           (found.lo, found.hi, found.f_lo, found.f_hi))
     row = found.row
