@@ -173,7 +173,7 @@ def main(argv=None):
                              "(one run's times swing by tens of percent on a shared machine)")
     parser.add_argument("--only", metavar="TEXT", action="append",
                         help="only the cases whose name holds TEXT (repeatable; the floor "
-                             "is always run), and neither the sheets nor the edit")
+                             "is always run): no sheets, no edit, no --json figures")
     opts = parser.parse_args(argv)
     from officekit import Office
 

@@ -51,6 +51,15 @@ class Roots:
         jd1[rows], jd2[rows], found[rows] = self.jd1[idx[at]], self.jd2[idx[at]], True
         return jd1, jd2, found
 
+    def joined(self, more, rows_of_more):
+        """These roots and ``more`` (whose rows are indices into ``rows_of_more``) as one
+        set, ordered by row and, within a row, by time."""
+        jd1 = np.concatenate([self.jd1, more.jd1])
+        jd2 = np.concatenate([self.jd2, more.jd2])
+        row = np.concatenate([self.row, rows_of_more[more.row]])
+        order = np.lexsort((jd2 + (jd1 - jd1.min() if jd1.size else 0.0), row))
+        return Roots(jd1[order], jd2[order], row[order])
+
     def count(self, n, keep=None):
         """Per row of ``n``: how many roots (where ``keep`` holds)."""
         rows = self.row if keep is None else self.row[keep]
@@ -437,12 +446,7 @@ def polished_crossings(f, rough, start, end, step, direction=+1, jump=None, curv
     again = crossings(lambda j1, j2, r: f(j1, j2, unsure[r]), start[unsure], end[unsure],
                       step, direction=direction, tolerance=tolerance, jump=jump,
                       estimate=lambda j1, j2, r: rough(j1, j2, unsure[r]))
-    keep = inside & ~np.isin(found.row, unsure)
-    jd1 = np.concatenate([found.jd1[keep], again.jd1])
-    jd2 = np.concatenate([found.jd2[keep], again.jd2])
-    row = np.concatenate([found.row[keep], unsure[again.row]])
-    order = np.lexsort((jd2 + (jd1 - jd1.min() if jd1.size else 0.0), row))
-    return Roots(jd1[order], jd2[order], row[order])
+    return found.subset(inside & ~np.isin(found.row, unsure)).joined(again, unsure)
 
 
 def rising_and_falling(f, start, end, step, tolerance=1e-8, jump=None, extrema=False):

@@ -149,10 +149,28 @@ def _long_term(system, jd1, jd2):
     return erfa.rx(-(eps + deps), true_ecliptic)
 
 
+def _in_iau2006_years(jd1, jd2):
+    years = julian_year(jd1, jd2)
+    return (years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])
+
+
+def true_nutation_in_longitude(jd1, jd2):
+    """The nutation in longitude (radians) that the true systems of places take (as
+    _dated_any_year builds them): IAU 2000A adjusted to IAU 2006 (ERFA nut06a) over
+    IAU2006_YEARS, the IAU 2000B series of the long-term models outside."""
+    jd1, jd2 = same_shape(jd1, jd2)
+    inside = _in_iau2006_years(jd1, jd2)
+    out = np.empty(jd1.shape)
+    if np.any(inside):
+        out[inside] = _nutation(jd1[inside], jd2[inside])[0]
+    if not np.all(inside):
+        out[~inside] = erfa.ufunc.nut00b(jd1[~inside], jd2[~inside])[0]
+    return out
+
+
 def _dated_any_year(system, jd1, jd2):
     """IAU 2006/2000A inside IAU2006_YEARS, the long-term models outside (row by row)."""
-    years = julian_year(jd1, jd2)
-    inside = (years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])
+    inside = _in_iau2006_years(jd1, jd2)
     if np.all(inside):
         return _dated(system, jd1, jd2)
     check_years(jd1, jd2, VONDRAK_YEARS, f"{system} uses the long-term precession")
@@ -187,8 +205,7 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
     if given is not None and not np.all(given):
         raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
     jd1, jd2 = same_shape(jd1, jd2)
-    years = julian_year(jd1, jd2)
-    if not ((years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])).all():
+    if not _in_iau2006_years(jd1, jd2).all():
         if long_term:
             return _dated_any_year(system, jd1, jd2)
         check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",

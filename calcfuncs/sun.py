@@ -24,9 +24,8 @@ from . import bodies, ephemeris, events, frames, nodes, sun_days, vectors
 from .bounded import keep
 from .errors import RowErrors, SkyError, rows_failing
 from .events import crossings, wrap180
-from .timescales import DateTimes, Instants, check_years, julian_year
-from .vocabulary import (BUILTIN, BUILTIN_YEARS, ECLIPTIC_OF_FRAME, IAU2006_YEARS, J2000_JD,
-                         LONG_RANGE_YEARS)
+from .timescales import DateTimes, Instants, check_years
+from .vocabulary import BUILTIN, BUILTIN_YEARS, ECLIPTIC_OF_FRAME, J2000_JD, LONG_RANGE_YEARS
 
 
 def sun_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
@@ -149,8 +148,11 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
             dpsi = erfa.ufunc.nut00b(jd1, jd2)[0]
             return wrap180(sun_longitude(jd1, jd2, "DATE") + np.degrees(dpsi) - target[row])
 
-        split = (cheap, lambda jd1, jd2, row: nutation_2000a_less_2000b(jd1, jd2),
-                 NUTATION_DIFFERENCE_DRIFT)
+        def slow(jd1, jd2, row):
+            return np.degrees(frames.true_nutation_in_longitude(jd1, jd2)
+                              - erfa.ufunc.nut00b(jd1, jd2)[0])
+
+        split = (cheap, slow, NUTATION_DIFFERENCE_DRIFT)
 
     # The rough longitude is off by a few hundredths of a degree, under an hour of the
     # Sun's motion.  The apparent longitude never goes back and moves 0.95 to 1.02
@@ -166,19 +168,6 @@ def longitude_crossings(target_deg, start_tt, end_tt, frame="TRUE"):
 # tests/test_sun.py); bounded six times over, in degrees a day.  At a slope of about a
 # degree a day it moves a settled equinox by under 1e-5 of the last step.
 NUTATION_DIFFERENCE_DRIFT = 3e-6
-
-
-def nutation_2000a_less_2000b(tt1, tt2):
-    """What the Sun's true longitude takes from IAU 2000A beyond 2000B, degrees: the
-    difference of the nutations in longitude where the true frames use IAU 2000A (over
-    IAU2006_YEARS), nothing where they use 2000B (frames: the long-term models)."""
-    years = julian_year(tt1, tt2)
-    inside = (years >= IAU2006_YEARS[0]) & (years <= IAU2006_YEARS[1])
-    out = np.zeros(np.shape(years))
-    if np.any(inside):
-        a, b = tt1[inside], tt2[inside]
-        out[inside] = np.degrees(erfa.ufunc.nut06a(a, b)[0] - erfa.ufunc.nut00b(a, b)[0])
-    return out
 
 
 def _year_start_tt(year):
@@ -433,16 +422,6 @@ def rise_and_set_by_hour_angle(f, start, ha, dec, lat, h0):
     return rows[good], up, down, down < up
 
 
-def _joined(roots, more, rows_of_more):
-    """Two Roots as one, ordered by row (``more``'s rows are indices into
-    ``rows_of_more``)."""
-    jd1 = np.concatenate([roots.jd1, more.jd1])
-    jd2 = np.concatenate([roots.jd2, more.jd2])
-    row = np.concatenate([roots.row, rows_of_more[more.row]])
-    order = np.argsort(row, kind="stable")
-    return events.Roots(jd1[order], jd2[order], row[order])
-
-
 def sun_rise_and_set(f, start, ha, dec, lat, h0):
     """The Sun's (rising Roots, falling Roots, above at 0h) over each row's local day:
     by hour angle where that applies (rise_and_set_by_hour_angle), by hourly samples and
@@ -461,7 +440,7 @@ def sun_rise_and_set(f, start, ha, dec, lat, h0):
             lambda jd1, jd2, row: f(jd1, jd2, rest[row]), start[rest], start[rest] + 1.0,
             1.0 / 24.0, extrema=True)
         at_start[rest] = rest_at_start > 0
-        ups, downs = _joined(ups, more_ups, rest), _joined(downs, more_downs, rest)
+        ups, downs = ups.joined(more_ups, rest), downs.joined(more_downs, rest)
     return ups, downs, at_start
 
 

@@ -1126,14 +1126,19 @@ def test_the_nutation_difference_drift_bound_holds_with_a_margin():
 @pytest.mark.parametrize("years", [(2020, 2031), (1000, 1011), (2990, 3001)])
 def test_true_longitude_is_the_mean_of_date_one_plus_the_nutation_in_longitude(years):
     # The equinox search splits the true longitude into the mean-of-date one plus the
-    # IAU 2000B nutation in longitude (cheap) and 2000A - 2000B (costly, slow).  The sum
-    # must be the true longitude itself (the frames differ by a turn about the
-    # ecliptic's pole, frames.py), here within 1e-12 degree at 2,000 instants.
+    # IAU 2000B nutation in longitude (cheap) and the true frames' nutation in longitude
+    # less 2000B (costly, slow).  The sum must be the true longitude itself (the frames
+    # differ by a turn about the ecliptic's pole, frames.py), here within 1e-12 degree
+    # at 2,000 instants; and the true frames take IAU 2000A inside 1000-3000.
     import erfa
+
+    from calcfuncs import frames
 
     rng = np.random.default_rng(years[0])
     t = 2451545.0 + (rng.uniform(years[0], years[1], 2000) - 2000.0) * 365.25
     z = np.zeros_like(t)
-    whole = (sun.sun_longitude(t, z, "DATE") + np.degrees(erfa.nut00b(t, z)[0])
-             + sun.nutation_2000a_less_2000b(t, z))
+    whole = sun.sun_longitude(t, z, "DATE") + np.degrees(frames.true_nutation_in_longitude(t, z))
     assert np.max(np.abs(wrap180(whole - sun.sun_longitude(t, z, "TRUE")))) < 1e-12
+    inside = (t - 2451545.0) / 365.25 + 2000.0 <= 3000.0
+    assert np.array_equal(frames.true_nutation_in_longitude(t[inside], z[inside]),
+                          erfa.nut06a(t[inside], z[inside])[0])
