@@ -57,8 +57,8 @@ def _sun_geocentric(earth_b, sun_b, kind):
 
 def _aberrate(u, earth_v, sun_distance):
     c = earth_v * LIGHT_DAYS_PER_AU
-    bm1 = np.sqrt(1.0 - np.sum(c * c, axis=-1))
-    return erfa.ab(u, c, sun_distance, bm1)
+    bm1 = np.sqrt(1.0 - np.add.reduce(c * c, axis=-1))
+    return erfa.ufunc.ab(u, c, sun_distance, bm1)
 
 
 LIGHT_TIME_ROUNDS = 2  # after the geometric distance (place, below)
@@ -89,7 +89,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     earth_helio = ep - sp
     if isinstance(body, str) and body == "SUN":
         u, distance = _sun_geocentric(earth_b, sun_b, kind)
-        return Place(u, distance, np.zeros_like(ep), earth_helio, (earth_b, sun_b))
+        return Place(u, distance, np.zeros(ep.shape), earth_helio, (earth_b, sun_b))
     em = vectors.norm(earth_helio)
 
     def helio_at(tau):

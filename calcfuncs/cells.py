@@ -408,15 +408,16 @@ def _evaluate_single(fn, raw_args, null_date):
         if a.kind in registry.OPTION_KINDS:
             options[a.name] = _read_option(a, raw)
         else:
-            column = np.empty(1, dtype=object)
-            column[0] = raw
-            rows[a.name] = column
+            rows[a.name] = raw
             plain = plain and type(raw) is float and a.kind in _PLAIN_KINDS
     null_jd = _null_jd(null_date)
     if plain and rows:
         found = _plain_single(fn, rows, options, null_jd)
         if found is not None:
             return found
+    for name, raw in rows.items():  # the general path's columns, of one row
+        column = rows[name] = np.empty(1, dtype=object)
+        column[0] = raw
     return _compute_group(fn, rows, options, null_jd)[0]
 
 
@@ -429,27 +430,30 @@ def _plain_single(fn, rows, options, null_jd):
     date-time value) and its result a number or a date-time value: the core called on one-element arrays
     as the general path calls it, without that path's checks for texts, blanks and
     messages from other cells.  None where anything is unusual (a message to give, a
-    result that is not one finite number): the general path then says what it says."""
+    result that is not one finite number): the general path then says what it says.
+    ``rows``: each row argument's value as the cell holds it (a Python float)."""
     func, params = _impl(fn)
     kwargs = {k: v for k, v in options.items() if k in params}
     for arg in fn.args:
         if arg.kind not in registry.ROW_KINDS:
             continue
-        value = rows[arg.name]
+        value = rows[arg.name]  # a Python float
         if arg.kind == "time":
             scale, dut1 = options.get("scale", "UTC"), options.get("dut1", 0.0)
-            found = read_utc_serial(value[0], null_jd) if scale == "UTC" else None
+            found = read_utc_serial(value, null_jd) if scale == "UTC" else None
             if found is None:
-                jd1, jd2, messages = read_times(value, scale, null_jd, dut1)
+                column = np.empty(1, dtype=object)
+                column[0] = value
+                jd1, jd2, messages = read_times(column, scale, null_jd, dut1)
                 if messages is not None and messages[0] is not None:
                     return None
             else:
                 jd1, jd2 = found
             kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
         else:
-            if not math.isfinite(value[0]):  # a Python float (the caller's check)
+            if not math.isfinite(value):
                 return None
-            kwargs[arg.name] = value.astype(float)
+            kwargs[arg.name] = np.array([value])
         if arg.name + "_given" in params:
             kwargs[arg.name + "_given"] = np.ones(1, dtype=bool)
     try:
@@ -651,6 +655,35 @@ def _evaluate(fn, raw_args, null_date, single=None):
     return tuple(map(tuple, np.asarray(out, dtype=object).reshape(shape).tolist()))
 
 
+class _FloatsQuiet:
+    """``numpy.errstate(all="ignore")`` for the length of a call: bad rows are reported
+    in their cells, not as warnings.  numpy 1.x (the office's own, in Debian 12) spends
+    1.6 us a cell on errstate, which reads and writes its settings as a dict; its
+    error object is read and set here as it stands (0.2 us).  numpy 2 has no error
+    object, and its errstate is cheap."""
+
+    __slots__ = ("_old",)
+    _IGNORE_ALL = None
+    if hasattr(np, "geterrobj"):
+        with np.errstate(all="ignore"):
+            _IGNORE_ALL = np.geterrobj()
+
+    def __enter__(self):
+        if self._IGNORE_ALL is None:
+            self._old = np.errstate(all="ignore")
+            self._old.__enter__()
+        else:
+            self._old = np.geterrobj()
+            np.seterrobj(self._IGNORE_ALL)
+
+    def __exit__(self, *exc):
+        if self._IGNORE_ALL is None:
+            self._old.__exit__(*exc)
+        else:
+            np.seterrobj(self._old)
+        return False
+
+
 def _hashable(args):
     try:
         hash(args)
@@ -699,7 +732,7 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         if hit is not None:
             return hit
     try:
-        with np.errstate(all="ignore"):  # bad rows are reported in their cells
+        with _FloatsQuiet():
             result = (_without_collection(_evaluate, fn, raw_args, null_date, False)
                       if ranged else _evaluate(fn, raw_args, null_date, True))
     except SkyError as err:
@@ -770,7 +803,7 @@ def _fill_down(fn, raw_args, null_date, key):
     args = list(raw_args)
     args[k] = tuple((v,) for v in ahead)
     try:
-        with np.errstate(all="ignore"):
+        with _FloatsQuiet():
             found = _evaluate(fn, args, null_date)
     except Exception:  # noqa: BLE001 - the cells themselves will say what is wrong
         return

@@ -32,7 +32,7 @@ import numpy as np
 
 from . import kernelfiles, nodes, spkfile, vectors
 from .errors import RowErrors, SkyError, rows_failing
-from .timescales import check_years, julian_year, same_shape, tt_to_tdb
+from .timescales import all_within_years, check_years, julian_year, same_shape, tt_to_tdb
 from .vocabulary import (AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, LONG_RANGE_YEARS, PLANETS,
                          SOURCE_WORDS)
 
@@ -110,10 +110,10 @@ class Builtin:
         """The results (a tuple of arrays, rows first) of ``with_erfa`` for the rows
         inside BUILTIN_YEARS and of ``long_range`` for the others."""
         tdb1, tdb2 = same_shape(tdb1, tdb2)
+        if all_within_years(tdb1, tdb2, BUILTIN_YEARS):
+            return with_erfa(tdb1, tdb2)
         years = julian_year(tdb1, tdb2)
         inside = (years >= BUILTIN_YEARS[0]) & (years <= BUILTIN_YEARS[1])
-        if inside.all():
-            return with_erfa(tdb1, tdb2)
         check_builtin_years(tdb1, tdb2)
         if not inside.any():
             return long_range(tdb1, tdb2)
@@ -153,7 +153,7 @@ class Builtin:
         """Geocentric (p, v) of the Moon, ICRS axes (au, au/day); v None if not
         ``velocity``."""
         def with_erfa(t1, t2):
-            pv = erfa.moon98(t1, t2)  # no status: nothing to keep quiet
+            pv = erfa.ufunc.moon98(t1, t2)  # no status: nothing to keep quiet
             return pv["p"], pv["v"]
 
         def long_range(t1, t2):

@@ -27,7 +27,7 @@ import numpy as np
 
 from . import nodes, vectors
 from .errors import SkyError, rows_failing
-from .timescales import check_years, julian_year, same_shape
+from .timescales import all_within_years, check_years, julian_year, same_shape
 from .vocabulary import (DATED_SYSTEMS, IAU2006_YEARS, J2000_JD, SYSTEM_ALIASES,
                          SYSTEMS, VONDRAK_YEARS, years_text)
 
@@ -205,7 +205,7 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
     if given is not None and not np.all(given):
         raise rows_failing(~np.asarray(given, dtype=bool), f"{system} needs the time argument")
     jd1, jd2 = same_shape(jd1, jd2)
-    if not _in_iau2006_years(jd1, jd2).all():
+    if not all_within_years(jd1, jd2, IAU2006_YEARS):
         if long_term:
             return _dated_any_year(system, jd1, jd2)
         check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
