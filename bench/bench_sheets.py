@@ -28,19 +28,22 @@ import os
 import sys
 import time
 
+import numpy as np
+
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
 sys.path.insert(0, os.path.join(ROOT, "tools"))
 sys.path.insert(0, os.path.join(ROOT, "bench"))
 
-from bench_recalc import log_times  # noqa: E402
+from bench_recalc import LOG_END, LOG_START, log_times  # noqa: E402
 from timing import save_figures  # noqa: E402
 
 SITE = "47.3814;8.0542"
 FIRST_DAY = 45658.0  # 2025-01-01 as a Calc date value (null date 1899-12-30)
 
 # name -> (kind of input in column A, formula of row r). Kinds: log (distinct date-times),
-# days (consecutive dates), years (consecutive years).
+# nights (distinct date-times, NIGHT_ROWS a night), days (consecutive dates), years
+# (consecutive years).
 CASES = {
     "floor: SKY.VERSION()": ("log", "=SKY.VERSION()"),
     "native: MOD(A;360)": ("log", "=MOD(A{r};360)"),
@@ -50,6 +53,8 @@ CASES = {
     "SKY.SUN.LON": ("log", "=SKY.SUN.LON(A{r})"),
     "SKY.MOON.LON": ("log", "=SKY.MOON.LON(A{r})"),
     "SKY.PLANET.RA": ("log", '=SKY.PLANET.RA("MARS";A{r})'),
+    # The same Sun as an observing log has it: nights of NIGHT_ROWS rows (nodes.py).
+    "SKY.SUN.LON, nights of 20 rows": ("nights", "=SKY.SUN.LON(A{r})"),
     "SKY.SUN.RISE": ("days", f"=SKY.SUN.RISE(A{{r}};{SITE})"),
     "SKY.SUN.TRANSIT": ("days", f"=SKY.SUN.TRANSIT(A{{r}};{SITE})"),
     "SKY.SUN.REACHES": ("log", "=SKY.SUN.REACHES(140;A{r})"),
@@ -68,9 +73,26 @@ CASES = {
 SEASON_EVENTS = ("JUNE", "SEPTEMBER", "DECEMBER", "MARCH")
 
 
+NIGHT_ROWS = 20
+
+
+def night_times(n, seed):
+    """``n`` distinct UTC date-time values, NIGHT_ROWS on each of n / NIGHT_ROWS nights
+    of 2024-2026 (distinct dates drawn at random), between 20h and 4h UTC, to the
+    millisecond: a log as an observer keeps it, a row every twenty minutes or so."""
+    rng = np.random.default_rng(seed)
+    nights = -(-n // NIGHT_ROWS)
+    dates = LOG_START + np.sort(rng.choice(int(LOG_END - LOG_START) - 1, nights, replace=False))
+    within = np.sort(rng.uniform(20 / 24, 28 / 24, (nights, NIGHT_ROWS)), axis=1)
+    t = (dates[:, None] + within).ravel()[:n]
+    return np.round(t * 86400_000.0) / 86400_000.0
+
+
 def inputs(kind, n, shift=0):
     if kind == "log":
         return [float(v) for v in log_times(n, seed=2024 + shift)]
+    if kind == "nights":
+        return [float(v) for v in night_times(n, seed=2024 + shift)]
     if kind == "days":
         return [FIRST_DAY + 366.0 * shift + k for k in range(n)]
     # Years 1000-2999 for every run; SKY.SEASON asks for another event each run.

@@ -2,7 +2,8 @@
 
 A cell alone skips the general path's bookkeeping (calcfuncs.timeinput.read_utc_serial,
 the ERFA ufuncs read for their status in timescales.erfa_quietly, the one-row matrix of
-frames.system_matrix, vectors.norm without numpy.linalg's checks), and the quick paths
+frames.system_matrix, vectors.norm without numpy.linalg's checks, one instant's model
+years on floats in timescales.all_within_years), and the quick paths
 of a column (timescales.utc_to_tai, its leap seconds read in one lookup).  Each is checked here
 against the path it stands in for, over dense random instants and the edge cases
 (UTC step days, 1960, the last date-time value), and the cell results against ERFA
@@ -119,6 +120,45 @@ def test_a_cell_on_the_quick_path_equals_the_same_row_of_a_column():
         column = cells.evaluate(name, [tuple((s,) for s in serials)])
         for s, (want,) in zip(serials, column):
             assert cells.evaluate(name, [s]) == want, (name, s)
+
+
+@pytest.mark.parametrize("span", [(1000.0, 3000.0), (1900.0, 2100.0)])
+def test_one_instants_model_years_are_decided_as_a_columns(span):
+    # The year of one instant on Python floats against the same instants' years as an
+    # array (timescales.julian_year): the same decision at every instant, those a few
+    # units in the last place either side of each end of the span among them.
+    rng = np.random.default_rng(5)
+    ends = [(y - 2000.0) * 365.25 for y in span]
+    near = [np.nextafter(e, e + d * np.inf) for e in ends for d in (-1, 1) for _ in range(3)]
+    offsets = np.concatenate([rng.uniform(-400_000.0, 400_000.0, 3000), ends, near,
+                              [e + d for e in ends for d in (-1e-9, 1e-9, -0.5, 0.5)]])
+    jd1 = np.full(offsets.size, 2451545.0)
+    jd2 = offsets
+    years = timescales.julian_year(jd1, jd2)
+    inside = (years >= span[0]) & (years <= span[1])
+    assert inside.any() and not inside.all()
+    for k in range(offsets.size):
+        assert timescales.all_within_years(jd1[k:k + 1], jd2[k:k + 1], span) == inside[k]
+    assert timescales.all_within_years(jd1, jd2, span) is False
+    assert timescales.all_within_years(jd1[inside], jd2[inside], span) is True
+    assert timescales.all_within_years(np.array([np.nan]), np.array([0.0]), span) is False
+
+
+def test_a_cell_leaves_numpys_error_settings_as_it_found_them():
+    # Bad rows are reported in their cells, with numpy's floating-point errors ignored
+    # while a cell computes (cells._FloatsQuiet) and the caller's settings back after.
+    before = np.seterr(all="raise")
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            assert cells.evaluate("SKY.WRAP.360", [((1.0,), (float("inf"),), (-5.0,))]) == (
+                (1.0,), ("#SKY: degrees must be a finite number of degrees",), (355.0,))
+            assert cells.evaluate("SKY.SUN.LON", [float("nan")]).startswith("#SKY:")
+            assert isinstance(cells.evaluate("SKY.SUN.LON", [45658.25]), float)
+        assert np.geterr() == {"divide": "raise", "over": "raise", "under": "raise",
+                               "invalid": "raise"}
+    finally:
+        np.seterr(**before)
 
 
 def test_column_utc_to_tai_is_erfa_utctai_to_the_bit():
