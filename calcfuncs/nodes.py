@@ -200,9 +200,9 @@ def for_one(quantity, compute, jd1, jd2):
     inside ``single_cells()`` where the cells are dense around it; None otherwise (the
     caller computes directly).  ``quantity`` names what ``compute`` gives (its kept
     nodes are keyed by it)."""
-    if not _IN_CELLS[0] or np.size(jd1) != 1:
+    if not _IN_CELLS[0] or jd1.size != 1:
         return None
-    t1, t2 = np.asarray(jd1).item(), np.asarray(jd2).item()
+    t1, t2 = jd1.item(), jd2.item()
     last = _LAST_ONE[0]
     if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
         cell, dense = last[2], last[3]

@@ -9,7 +9,8 @@ Mean obliquity (angle between the mean equator and the ecliptic of date):
   VONDRAK2011 Vondrak, Capitaine and Wallace (2011) long-term precession: the angle
               between their equator pole and ecliptic pole of date; ERFA ltpequ, ltpecl
 Nutation (delta psi, delta epsilon):
-  IAU2000A    Mathews, Herring and Buffett (2002) with the IAU 2006 adjustments; ERFA nut06a
+  IAU2000A    Mathews, Herring and Buffett (2002) with the IAU 2006 adjustments; the
+              model of ERFA nut06a, evaluated by iau2000a.py
   IAU2000B    McCarthy and Luzum (2003), 77 terms; ERFA nut00b
   IAU1980     Wahr (1981); ERFA nut80
 
@@ -22,7 +23,7 @@ from functools import lru_cache
 import erfa
 import numpy as np
 
-from . import vectors
+from . import iau2000a, vectors
 from .errors import SkyError, rows_failing
 from .timescales import julian_year
 from .vocabulary import (J2000_JD, JULIAN_YEAR_DAYS, NUTATION_VALIDITY,  # validity: see there
@@ -98,7 +99,9 @@ def _nutation_one(jd1, jd2, model):
     return _NUTATION[model](jd1, jd2)
 
 
-_NUTATION = {"IAU2000A": erfa.nut06a, "IAU2000B": erfa.nut00b, "IAU1980": erfa.nut80}
+# IAU2000A: the model of ERFA nut06a as iau2000a.py evaluates it, the series the
+# coordinate systems take (frames.py), so a true obliquity here is theirs to the bit.
+_NUTATION = {"IAU2000A": iau2000a.nutation, "IAU2000B": erfa.nut00b, "IAU1980": erfa.nut80}
 
 
 def nutation_angles(jd1, jd2, model="IAU2000A"):

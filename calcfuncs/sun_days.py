@@ -2,7 +2,7 @@
 day (sunrise, sunset, twilight, the Sun's transit, the length of the day).
 
 Computed directly (sun.sun_and_sidereal: the Earth from ERFA epv00, the IAU 2006
-precession and the IAU 2000A nutation, ERFA nut06a) a day costs about 80 us, a year of
+precession and the IAU 2000A nutation, iau2000a.py) a day costs about 80 us, a year of
 sunrises 30 ms.  Most of that varies slowly, and what varies fast is cheap to compute on
 its own; so, within ANCHORED_YEARS:
 
@@ -40,7 +40,7 @@ filled down a column of days, each computed on its own, share them as a column d
 import erfa
 import numpy as np
 
-from . import nodes
+from . import iau2000a, nodes
 from .bounded import keep
 from .frames import unit_vectors
 from .events import wrap180
@@ -152,7 +152,7 @@ def _sun_less_swing(tt):
 
 def _nutation_difference(tt):
     zero = np.zeros(tt.shape)
-    full = np.stack(erfa.ufunc.nut06a(tt, zero), axis=-1)
+    full = np.stack(iau2000a.nutation(tt, zero), axis=-1)  # the series places take
     return full - np.stack(erfa.ufunc.nut00b(tt, zero), axis=-1)
 
 

@@ -285,8 +285,25 @@ class Instants:
 
     def tt(self):
         """The instants as a TT two-part JD, the argument of the IAU models."""
-        tt = self.to("TT")
+        tt = self._derived.get("TT")
+        if tt is None and self.scale == "UTC" and self.jd1.size == 1:
+            tt = self._one_utc_to_tt()
+        if tt is None:
+            tt = self.to("TT")
         return tt.jd1, tt.jd2
+
+    def _one_utc_to_tt(self):
+        """A single cell's UTC instant on TT: the ERFA calls the general path makes for
+        a few rows (utc_to_tai, _from_tai), without its dispatch (8 us of a cell -> 3);
+        None where ERFA says the date is not acceptable (the general path says why)."""
+        tai1, tai2, status = erfa.ufunc.utctai(self.jd1, self.jd2)
+        if status.item() < 0:
+            return None
+        tt1, tt2, _ = erfa.ufunc.taitt(tai1, tai2)  # status always 0
+        tt = Instants.__new__(Instants)  # TT needs none of the checks of __init__
+        tt.jd1, tt.jd2, tt.scale, tt.dut1, tt._derived = tt1, tt2, "TT", self.dut1, {}
+        self._derived["TT"] = tt
+        return tt
 
     def matrix(self, system):
         """Rotations from the ICRS axes to a coordinate system at these instants (TT),
