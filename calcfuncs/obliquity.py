@@ -94,8 +94,11 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
 
 @lru_cache(maxsize=4096)
 def _nutation_one(jd1, jd2, model):
-    # Full IAU 2000A costs about 80 us a date; a sheet asks for the same dates over and
-    # over (every recalculation, several columns per row), so single dates are cached.
+    # A sheet asks for the same dates over and over (every recalculation, several
+    # columns per row), so single dates are cached.  IAU2000A: the function a column's
+    # rows take (iau2000a.nutation), so a cell equals its row to the bit.
+    if model == "IAU2000A":
+        return iau2000a.nutation_one(jd1, jd2)
     return _NUTATION[model](jd1, jd2)
 
 
