@@ -82,8 +82,8 @@ def _fixed(system):
 
 def _nutation(jd1, jd2):
     """IAU 2000A nutation (dpsi, deps, radians) adjusted to IAU 2006: the model of ERFA
-    nut06a, evaluated instant by instant in iau2000a.py (twice as fast on distinct
-    instants with the office's numpy; within 1e-6 micro-arcseconds of ERFA's)."""
+    nut06a, evaluated instant by instant in iau2000a.py (a third of nut06a's cost on
+    distinct instants with the office's numpy; within 1e-6 micro-arcseconds of it)."""
     return iau2000a.nutation(jd1, jd2)
 
 
@@ -161,7 +161,7 @@ def _in_iau2006_years(jd1, jd2):
 
 def true_nutation_in_longitude(jd1, jd2):
     """The nutation in longitude (radians) that the true systems of places take (as
-    _dated_any_year builds them): IAU 2000A adjusted to IAU 2006 (ERFA nut06a) over
+    _dated_any_year builds them): IAU 2000A adjusted to IAU 2006 (iau2000a.py) over
     IAU2006_YEARS, the IAU 2000B series of the long-term models outside."""
     jd1, jd2 = same_shape(jd1, jd2)
     inside = _in_iau2006_years(jd1, jd2)

@@ -27,7 +27,8 @@ def _epoch(name, what):
 _COORD_MODEL = (
     "A rotation of the direction: the centre and kind of place (astrometric or apparent) "
     "stay those of the input. Matrices: IAU 2006 frame bias and precession (ERFA bp06, "
-    "ecm06), IAU 2006/2000A nutation (ERFA pnm06a, nut06a), galactic as for Hipparcos "
+    "ecm06), IAU 2006/2000A nutation (ERFA pnm06a's steps, the series of nut06a as the "
+    "add-in evaluates it), galactic as for Hipparcos "
     "(ERFA icrs2g), invariable plane from Souami and Souchay (2012: inclination "
     "1°34'43.3\", node 107°34'56\" on the J2000 ecliptic, longitudes from that node). "
     f"DATE and TRUE systems are valid {_IAU2006}; outside, the cell says so."
