@@ -17,8 +17,8 @@ Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit.
 import erfa
 import numpy as np
 
-from .errors import SkyError, rows_failing
 from . import frames
+from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
 from .timescales import Instants, check_years, erfa_quietly
 from .vocabulary import IAU2006_YEARS

@@ -30,7 +30,6 @@ from .vocabulary import J2000_JD
 _ARCSEC_TURN = 1_296_000.0
 _RADIANS_PER_ARCSEC = math.pi / 648_000.0
 _UNIT = _RADIANS_PER_ARCSEC / 1e7  # the tables' 0.1 micro-arcsecond, in radians
-_TURN = 2.0 * math.pi
 
 
 def _table(text):
@@ -98,6 +97,8 @@ _PL_CURVE = 0.00000538691 * _PL_MULTIPLES[12]
 def nutation_one(jd1, jd2):
     """(dpsi, deps) in radians, Python floats, at one TT instant (two-part JD)."""
     t = ((jd1 - J2000_JD) + jd2) / 36525.0
+    if not math.isfinite(t):  # (math.fmod refuses an infinity; ERFA gives NaN)
+        return math.nan, math.nan
     luni = _delaunay(t) @ _LS_MULTIPLES
     planetary = _PL_START + t * (_PL_RATE + t * _PL_CURVE)
     waves = np.concatenate((np.sin(luni), np.cos(luni), np.sin(planetary), np.cos(planetary)))

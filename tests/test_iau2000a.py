@@ -52,6 +52,11 @@ def test_a_column_gives_each_instant_what_it_gives_alone():
     assert np.shape(one[0]) == () and float(one[0]) == iau2000a.nutation_one(2451545.0, 100.25)[0]
     many = iau2000a.nutation(2451545.0, jd2[:, 0])
     assert np.array_equal(many[0], dpsi[:, 0])
+    # A date that is not a number gives NaN, as ERFA's routine does, never an exception.
+    for bad in (np.nan, np.inf, -np.inf):
+        assert np.isnan(iau2000a.nutation(np.array([bad, 2451545.0]), 0.0)[0]).tolist() == [True, False]
+        with np.errstate(invalid="ignore"):
+            assert np.isnan(erfa.nut06a(bad, 0.0)[0])
 
 
 def test_the_true_systems_and_the_obliquity_take_this_series():
