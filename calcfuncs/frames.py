@@ -116,9 +116,10 @@ def _dated(system, jd1, jd2, nutation=_nutation):
 
 
 @nodes.kept_per_instant
-def _nutation_one(jd1, jd2):
-    """The nutation of one instant (floats), kept for the row's other columns: the
-    function a column's rows take, so a cell and its row of a column agree to the bit."""
+def nutation_one(jd1, jd2):
+    """The IAU 2000A nutation (dpsi, deps) of one TT instant (floats), kept for the row's
+    other columns, the true systems' and the obliquity's alike: the function a column's
+    rows take, so a cell and its row of a column agree to the bit."""
     return iau2000a.nutation_one(jd1, jd2)
 
 
@@ -127,7 +128,7 @@ def _dated_one(system, jd1, jd2):
     # A sheet asks for the same date in several columns and on every recalculation;
     # the full IAU 2006/2000A matrix costs about 80 us.  Read-only: every caller of
     # the date shares it.
-    m = np.asarray(_dated(system, jd1, jd2, lambda a, b: _nutation_one(jd1, jd2)))
+    m = np.asarray(_dated(system, jd1, jd2, lambda a, b: nutation_one(jd1, jd2)))
     m.flags.writeable = False
     return m
 

@@ -18,12 +18,12 @@ Every model has a validity range in Julian years (TT); dates outside it are refu
 with a message naming a model that covers them, never extrapolated silently.
 """
 
-from functools import lru_cache
+from functools import lru_cache, partial
 
 import erfa
 import numpy as np
 
-from . import iau2000a, vectors
+from . import frames, iau2000a, vectors
 from .errors import SkyError, rows_failing
 from .timescales import julian_year
 from .vocabulary import (J2000_JD, JULIAN_YEAR_DAYS, NUTATION_VALIDITY,  # validity: see there
@@ -95,10 +95,8 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
 @lru_cache(maxsize=4096)
 def _nutation_one(jd1, jd2, model):
     # A sheet asks for the same dates over and over (every recalculation, several
-    # columns per row), so single dates are cached.  IAU2000A: the function a column's
-    # rows take (iau2000a.nutation), so a cell equals its row to the bit.
-    if model == "IAU2000A":
-        return iau2000a.nutation_one(jd1, jd2)
+    # columns per row), so single dates are cached (IAU2000A: with the coordinate
+    # systems' own, frames.nutation_one, so a row's places and obliquity share it).
     return _NUTATION[model](jd1, jd2)
 
 
@@ -114,7 +112,8 @@ def nutation_angles(jd1, jd2, model="IAU2000A"):
     jd2 = np.asarray(jd2, dtype=float)
     _check_validity(model, NUTATION_VALIDITY, julian_year(jd1, jd2), "nutation")
     if jd1.size == 1:
-        dpsi, deps = _nutation_one(float(jd1.ravel()[0]), float(jd2.ravel()[0]), model)
+        one = frames.nutation_one if model == "IAU2000A" else partial(_nutation_one, model=model)
+        dpsi, deps = one(float(jd1.ravel()[0]), float(jd2.ravel()[0]))
         return np.full(jd1.shape, dpsi), np.full(jd1.shape, deps)
     return _NUTATION[model](jd1, jd2)
 

@@ -206,8 +206,24 @@ def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers():
         lead = ["MARS"] if name == "SKY.PLANET.DEC" else []
         for s in serials:  # column by column, as Calc computes
             assert cells.evaluate(name, [*lead, s]) == alone[name, s]
-    assert frames._nutation_one.cache_info().hits >= 300
+    assert frames.nutation_one.cache_info().hits >= 300
     assert ephemeris._earth_and_sun_one.cache_info().hits >= 2 * 300
+    # The true obliquity of the row's instant finds the same kept nutation (one series
+    # a row, not one for the places and one for the obliquity), and gives what it gives
+    # computed alone.
+    tt_alone = {}
+    for s in serials[:50]:
+        nodes.forget_kept_instants()
+        cells._SINGLE_CELL_CACHE.clear()
+        tt_alone[s] = cells.evaluate("SKY.OBLIQUITY.TRUE", [s])
+    nodes.forget_kept_instants()
+    cells._SINGLE_CELL_CACHE.clear()
+    for s in serials[:50]:
+        cells.evaluate("SKY.SUN.LON", [s])
+    hits = frames.nutation_one.cache_info().hits
+    for s in serials[:50]:
+        assert cells.evaluate("SKY.OBLIQUITY.TRUE", [s]) == tt_alone[s]
+    assert frames.nutation_one.cache_info().hits >= hits + 50
 
 
 def test_the_instants_kept_stay_within_their_bound(monkeypatch):
@@ -217,7 +233,7 @@ def test_the_instants_kept_stay_within_their_bound(monkeypatch):
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)  # every cell computed directly
     for s in serials:
         cells.evaluate("SKY.SUN.RA", [s])
-    for kept in (frames._nutation_one, ephemeris._earth_and_sun_one):
+    for kept in (frames.nutation_one, ephemeris._earth_and_sun_one):
         assert kept.cache_info().currsize == nodes.INSTANTS_KEPT
     nodes.forget_single_cells()  # the benchmarks' cold start forgets them too
-    assert frames._nutation_one.cache_info().currsize == 0
+    assert frames.nutation_one.cache_info().currsize == 0
