@@ -89,8 +89,26 @@ def _is_blank(v):
 # ---- options: one word or number shared by many rows ---------------------------------
 
 
+# Option words read before: (argument, text) -> what the text reads as.  A formula
+# filled down reads the same words in every cell.  Not the sources, whose reading looks
+# at files on disk; numbers and blanks are read at once anyway.
+_WORDS_READ = {}
+_WORDS_READ_SIZE = 4096
+
+
 def _read_option(arg, value):
     """The option's value, or a ``SkyError`` worded for the cell."""
+    if type(value) is not str or arg.kind == "source":
+        return _read_option_anew(arg, value)
+    key = (id(arg), value)  # the registry's arguments live as long as the process
+    found = _WORDS_READ.get(key, _WORDS_READ)
+    if found is _WORDS_READ:
+        found = _read_option_anew(arg, value)
+        keep(_WORDS_READ, key, found, _WORDS_READ_SIZE)
+    return found
+
+
+def _read_option_anew(arg, value):
     if arg.kind == "scale":
         if _is_blank(value) or (type(value) is float and value == 0.0):
             return arg.default
@@ -238,7 +256,8 @@ def _date_time_values(result, null_jd):
     inside a leap second (a Calc day has 86,400 seconds)."""
     serial, in_leap = to_serial(result.instants, null_jd)
     serial = np.reshape(serial + result.offset_days, -1)
-    in_leap = np.broadcast_to(in_leap, serial.shape)
+    if in_leap.shape != serial.shape:
+        in_leap = np.broadcast_to(in_leap, serial.shape)
     if result.words is None:
         return serial, in_leap
     words = np.reshape(result.words, -1)

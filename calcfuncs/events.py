@@ -11,6 +11,8 @@ position.  The answers stay two-part JDs to the end.  Every event in the add-in 
 lines on top of ``crossings``.
 """
 
+import math
+
 import numpy as np
 
 from .bounded import keep
@@ -543,6 +545,11 @@ def first_after(search, tt1, tt2, block, reach, keys):
     itself, not kept; a ``RowErrors`` there is the rows' message."""
     tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
     n = tt1.size
+    if n == 1 and math.isfinite(tt1.item() + tt2.item()):
+        # One cell whose window is kept: the same lookup on floats, no tables.
+        found = _WINDOWS.get((keys[0], math.floor((tt1.item() + tt2.item()) / block) * block))
+        if found is not None:
+            return _first_later([found], [0], tt1, tt2)
     starts = np.floor((tt1 + tt2) / block) * block
     ids = {}
     window_of = np.empty(n, dtype=int)

@@ -16,7 +16,7 @@ from .errors import rows_failing
 from .ephemeris import content_stamp
 from .events import first_after, polished_crossings, wrap180
 from .sun import sun_gcrs, sun_in
-from .timescales import DateTimes
+from .timescales import DateTimes, same_shape
 from .vocabulary import AU_KM, BUILTIN, EARTH_RADIUS_KM, J2000_JD
 
 PHASES = {"NEW": 0.0, "FIRST": 90.0, "FULL": 180.0, "LAST": 270.0}
@@ -157,7 +157,7 @@ def _phase_crossings(target, start, end, source=BUILTIN):
 
 def next_phase_cells(time, phase="NEW", result_scale=None, source=BUILTIN):
     """The first instant after ``time`` of a phase of the Moon."""
-    tt1, tt2 = (np.ravel(t) for t in np.broadcast_arrays(*time.tt()))
+    tt1, tt2 = (np.ravel(t) for t in same_shape(*time.tt()))
     target = PHASES[phase]
     # Windows on a 4-day grid reaching a lunation and a bit past: the phases of one
     # window are searched once for every instant in its block (events.first_after).

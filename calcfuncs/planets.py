@@ -16,7 +16,7 @@ import numpy as np
 from . import bodies, ephemeris, frames, nodes, vectors
 from .errors import SkyError, rows_failing
 from .events import crossings, first_after, polished_crossings, wrap180
-from .timescales import DateTimes
+from .timescales import DateTimes, same_shape
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
 INNER = ("MERCURY", "VENUS")
@@ -228,7 +228,7 @@ def next_event_cells(body, time, event="OPPOSITION", result_scale=None, source=B
     """The first instant after ``time`` of an opposition, a conjunction with the Sun or a
     greatest elongation."""
     f, rough, direction = _event_search(body, event, source)
-    tt1, tt2 = (np.ravel(t) for t in np.broadcast_arrays(*time.tt()))
+    tt1, tt2 = (np.ravel(t) for t in same_shape(*time.tt()))
     window = SYNODIC_DAYS[body] * 1.1 + 5.0
     # Five-day samples: the difference moves under 3 degrees a day for every planet,
     # and its zeros are weeks apart (Mercury's conjunctions at least 40 days); the rough

@@ -10,6 +10,7 @@ Scales and their links (each link one ERFA routine):
     UT1 --(DUT1)-- UTC --(leap seconds)-- TAI --(32.184 s)-- TT --(dtdb)-- TDB
 """
 
+import bisect
 import warnings
 from functools import lru_cache
 
@@ -207,9 +208,24 @@ def utc_day_lengths(start):
     plus the step of TAI - UTC for a day that ends in one; what ERFA's dat at the day's
     start, noon and next start gives (``timeinput``), read from its table in one lookup."""
     starts, dat, _ = _whole_second_table()
+    if start.size == 1:  # one day (a cell): the same lookup on floats
+        return np.full(start.shape, one_utc_day_length(start.item()))
     k = np.minimum(np.searchsorted(starts, start, side="right"), starts.size - 1)
     step = np.where(starts[k] == start + 1.0, dat[k] - dat[k - 1], 0.0)
     return 86400.0 + step
+
+
+def one_utc_day_length(start):
+    """``utc_day_lengths`` of one day since 1972 (its JD at 0h, a float), by the same
+    lookup on floats (bisect for searchsorted): a single cell's."""
+    if not _WHOLE_SECOND_LISTS:
+        _WHOLE_SECOND_LISTS.extend(table.tolist() for table in _whole_second_table()[:2])
+    starts, dat = _WHOLE_SECOND_LISTS
+    k = min(bisect.bisect_right(starts, start), len(starts) - 1)
+    return 86400.0 + (dat[k] - dat[k - 1] if starts[k] == start + 1.0 else 0.0)
+
+
+_WHOLE_SECOND_LISTS = []
 
 
 def utc_to_tai(jd1, jd2):
@@ -280,6 +296,10 @@ class Instants:
             return Instants(*erfa_quietly(erfa.utcut1, self.jd1, self.jd2, self.dut1), scale, self.dut1)
         if self.scale in ("UT1", "UT") and scale == "UTC":
             return Instants(*erfa_quietly(erfa.ut1utc, self.jd1, self.jd2, self.dut1), "UTC", self.dut1)
+        if self.scale == "TT" and scale == "UTC" and self.jd1.size == 1:
+            found = self._one_tt_to_utc()
+            if found is not None:
+                return found
         tai1, tai2 = self._to_tai()
         return Instants._from_tai(tai1, tai2, scale, self.dut1)
 
@@ -300,10 +320,27 @@ class Instants:
         if status.item() < 0:
             return None
         tt1, tt2, _ = erfa.ufunc.taitt(tai1, tai2)  # status always 0
-        tt = Instants.__new__(Instants)  # TT needs none of the checks of __init__
-        tt.jd1, tt.jd2, tt.scale, tt.dut1, tt._derived = tt1, tt2, "TT", self.dut1, {}
-        self._derived["TT"] = tt
+        tt = self._derived["TT"] = Instants._unchecked(tt1, tt2, "TT", self.dut1)
         return tt
+
+    def _one_tt_to_utc(self):
+        """One TT instant on UTC (an event's answer shown in a cell): the ERFA calls of
+        the general path (tttai, taiutc) without its dispatch; None where the general
+        path has a message to give (before 1960, a date ERFA refuses)."""
+        tai1, tai2, _ = erfa.ufunc.tttai(self.jd1, self.jd2)  # status always 0
+        utc1, utc2, status = erfa.ufunc.taiutc(tai1, tai2)
+        if (status.item() < 0 or (tai1 + tai2).item() < UTC_START_JD
+                or (utc1 + utc2).item() < UTC_START_JD):
+            return None
+        return Instants._unchecked(utc1, utc2, "UTC", self.dut1)
+
+    @staticmethod
+    def _unchecked(jd1, jd2, scale, dut1):
+        """Instants made from float arrays an ERFA conversion gave, on a canonical scale
+        within its limits: what __init__ would check is known to hold."""
+        made = Instants.__new__(Instants)
+        made.jd1, made.jd2, made.scale, made.dut1, made._derived = jd1, jd2, scale, dut1, {}
+        return made
 
     def matrix(self, system):
         """Rotations from the ICRS axes to a coordinate system at these instants (TT),
