@@ -11,6 +11,7 @@ import gc
 import importlib
 import inspect
 import math
+import time
 
 import numpy as np
 
@@ -791,8 +792,26 @@ def _keep(key, result):
 # computed in one column call and kept, so the cells below find their answers.  A
 # column call gives each row the value it gives that row alone (tests/test_column_form),
 # and the keys are those of the cells to come: the same arguments, the day moved by
-# one, as Calc's own addition moves it.
+# one, as Calc's own addition moves it.  A long column is met by longer blocks: where
+# the block's length of cells behind is kept too, the next block is twice as long, up
+# to a year of days (each block costs one cell computed alone and one column call, and
+# a column call's rows come cheaper the more there are), as long as a block of that
+# function is expected to take under FILL_BUDGET_S (the last block's cost a row).
 FILL_AHEAD = 31
+FILL_AHEAD_MOST = 366
+FILL_BUDGET_S = 0.25
+_ROW_SECONDS = {}  # method -> seconds a row of its last block took
+
+
+def _block_length(fn, key_at, here, step):
+    """Rows in the next block: FILL_AHEAD, doubled while the cells as far behind are kept
+    and the block stays within FILL_AHEAD_MOST rows and FILL_BUDGET_S seconds."""
+    size = FILL_AHEAD
+    per_row = _ROW_SECONDS.get(fn.method)
+    while (per_row is not None and 2 * size <= FILL_AHEAD_MOST
+           and 2 * size * per_row <= FILL_BUDGET_S and key_at(here - step * size) in _SINGLE_CELL_CACHE):
+        size *= 2
+    return size
 
 
 def _fill_down(fn, raw_args, null_date, key):
@@ -813,7 +832,7 @@ def _fill_down(fn, raw_args, null_date, key):
     else:
         return
     ahead, value = [], here
-    for _ in range(FILL_AHEAD):
+    for _ in range(_block_length(fn, key_at, here, step)):
         value = value + step
         if key_at(value) not in _SINGLE_CELL_CACHE:
             ahead.append(value)
@@ -821,11 +840,13 @@ def _fill_down(fn, raw_args, null_date, key):
         return
     args = list(raw_args)
     args[k] = tuple((v,) for v in ahead)
+    began = time.perf_counter()
     try:
         with _FloatsQuiet():
             found = _evaluate(fn, args, null_date)
     except Exception:  # noqa: BLE001 - the cells themselves will say what is wrong
         return
+    _ROW_SECONDS[fn.method] = (time.perf_counter() - began) / len(ahead)
     for value, (result,) in zip(ahead, found):
         _keep(key_at(value), result)
 

@@ -84,6 +84,23 @@ def test_rows_ahead_are_kept_after_two_neighbouring_cells():
     assert len(cells._SINGLE_CELL_CACHE) == before + 1 + cells.FILL_AHEAD
 
 
+def test_a_long_column_gets_longer_blocks_of_the_same_values():
+    fn = registry.BY_NAME["SKY.SUN.SET"]
+    forget()
+    values = [46023.0 + k for k in range(34)]
+    filled = [cells.evaluate(fn, args_for(fn, v)) for v in values]
+    # Cells 3 to 33 came from the first block; the 34th, computed alone, found a whole
+    # block kept behind it and asked for one twice as long (a row of sunset costs far
+    # less than FILL_BUDGET_S / 62).
+    assert len(cells._SINGLE_CELL_CACHE) == 34 + 2 * cells.FILL_AHEAD
+    later = 46023.0 + 34 + 2 * cells.FILL_AHEAD - 1  # the last day of the second block
+    kept = cells.evaluate(fn, args_for(fn, later))
+    assert len(cells._SINGLE_CELL_CACHE) == 34 + 2 * cells.FILL_AHEAD
+    for v, got in ((values[0], filled[0]), (values[20], filled[20]), (values[33], filled[33]),
+                   (later, kept)):
+        assert got == alone(fn, v), v
+
+
 def test_a_changed_site_never_finds_the_other_sites_days():
     fn = registry.BY_NAME["SKY.SUN.SET"]
     forget()
