@@ -17,6 +17,7 @@ import numpy as np
 import pytest
 
 from calcfuncs import cells, frames, timeinput, timescales, vectors
+from calcfuncs.errors import PREFIX, SkyError
 
 NULL_JD = 2415018.5  # Calc's default null date 1899-12-30 (PLATFORM-NOTES.md)
 
@@ -184,3 +185,71 @@ def test_column_utc_to_tai_is_erfa_utctai_to_the_bit():
         found = timescales.utc_to_tai(split1, split2)
         reference = erfa.utctai(split1, split2)
     assert np.array_equal(found[0], reference[0]) and np.array_equal(found[1], reference[1])
+
+
+def _tt_instants_of_events():
+    """TT instants an event search could answer: dense and random over 1960-2150, the
+    ends of every UTC step day, inside leap seconds (ERFA dtf2d's 23:59:60.5), 1960's
+    first seconds and a date before it."""
+    rng = np.random.default_rng(31)
+    tt = list(2436935.0 + rng.random(5_000) * 69_000.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", erfa.ErfaWarning)
+        for step in timeinput._utc_step_days():
+            tai = erfa.utctai(step, np.array([0.0, 0.999999, 1.0]))
+            tt += list(sum(erfa.taitt(*tai)))
+        for y, m, d in ((1972, 6, 30), (1998, 12, 31), (2016, 12, 31)):
+            utc = erfa.dtf2d("UTC", y, m, d, 23, 59, np.array([59.5, 60.0, 60.5, 60.999]))
+            tt += list(sum(erfa.taitt(*erfa.utctai(*utc))))
+    tt += [2436934.5 + 1.5 / 86400.0, 2436934.5 + 60.0 / 86400.0, 2436900.0]
+    whole = np.floor(np.array(tt) - 0.5) + 0.5
+    return whole, np.array(tt) - whole
+
+
+def test_one_tt_instant_on_utc_and_as_a_value_equals_the_column_way():
+    # The general path (a column of two or more rows: erfa_quietly's tttai and taiutc,
+    # _utc_clock) is the reference; a cell's event answer takes the one-instant path.
+    tt1, tt2 = _tt_instants_of_events()
+    column = timescales.Instants(tt1, tt2, "TT")
+    usable = (column.to("TAI").jd1 + column.to("TAI").jd2) >= 2436934.5 + 2.0 / 86400.0
+    utc = timescales.Instants(tt1[usable], tt2[usable], "TT").to("UTC")
+    serial, in_leap = timeinput.to_serial(utc, NULL_JD)
+    assert in_leap.sum() >= 9  # 23:59:60.0, .5 and .999 of three leap seconds, and more
+    for k, (a, b) in enumerate(zip(tt1[usable], tt2[usable])):
+        one = timescales.Instants(np.array([a]), np.array([b]), "TT").to("UTC")
+        assert one.jd1.tobytes() == utc.jd1[k:k + 1].tobytes(), (a, b)
+        assert one.jd2.tobytes() == utc.jd2[k:k + 1].tobytes(), (a, b)
+        s, leap = timeinput.to_serial(one, NULL_JD)
+        assert s.tobytes() == serial[k:k + 1].tobytes() and leap[0] == in_leap[k], (a, b)
+    # Before 1960 a single instant gets the general path's message, as a column does.
+    with pytest.raises(SkyError, match="from 1960"):
+        timescales.Instants(np.array([2436900.0]), np.array([0.0]), "TT").to("UTC")
+
+
+def test_a_next_event_cell_whose_window_is_kept_equals_its_row_of_a_column():
+    # The column searches every window (events.first_after's general path); each single
+    # cell after it finds its window kept and takes the one-row lookup.
+    rng = np.random.default_rng(41)
+    serials = list(45292.0 + rng.random(40) * 700.0)
+    for name, args in (("SKY.MOON.PHASE.NEXT", [None, "FULL"]), ("SKY.SUN.REACHES", []),
+                       ("SKY.PLANET.EVENT.NEXT", [None, "OPPOSITION"])):
+        def call(time):
+            if name == "SKY.SUN.REACHES":
+                return cells.evaluate(name, [140.0, time])
+            if name == "SKY.PLANET.EVENT.NEXT":
+                return cells.evaluate(name, ["MARS", time] + args)
+            return cells.evaluate(name, [time] + args)
+        cells._SINGLE_CELL_CACHE.clear()
+        column = call(tuple((s,) for s in serials))
+        for s, (want,) in zip(serials, column):
+            got = call(s)
+            assert isinstance(got, float) and got == want, (name, s)
+
+
+def test_an_option_word_read_once_gives_the_same_and_a_bad_word_its_message_each_time():
+    cells._SINGLE_CELL_CACHE.clear()
+    first = cells.evaluate("SKY.JD", [45292.25, "utc", " tt "])
+    again = cells.evaluate("SKY.JD", [45292.75, "utc", " tt "])
+    assert again - first == 0.5
+    for _ in range(2):
+        assert cells.evaluate("SKY.JD", [45292.5, "UTC", "TX"]).startswith(PREFIX + "unknown")
