@@ -64,6 +64,11 @@ CASES = {
     # A log's row of places: four columns at one instant (Calc computes column by column).
     "a row of places (four columns)": ("log", ("=SKY.SUN.LON(A{r})", "=SKY.SUN.DEC(A{r})",
                                                "=SKY.MOON.LON(A{r})", "=SKY.MOON.RA(A{r})")),
+    # A site's log: a target a row (its RA spread over the sky by a native formula, Dec
+    # 20), its altitude and azimuth at the row's instant (two columns).
+    "altitude and azimuth at a site (two columns)": (
+        "log", tuple(f"=SKY.HORIZON.{c}(MOD(A{{r}}*7919;360);20;A{{r}};{SITE})"
+                     for c in ("ALT", "AZ"))),
 }
 
 

@@ -133,9 +133,28 @@ def geocentric(body, tt1, tt2, kind="APPARENT", source=BUILTIN):
     return p.direction, p.distance
 
 
+def direction(body, tt1, tt2, kind="APPARENT", source=BUILTIN):
+    """Unit vectors of a body's place on the GCRS axes at TT instants (``geocentric``'s
+    first part).  One built-in instant is kept for the row's other columns (a log asks
+    for a body's RA in one column and its Dec in the next, and Calc computes column by
+    column): the place is made once an instant, as its series are (nodes.INSTANTS_KEPT)."""
+    if (type(tt1) is np.ndarray and tt1.shape == (1,) and type(tt2) is np.ndarray
+            and tt2.shape == (1,) and source == BUILTIN and type(body) is str):
+        return _direction_one(body, tt1.item(), tt2.item(), kind)
+    return geocentric(body, tt1, tt2, kind, source)[0]
+
+
+@nodes.kept_per_instant
+def _direction_one(body, tt1, tt2, kind):
+    """``direction`` of one built-in instant (floats): a read-only array of one row."""
+    u = place(body, np.array([tt1]), np.array([tt2]), kind, BUILTIN).direction
+    u.flags.writeable = False
+    return u
+
+
 def body_in(body, tt1, tt2, system, kind="APPARENT", source=BUILTIN):
     """Unit vectors of a body in a coordinate system of frames.py at TT instants."""
-    return in_system(geocentric(body, tt1, tt2, kind, source)[0], system, tt1, tt2)
+    return in_system(direction(body, tt1, tt2, kind, source), system, tt1, tt2)
 
 
 def heliocentric(body, tdb1, tdb2, source=BUILTIN):

@@ -429,7 +429,8 @@ def _evaluate_single(fn, raw_args, null_date):
             options[a.name] = _read_option(a, raw)
         else:
             rows[a.name] = raw
-            plain = plain and type(raw) is float and a.kind in _PLAIN_KINDS
+            plain = plain and a.kind in _PLAIN_KINDS and (
+                type(raw) is float or (raw is None and _left_out_plainly(a)))
     null_jd = _null_jd(null_date)
     if plain and rows:
         found = _plain_single(fn, rows, options, null_jd)
@@ -445,13 +446,23 @@ _PLAIN_KINDS = ("number", "angle", "time")
 _FLOAT_KINDS = _PLAIN_KINDS  # the row arguments whose all-number columns come as floats
 
 
+def _left_out_plainly(arg):
+    """Whether a row argument left out of a cell (None: Calc's omitted trailing
+    argument) reads as one number on the quick path: an optional number or angle whose
+    default is a number (taken) or None (not given: the general path's placeholder 0
+    and a mask saying so)."""
+    return (arg.optional and arg.kind in ("number", "angle")
+            and (arg.default is None or type(arg.default) in (float, int)))
+
+
 def _plain_single(fn, rows, options, null_jd):
     """The usual single cell, its row arguments all numbers (a value, an angle, a
     date-time value) and its result a number or a date-time value: the core called on one-element arrays
     as the general path calls it, without that path's checks for texts, blanks and
     messages from other cells.  None where anything is unusual (a message to give, a
     result that is not one finite number): the general path then says what it says.
-    ``rows``: each row argument's value as the cell holds it (a Python float)."""
+    ``rows``: each row argument's value as the cell holds it (a Python float, or None
+    for an optional number left out)."""
     func, params = _impl(fn)
     kwargs = {k: v for k, v in options.items() if k in params}
     for arg in fn.args:
@@ -470,6 +481,14 @@ def _plain_single(fn, rows, options, null_jd):
             else:
                 jd1, jd2 = found
             kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
+        elif value is None:  # left out (_left_out_plainly), as the general path reads it
+            if arg.default is None:
+                kwargs[arg.name] = np.array([_NOT_GIVEN[arg.kind]])
+                if arg.name + "_given" in params:
+                    kwargs[arg.name + "_given"] = np.zeros(1, dtype=bool)
+            else:
+                kwargs[arg.name] = np.array([float(arg.default)])
+            continue
         else:
             if not math.isfinite(value):
                 return None

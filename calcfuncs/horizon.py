@@ -17,10 +17,10 @@ Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit.
 import erfa
 import numpy as np
 
-from . import frames
+from . import frames, nodes
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
-from .timescales import Instants, check_years, erfa_quietly
+from .timescales import check_years, erfa_quietly
 from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
@@ -93,22 +93,43 @@ def observer_astrom(time, latitude, longitude, height, pressure, temperature, fr
     phpa, tc = _atmosphere(pressure, temperature)
     tt1, tt2 = time.tt()
     ut = time.to("UT")
-    if _all_one(tt1, tt2, ut.jd1, ut.jd2, elong, phi, hm):
+    ut1, ut2 = ut.jd1, ut.jd2
+    if _all_one(tt1, tt2, ut1, ut2, elong, phi, hm):
         # One instant at one site for every row (a column of targets): the parameters
         # are made once and serve every row.
         tt1, tt2, ut1, ut2, elong, phi, hm = (np.ravel(v)[:1] for v in
-                                               (tt1, tt2, ut.jd1, ut.jd2, elong, phi, hm))
-        ut = Instants(ut1, ut2, ut.scale, ut.dut1)
-    theta = erfa.era00(ut.jd1, ut.jd2)
+                                               (tt1, tt2, ut1, ut2, elong, phi, hm))
+    one = (tt1, tt2, ut1, ut2, elong, phi)
+    if all(type(v) is np.ndarray and v.shape == (1,) for v in one) and np.size(hm) == 1:
+        # A single cell: kept for the row's other columns (the azimuth beside the
+        # altitude), whose parameters are the same.
+        return _astrom_one(*(v.item() for v in one), float(np.ravel(hm)[0]), phpa, tc,
+                           frame), phpa
+    return _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame), phpa
+
+
+def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
+    """``observer_astrom``'s parameters from checked inputs (TT and UT1 two-part JDs,
+    the site in radians and metres, the atmosphere)."""
+    theta = erfa.era00(ut1, ut2)
     sp = erfa.sp00(tt1, tt2)
     refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
     if frame != "ICRS":
-        return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb), phpa
+        return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb)
     pvh, pvb = erfa_quietly(erfa.epv00, tt1, tt2)  # it warns outside its 1900-2100 fit
     x, y = erfa.bpn2xy(_true_equator(tt1, tt2))
     s = erfa.s06(tt1, tt2, x, y)
     return erfa.apco(tt1, tt2, pvb, pvh["p"], x, y, s, theta, elong, phi, hm, 0.0, 0.0, sp,
-                     refa, refb), phpa
+                     refa, refb)
+
+
+@nodes.kept_per_instant
+def _astrom_one(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
+    """``_astrom`` of one row (floats), kept: a read-only array of one row."""
+    astrom = _astrom(*(np.array([v]) for v in (tt1, tt2, ut1, ut2, elong, phi, hm)), phpa,
+                     tc, frame)
+    astrom.flags.writeable = False
+    return astrom
 
 
 def _true_equator(tt1, tt2):

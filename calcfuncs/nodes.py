@@ -151,8 +151,9 @@ HALF_DAYS_KEPT = 2_000
 # A row of a log asks for one instant in several columns (a longitude, a declination,
 # the Moon beside the Sun), and Calc computes a sheet column by column: a single cell's
 # nutation and Earth (45 and 35 us of ERFA) are kept for the next column's cell of the
-# same row, for the last INSTANTS_KEPT instants (frames.nutation_one, _dated_one and
-# ephemeris._earth_and_sun_one; 7.3 MB when all three are full, measured with tracemalloc).
+# same row, for the last INSTANTS_KEPT instants (frames.nutation_one, _dated_one,
+# ephemeris._earth_and_sun_one and, for a body's other columns, bodies._direction_one;
+# 9.4 MB when all four are full, measured with tracemalloc).
 INSTANTS_KEPT = 4096
 _KEPT_PER_INSTANT = []  # the kept functions (kept_per_instant)
 

@@ -85,8 +85,8 @@ def _place(body, time, kind, source):
 
 def _spherical_in(body, time, system, kind, source):
     with nodes.single_cells():  # a log filled down: nodes.for_one
-        p, tt1, tt2 = _place(body, time, kind, source)
-        return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
+        tt1, tt2 = time.tt()
+        return frames.spherical(bodies.body_in(body, tt1, tt2, system, kind, source))
 
 
 def lon_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):

@@ -157,6 +157,7 @@ def test_a_dense_log_of_cells_agrees_with_each_cell_computed_directly(name, body
     assert len(nodes._STACKS) > 100
     monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    nodes.forget_kept_instants()  # the places kept for a row's other columns, too
     direct = np.array([cells.evaluate(name, [*body, float(s)]) for s in serials])
     difference = np.abs((got - direct + 180.0) % 360.0 - 180.0) * 3.6e9
     assert np.max(difference) < 2.0
@@ -191,23 +192,30 @@ def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers():
     # than nodes.INSTANTS_KEPT instants are kept.
     from calcfuncs import cells, ephemeris, frames
 
+    from calcfuncs import bodies
+
     rng = np.random.default_rng(46)
     serials = np.sort(45292.0 + rng.uniform(0.0, 3000.0, 300)).tolist()  # sparse log
     alone = {}
-    for name in ("SKY.SUN.LON", "SKY.MOON.RA", "SKY.PLANET.DEC"):
-        lead = ["MARS"] if name == "SKY.PLANET.DEC" else []
+    columns = ("SKY.SUN.LON", "SKY.MOON.RA", "SKY.PLANET.DEC", "SKY.SUN.DEC", "SKY.MOON.LON",
+               "SKY.PLANET.RA")
+    for name in columns:
+        lead = ["MARS"] if name.startswith("SKY.PLANET") else []
         for s in serials:
             nodes.forget_kept_instants()
             cells._SINGLE_CELL_CACHE.clear()
             alone[name, s] = cells.evaluate(name, [*lead, s])
     nodes.forget_kept_instants()
     cells._SINGLE_CELL_CACHE.clear()
-    for name in ("SKY.SUN.LON", "SKY.MOON.RA", "SKY.PLANET.DEC"):
-        lead = ["MARS"] if name == "SKY.PLANET.DEC" else []
+    for name in columns:
+        lead = ["MARS"] if name.startswith("SKY.PLANET") else []
         for s in serials:  # column by column, as Calc computes
             assert cells.evaluate(name, [*lead, s]) == alone[name, s]
     assert frames.nutation_one.cache_info().hits >= 300
     assert ephemeris._earth_and_sun_one.cache_info().hits >= 2 * 300
+    # The last three columns found the places of the first three (a body's longitude
+    # beside its declination): one place an instant and body.
+    assert bodies._direction_one.cache_info().hits >= 3 * 300
     # The true obliquity of the row's instant finds the same kept nutation (one series
     # a row, not one for the places and one for the obliquity), and gives what it gives
     # computed alone.
@@ -227,13 +235,45 @@ def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers():
 
 
 def test_the_instants_kept_stay_within_their_bound(monkeypatch):
-    from calcfuncs import cells, ephemeris, frames
+    from calcfuncs import bodies, cells, ephemeris, frames
 
     serials = (45292.0 + 0.37 * np.arange(nodes.INSTANTS_KEPT + 500)).tolist()
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)  # every cell computed directly
     for s in serials:
         cells.evaluate("SKY.SUN.RA", [s])
-    for kept in (frames.nutation_one, ephemeris._earth_and_sun_one):
+    for kept in (frames.nutation_one, ephemeris._earth_and_sun_one, bodies._direction_one):
         assert kept.cache_info().currsize == nodes.INSTANTS_KEPT
     nodes.forget_single_cells()  # the benchmarks' cold start forgets them too
     assert frames.nutation_one.cache_info().currsize == 0
+
+
+def test_a_rows_altitude_and_azimuth_share_the_sites_parameters():
+    # ERFA's astrometry parameters of an instant at a site (horizon.observer_astrom:
+    # epv00, the CIP, s06, refraction constants) are kept for the row's next column:
+    # the azimuth beside the altitude gives what it gives computed alone.
+    from calcfuncs import cells, horizon
+
+    rng = np.random.default_rng(61)
+    rows = [(float(ra), float(dec), float(t)) for ra, dec, t in
+            zip(rng.uniform(0.0, 360.0, 60), rng.uniform(-30.0, 80.0, 60),
+                np.sort(45292.0 + rng.uniform(0.0, 900.0, 60)))]
+    site = (47.3814, 8.0542, None, 250.0, 1013.25)  # invented: height 250 m, refraction on
+    alone = {}
+    for name in ("SKY.HORIZON.ALT", "SKY.HORIZON.AZ"):
+        for row in rows:
+            nodes.forget_kept_instants()
+            cells._SINGLE_CELL_CACHE.clear()
+            alone[name, row] = cells.evaluate(name, [*row, *site])
+    nodes.forget_kept_instants()
+    cells._SINGLE_CELL_CACHE.clear()
+    for name in ("SKY.HORIZON.ALT", "SKY.HORIZON.AZ"):  # column by column
+        for row in rows:
+            assert cells.evaluate(name, [*row, *site]) == alone[name, row]
+    assert horizon._astrom_one.cache_info().hits >= len(rows)
+    # Another site (or atmosphere) is another key: its parameters are made anew.
+    row = next(r for r in rows if isinstance(alone["SKY.HORIZON.ALT", r], float))
+    for other in ((47.3815, *site[1:]), (*site[:4], 1000.0)):
+        misses = horizon._astrom_one.cache_info().misses
+        moved = cells.evaluate("SKY.HORIZON.ALT", [*row, *other])
+        assert horizon._astrom_one.cache_info().misses == misses + 1
+        assert moved != alone["SKY.HORIZON.ALT", row]

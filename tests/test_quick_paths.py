@@ -253,3 +253,25 @@ def test_an_option_word_read_once_gives_the_same_and_a_bad_word_its_message_each
     assert again - first == 0.5
     for _ in range(2):
         assert cells.evaluate("SKY.JD", [45292.5, "UTC", "TX"]).startswith(PREFIX + "unknown")
+
+
+def test_a_cell_with_optional_numbers_left_out_takes_the_quick_path_and_the_same_value(monkeypatch):
+    # Calc passes an omitted trailing argument as None.  An optional number or angle
+    # left out reads as its default (or as not given) on the quick path too; the range
+    # form of one row (the general path) is the reference.
+    rng = np.random.default_rng(51)
+    rows = [(float(ra), float(dec), float(t)) for ra, dec, t in
+            zip(rng.uniform(0.0, 360.0, 40), rng.uniform(-30.0, 80.0, 40),
+                45292.0 + rng.uniform(0.0, 700.0, 40))]
+    site = (47.3814, 8.0542)  # an invented hill station
+    general = cells._compute_group
+    calls = []
+    monkeypatch.setattr(cells, "_compute_group", lambda *a, **k: calls.append(1) or general(*a, **k))
+    for name in ("SKY.HORIZON.ALT", "SKY.HORIZON.AZ", "SKY.HOURANGLE", "SKY.PARALLACTIC"):
+        for ra, dec, t in rows:
+            cells._SINGLE_CELL_CACHE.clear()
+            got = cells.evaluate(name, [ra, dec, t, *site])
+            assert not calls, name  # the quick path answered
+            want = cells.evaluate(name, [((ra,),), ((dec,),), ((t,),), *site])[0][0]
+            calls.clear()
+            assert isinstance(got, float) and got == want, (name, ra, dec, t)
