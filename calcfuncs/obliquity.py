@@ -25,7 +25,7 @@ import numpy as np
 
 from . import frames, iau2000a, vectors
 from .errors import SkyError, rows_failing
-from .timescales import julian_year
+from .timescales import all_within_years, julian_year
 from .vocabulary import (J2000_JD, JULIAN_YEAR_DAYS, NUTATION_VALIDITY,  # validity: see there
                          OBLIQUITY_VALIDITY)
 
@@ -59,8 +59,13 @@ def _alternatives(table, epochs, exclude):
     return [n for n, (a, b) in table.items() if n != exclude and a <= lo and hi <= b]
 
 
-def _check_validity(model, table, epochs, kind):
+def _check_validity(model, table, jd1, jd2, kind):
+    """Refuse the rows outside the model's span (Julian years); one instant inside it
+    is told on floats (timescales.all_within_years, the same years to the bit)."""
     lo, hi = table[model]
+    if jd1.size == 1 and all_within_years(jd1, jd2, (lo, hi)):
+        return
+    epochs = julian_year(jd1, jd2)
     outside = (epochs < lo) | (epochs > hi)
     if np.any(outside):
         others = _alternatives(table, epochs[outside], model)
@@ -76,8 +81,7 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
     model = _check_model(model, OBLIQUITY_VALIDITY, "")
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
-    epochs = julian_year(jd1, jd2)
-    _check_validity(model, OBLIQUITY_VALIDITY, epochs, "obliquity")
+    _check_validity(model, OBLIQUITY_VALIDITY, jd1, jd2, "obliquity")
     if model == "IAU2006":
         return erfa.obl06(jd1, jd2)
     if model == "IAU1980":
@@ -89,6 +93,7 @@ def mean_obliquity(jd1, jd2, model="IAU2006"):
         u = ((jd1 - J2000_JD) + jd2) / (10000.0 * JULIAN_YEAR_DAYS)
         return np.polynomial.polynomial.polyval(u, LASKAR_COEFFS_ARCSEC) * ARCSEC
     # VONDRAK2011: the mean obliquity is the angle between the two poles of date.
+    epochs = julian_year(jd1, jd2)
     return vectors.angle_between(erfa.ltpequ(epochs), erfa.ltpecl(epochs))
 
 
@@ -110,7 +115,7 @@ def nutation_angles(jd1, jd2, model="IAU2000A"):
     model = _check_model(model, NUTATION_VALIDITY, "nutation ")
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
-    _check_validity(model, NUTATION_VALIDITY, julian_year(jd1, jd2), "nutation")
+    _check_validity(model, NUTATION_VALIDITY, jd1, jd2, "nutation")
     if jd1.size == 1:
         one = frames.nutation_one if model == "IAU2000A" else partial(_nutation_one, model=model)
         dpsi, deps = one(float(jd1.ravel()[0]), float(jd2.ravel()[0]))

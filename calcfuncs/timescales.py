@@ -130,7 +130,10 @@ def all_within_years(jd1, jd2, span):
 def check_years(jd1, jd2, span, what, hint=""):
     """Refuse the rows whose Julian year lies outside ``span`` (first, last), worded one
     way for every model and source: "<what>, valid 1000 to 3000[; <hint>]"."""
-    years = julian_year(np.asarray(jd1, dtype=float), np.asarray(jd2, dtype=float))
+    jd1, jd2 = np.asarray(jd1, dtype=float), np.asarray(jd2, dtype=float)
+    if jd1.size == 1 and all_within_years(jd1, jd2, span):  # a cell: told on floats
+        return
+    years = julian_year(jd1, jd2)
     outside = (years < span[0]) | (years > span[1])
     if outside.any():
         raise rows_failing(outside, f"{what}, valid {years_text(span)}"
