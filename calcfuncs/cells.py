@@ -101,11 +101,12 @@ def _read_option(arg, value):
     """The option's value, or a ``SkyError`` worded for the cell."""
     if type(value) is not str or arg.kind == "source":
         return _read_option_anew(arg, value)
-    key = (id(arg), value)  # the registry's arguments live as long as the process
-    found = _WORDS_READ.get(key, _WORDS_READ)
-    if found is _WORDS_READ:
-        found = _read_option_anew(arg, value)
-        keep(_WORDS_READ, key, found, _WORDS_READ_SIZE)
+    key = (id(arg), value)
+    kept = _WORDS_READ.get(key)
+    if kept is not None and kept[0] is arg:  # (an id is only unique while its object lives)
+        return kept[1]
+    found = _read_option_anew(arg, value)
+    keep(_WORDS_READ, key, (arg, found), _WORDS_READ_SIZE)
     return found
 
 
