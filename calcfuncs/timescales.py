@@ -448,6 +448,10 @@ def _tdb_minus_tt(jd1, jd2):
     """TDB - TT in seconds at the geocentre."""
     jd1 = np.asarray(jd1, dtype=float)
     jd2 = np.asarray(jd2, dtype=float)
+    if jd1.shape == (1,) and jd2.shape == (1,):  # a cell: the same steps on floats
+        jd = jd1.item() + jd2.item()
+        if TDB_SERIES_JD[0] <= jd <= TDB_SERIES_JD[1]:
+            return erfa.ufunc.dtdb(jd1, jd2, np.array([(jd + 0.5) % 1.0]), 0.0, 0.0, 0.0)
     jd = jd1 + jd2
     inside = (jd >= TDB_SERIES_JD[0]) & (jd <= TDB_SERIES_JD[1])
     out = np.empty(np.broadcast(jd1, jd2).shape)

@@ -275,3 +275,19 @@ def test_a_cell_with_optional_numbers_left_out_takes_the_quick_path_and_the_same
             want = cells.evaluate(name, [((ra,),), ((dec,),), ((t,),), *site])[0][0]
             calls.clear()
             assert isinstance(got, float) and got == want, (name, ra, dec, t)
+
+
+def test_one_instants_tdb_equals_its_row_of_a_column():
+    # TDB - TT of one instant (a cell: BJD_TDB, a kernel's argument) is worked out on
+    # floats; the column's masked arrays are the reference, to the bit, over dense random
+    # instants, the ends of the span where ERFA dtdb's series is used, and outside it.
+    rng = np.random.default_rng(71)
+    lo, hi = timescales.TDB_SERIES_JD
+    jd = np.concatenate([rng.uniform(lo - 1e5, hi + 1e5, 5_000),
+                         [lo, hi, np.nextafter(lo, 0.0), np.nextafter(hi, np.inf), 2451545.0]])
+    whole = np.floor(jd) + 0.5
+    tt1, tt2 = whole, jd - whole
+    c1, c2 = timescales.tt_to_tdb(tt1, tt2)
+    for k in range(jd.size):
+        a, b = timescales.tt_to_tdb(tt1[k:k + 1], tt2[k:k + 1])
+        assert a.tobytes() == c1[k:k + 1].tobytes() and b.tobytes() == c2[k:k + 1].tobytes(), jd[k]
