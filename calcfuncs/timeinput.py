@@ -29,7 +29,6 @@ from .timescales import (
     before_1960_message,
     erfa_quietly,
     leap_table,
-    one_utc_day_length,
     split_days,
     utc_day_lengths,
 )
@@ -369,22 +368,6 @@ def _utc_clock(jd1, jd2):
     return start, fd * length, length
 
 
-def _one_utc_serial(jd1, jd2, null_jd):
-    """``to_serial`` of one UTC instant since 1972 (an event's answer in a cell): the
-    ERFA calls and arithmetic of ``_utc_clock`` on floats; None for the rest."""
-    iy, im, iday, fd, status = erfa.ufunc.jd2cal(jd1, jd2)
-    if status.item() != 0:
-        return None
-    day0, day1, _ = erfa.ufunc.cal2jd(iy, im, iday)
-    start = day0.item() + day1.item()
-    if start < LEAP_TABLE_START_JD:
-        return None
-    seconds = fd.item() * one_utc_day_length(start)
-    in_leap = seconds >= 86400.0
-    serial = math.nan if in_leap else (start - null_jd) + seconds / 86400.0
-    return np.full(jd1.shape, serial), np.full(jd1.shape, in_leap)
-
-
 def to_serial(inst, null_jd):
     """Calc date-time values (days since the null date) for instants on their scale.
 
@@ -393,10 +376,6 @@ def to_serial(inst, null_jd):
     """
     if inst.scale != "UTC":
         return (inst.jd1 - null_jd) + inst.jd2, np.zeros(inst.jd1.shape, dtype=bool)
-    if inst.jd1.size == 1:
-        found = _one_utc_serial(inst.jd1, inst.jd2, null_jd)
-        if found is not None:
-            return found
     start, seconds, _ = _utc_clock(inst.jd1, inst.jd2)
     in_leap = seconds >= 86400.0
     serial = (start - null_jd) + seconds / 86400.0

@@ -212,15 +212,16 @@ def utc_day_lengths(start):
     start, noon and next start gives (``timeinput``), read from its table in one lookup."""
     starts, dat, _ = _whole_second_table()
     if start.size == 1:  # one day (a cell): the same lookup on floats
-        return np.full(start.shape, one_utc_day_length(start.item()))
+        return np.full(start.shape, _one_utc_day_length(start.item()))
     k = np.minimum(np.searchsorted(starts, start, side="right"), starts.size - 1)
     step = np.where(starts[k] == start + 1.0, dat[k] - dat[k - 1], 0.0)
     return 86400.0 + step
 
 
-def one_utc_day_length(start):
+def _one_utc_day_length(start):
     """``utc_day_lengths`` of one day since 1972 (its JD at 0h, a float), by the same
-    lookup on floats (bisect for searchsorted): a single cell's."""
+    lookup on floats (bisect for searchsorted): a single cell's, whatever asks for its
+    clock (a date-time value, an ISO text)."""
     if not _WHOLE_SECOND_LISTS:
         _WHOLE_SECOND_LISTS.extend(table.tolist() for table in _whole_second_table()[:2])
     starts, dat = _WHOLE_SECOND_LISTS
