@@ -21,6 +21,7 @@ import erfa
 import numpy as np
 
 from . import orbits
+from .bounded import keep
 from .errors import RowErrors, SkyError
 
 # Packed digits: 0-9, A-Z (10-35), a-z (36-61), the MPC's base 62.
@@ -302,10 +303,30 @@ def _row_of(text):
     return hit
 
 
+# A cell's orbit made from its one text (its orientation's sines and cosines, the checks),
+# kept by the text: each call gets a copy of its own (orbits.Orbit.copy) that shares the
+# kept one's read-only arrays, so nothing one cell's computation keeps reaches another.
+_ONE_ORBIT = {}
+ONE_ORBITS_KEPT = 4096  # (each about 2 kB: 8 MB when full)
+
+
 def orbits_of(texts):
     """An ``orbits.Orbit`` for a column of orbit cells (each distinct text read once);
     rows that do not read get their message in a ``RowErrors``."""
     texts = np.asarray(texts, dtype=object).reshape(-1)
+    one = texts[0] if texts.size == 1 and type(texts[0]) is str else None
+    if one is not None:
+        made = _ONE_ORBIT.get(one)
+        if made is not None:
+            return made.copy()
+    made = _orbits_of(texts)
+    if one is not None:
+        keep(_ONE_ORBIT, one, made.read_only(), ONE_ORBITS_KEPT)
+        return made.copy()
+    return made
+
+
+def _orbits_of(texts):
     rows = []
     names = []
     messages = np.full(texts.size, None, dtype=object)

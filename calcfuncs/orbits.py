@@ -46,8 +46,10 @@ def stumpff(z):
     """C(z) = (1 - cos sqrt z) / z and S(z) = (sqrt z - sin sqrt z) / z^(3/2), any sign of z
     (cosh and sinh for z < 0), by their series near zero."""
     z = np.asarray(z, float)
-    c = np.empty_like(z)
-    s = np.empty_like(z)
+    if z.size == 1:  # one row (a cell): its own branch, without the masks
+        return _stumpff_one(z)
+    c = np.full_like(z, np.nan)  # (a NaN row takes no branch below)
+    s = np.full_like(z, np.nan)
     small = np.abs(z) < _SERIES_LIMIT
     if np.any(small):
         zs = z[small]
@@ -69,6 +71,26 @@ def stumpff(z):
         c[neg] = (np.cosh(w) - 1.0) / -z[neg]
         s[neg] = (np.sinh(w) - w) / (w * -z[neg])
     return c, s
+
+
+def _stumpff_one(z):
+    """``stumpff`` of a one-element array by the same operations, in the same order: the
+    series in Python floats (IEEE double arithmetic, as numpy's), the rest on the array
+    (numpy's own cos, sin, cosh and sinh), so a cell equals its row of a column."""
+    v = z.item()
+    if abs(v) < _SERIES_LIMIT:
+        cs = ss = 0.0
+        for c_k, s_k in zip(_C_SERIES[::-1], _S_SERIES[::-1]):
+            cs = c_k - v * cs
+            ss = s_k - v * ss
+        return np.full(z.shape, cs), np.full(z.shape, ss)
+    if v > 0:
+        w = np.sqrt(z)
+        return (1.0 - np.cos(w)) / z, (w - np.sin(w)) / (w * z)
+    if v < 0:
+        w = np.sqrt(-z)
+        return (np.cosh(w) - 1.0) / -z, (np.sinh(w) - w) / (w * -z)
+    return np.full(z.shape, np.nan), np.full(z.shape, np.nan)  # (NaN: no branch takes it)
 
 
 class Orbit:
@@ -109,6 +131,20 @@ class Orbit:
         out.name = None if self.name is None else np.asarray(self.name, dtype=object)[index]
         return out
 
+    def copy(self):
+        """The same orbits as an object of their own (the arrays shared, nothing kept)."""
+        out = Orbit.__new__(type(self))
+        out.__dict__.update(self.__dict__)
+        out.__dict__.pop("_kept", None)
+        return out
+
+    def read_only(self):
+        """These orbits with their arrays made read-only (to be shared by copies)."""
+        for value in self.__dict__.values():
+            if isinstance(value, np.ndarray):
+                value.flags.writeable = False
+        return self
+
     @property
     def alpha(self):
         """1 / a (au^-1): positive for an ellipse, 0 for a parabola, negative beyond."""
@@ -121,11 +157,34 @@ class Orbit:
             return np.where(alpha > 0, 2.0 * np.pi / (SQRT_GM * np.sqrt(np.abs(alpha)) ** 3),
                             np.inf)
 
+    _kept = None  # per row: (days from perihelion, position, velocity) last solved
+
     def state(self, t1, t2):
         """Heliocentric position (au) and velocity (au/day) on the ICRS axes at TT (or
-        TDB: 2 ms apart, metres of motion) instants ``t1 + t2``."""
+        TDB: 2 ms apart, metres of motion) instants ``t1 + t2``.
+
+        The light-time rounds of bodies.place ask again for instants minutes before the
+        ones just solved: each row the f and g series from its last solution reaches
+        (fg_series) takes the series instead of a new Kepler solution.  Row by row, so
+        a cell and its row of a column take the same path."""
         dt = (np.asarray(t1, float) - self.tp1) + (np.asarray(t2, float) - self.tp2)
-        return propagate_from_perihelion(self.q, self.e, self.p_hat, self.q_hat, dt)
+        kept = self._kept
+        if kept is None or kept[0].shape != dt.shape:
+            pos, vel = propagate_from_perihelion(self.q, self.e, self.p_hat, self.q_hat, dt)
+            self._kept = (dt, pos, vel)
+            return pos, vel
+        pos, vel, near = fg_series(kept[1], kept[2], dt - kept[0])
+        if near.all():
+            return pos, vel
+        far, shape = ~near, dt.shape
+        pos[far], vel[far] = propagate_from_perihelion(
+            np.broadcast_to(self.q, shape)[far], np.broadcast_to(self.e, shape)[far],
+            np.broadcast_to(self.p_hat, shape + (3,))[far],
+            np.broadcast_to(self.q_hat, shape + (3,))[far], dt[far])
+        # The rows just solved are the ones the next round starts from.
+        self._kept = (np.where(far, dt, kept[0]), np.where(far[..., None], pos, kept[1]),
+                      np.where(far[..., None], vel, kept[2]))
+        return pos, vel
 
     def heliocentric(self, t1, t2, near=None):
         """(p, v), the interface of an ephemeris source's heliocentric(): bodies.place."""
@@ -171,6 +230,46 @@ def from_mean_anomaly(a, e, mean_anomaly_deg, epoch1, epoch2):
     return a * (1.0 - e), np.asarray(epoch1, float), np.asarray(epoch2, float) - m / n
 
 
+# The f and g series (fg_series) stand for a Kepler solution where their first omitted
+# terms, ten times over, move the position by under SERIES_POSITION_AU (15 mm: 0.2 uas
+# of a light-time place at 0.1 au) and the velocity by under SERIES_VELOCITY_AU_DAY
+# (0.17 mm/s, 1e-8 of a minor planet's speed; the rates of motion use the velocity).
+SERIES_POSITION_AU = 1e-13
+SERIES_VELOCITY_AU_DAY = 1e-10
+
+
+def fg_series(pos, vel, h):
+    """Two-body states ``h`` days from (pos, vel) by the f and g series to the third power
+    of h (the position; the second for the velocity), with where the rest of the series
+    is certainly negligible: (position, velocity, mask).
+
+    r(t + h) = f r + g v, with u = GM / r^3, s = r.v / r^2, w = v.v / r^2 - u:
+    f = 1 - u h^2 / 2 + u s h^3 / 2 + u (3w - 15s^2 + u) h^4 / 24 + ...,
+    g = h - u h^3 / 6 + u s h^4 / 4 + ... (the classical series, e.g. Escobal 1965,
+    Methods of Orbit Determination, ch. 3); the h^4 terms, bounded, decide the mask."""
+    h = np.asarray(h, float)
+    r2 = np.add.reduce(pos * pos, axis=-1)
+    r = np.sqrt(r2)
+    u = GM_SUN / (r2 * r)
+    s = np.add.reduce(pos * vel, axis=-1) / r2
+    w = np.add.reduce(vel * vel, axis=-1) / r2 - u
+    h2 = h * h
+    h3 = h2 * h
+    f = 1.0 - 0.5 * u * h2 + 0.5 * u * s * h3
+    g = h - u * h3 / 6.0
+    f_dot = -u * h + 1.5 * u * s * h2
+    g_dot = 1.0 - 0.5 * u * h2 + u * s * h3
+    out_p = f[..., None] * pos + g[..., None] * vel
+    out_v = f_dot[..., None] * pos + g_dot[..., None] * vel
+    # The first omitted terms' sizes: position (h^4) and velocity (h^3, their rates).
+    fourth = np.abs(u * (3.0 * w - 15.0 * s * s + u)) * r / 24.0 + np.abs(u * s) * np.sqrt(
+        np.add.reduce(vel * vel, axis=-1)) / 4.0
+    with np.errstate(invalid="ignore", over="ignore"):
+        near = (10.0 * fourth * h2 * h2 <= SERIES_POSITION_AU) & (
+            40.0 * fourth * np.abs(h3) <= SERIES_VELOCITY_AU_DAY)
+    return out_p, out_v, near
+
+
 def propagate_from_perihelion(q, e, p_hat, q_hat, dt):
     """Position and velocity (..., 3) at ``dt`` days after perihelion passage.
 
@@ -209,10 +308,14 @@ def _solve_universal(q, e, alpha, target):
     with np.errstate(over="ignore", invalid="ignore", divide="ignore"):
         x = _first_guess(q, e, alpha, target)
     active = np.ones(x.shape, bool)
+    everyone = True  # every row still iterating: no gathering (a cell's usual case)
     for _ in range(_LAGUERRE_STEPS):
-        if not np.any(active):
+        if everyone:
+            xa, qa, ea, aa, ta = x, q, e, alpha, target
+        elif not active.any():
             break
-        xa, qa, ea, aa, ta = x[active], q[active], e[active], alpha[active], target[active]
+        else:
+            xa, qa, ea, aa, ta = x[active], q[active], e[active], alpha[active], target[active]
         z = aa * xa * xa
         c, s = stumpff(z)
         f = qa * xa + ea * xa ** 3 * s - ta
@@ -222,10 +325,15 @@ def _solve_universal(q, e, alpha, target):
         root = np.sqrt(np.abs((n - 1.0) ** 2 * f1 * f1 - n * (n - 1.0) * f * f2))
         den = f1 + np.sign(f1) * root
         step = n * f / den
-        x[active] = xa - step
         done = np.abs(step) <= 1e-13 * np.maximum(np.abs(xa), 1e-300) + 1e-300
-        idx = np.flatnonzero(active)
-        active[idx[done]] = False
+        if everyone:
+            x = xa - step
+            active = ~done
+            everyone = not done.any()
+        else:
+            x[active] = xa - step
+            idx = np.flatnonzero(active)
+            active[idx[done]] = False
     for _ in range(_NEWTON_STEPS):
         z = alpha * x * x
         c, s = stumpff(z)

@@ -184,6 +184,84 @@ def test_near_parabolic_worked_examples(q, e, days, v_deg, r_au):
     assert abs(np.linalg.norm(p[0]) - r_au) < 1e-6
 
 
+def test_fg_series_against_spice_prop2b():
+    """The f and g series that light-time rounds take from a solved state: wherever its
+    mask admits a row, within SERIES_POSITION_AU and SERIES_VELOCITY_AU_DAY (and 1e-15
+    of the state's length, the reference's own rounding) of SPICE prop2b's two-body step (spiceypy 8.3), over
+    random conics from sungrazers to hyperbolas and steps up to 0.06 day (the light
+    time of 10 au)."""
+    rng = np.random.default_rng(2027)
+    n = 2000
+    q = np.exp(rng.uniform(math.log(0.003), math.log(40.0), n))
+    e = np.concatenate([rng.uniform(0.0, 0.99, n // 2), rng.uniform(0.99, 1.5, n // 4),
+                        rng.uniform(1.5, 5.0, n - n // 2 - n // 4)])
+    ph, qh = orbits._orientation(rng.uniform(0, 180, n), rng.uniform(0, 360, n),
+                                 rng.uniform(0, 360, n))
+    dt = rng.uniform(-3000.0, 3000.0, n) * rng.choice([1e-3, 0.1, 1.0], n)
+    p0, v0 = orbits.propagate_from_perihelion(q, e, ph, qh, dt)
+    h = -rng.uniform(0.0, 0.06, n) * rng.choice([1e-3, 0.1, 1.0], n)
+    pos, vel, near = orbits.fg_series(p0, v0, h)
+    assert 0.3 < near.mean() < 0.95  # both kinds of row are in the sample
+    for k in np.flatnonzero(near):
+        ref = np.array(spice.prop2b(orbits.GM_SUN, np.concatenate([p0[k], v0[k]]), h[k]))
+        r, v = np.linalg.norm(ref[:3]), np.linalg.norm(ref[3:])
+        assert np.linalg.norm(pos[k] - ref[:3]) <= orbits.SERIES_POSITION_AU + 1e-15 * r, k
+        assert np.linalg.norm(vel[k] - ref[3:]) <= orbits.SERIES_VELOCITY_AU_DAY + 1e-15 * v, k
+    # A main-belt body and the near-Earth line at their light times are admitted.
+    for line, tau in ((CERES, 0.012), (NEO, 0.0213)):
+        p_1, v_1 = mpcformat.orbits_of(line).state(2460800.5, 0.0)
+        assert orbits.fg_series(p_1, v_1, np.array([-tau]))[2].all(), line[:8]
+
+
+def test_light_time_rounds_from_the_series_and_from_new_solutions():
+    """The geocentric places of every line, their light-time rounds taken from the series
+    (Orbit.state) and from a new Kepler solution each round: within 1e-12 rad."""
+    class Solving(orbits.Orbit):
+        def state(self, t1, t2):
+            self._kept = None
+            return orbits.Orbit.state(self, t1, t2)
+
+    jd = 2460000.5 + np.arange(0.0, 2200.0, 37.3)
+    for line in LINES:
+        kept = mpcformat.orbits_of(np.array([line] * jd.size, dtype=object))
+        solving = kept.take(slice(None))
+        solving.__class__ = Solving
+        a = smallbodies.place(kept, jd, 0.0, "APPARENT")
+        b = smallbodies.place(solving, jd, 0.0, "APPARENT")
+        sep = np.linalg.norm(np.cross(a.direction, b.direction), axis=-1)
+        assert sep.max() < 1e-12, line[:12]
+        assert np.all(np.abs(a.distance - b.distance) < 1e-12)
+
+
+def test_stumpff_of_one_row_equals_the_columns():
+    """A cell's Stumpff functions (one row, their own branch) equal a column's to the
+    bit: series, closed forms either side, the hand-over at |z| = 1, zero and NaN."""
+    values = [0.0, 1e-300, -1e-12, 0.3, -0.7, 1 - 1e-16, 1.0, -1.0, 1 + 1e-15, 2.5, 9.8696,
+              -4.0, -300.0, 700.0, float("nan")]
+    column_c, column_s = orbits.stumpff(np.array(values + [0.5]))
+    for k, z in enumerate(values):
+        c, s = orbits.stumpff(np.array([z]))
+        assert np.array_equal(c, column_c[k:k + 1], equal_nan=True), z
+        assert np.array_equal(s, column_s[k:k + 1], equal_nan=True), z
+
+
+ORBIT_CELLS = ("SKY.ORBIT.RA", "SKY.ORBIT.DEC", "SKY.ORBIT.MAG", "SKY.ORBIT.RATE",
+               "SKY.ORBIT.EARTH.DIST", "SKY.ORBIT.ELONGATION")
+
+
+@pytest.mark.parametrize("name", ORBIT_CELLS)
+def test_orbit_cells_equal_their_rows_of_a_column(name):
+    """Each line at distinct date-times: a cell alone equals its row of a whole-column
+    call to the bit (the cell path takes the series for its light time as the column
+    does, from its own solution)."""
+    times = [45300.25 + 97.3 * k for k in range(12)]
+    texts = [LINES[k % len(LINES)] for k in range(len(times))]
+    column = evaluate(name, [tuple((t,) for t in texts), tuple((t,) for t in times)])
+    for k, (text, t) in enumerate(zip(texts, times)):
+        cell = evaluate(name, [text, t])
+        assert cell == column[k][0], (name, k, cell, column[k][0])
+
+
 # ---- skyfield's two-body orbits of the same lines ---------------------------------------
 
 
