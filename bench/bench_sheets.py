@@ -41,6 +41,10 @@ from timing import save_figures  # noqa: E402
 SITE = "47.3814;8.0542"
 FIRST_DAY = 45658.0  # 2025-01-01 as a Calc date value (null date 1899-12-30)
 
+# The invented asteroid "Kettle A" of sample_sheets/minor_planets.ods, as an MPC line.
+ORBIT_LINE = ("K26S01A 12.40  0.15 K2731 210.00000  112.40000  203.70000    6.30000  "
+              "0.1280000  0.23347711   2.6120000")
+
 # name -> (kind of input in column A, formula of row r). Kinds: log (distinct date-times),
 # nights (distinct date-times, NIGHT_ROWS a night), days (consecutive dates), years
 # (consecutive years).
@@ -61,6 +65,8 @@ CASES = {
     "SKY.MOON.PHASE.NEXT": ("log", '=SKY.MOON.PHASE.NEXT(A{r};;"FULL")'),
     "SKY.PLANET.EVENT.NEXT": ("log", '=SKY.PLANET.EVENT.NEXT("MARS";A{r};;"OPPOSITION")'),
     "SKY.SEASON": ("years", '=SKY.SEASON(A{r};"{event}";"TT")'),
+    # A minor planet's place from its MPC line (an invented asteroid of the sample sheets).
+    "SKY.ORBIT.RA (a minor planet's line)": ("log", f'=SKY.ORBIT.RA("{ORBIT_LINE}";A{{r}})'),
     # A log's row of places: four columns at one instant (Calc computes column by column).
     "a row of places (four columns)": ("log", ("=SKY.SUN.LON(A{r})", "=SKY.SUN.DEC(A{r})",
                                                "=SKY.MOON.LON(A{r})", "=SKY.MOON.RA(A{r})")),

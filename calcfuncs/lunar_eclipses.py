@@ -43,6 +43,7 @@ import erfa
 import numpy as np
 
 from . import bodies, ephemeris, frames, vectors
+from .bounded import keep
 from .errors import RowErrors, SkyError, rows_failing
 from .events import Roots, crossings, polish
 from .moon import rough_elongation
@@ -304,8 +305,8 @@ def _of_lunations(ks, rule, source):
     c1, c2 = c1[cand], c2[cand]
     track = Track(c1, c2, source)
     g1, g2, found = _greatest(c1, c2, rule, source, track)
-    keep = np.flatnonzero(found)  # a candidate without a minimum is no eclipse
-    g1, g2, track, cand = g1[keep], g2[keep], track[keep], cand[keep]
+    minimum = np.flatnonzero(found)  # a candidate without a minimum is no eclipse
+    g1, g2, track, cand = g1[minimum], g2[minimum], track[minimum], cand[minimum]
     at = Shadow(g1, g2, rule, source, track)
     eclipse = at.m < at.penumbra + at.moon
     g1, g2, track, cand = g1[eclipse], g2[eclipse], track[eclipse], cand[eclipse]
@@ -363,17 +364,17 @@ def find(start, end, rule="DANJON", source=BUILTIN):
     return out
 
 
-def _subset_shadow(shadow, keep):
+def _subset_shadow(shadow, index):
     s = object.__new__(Shadow)
     for k in Shadow.__slots__:
-        setattr(s, k, getattr(shadow, k)[keep])
+        setattr(s, k, getattr(shadow, k)[index])
     return s
 
 
-def _subset(e, keep):
-    s = _subset_shadow(e.shadow, keep)
-    contacts = {k: tuple(v[keep] for v in val) for k, val in e.contacts.items()}
-    return Eclipses(e.g1[keep], e.g2[keep], e.row[keep], s, contacts, e.rule, e.source)
+def _subset(e, index):
+    s = _subset_shadow(e.shadow, index)
+    contacts = {k: tuple(v[index] for v in val) for k, val in e.contacts.items()}
+    return Eclipses(e.g1[index], e.g2[index], e.row[index], s, contacts, e.rule, e.source)
 
 
 def _contacts(g1, g2, at, rule, source, track):
@@ -426,10 +427,30 @@ def _contacts(g1, g2, at, rule, source, track):
     return out
 
 
+# One instant's next eclipse, kept: a sheet's row asks for it in several cells (the
+# instant, kind, magnitudes, contacts, the Moon's altitude), each a search of its own.
+# Keyed by the instant, the rule, the source and what its kernels hold now; about 5 kB
+# each, 5 MB when full.
+_ONE_INSTANT = {}
+ONE_INSTANT_KEPT = 1000
+
+
 def next_after(tt1, tt2, rule="DANJON", source=BUILTIN):
     """The first lunar eclipse whose greatest eclipse is after each instant: ``Eclipses``
-    with one eclipse per row, in row order."""
+    with one eclipse per row, in row order.  One instant's is kept (read it, never
+    change it)."""
     tt1, tt2 = np.ravel(np.asarray(tt1, float)), np.ravel(np.asarray(tt2, float))
+    if tt1.size != 1:
+        return _next_after(tt1, tt2, rule, source)
+    key = (tt1.item(), tt2.item(), str(rule), str(source), ephemeris.content_stamp(source))
+    found = _ONE_INSTANT.get(key)
+    if found is None:
+        found = _next_after(tt1, tt2, rule, source)
+        keep(_ONE_INSTANT, key, found, ONE_INSTANT_KEPT)
+    return found
+
+
+def _next_after(tt1, tt2, rule, source):
     n = tt1.size
     jd = tt1 + tt2
     chosen = np.zeros(n, bool)

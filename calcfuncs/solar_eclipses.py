@@ -44,6 +44,7 @@ import numpy as np
 from numpy.polynomial import chebyshev
 
 from . import bodies, deltat, ephemeris, frames, horizon, vectors
+from .bounded import keep
 from .errors import RowErrors, rows_failing
 from .events import brackets, crossings, refine, sample, wrap180
 from .moon import elongation_lon, rough_elongation
@@ -442,15 +443,40 @@ class Local:
     """Local circumstances per row (TT two-part instants, NaN where there is none)."""
 
 
+# One site's circumstances of one eclipse, kept: a sheet's row asks for them in several
+# cells (the contacts, the magnitude, what is seen), each a computation of its own.
+# Keyed by the eclipse (its greatest instant, the source and what its kernels hold now)
+# and every other argument; 8.7 kB each (tracemalloc over 200 sites), 9 MB when full.
+_ONE_SITE = {}
+ONE_SITE_KEPT = 1000
+
+
 def local(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", shift_s=0.0,
           source=BUILTIN, dut1=0.0):
     """Local circumstances at sites of the next solar eclipse after TT instants.
 
     ``ut_scale`` says how UT follows from TT (a UT scale with its Delta T rule);
-    ``shift_s`` adds seconds to that Delta T, row by row."""
+    ``shift_s`` adds seconds to that Delta T, row by row.  The circumstances of one row
+    are kept (any instant before the same eclipse finds them)."""
     tt1, tt2 = np.ravel(np.asarray(tt1, float)), np.ravel(np.asarray(tt2, float))
-    n = tt1.size
     found = next_eclipse(tt1, tt2, source)
+    one = (tt1.size, np.size(latitude), np.size(longitude), np.size(height),
+           np.size(shift_s)) == (1, 1, 1, 1, 1)
+    if not one:
+        return _local(found, latitude, longitude, height, ut_scale, shift_s, source, dut1)
+    key = (str(source), ephemeris.content_stamp(source), found.g1.item(), found.g2.item(),
+           *(float(np.ravel(a)[0]) for a in (latitude, longitude, height, shift_s)),
+           ut_scale, float(dut1))
+    out = _ONE_SITE.get(key)
+    if out is None:
+        out = _local(found, latitude, longitude, height, ut_scale, shift_s, source, dut1)
+        keep(_ONE_SITE, key, out, ONE_SITE_KEPT)
+    return out
+
+
+def _local(found, latitude, longitude, height, ut_scale, shift_s, source, dut1):
+    """``local`` of the eclipses ``found`` (one a row)."""
+    n = found.of_row.size
     series, e = found.series, found.of_row
     shift = np.broadcast_to(np.asarray(shift_s, float), (n,)).copy()
     lat, lon, hgt = (np.broadcast_to(np.ravel(np.asarray(a, float)), (n,)) if np.size(a) <= n
@@ -458,7 +484,7 @@ def local(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", shift_s=0.0,
     site = Site(series, e, lat, lon, hgt, ut_scale, shift, dut1)
     c = series.c1[e] + series.c2[e]
     out = Local()
-    out.found, out.e, out.site = found, e, site
+    out.found, out.e, out.site, out.shift = found, e, site, shift
     out.kind = found.kind[e]
     out.delta_t = site.delta_t
     # Maximum: where the distance from the axis, m, is least.
@@ -467,8 +493,8 @@ def local(tt1, tt2, latitude, longitude, height=0.0, ut_scale="UT", shift_s=0.0,
     m_at = site.state(roots.jd1, roots.jd2, roots.row).m if len(roots) else np.zeros(0)
     best = np.full(n, np.inf)
     np.minimum.at(best, roots.row, m_at)
-    keep = m_at <= best[roots.row]
-    t1, t2, ok = roots.first(n, keep)
+    least = m_at <= best[roots.row]
+    t1, t2, ok = roots.first(n, least)
     t1, t2 = np.where(ok, t1, series.c1[e]), np.where(ok, t2, series.c2[e])
     st = site.state(t1, t2, np.arange(n))
     out.max = (t1, t2)
@@ -686,10 +712,8 @@ def _local_for(time, latitude, longitude, height, nsigma, source):
     found = _found_for(time, source)
     shift = _shift_seconds(time, nsigma, found)
     tt1, tt2 = time.tt()
-    out = local(tt1, tt2, latitude, longitude, height, universal_of(time.scale), shift, source,
-                time.dut1)
-    out.shift = shift
-    return out
+    return local(tt1, tt2, latitude, longitude, height, universal_of(time.scale), shift, source,
+                 time.dut1)
 
 
 def _check_lost(out):

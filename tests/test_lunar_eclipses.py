@@ -360,3 +360,62 @@ def test_sun_nodes_agree_with_the_direct_pipeline(monkeypatch):
         x, y = a.contacts[name], b.contacts[name]
         assert np.array_equal(x[2], y[2])
         assert np.nanmax(np.abs((x[0] - y[0]) + (x[1] - y[1]))) * 86400.0 < 1e-4
+
+
+# ---- one instant's eclipse kept for the row's other cells -------------------------------
+
+
+# A row's cells (the registry's argument orders, the scale left out).
+LUNAR_ROW = (
+    ("SKY.LUNAR.ECLIPSE.NEXT", lambda d, r: [d, None, "GREATEST", None, r]),
+    ("SKY.LUNAR.ECLIPSE.NEXT", lambda d, r: [d, None, "U1", None, r]),
+    ("SKY.LUNAR.ECLIPSE.KIND", lambda d, r: [d, None, r]),
+    ("SKY.LUNAR.ECLIPSE.MAGNITUDE", lambda d, r: [d, None, "UMBRAL", r]),
+    ("SKY.LUNAR.ECLIPSE.GAMMA", lambda d, r: [d, None, r]),
+    ("SKY.LUNAR.ECLIPSE.DURATION", lambda d, r: [d, None, "PARTIAL", r]),
+    ("SKY.LUNAR.ECLIPSE.MOON.ALT", lambda d, r: [d, 51.84, -1.62, None, "U1", 0.0, 0.0, r]),
+)
+
+
+def _lunar_row(date, rule="DANJON"):
+    return [evaluate(name, args(date, rule)) for name, args in LUNAR_ROW]
+
+
+def _fresh_lunar_row(date, rule="DANJON"):
+    """Each cell of the row computed with nothing kept."""
+    from calcfuncs import cells
+
+    out = []
+    for name, args in LUNAR_ROW:
+        le._ONE_INSTANT.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        out.append(evaluate(name, args(date, rule)))
+    return out
+
+
+def test_a_rows_cells_share_one_search_and_equal_fresh_ones():
+    """The instant, contacts, kind, magnitude, gamma, duration and the Moon's altitude
+    of a row (the partial eclipse of 2026-08-28 and the total one of 2025-09-07) from
+    one kept search equal each cell computed with nothing kept."""
+    from calcfuncs import cells
+
+    for date in ("2026-08-01", "2025-08-20"):
+        fresh = _fresh_lunar_row(date)
+        assert not any(isinstance(v, str) and v.startswith("#SKY") for v in fresh), fresh
+        le._ONE_INSTANT.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        assert _lunar_row(date) == fresh
+        assert len(le._ONE_INSTANT) == 1  # one search for the whole row
+
+
+def test_kept_search_never_answers_for_another_rule():
+    """The same instant under Chauvenet's rule is searched anew: its magnitudes differ
+    from Danjon's (larger shadow), as with nothing kept."""
+    from calcfuncs import cells
+
+    date = "2025-08-20"
+    danjon = _lunar_row(date)
+    cells._SINGLE_CELL_CACHE.clear()
+    chauvenet = _lunar_row(date, "CHAUVENET")
+    assert chauvenet[3] != danjon[3]
+    assert chauvenet == _fresh_lunar_row(date, "CHAUVENET")

@@ -10,7 +10,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import deltat
+from calcfuncs import cells, deltat
 from calcfuncs import solar_eclipses as se
 from calcfuncs.cells import evaluate
 from calcfuncs.timeinput import read_times
@@ -310,3 +310,61 @@ def test_hostile_input_gives_messages():
     for args, mention in cases:
         got = evaluate("SKY.SOLAR.ECLIPSE.LOCAL", args)
         assert got.startswith("#SKY:") and mention in got, got
+
+
+# ---- one site's circumstances kept for the row's other cells ----------------------------
+
+
+ROW_CELLS = [("SKY.SOLAR.ECLIPSE.CONTACT", ["C1"]), ("SKY.SOLAR.ECLIPSE.CONTACT", ["C2"]),
+             ("SKY.SOLAR.ECLIPSE.CONTACT", ["C4"]), ("SKY.SOLAR.ECLIPSE.LOCAL", ["MAGNITUDE"]),
+             ("SKY.SOLAR.ECLIPSE.LOCAL", ["DURATION"]), ("SKY.SOLAR.ECLIPSE.SEEN", [])]
+
+
+def _cell(k, date, lat, lon, height=0.0):
+    name, extra = ROW_CELLS[k]
+    if name == "SKY.SOLAR.ECLIPSE.CONTACT":
+        return evaluate(name, [date, lat, lon, "UTC", *extra, "UTC", height])
+    if name == "SKY.SOLAR.ECLIPSE.LOCAL":
+        return evaluate(name, [date, lat, lon, "UTC", *extra, "MAX", height])
+    return evaluate(name, [date, lat, lon, height])
+
+
+def _row(*args):
+    return [_cell(k, *args) for k in range(len(ROW_CELLS))]
+
+
+def _fresh_row(*args):
+    """Each cell of the row computed with nothing kept (neither circumstances nor cells)."""
+    out = []
+    for k in range(len(ROW_CELLS)):
+        se._ONE_SITE.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        out.append(_cell(k, *args))
+    return out
+
+
+def test_a_rows_cells_share_one_computation_and_equal_fresh_ones():
+    """The contacts, magnitude, duration and words of a row (Carbondale, 2017, and a
+    site outside the path) from the kept circumstances equal each cell computed with
+    nothing kept; another instant before the same eclipse finds them too."""
+    for date, lat, lon in (("2017-08-20", 37.7273, -89.2168), ("2024-04-01", 40.7128, -74.006)):
+        fresh = _fresh_row(date, lat, lon)
+        se._ONE_SITE.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        kept = _row(date, lat, lon)
+        assert len(se._ONE_SITE) == 1  # one computation for the whole row
+        assert kept == fresh
+        assert _row(date + "T06:00", lat, lon) == fresh  # a later instant, the same eclipse
+        assert len(se._ONE_SITE) == 1
+
+
+def test_kept_circumstances_never_answer_for_another_site_or_height():
+    """A changed latitude, longitude or height is computed anew (as it would be with
+    nothing kept), never read from the kept row."""
+    date, lat, lon = "2017-08-20", 37.7273, -89.2168
+    base = _row(date, lat, lon)
+    for other in ((date, lat + 0.5, lon), (date, lat, lon - 0.5), (date, lat, lon, 2000.0)):
+        cells._SINGLE_CELL_CACHE.clear()
+        kept_first = _row(*other)
+        assert kept_first != base
+        assert kept_first == _fresh_row(*other)
