@@ -18,6 +18,7 @@ SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months, or int
 import numpy as np
 
 from . import bodies, ephemeris, frames, mpcformat, topocentric, vectors
+from .bounded import keep
 from .errors import rows_failing
 from .events import crossings, wrap180
 from .orbits import check_elements, from_mean_anomaly
@@ -168,7 +169,43 @@ def place(o, tt1, tt2, kind="APPARENT", source=BUILTIN):
     return bodies.place(o, tdb1, tdb2, kind, source)
 
 
+# One cell's place of an orbit's body, kept for the row's other cells (the Dec beside the
+# RA, the magnitude, the elongation, the phase angle): keyed by the orbit's text, the
+# instant, the kind of place, the model and the source with what its kernels hold now.
+# About 2 kB each: 2 MB when full.
+_ONE_PLACE = {}
+ONE_PLACES_KEPT = 1000
+
+
+def _kept_for_one(orbit, time, what, source, model, compute):
+    """``compute()`` (a tuple whose arrays are read-only once kept), kept for one cell
+    (one orbit text at one instant) by ``what`` it is, the model and the source."""
+    texts = np.ravel(np.asarray(orbit, dtype=object))
+    tt1, tt2 = time.tt()
+    if texts.size != 1 or type(texts[0]) is not str or np.size(tt1) != 1:
+        return compute()
+    key = (texts[0], float(np.ravel(tt1)[0]), float(np.ravel(tt2)[0]), what, model,
+           str(source), ephemeris.content_stamp(source))
+    found = _ONE_PLACE.get(key)
+    if found is None:
+        found = compute()
+        for a in found:
+            if isinstance(a, bodies.Place):
+                a = (a.direction, a.distance, a.helio, a.earth_helio)
+            for array in (a if isinstance(a, tuple) else (a,)):
+                array.flags.writeable = False
+        keep(_ONE_PLACE, key, found, ONE_PLACES_KEPT)
+    return found
+
+
 def _place(orbit, time, kind, source, model=TWO_BODY):
+    """(bodies.Place, tt1, tt2) of the orbits' bodies at the instants; one cell's kept
+    (read it, never change it)."""
+    return _kept_for_one(orbit, time, kind, source, model,
+                         lambda: _place_of(orbit, time, kind, source, model))
+
+
+def _place_of(orbit, time, kind, source, model):
     o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
     return place(moved(o, model, source), tt1, tt2, kind, source), tt1, tt2
 
@@ -269,14 +306,22 @@ def motion(body, tt1, tt2, source=BUILTIN):
     return rate, pa
 
 
+def _motion(orbit, time, source, model):
+    """``motion`` of the orbits' bodies at the instants; one cell's kept (the rate and
+    the direction of motion are a row's two cells)."""
+    def compute():
+        o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
+        return motion(moved(o, model, source), tt1, tt2, source)
+
+    return _kept_for_one(orbit, time, "MOTION", source, model, compute)
+
+
 def rate_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
-    o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
-    return motion(moved(o, model, source), tt1, tt2, source)[0]
+    return _motion(orbit, time, source, model)[0]
 
 
 def direction_cells(orbit, time, source=BUILTIN, model=TWO_BODY):
-    o, tt1, tt2, _, _ = _orbit_and_times(orbit, time, source)
-    return motion(moved(o, model, source), tt1, tt2, source)[1]
+    return _motion(orbit, time, source, model)[1]
 
 
 # ---- magnitudes --------------------------------------------------------------------------

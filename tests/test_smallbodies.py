@@ -262,6 +262,58 @@ def test_orbit_cells_equal_their_rows_of_a_column(name):
         assert cell == column[k][0], (name, k, cell, column[k][0])
 
 
+ROW_OF_AN_ORBIT = ("SKY.ORBIT.RA", "SKY.ORBIT.DEC", "SKY.ORBIT.MAG", "SKY.ORBIT.ELONGATION",
+                   "SKY.ORBIT.PHASE.ANGLE", "SKY.ORBIT.EARTH.DIST", "SKY.ORBIT.RATE",
+                   "SKY.ORBIT.RATE.PA")
+
+
+def _orbit_row(line, t, source=None, model=None):
+    from calcfuncs import registry
+
+    out = []
+    for name in ROW_OF_AN_ORBIT:
+        names = [a.name for a in registry.BY_NAME[name].args]
+        args = [None] * len(names)
+        args[0], args[1] = line, t
+        args[names.index("source")] = source
+        args[names.index("model")] = model
+        out.append(evaluate(name, args))
+    return out
+
+
+def _fresh_orbit_row(*args):
+    from calcfuncs import cells
+
+    out = []
+    for k in range(len(ROW_OF_AN_ORBIT)):
+        smallbodies._ONE_PLACE.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        out.append(_orbit_row(*args)[k])
+    return out
+
+
+def test_a_row_of_orbit_cells_shares_one_place_and_equals_fresh_cells():
+    """RA, Dec, magnitude, elongation, phase angle, distance and motion of a line at an
+    instant, read from the kept place, equal each cell computed with nothing kept; and a
+    changed instant, model or source is computed anew."""
+    from calcfuncs import cells
+
+    t = 45400.3
+    for line in (CERES, NEO, COMET_ELLIPTIC):
+        fresh = _fresh_orbit_row(line, t)
+        assert not any(isinstance(v, str) for v in fresh), fresh
+        smallbodies._ONE_PLACE.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        assert _orbit_row(line, t) == fresh
+        assert len(smallbodies._ONE_PLACE) == 3  # apparent, astrometric, motion
+    base = _orbit_row(NEO, t)
+    for other in ((NEO, t + 1e-5), (NEO, t, None, "PLANETS"), (NEO, t, DE440)):
+        cells._SINGLE_CELL_CACHE.clear()
+        kept_first = _orbit_row(*other)
+        assert kept_first[0] != base[0]
+        assert kept_first == _fresh_orbit_row(*other)
+
+
 # ---- skyfield's two-body orbits of the same lines ---------------------------------------
 
 
