@@ -190,8 +190,8 @@ def _kept_for_one(orbit, time, what, source, model, compute):
     if found is None:
         found = compute()
         for a in found:
-            if isinstance(a, bodies.Place):
-                a = (a.direction, a.distance, a.helio, a.earth_helio)
+            if isinstance(a, (bodies.Place, topocentric.TopoPlace)):
+                a = (a.direction, a.distance)
             for array in (a if isinstance(a, tuple) else (a,)):
                 array.flags.writeable = False
         keep(_ONE_PLACE, key, found, ONE_PLACES_KEPT)
@@ -236,9 +236,20 @@ def lat_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=
 
 def _topo(orbit, time, latitude, longitude, height, kind, source, model, pressure=0.0,
           temperature=10.0):
-    o = mpcformat.orbits_of(orbit)
-    return topocentric.place(moved(o, model, source), time, latitude, longitude, height, kind,
-                             source, pressure, temperature)
+    """topocentric.TopoPlace of the orbits' bodies; one cell's kept (its RA, Dec,
+    altitude and azimuth are a row's cells), by everything a site's place depends on:
+    the site, the air, and the instant's scale and DUT1 (the Earth's turn)."""
+    def compute():
+        o = mpcformat.orbits_of(orbit)
+        return (topocentric.place(moved(o, model, source), time, latitude, longitude, height,
+                                  kind, source, pressure, temperature),)
+
+    what = ("SITE", kind, time.scale, float(time.dut1),
+            *(float(np.ravel(a)[0]) if a is not None and np.size(a) == 1 else None
+              for a in (latitude, longitude, height, pressure, temperature)))
+    if None in what:  # (a column of sites)
+        return compute()[0]
+    return _kept_for_one(orbit, time, what, source, model, compute)[0]
 
 
 def topo_ra_cells(orbit, time, latitude, longitude, height=0.0, frame="TRUE",

@@ -310,8 +310,64 @@ def test_a_row_of_orbit_cells_shares_one_place_and_equals_fresh_cells():
     for other in ((NEO, t + 1e-5), (NEO, t, None, "PLANETS"), (NEO, t, DE440)):
         cells._SINGLE_CELL_CACHE.clear()
         kept_first = _orbit_row(*other)
+        assert not any(isinstance(v, str) for v in kept_first), (other[1:], kept_first)
         assert kept_first[0] != base[0]
         assert kept_first == _fresh_orbit_row(*other)
+
+
+SITE_ROW = ("SKY.ORBIT.TOPO.RA", "SKY.ORBIT.TOPO.DEC", "SKY.ORBIT.TOPO.ALT", "SKY.ORBIT.TOPO.AZ")
+
+
+def _site_row(line, t, lat=51.84, lon=-1.62, height=148.0, pressure=None, dut1=None,
+              only=None):
+    from calcfuncs import registry
+
+    out = []
+    for k, name in enumerate(SITE_ROW):
+        if only is not None and k != only:
+            continue
+        names = [a.name for a in registry.BY_NAME[name].args]
+        args = [None] * len(names)
+        args[:4] = [line, t, lat, lon]
+        args[names.index("height")] = height
+        if "pressure" in names:
+            args[names.index("pressure")] = pressure
+        args[names.index("dut1")] = dut1
+        out.append(evaluate(name, args))
+    return out
+
+
+def _fresh_site_row(*args, **kw):
+    from calcfuncs import cells
+
+    out = []
+    for k in range(len(SITE_ROW)):
+        smallbodies._ONE_PLACE.clear()
+        cells._SINGLE_CELL_CACHE.clear()
+        out += _site_row(*args, only=k, **kw)
+    return out
+
+
+def test_a_row_of_topocentric_orbit_cells_shares_one_place():
+    """A site's RA, Dec, altitude and azimuth of a line at an instant from one kept place
+    equal each cell computed with nothing kept; another site, height, pressure or DUT1
+    (the same TT, the Earth turned further) is computed anew."""
+    from calcfuncs import cells
+
+    t = 45401.375  # the near-Earth line 33 degrees up
+    fresh = _fresh_site_row(NEO, t)
+    assert not any(isinstance(v, str) for v in fresh), fresh
+    smallbodies._ONE_PLACE.clear()
+    cells._SINGLE_CELL_CACHE.clear()
+    assert _site_row(NEO, t) == fresh
+    assert len(smallbodies._ONE_PLACE) == 1
+    for other in ({"lat": 40.0}, {"lon": 10.0}, {"height": 2000.0}, {"pressure": 1000.0},
+                  {"dut1": 0.4}):
+        cells._SINGLE_CELL_CACHE.clear()
+        kept_first = _site_row(NEO, t, **other)
+        assert not any(isinstance(v, str) for v in kept_first), (other, kept_first)
+        assert kept_first != fresh, other
+        assert kept_first == _fresh_site_row(NEO, t, **other), other
 
 
 # ---- skyfield's two-body orbits of the same lines ---------------------------------------
