@@ -74,23 +74,28 @@ def stumpff(z):
 
 
 def _stumpff_one(z):
-    """``stumpff`` of a one-element array by the same operations, in the same order: the
-    series in Python floats (IEEE double arithmetic, as numpy's), the rest on the array
-    (numpy's own cos, sin, cosh and sinh), so a cell equals its row of a column."""
-    v = z.item()
+    """``stumpff`` of a one-element array, by ``_stumpff_of_float``."""
+    c, s = _stumpff_of_float(z.item())
+    return np.full(z.shape, c), np.full(z.shape, s)
+
+
+def _stumpff_of_float(v):
+    """``stumpff`` of one float by the same operations in the same order: the series in
+    Python floats (IEEE double arithmetic, as numpy's), the closed forms with numpy's own
+    sqrt, cos, sin, cosh and sinh, so a cell equals its row of a column to the bit."""
     if abs(v) < _SERIES_LIMIT:
         cs = ss = 0.0
         for c_k, s_k in zip(_C_SERIES[::-1], _S_SERIES[::-1]):
             cs = c_k - v * cs
             ss = s_k - v * ss
-        return np.full(z.shape, cs), np.full(z.shape, ss)
+        return cs, ss
     if v > 0:
-        w = np.sqrt(z)
-        return (1.0 - np.cos(w)) / z, (w - np.sin(w)) / (w * z)
+        w = np.sqrt(v)
+        return (1.0 - np.cos(w)) / v, (w - np.sin(w)) / (w * v)
     if v < 0:
-        w = np.sqrt(-z)
-        return (np.cosh(w) - 1.0) / -z, (np.sinh(w) - w) / (w * -z)
-    return np.full(z.shape, np.nan), np.full(z.shape, np.nan)  # (NaN: no branch takes it)
+        w = np.sqrt(-v)
+        return (np.cosh(w) - 1.0) / -v, (np.sinh(w) - w) / (w * -v)
+    return math.nan, math.nan  # (NaN: no branch takes it)
 
 
 class Orbit:
@@ -252,7 +257,8 @@ def fg_series(pos, vel, h):
     r = np.sqrt(r2)
     u = GM_SUN / (r2 * r)
     s = np.add.reduce(pos * vel, axis=-1) / r2
-    w = np.add.reduce(vel * vel, axis=-1) / r2 - u
+    v2 = np.add.reduce(vel * vel, axis=-1)
+    w = v2 / r2 - u
     h2 = h * h
     h3 = h2 * h
     f = 1.0 - 0.5 * u * h2 + 0.5 * u * s * h3
@@ -262,8 +268,8 @@ def fg_series(pos, vel, h):
     out_p = f[..., None] * pos + g[..., None] * vel
     out_v = f_dot[..., None] * pos + g_dot[..., None] * vel
     # The first omitted terms' sizes: position (h^4) and velocity (h^3, their rates).
-    fourth = np.abs(u * (3.0 * w - 15.0 * s * s + u)) * r / 24.0 + np.abs(u * s) * np.sqrt(
-        np.add.reduce(vel * vel, axis=-1)) / 4.0
+    fourth = (np.abs(u * (3.0 * w - 15.0 * s * s + u)) * r / 24.0
+              + np.abs(u * s) * np.sqrt(v2) / 4.0)
     with np.errstate(invalid="ignore", over="ignore"):
         near = (10.0 * fourth * h2 * h2 <= SERIES_POSITION_AU) & (
             40.0 * fourth * np.abs(h3) <= SERIES_VELOCITY_AU_DAY)
@@ -304,42 +310,61 @@ def _solve_universal(q, e, alpha, target):
     """The universal anomaly x with F(x) = q x + e x^3 S(alpha x^2) - target = 0.
 
     F is increasing (F' = r > 0), so the root is unique; Laguerre's iteration (n = 5)
-    converges from any start, and a few Newton steps then bring it to the last bit."""
+    converges from any start, and a few Newton steps then bring it to the last bit.
+    One row (a cell) iterates on floats by the same steps (_laguerre_step, _newton_step
+    take floats and arrays alike), a column on arrays, each row until it settles."""
     with np.errstate(over="ignore", invalid="ignore", divide="ignore"):
         x = _first_guess(q, e, alpha, target)
+    if x.size == 1:
+        xs, qs, es, als, ts = (float(np.ravel(v)[0]) for v in (x, q, e, alpha, target))
+        for _ in range(_LAGUERRE_STEPS):
+            xs, done = _laguerre_step(xs, qs, es, als, ts, _stumpff_of_float)
+            if done:
+                break
+        for _ in range(_NEWTON_STEPS):
+            xs = _newton_step(xs, qs, es, als, ts, _stumpff_of_float)
+        return np.full(x.shape, xs)
     active = np.ones(x.shape, bool)
-    everyone = True  # every row still iterating: no gathering (a cell's usual case)
+    everyone = True  # every row still iterating: no gathering
     for _ in range(_LAGUERRE_STEPS):
         if everyone:
-            xa, qa, ea, aa, ta = x, q, e, alpha, target
+            new, done = _laguerre_step(x, q, e, alpha, target, stumpff)
+            x = new
+            active = ~done
+            everyone = not done.any()
         elif not active.any():
             break
         else:
-            xa, qa, ea, aa, ta = x[active], q[active], e[active], alpha[active], target[active]
-        z = aa * xa * xa
-        c, s = stumpff(z)
-        f = qa * xa + ea * xa ** 3 * s - ta
-        f1 = qa + ea * xa * xa * c                    # dF/dx = r
-        f2 = ea * xa * (1.0 - z * s)                  # d2F/dx2 = r . v / sqrt(GM)
-        n = 5.0
-        root = np.sqrt(np.abs((n - 1.0) ** 2 * f1 * f1 - n * (n - 1.0) * f * f2))
-        den = f1 + np.sign(f1) * root
-        step = n * f / den
-        done = np.abs(step) <= 1e-13 * np.maximum(np.abs(xa), 1e-300) + 1e-300
-        if everyone:
-            x = xa - step
-            active = ~done
-            everyone = not done.any()
-        else:
-            x[active] = xa - step
+            new, done = _laguerre_step(x[active], q[active], e[active], alpha[active],
+                                       target[active], stumpff)
+            x[active] = new
             idx = np.flatnonzero(active)
             active[idx[done]] = False
     for _ in range(_NEWTON_STEPS):
-        z = alpha * x * x
-        c, s = stumpff(z)
-        f = q * x + e * x ** 3 * s - target
-        x = x - f / (q + e * x * x * c)
+        x = _newton_step(x, q, e, alpha, target, stumpff)
     return x
+
+
+def _laguerre_step(x, q, e, alpha, target, stumpff_of):
+    """Laguerre's step (n = 5) on F from x: (the next x, whether the step was negligible).
+    Floats or arrays alike (numpy's functions on either), so both give the same bits."""
+    z = alpha * x * x
+    c, s = stumpff_of(z)
+    f = q * x + e * (x * x * x) * s - target
+    f1 = q + e * x * x * c                    # dF/dx = r
+    f2 = e * x * (1.0 - z * s)                # d2F/dx2 = r . v / sqrt(GM)
+    # n = 5: (n - 1)^2 = 16, n (n - 1) = 20.
+    root = np.sqrt(np.abs(16.0 * f1 * f1 - 20.0 * f * f2))
+    step = 5.0 * f / (f1 + np.sign(f1) * root)
+    done = np.abs(step) <= 1e-13 * np.maximum(np.abs(x), 1e-300) + 1e-300
+    return x - step, done
+
+
+def _newton_step(x, q, e, alpha, target, stumpff_of):
+    z = alpha * x * x
+    c, s = stumpff_of(z)
+    f = q * x + e * (x * x * x) * s - target
+    return x - f / (q + e * x * x * c)
 
 
 def _first_guess(q, e, alpha, target):

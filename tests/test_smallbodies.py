@@ -187,9 +187,9 @@ def test_near_parabolic_worked_examples(q, e, days, v_deg, r_au):
 def test_fg_series_against_spice_prop2b():
     """The f and g series that light-time rounds take from a solved state: wherever its
     mask admits a row, within SERIES_POSITION_AU and SERIES_VELOCITY_AU_DAY (and 1e-15
-    of the state's length, the reference's own rounding) of SPICE prop2b's two-body step (spiceypy 8.3), over
-    random conics from sungrazers to hyperbolas and steps up to 0.06 day (the light
-    time of 10 au)."""
+    of the state's length, the reference's own rounding) of SPICE prop2b's two-body
+    step (spiceypy 8.3), over random conics from sungrazers to hyperbolas and steps up
+    to 0.06 day (the light time of 10 au)."""
     rng = np.random.default_rng(2027)
     n = 2000
     q = np.exp(rng.uniform(math.log(0.003), math.log(40.0), n))
@@ -243,6 +243,26 @@ def test_stumpff_of_one_row_equals_the_columns():
         c, s = orbits.stumpff(np.array([z]))
         assert np.array_equal(c, column_c[k:k + 1], equal_nan=True), z
         assert np.array_equal(s, column_s[k:k + 1], equal_nan=True), z
+
+
+def test_one_row_of_the_kepler_solution_equals_its_row_of_a_column():
+    """A cell's Kepler solution (floats, one row) and a column's (arrays, each row until
+    it settles) give the same state to the bit, over every kind of conic and time."""
+    rng = np.random.default_rng(44)
+    n = 600
+    q = np.exp(rng.uniform(math.log(0.003), math.log(40.0), n))
+    e = np.concatenate([rng.uniform(0.0, 0.99, n // 2), rng.uniform(0.99, 1.01, n // 6),
+                        rng.uniform(1.01, 5.0, n - n // 2 - n // 6)])
+    e[:20] = 1.0
+    e[20:30] = 0.0
+    ph, qh = orbits._orientation(rng.uniform(0, 180, n), rng.uniform(0, 360, n),
+                                 rng.uniform(0, 360, n))
+    dt = rng.uniform(-5000.0, 5000.0, n) * rng.choice([1e-4, 1e-2, 1.0], n)
+    pos, vel = orbits.propagate_from_perihelion(q, e, ph, qh, dt)
+    for k in range(n):
+        p1, v1 = orbits.propagate_from_perihelion(q[k:k + 1], e[k:k + 1], ph[k:k + 1],
+                                                  qh[k:k + 1], dt[k:k + 1])
+        assert np.array_equal(p1[0], pos[k]) and np.array_equal(v1[0], vel[k]), (k, q[k], e[k])
 
 
 ORBIT_CELLS = ("SKY.ORBIT.RA", "SKY.ORBIT.DEC", "SKY.ORBIT.MAG", "SKY.ORBIT.RATE",
