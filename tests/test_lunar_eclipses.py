@@ -419,3 +419,12 @@ def test_kept_search_never_answers_for_another_rule():
     chauvenet = _lunar_row(date, "CHAUVENET")
     assert chauvenet[3] != danjon[3]
     assert chauvenet == _fresh_lunar_row(date, "CHAUVENET")
+
+
+def test_kept_searches_stay_within_their_bound(monkeypatch):
+    monkeypatch.setattr(le, "ONE_INSTANT_KEPT", 3)
+    monkeypatch.setattr(le, "_ONE_INSTANT", {})
+    for k in range(7):
+        evaluate("SKY.LUNAR.ECLIPSE.GAMMA", [45400.0 + 20.0 * k])
+        assert len(le._ONE_INSTANT) <= 3
+    assert len(le._ONE_INSTANT) == 3

@@ -749,3 +749,16 @@ def test_topocentric_places_against_skyfield():
                         np.max(np.abs((az - az_s.degrees + 180) % 360 - 180)
                                * np.cos(np.radians(alt))) * 3.6e6)
     assert worst < 1.0, worst
+
+
+def test_kept_orbits_and_places_stay_within_their_bounds(monkeypatch):
+    """More distinct cells than the bounds allow: the kept orbits and places never hold
+    more than their stated counts."""
+    monkeypatch.setattr(smallbodies, "ONE_PLACES_KEPT", 5)
+    monkeypatch.setattr(smallbodies, "_ONE_PLACE", {})
+    monkeypatch.setattr(mpcformat, "ONE_ORBITS_KEPT", 2)
+    monkeypatch.setattr(mpcformat, "_ONE_ORBIT", {})
+    for k in range(12):
+        evaluate("SKY.ORBIT.DEC", [LINES[k % len(LINES)], 45400.3 + k])
+        assert len(smallbodies._ONE_PLACE) <= 5 and len(mpcformat._ONE_ORBIT) <= 2
+    assert len(smallbodies._ONE_PLACE) == 5

@@ -368,3 +368,12 @@ def test_kept_circumstances_never_answer_for_another_site_or_height():
         kept_first = _row(*other)
         assert kept_first != base
         assert kept_first == _fresh_row(*other)
+
+
+def test_kept_circumstances_stay_within_their_bound(monkeypatch):
+    monkeypatch.setattr(se, "ONE_SITE_KEPT", 3)
+    monkeypatch.setattr(se, "_ONE_SITE", {})
+    for k in range(7):
+        evaluate("SKY.SOLAR.ECLIPSE.LOCAL", ["2017-08-20", 37.0 + 0.1 * k, -89.0])
+        assert len(se._ONE_SITE) <= 3
+    assert len(se._ONE_SITE) == 3
