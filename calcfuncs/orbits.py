@@ -250,8 +250,10 @@ def fg_series(pos, vel, h):
 
     r(t + h) = f r + g v, with u = GM / r^3, s = r.v / r^2, w = v.v / r^2 - u:
     f = 1 - u h^2 / 2 + u s h^3 / 2 + u (3w - 15s^2 + u) h^4 / 24 + ...,
-    g = h - u h^3 / 6 + u s h^4 / 4 + ... (the classical series, e.g. Escobal 1965,
-    Methods of Orbit Determination, ch. 3); the h^4 terms, bounded, decide the mask."""
+    g = h - u h^3 / 6 + u s h^4 / 4 + ... (the classical series of orbit determination,
+    as in Escobal's Methods of Orbit Determination, 1965, written here from memory and
+    checked against SPICE prop2b in tests/test_smallbodies.py); the h^4 terms, bounded,
+    decide the mask."""
     h = np.asarray(h, float)
     r2 = np.add.reduce(pos * pos, axis=-1)
     r = np.sqrt(r2)
