@@ -430,8 +430,10 @@ def _evaluate_single(fn, raw_args, null_date):
             options[a.name] = _read_option(a, raw)
         else:
             rows[a.name] = raw
-            plain = plain and a.kind in _PLAIN_KINDS and (
-                type(raw) is float or (raw is None and _left_out_plainly(a)))
+            plain = plain and (
+                (a.kind in _PLAIN_KINDS
+                 and (type(raw) is float or (raw is None and _left_out_plainly(a))))
+                or (a.kind == "text" and type(raw) is str and not raw.startswith(PREFIX)))
     null_jd = _null_jd(null_date)
     if plain and rows:
         found = _plain_single(fn, rows, options, null_jd)
@@ -458,18 +460,18 @@ def _left_out_plainly(arg):
 
 def _plain_single(fn, rows, options, null_jd):
     """The usual single cell, its row arguments all numbers (a value, an angle, a
-    date-time value) and its result a number or a date-time value: the core called on one-element arrays
-    as the general path calls it, without that path's checks for texts, blanks and
-    messages from other cells.  None where anything is unusual (a message to give, a
-    result that is not one finite number): the general path then says what it says.
-    ``rows``: each row argument's value as the cell holds it (a Python float, or None
-    for an optional number left out)."""
+    date-time value) or texts (an orbit's line) and its result a number or a date-time
+    value: the core called on one-element arrays as the general path calls it, without
+    that path's checks for blanks and messages from other cells.  None where anything is
+    unusual (a message to give, a result that is not one finite number): the general path
+    then says what it says.  ``rows``: each row argument's value as the cell holds it (a
+    Python float, a text that is no message, or None for an optional number left out)."""
     func, params = _impl(fn)
     kwargs = {k: v for k, v in options.items() if k in params}
     for arg in fn.args:
         if arg.kind not in registry.ROW_KINDS:
             continue
-        value = rows[arg.name]  # a Python float
+        value = rows[arg.name]
         if arg.kind == "time":
             scale, dut1 = options.get("scale", "UTC"), options.get("dut1", 0.0)
             found = read_utc_serial(value, null_jd) if scale == "UTC" else None
@@ -482,6 +484,10 @@ def _plain_single(fn, rows, options, null_jd):
             else:
                 jd1, jd2 = found
             kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
+        elif arg.kind == "text":  # a text (an orbit, an angle to read): the column's form
+            column = np.empty(1, dtype=object)
+            column[0] = value
+            kwargs[arg.name] = column
         elif value is None:  # left out (_left_out_plainly), as the general path reads it
             if arg.default is None:
                 kwargs[arg.name] = np.array([_NOT_GIVEN[arg.kind]])

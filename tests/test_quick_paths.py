@@ -291,3 +291,32 @@ def test_one_instants_tdb_equals_its_row_of_a_column():
     for k in range(jd.size):
         a, b = timescales.tt_to_tdb(tt1[k:k + 1], tt2[k:k + 1])
         assert a.tobytes() == c1[k:k + 1].tobytes() and b.tobytes() == c2[k:k + 1].tobytes(), jd[k]
+
+
+def test_a_cell_with_a_text_takes_the_quick_path_and_the_same_value(monkeypatch):
+    # An orbit's line or an angle written as text is a row argument of kind text: a cell
+    # holding one (not a #SKY message passed on) takes the quick path; the range form of
+    # one row (the general path) is the reference.  A message passed on, or a text that
+    # does not read, still goes the general way and says what it says.
+    line = ("K26S01A 12.40  0.15 K2731 210.00000  112.40000  203.70000    6.30000  "
+            "0.1280000  0.23347711   2.6120000")  # the invented asteroid of the samples
+    general = cells._compute_group
+    calls = []
+    monkeypatch.setattr(cells, "_compute_group", lambda *a, **k: calls.append(1) or general(*a, **k))
+    cases = [("SKY.ORBIT.RA", [line, 45400.3 + 0.37 * k]) for k in range(12)]
+    cases += [("SKY.ORBIT.MAG", [line, 45500.25]), ("SKY.ORBIT.SUN.DIST", [line, 45600.5]),
+              ("SKY.ANGLE", ["-23 26 21.4"]), ("SKY.ANGLE.HOURS", ["12h34m56.7s"])]
+    for name, args in cases:
+        cells._SINGLE_CELL_CACHE.clear()
+        got = cells.evaluate(name, args)
+        assert not calls, name  # the quick path answered
+        want = cells.evaluate(name, [((a,),) for a in args])[0][0]
+        calls.clear()
+        assert isinstance(got, float) and got == want, (name, args)
+    for name, args in (("SKY.ORBIT.RA", ["#SKY: from another cell", 45400.3]),
+                       ("SKY.ORBIT.RA", ["not an orbit", 45400.3]),
+                       ("SKY.ANGLE", ["23 61 00"])):
+        cells._SINGLE_CELL_CACHE.clear()
+        got = cells.evaluate(name, args)
+        assert calls and got.startswith(PREFIX), (name, got)
+        calls.clear()

@@ -266,7 +266,7 @@ def test_one_row_of_the_kepler_solution_equals_its_row_of_a_column():
 
 
 ORBIT_CELLS = ("SKY.ORBIT.RA", "SKY.ORBIT.DEC", "SKY.ORBIT.MAG", "SKY.ORBIT.RATE",
-               "SKY.ORBIT.EARTH.DIST", "SKY.ORBIT.ELONGATION")
+               "SKY.ORBIT.EARTH.DIST", "SKY.ORBIT.ELONGATION", "SKY.ORBIT.EVENT.NEXT")
 
 
 @pytest.mark.parametrize("name", ORBIT_CELLS)
