@@ -83,7 +83,10 @@ class Grid:
 
 def evaluate(f, jd1, jd2, row, n):
     """``f(jd1, jd2, row)`` as floats; a ``RowErrors`` aligned with the samples becomes
-    one aligned with the ``n`` rows (each row gets its first sample's message)."""
+    one aligned with the ``n`` rows (each row gets its first sample's message).  No
+    sample (an estimate that crosses nowhere in any row): no call."""
+    if np.size(row) == 0:
+        return np.zeros(0)
     try:
         return np.asarray(f(jd1, jd2, row), dtype=float)
     except RowErrors as err:

@@ -762,3 +762,39 @@ def test_kept_orbits_and_places_stay_within_their_bounds(monkeypatch):
         evaluate("SKY.ORBIT.DEC", [LINES[k % len(LINES)], 45400.3 + k])
         assert len(smallbodies._ONE_PLACE) <= 5 and len(mpcformat._ONE_ORBIT) <= 2
     assert len(smallbodies._ONE_PLACE) == 5
+
+
+def test_events_found_from_the_estimate_equal_those_of_the_full_grid(monkeypatch):
+    """Oppositions and closest approaches found by sampling a cheap estimate (plan94's
+    Earth-Moon barycentre, no light time) and the full function only near its sign
+    changes: the same instants (within 1e-9 day, the last bits of the refinement) as
+    sampling the full function over the whole window, for main-belt, near-Earth and
+    distant orbits and the test lines; an orbit with no opposition in the window says so."""
+    rng = np.random.default_rng(12)
+    texts = list(LINES[:2])
+    for _ in range(14):
+        a = float(rng.choice([rng.uniform(0.7, 1.6), rng.uniform(2.0, 3.5), rng.uniform(5, 30)]))
+        e = float(rng.uniform(0.0, 0.8 if a < 2 else 0.3))
+        texts.append(evaluate("SKY.ORBIT.FROM.A", [46000.0] + [a, e] + [
+            float(x) for x in (rng.uniform(0, 40), rng.uniform(0, 360), rng.uniform(0, 360),
+                               rng.uniform(0, 360))]))
+    starts = [float(x) for x in 46000.0 + rng.uniform(-400, 400, len(texts))]
+    column = (tuple((t,) for t in texts), tuple((s,) for s in starts))
+    found = {ev: [r[0] for r in evaluate("SKY.ORBIT.EVENT.NEXT", [*column, None, ev])]
+             for ev in ("OPPOSITION", "CLOSEST")}
+    full = smallbodies.crossings
+
+    def without_estimate(*args, **kw):
+        kw.pop("estimate", None)
+        return full(*args, **kw)
+
+    monkeypatch.setattr(smallbodies, "crossings", without_estimate)
+    assert any(isinstance(v, str) and "no opposition" in v for v in found["OPPOSITION"])
+    for ev, ours in found.items():
+        reference = [r[0] for r in evaluate("SKY.ORBIT.EVENT.NEXT", [*column, None, ev])]
+        assert sum(isinstance(v, float) for v in ours) >= 10, ours
+        for a, b in zip(ours, reference):
+            if isinstance(b, float):
+                assert isinstance(a, float) and abs(a - b) < 1e-9, (ev, a, b)
+            else:
+                assert a == b, (ev, a, b)  # the same message
