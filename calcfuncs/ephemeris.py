@@ -80,6 +80,15 @@ def _earth_and_sun_one(tdb1, tdb2):
     return out
 
 
+def rough_earth(tt1, tt2):
+    """Heliocentric (p, v) of the Earth-Moon barycentre from ERFA plan94 (au, au/day, the
+    J2000 axes; its statuses are warnings only) at TT instants: within the Moon's pull
+    (4,700 km, 13 m/s) of the Earth.  For locating events only (planets.py,
+    smallbodies.py)."""
+    pv = erfa.ufunc.plan94(tt1, tt2, 3)[0]
+    return pv["p"], pv["v"]
+
+
 def _earth_and_sun_states(tdb1, tdb2):
     """The same as one array (..., 12), for the nodes to interpolate."""
     return np.concatenate(_earth_and_sun(tdb1, tdb2), axis=-1)

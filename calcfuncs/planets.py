@@ -165,7 +165,7 @@ def _rough_places(body, tt1, tt2):
     aberration): within a few hundredths of a degree of the apparent places in longitude
     difference and elongation.  For locating events only."""
     planet = erfa.ufunc.plan94(tt1, tt2, ephemeris.PLAN94_NUMBERS[body])[0]["p"]
-    earth = erfa.ufunc.plan94(tt1, tt2, 3)[0]["p"]  # statuses: warnings only (see ephemeris)
+    earth = ephemeris.rough_earth(tt1, tt2)[0]
     to_ecliptic = frames.system_matrix("ECLIPTIC J2000")
     return vectors.apply(to_ecliptic, planet - earth), vectors.apply(to_ecliptic, -earth)
 

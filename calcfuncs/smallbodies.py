@@ -15,7 +15,6 @@ month from its epoch, a near-Earth object after a close approach by far more.
 SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months, or integrate.
 """
 
-import erfa
 import numpy as np
 
 from . import bodies, ephemeris, frames, mpcformat, topocentric, vectors
@@ -386,10 +385,8 @@ def _next_perihelion(o, tt1, tt2):
 
 def _rough_states(o, jd1, jd2, row):
     """Heliocentric (p, v) of the orbits' bodies (rows ``row``) and of the Earth-Moon
-    barycentre from ERFA plan94 (its statuses are warnings only, see ephemeris), on the
-    J2000 axes, at TT instants: for locating events only."""
-    emb = erfa.ufunc.plan94(jd1, jd2, 3)[0]
-    return o.take(row).state(jd1, jd2), (emb["p"], emb["v"])
+    barycentre (ephemeris.rough_earth) at TT instants: for locating events only."""
+    return o.take(row).state(jd1, jd2), ephemeris.rough_earth(jd1, jd2)
 
 
 def _window(o):
