@@ -30,7 +30,7 @@ import threading
 import erfa
 import numpy as np
 
-from . import kernelfiles, nodes, spkfile, vectors
+from . import earth_theory, kernelfiles, nodes, spkfile, vectors
 from .errors import RowErrors, SkyError, rows_failing
 from .timescales import all_within_years, check_years, julian_year, same_shape, tt_to_tdb
 from .vocabulary import (AU_KM, BUILTIN, BUILTIN_YEARS, J2000_JD, LONG_RANGE_YEARS, PLANETS,
@@ -63,21 +63,18 @@ def _calendar(jd):
 
 
 def _earth_and_sun(tdb1, tdb2):
-    """Barycentric p and v of the Earth, then of the Sun, from ERFA epv00."""
-    # ERFA's ufunc itself: the wrapper would warn outside epv00's 1900-2100 fit (a status
-    # that is only ever a warning), and keeping that out of the cell costs 5 us a call.
-    pvh, pvb, _ = erfa.ufunc.epv00(tdb1, tdb2)
-    return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
+    """Barycentric p and v of the Earth, then of the Sun, from ERFA epv00's series
+    (earth_theory: ERFA's routine or the same series with numpy, the faster)."""
+    return earth_theory.states(tdb1, tdb2)
 
 
 @nodes.kept_per_instant
 def _earth_and_sun_one(tdb1, tdb2):
     """The same for one instant (floats), kept for the row's other columns
     (nodes.INSTANTS_KEPT).  Read-only arrays of one row."""
-    out = _earth_and_sun(np.array([tdb1]), np.array([tdb2]))
-    for a in out:
-        a.flags.writeable = False
-    return out
+    out = earth_theory.states_of_one(tdb1, tdb2)
+    out.flags.writeable = False
+    return tuple(out)
 
 
 def rough_earth(tt1, tt2):

@@ -17,10 +17,10 @@ Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit.
 import erfa
 import numpy as np
 
-from . import frames, nodes
+from . import earth_theory, frames, nodes
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
-from .timescales import check_years, erfa_quietly
+from .timescales import check_years
 from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
@@ -116,11 +116,14 @@ def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
     refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
     if frame != "ICRS":
         return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb)
-    pvh, pvb = erfa_quietly(erfa.epv00, tt1, tt2)  # it warns outside its 1900-2100 fit
+    # The Earth from epv00's series (earth_theory; TT taken for TDB, as ERFA's apco13 does).
+    earth_p, earth_v, sun_p, _ = earth_theory.states(tt1, tt2)
     x, y = erfa.bpn2xy(_true_equator(tt1, tt2))
     s = erfa.s06(tt1, tt2, x, y)
-    return erfa.apco(tt1, tt2, pvb, pvh["p"], x, y, s, theta, elong, phi, hm, 0.0, 0.0, sp,
-                     refa, refb)
+    earth_pv = np.empty(earth_p.shape[:-1], dtype=erfa.dt_pv)
+    earth_pv["p"], earth_pv["v"] = earth_p, earth_v
+    return erfa.apco(tt1, tt2, earth_pv, earth_p - sun_p, x, y, s, theta, elong, phi, hm, 0.0,
+                     0.0, sp, refa, refb)
 
 
 @nodes.kept_per_instant

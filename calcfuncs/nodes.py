@@ -2,8 +2,8 @@
 instants (nodes) and interpolated between them.
 
 A column from an observing log holds many instants a day, and the costly parts of a
-place (the IAU 2000A nutation series, about 30 us an instant, and the Earth's state
-from ERFA epv00, about 25 us) change smoothly on a scale of days.  Nodes sit on TT
+place (the IAU 2000A nutation series, about 19 us an instant, and the Earth's state
+from ERFA epv00's series, about 16 us: iau2000a.py, earth_theory.py) change smoothly on a scale of days.  Nodes sit on TT
 half-day marks (exact in one double, so neighbouring rows and later calls share them);
 each instant takes the polynomial through the six nodes around it (Lagrange), two
 before its half day and three after.  Against the direct computation over dense
@@ -129,8 +129,8 @@ def over_nodes(compute, jd1, jd2):
 # ---- single cells of a log ------------------------------------------------------------
 #
 # A log's column of places filled down is computed one cell at a time, each with its own
-# call of the nutation series and epv00 (about 45 and 35 us for a new instant, half of
-# a place cell).  Inside ``single_cells()`` (the cell functions of places), a one-instant
+# call of the nutation series and the Earth's (about 19 and 16 us for a new instant with
+# the office's numpy, a quarter of a place cell).  Inside ``single_cells()`` (the cell functions of places), a one-instant
 # call notes its instant; once cells have asked for DENSE_CELLS distinct instants within
 # the five half days around one, it is interpolated from its six nodes (those not yet
 # kept computed, in one call, and kept), as a dense column is.  A log of nine instants

@@ -153,8 +153,7 @@ def _delta_t_days(jd1, jd2, rule):
 # warning or an exception and a caught warning costs about 5 us, a third of a
 # conversion; the status is read here instead.
 _STATUS_UFUNCS = {erfa.utctai: erfa.ufunc.utctai, erfa.taiutc: erfa.ufunc.taiutc,
-                  erfa.utcut1: erfa.ufunc.utcut1, erfa.ut1utc: erfa.ufunc.ut1utc,
-                  erfa.epv00: erfa.ufunc.epv00}
+                  erfa.utcut1: erfa.ufunc.utcut1, erfa.ut1utc: erfa.ufunc.ut1utc}
 
 
 def erfa_quietly(func, *args):

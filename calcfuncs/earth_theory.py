@@ -1,0 +1,139 @@
+"""The Earth's heliocentric and barycentric state from the series of ERFA epv00 (a
+simplified VSOP2000, good to a few km over 1900-2100: see ephemeris.py), evaluated with
+numpy one instant at a time where that is the faster way.
+
+Why not always ERFA's own routine: its 1,951 terms each take a cosine and a sine from
+the C library, whose branches depend on the argument, so on distinct instants (a log's
+rows) a call costs about 43 us, where a timing loop over one instant shows 24.  numpy
+1.24 on a processor with AVX-512 (Debian 12's numpy, the office's own there) computes
+float64 sines and cosines in vector registers: the same series, its arguments formed
+exactly as ERFA forms them (b + c t), takes about 16 us.  numpy 2 computes them one at a
+time, more slowly than the C library (85 us): there ERFA's routine is kept.  Which one a
+process uses is decided once, by numpy's version and the processor's features
+(``_vectorised_trig``).  The two agree within 7e-15 au (1 mm) in position and 8e-17
+au/day in velocity over 1000-3000 (tests/test_earth_theory.py: the rounding of sums of
+some 500 terms, and 1-ulp differences between sine routines), against the series' own
+error of kilometres.
+
+A column is evaluated instant by instant with the same function, so that a row of a
+column and the same instant in a cell alone agree to the bit.
+"""
+
+import erfa
+import numpy as np
+
+from .earth_series import ROTATION, TERMS
+from .vocabulary import J2000_JD
+
+_DAYS_PER_YEAR = 365.25  # the series' time unit, the Julian year
+
+
+def _tables():
+    rows = []
+    for line in TERMS.splitlines():
+        name, a, b, c = line.split()
+        # Ordered by the power of t, then by the sum the term belongs to (Sun to Earth
+        # x, y, z; barycentre to Sun x, y, z): each power's sums are runs of terms.
+        rows.append((int(name[1]), "es".index(name[0]) * 3 + "xyz".index(name[2]),
+                     float(a), float(b), float(c)))
+    rows.sort(key=lambda r: (r[0], r[1]))
+    power, group, a, b, c = (np.array(v) for v in zip(*rows))
+    key = power * 6 + group
+    starts = np.flatnonzero(np.r_[True, key[1:] != key[:-1]])
+    assert key[starts].tolist() == list(range(18))  # every table has terms
+    return a, b, c, a * c, starts
+
+
+_A, _B, _C, _AC, _STARTS = _tables()
+_R = ROTATION
+# Ecliptic series axes -> BCRS (its first element is exactly 1, the third row's first 0, as
+# ERFA applies it).
+_ROWS = ((1.0, _R["am12"], _R["am13"]),
+         (_R["am21"], _R["am22"], _R["am23"]),
+         (0.0, _R["am32"], _R["am33"]))
+
+
+def states_one(tdb1, tdb2):
+    """[barycentric p, v of the Earth, barycentric p, v of the Sun], each a list of
+    three floats, au and au/day, BCRS axes, at one TDB instant (two-part JD, floats)."""
+    t = ((tdb1 - J2000_JD) + tdb2) / _DAYS_PER_YEAR
+    arg = _C * t
+    arg += _B
+    # Per term a cos(b + c t) and a c sin(b + c t); summed by power of t and by axis.
+    terms = np.empty((2, _A.size))
+    np.multiply(_A, np.cos(arg), out=terms[0])
+    np.multiply(_AC, np.sin(arg), out=terms[1])
+    sums = np.add.reduceat(terms, _STARTS, axis=1).tolist()
+    p, q = sums[0], sums[1]
+    # Sum of a t^k cos(b + c t) over the terms of each power k and axis, and its rate:
+    # k t^(k-1) a cos(b + c t) - t^k a c sin(b + c t).  Plain floats from here on: on
+    # six numbers numpy's calls would cost more than the arithmetic.
+    t2, r = t * t, _ROWS
+    position = [p[k] + t * p[6 + k] + t2 * p[12 + k] for k in range(6)]
+    velocity = [(p[6 + k] + 2.0 * t * p[12 + k] - (q[k] + t * q[6 + k] + t2 * q[12 + k]))
+                / _DAYS_PER_YEAR for k in range(6)]
+    out = []
+    for x, y, z in ((position[0] + position[3], position[1] + position[4],
+                     position[2] + position[5]),
+                    (velocity[0] + velocity[3], velocity[1] + velocity[4],
+                     velocity[2] + velocity[5]),
+                    position[3:], velocity[3:]):
+        out.append([x + r[0][1] * y + r[0][2] * z, r[1][0] * x + r[1][1] * y + r[1][2] * z,
+                    r[2][1] * y + r[2][2] * z])
+    return out
+
+
+def _states_numpy(tdb1, tdb2):
+    """The same over arrays of instants (any one shape): each instant by states_one."""
+    tdb1, tdb2 = np.broadcast_arrays(np.asarray(tdb1, dtype=float), np.asarray(tdb2, dtype=float))
+    out = np.empty((4,) + tdb1.shape + (3,))
+    flat = out.reshape(4, -1, 3)
+    for k, (a, b) in enumerate(zip(tdb1.ravel().tolist(), tdb2.ravel().tolist())):
+        flat[:, k] = states_one(a, b)
+    return out[0], out[1], out[2], out[3]
+
+
+def _states_erfa(tdb1, tdb2):
+    """ERFA epv00's own: its ufunc, whose status is only ever a warning (outside the
+    series' 1900-2100 fit), read and dropped."""
+    pvh, pvb, _ = erfa.ufunc.epv00(tdb1, tdb2)
+    return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
+
+
+def _vectorised_trig():
+    """Whether numpy computes float64 sines and cosines in vector registers: numpy 1.24
+    (measured) does on a processor with AVX-512 (Skylake-X and later: numpy's feature
+    AVX512_SKX), taking them from Intel's SVML; numpy 1.25 turned that off again (numpy
+    pull request 23925).  A rule, not a timing, so that every process of one
+    installation (a cluster's workers too) makes the same choice and gives the same bits."""
+    try:
+        version = tuple(int(part) for part in np.__version__.split(".")[:2])
+        if version != (1, 24):
+            return False
+        return bool(np.core._multiarray_umath.__cpu_features__.get("AVX512_SKX"))
+    except (AttributeError, ValueError):
+        return False
+
+
+_CHOSEN = []  # "numpy" or "erfa", once a process
+
+
+def chosen():
+    if not _CHOSEN:
+        _CHOSEN.append("numpy" if _vectorised_trig() else "erfa")
+    return _CHOSEN[0]
+
+
+def states(tdb1, tdb2):
+    """(barycentric p, v of the Earth; barycentric p, v of the Sun) at TDB instants (two-
+    part JDs of one shape): arrays (..., 3), au and au/day, BCRS axes."""
+    if chosen() == "numpy":
+        return _states_numpy(tdb1, tdb2)
+    return _states_erfa(tdb1, tdb2)
+
+
+def states_of_one(tdb1, tdb2):
+    """``states`` at one instant (floats): a (4, 1, 3) array, Earth p, v, Sun p, v."""
+    if chosen() == "numpy":
+        return np.array(states_one(tdb1, tdb2)).reshape(4, 1, 3)
+    return np.array(_states_erfa(np.array([tdb1]), np.array([tdb2])))
