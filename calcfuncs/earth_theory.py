@@ -10,7 +10,7 @@ float64 sines and cosines in vector registers: the same series, its arguments fo
 exactly as ERFA forms them (b + c t), takes about 16 us.  numpy 2 computes them one at a
 time, more slowly than the C library (85 us): there ERFA's routine is kept.  Which one a
 process uses is decided once, by numpy's version and the processor's features
-(``_vectorised_trig``).  The two agree within 7e-15 au (1 mm) in position and 8e-17
+(``evaluation_for``).  The two agree within 7e-15 au (1 mm) in position and 8e-17
 au/day in velocity over 1000-3000 (tests/test_earth_theory.py: the rounding of sums of
 some 500 terms, and 1-ulp differences between sine routines), against the series' own
 error of kilometres.
@@ -18,6 +18,8 @@ error of kilometres.
 A column is evaluated instant by instant with the same function, so that a row of a
 column and the same instant in a cell alone agree to the bit.
 """
+
+import importlib
 
 import erfa
 import numpy as np
@@ -100,19 +102,30 @@ def _states_erfa(tdb1, tdb2):
     return pvb["p"], pvb["v"], pvb["p"] - pvh["p"], pvb["v"] - pvh["v"]
 
 
-def _vectorised_trig():
-    """Whether numpy computes float64 sines and cosines in vector registers: numpy 1.24
-    (measured) does on a processor with AVX-512 (Skylake-X and later: numpy's feature
-    AVX512_SKX), taking them from Intel's SVML; numpy 1.25 turned that off again (numpy
-    pull request 23925).  A rule, not a timing, so that every process of one
-    installation (a cluster's workers too) makes the same choice and gives the same bits."""
+def evaluation_for(numpy_version, avx512_skx):
+    """"numpy" or "erfa": the evaluation for a numpy version (its text) on a processor
+    with or without AVX-512 (numpy's feature AVX512_SKX: Skylake-X and later).  numpy 1.24
+    (measured) computes float64 sines and cosines in vector registers there, taking them
+    from Intel's SVML; numpy 1.25 turned that off again (numpy pull request 23925).  A
+    rule, not a timing, so that every process of one installation (a cluster's workers
+    too) makes the same choice and gives the same bits."""
     try:
-        version = tuple(int(part) for part in np.__version__.split(".")[:2])
-        if version != (1, 24):
-            return False
-        return bool(np.core._multiarray_umath.__cpu_features__.get("AVX512_SKX"))
-    except (AttributeError, ValueError):
-        return False
+        version = tuple(int(part) for part in numpy_version.split(".")[:2])
+    except ValueError:
+        return "erfa"
+    return "numpy" if version == (1, 24) and avx512_skx else "erfa"
+
+
+def processor_has_avx512_skx():
+    """Whether numpy finds the processor feature AVX512_SKX (numpy 1 and 2 keep their
+    table of features in different modules)."""
+    for module in ("numpy._core._multiarray_umath", "numpy.core._multiarray_umath"):
+        try:
+            features = importlib.import_module(module).__cpu_features__
+        except (ImportError, AttributeError):
+            continue
+        return bool(features.get("AVX512_SKX"))
+    return False
 
 
 _CHOSEN = []  # "numpy" or "erfa", once a process
@@ -120,7 +133,7 @@ _CHOSEN = []  # "numpy" or "erfa", once a process
 
 def chosen():
     if not _CHOSEN:
-        _CHOSEN.append("numpy" if _vectorised_trig() else "erfa")
+        _CHOSEN.append(evaluation_for(np.__version__, processor_has_avx512_skx()))
     return _CHOSEN[0]
 
 

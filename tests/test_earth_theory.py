@@ -74,14 +74,12 @@ def test_a_column_is_its_instants_one_by_one():
 
 
 def test_the_choice_follows_numpy_and_the_processor():
-    assert earth_theory.chosen() == earth_theory.chosen()
-    if not np.__version__.startswith("1.24."):
-        # numpy 2 (the test environment's): sines one at a time, ERFA's routine kept.
-        assert earth_theory.chosen() == "erfa"
-    with mock.patch.object(np, "__version__", "1.26.4"):
-        assert not earth_theory._vectorised_trig()
-    with mock.patch.object(np, "__version__", "2.4.0"):
-        assert not earth_theory._vectorised_trig()
+    assert earth_theory.chosen() == earth_theory.evaluation_for(
+        np.__version__, earth_theory.processor_has_avx512_skx())
+    assert earth_theory.evaluation_for("1.24.2", True) == "numpy"
+    for version, skx in (("1.24.2", False), ("1.26.4", True), ("2.4.6", True), ("1.21.5", True),
+                         ("garbled", True)):
+        assert earth_theory.evaluation_for(version, skx) == "erfa"
 
 
 # Cells that take the Earth from the series: a column of instants against each instant
