@@ -63,14 +63,15 @@ OURS = (
 )
 
 
-def log_times(n, seed=2024):
-    """``n`` distinct UTC date-time values spread over 2024-2026, to the millisecond.
+def log_times(n, seed=2024, start=LOG_START, end=LOG_END):
+    """``n`` distinct UTC date-time values spread over 2024-2026 (or ``start`` to
+    ``end``, date-time values), to the millisecond.
 
     Evenly spaced slots with a jitter under half a slot, so no two rows are equal.
     """
     rng = np.random.default_rng(seed)
-    step = (LOG_END - LOG_START) / n
-    base = LOG_START + step * (np.arange(n) + 0.5)
+    step = (end - start) / n
+    base = start + step * (np.arange(n) + 0.5)
     t = base + rng.uniform(-0.4, 0.4, n) * step
     return np.round(t * 86400_000.0) / 86400_000.0
 

@@ -19,7 +19,8 @@ A benchmark, not a test: it prints numbers and asserts nothing about speed.
              cell of the workbook is computed again and read back (a hidden document
              computes lazily: reading is what makes it compute, as drawing would)
 
-Inputs are invented: the patrol-camera log of bench_recalc.py (2024-2026), consecutive
+Inputs are invented: the patrol-camera log of bench_recalc.py (2024-2026, and for
+later runs the same log moved back by whole spans of three years, log_window), consecutive
 days of 2025 at an invented hill station (47.3814 N, 8.0542 E), years 1000 to 2999.
 """
 
@@ -80,20 +81,33 @@ CASES = {
 
 # What the core keeps (answers, event windows, the Sun's days, one instant's nutation)
 # lives as long as the office: every run of every case gets inputs of its own, so that
-# "cold" is cold (``shift``: the run's number among all runs of all cases).
+# "cold" is cold (``shift``: the run's number among all runs of all cases).  A log's
+# instants also lie in years of their own: the core notes the half days that cells ask
+# for (calcfuncs/nodes.py, the last 2,000), and a second run over the same years would
+# find them dense and interpolate its places from nodes.  The run's three years step
+# back from 2024-2026 to 1982-1984 and begin again, by which time the half days of those
+# years are long forgotten.
 SEASON_EVENTS = ("JUNE", "SEPTEMBER", "DECEMBER", "MARCH")
+LOG_WINDOWS = 15
+
+
+def log_window(shift):
+    """The date-time values (first, last) of the run ``shift``'s log."""
+    back = (LOG_END - LOG_START) * (shift % LOG_WINDOWS)
+    return LOG_START - back, LOG_END - back
 
 
 NIGHT_ROWS = 20
 
 
-def night_times(n, seed):
+def night_times(n, seed, start=LOG_START, end=LOG_END):
     """``n`` distinct UTC date-time values, NIGHT_ROWS on each of n / NIGHT_ROWS nights
-    of 2024-2026 (distinct dates drawn at random), between 20h and 4h UTC, to the
-    millisecond: a log as an observer keeps it, a row every twenty minutes or so."""
+    of 2024-2026 (or ``start`` to ``end``; distinct dates drawn at random), between 20h
+    and 4h UTC, to the millisecond: a log as an observer keeps it, a row every twenty
+    minutes or so."""
     rng = np.random.default_rng(seed)
     nights = -(-n // NIGHT_ROWS)
-    dates = LOG_START + np.sort(rng.choice(int(LOG_END - LOG_START) - 1, nights, replace=False))
+    dates = start + np.sort(rng.choice(int(end - start) - 1, nights, replace=False))
     within = np.sort(rng.uniform(20 / 24, 28 / 24, (nights, NIGHT_ROWS)), axis=1)
     t = (dates[:, None] + within).ravel()[:n]
     return np.round(t * 86400_000.0) / 86400_000.0
@@ -101,9 +115,9 @@ def night_times(n, seed):
 
 def inputs(kind, n, shift=0):
     if kind == "log":
-        return [float(v) for v in log_times(n, seed=2024 + shift)]
+        return [float(v) for v in log_times(n, 2024 + shift, *log_window(shift))]
     if kind == "nights":
-        return [float(v) for v in night_times(n, seed=2024 + shift)]
+        return [float(v) for v in night_times(n, 2024 + shift, *log_window(shift))]
     if kind == "days":
         return [FIRST_DAY + 366.0 * shift + k for k in range(n)]
     # Years 1000-2999 for every run; SKY.SEASON asks for another event each run.
