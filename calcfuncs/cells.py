@@ -270,6 +270,27 @@ def _date_time_values(result, null_jd):
     return values, in_leap & ~has_words
 
 
+# A one-row result's date-time value, kept by its instants (an Instants that
+# DateTimes.of_tt shares among the cells whose answer is one event; held by the key, so
+# never mistaken for another), offset and null date: (value, inside a leap second).
+_ONE_VALUE = {}
+_ONE_VALUE_KEPT = 4096
+
+
+def _one_date_time_value(result, null_jd):
+    """``_date_time_values`` of a one-row ``DateTimes`` without words: (array, bool)."""
+    offset = result.offset_days
+    key = (result.instants, offset, null_jd) if type(offset) is float else None
+    found = _ONE_VALUE.get(key) if key is not None else None
+    if found is None:
+        serial, in_leap = _date_time_values(result, null_jd)
+        found = (serial, bool(in_leap.any()))
+        serial.flags.writeable = False
+        if key is not None:
+            keep(_ONE_VALUE, key, found, _ONE_VALUE_KEPT)
+    return found
+
+
 def _one(value):
     """One cell's value for all rows, as a column of one row (spread by _compute_group)."""
     column = np.empty(1, dtype=object)
@@ -509,8 +530,8 @@ def _plain_single(fn, rows, options, null_jd):
     if isinstance(out, DateTimes):
         if out.words is not None:
             return None
-        out, in_leap = _date_time_values(out, null_jd)
-        if in_leap.any():
+        out, in_leap = _one_date_time_value(out, null_jd)
+        if in_leap:
             return None
     out = np.asarray(out)
     if out.size != 1 or out.dtype.kind != "f":

@@ -17,6 +17,7 @@ from functools import lru_cache
 import erfa
 import numpy as np
 
+from .bounded import keep
 from .errors import SkyError, rows_failing
 from .vocabulary import (DELTA_T_MODELS, ERFA_SCALES, J2000_JD, JULIAN_YEAR_DAYS,
                          SCALE_WORDS, UTC_START_JD, years_text)
@@ -516,5 +517,22 @@ class DateTimes:
 
     @staticmethod
     def of_tt(tt1, tt2, scale, offset_days=0.0, words=None):
-        """From two-part TT JDs (an event search's answers), shown on ``scale``."""
+        """From two-part TT JDs (an event search's answers), shown on ``scale``.  One
+        instant's conversion is kept (``_ONE_SHOWN``): the cells of a column filled down
+        a month share the next full Moon, and each would convert it again."""
+        if np.size(tt1) == 1 and np.size(tt2) == 1:
+            key = (float(np.ravel(tt1)[0]), float(np.ravel(tt2)[0]), np.shape(tt1),
+                   np.shape(tt2), scale)
+            shown = _ONE_SHOWN.get(key)
+            if shown is None:
+                shown = Instants(tt1, tt2, "TT").to(scale)
+                keep(_ONE_SHOWN, key, shown, ONE_SHOWN_KEPT)
+            return DateTimes(shown, offset_days, words)
         return DateTimes(Instants(tt1, tt2, "TT").to(scale), offset_days, words)
+
+
+# One TT instant shown on a scale (two-part JDs, their shapes, the scale) -> its Instants,
+# shared by every DateTimes made of it: an Instants keeps what is derived from it, and
+# the same instants always derive the same.
+_ONE_SHOWN = {}
+ONE_SHOWN_KEPT = 4096

@@ -320,3 +320,56 @@ def test_a_cell_with_a_text_takes_the_quick_path_and_the_same_value(monkeypatch)
         got = cells.evaluate(name, args)
         assert calls and got.startswith(PREFIX), (name, got)
         calls.clear()
+
+
+class _Forgetful(dict):
+    """A cache that keeps nothing."""
+
+    def __setitem__(self, key, value):
+        pass
+
+
+def _phase_cells(serials, null_date=(1899, 12, 30), scale=None):
+    cells._SINGLE_CELL_CACHE.clear()
+    return [cells.evaluate("SKY.MOON.PHASE.NEXT", [s, None, "FULL", scale], null_date)
+            for s in serials]
+
+
+def test_cells_sharing_an_event_share_its_conversion_and_give_its_own_value(monkeypatch):
+    # A month of cells asks for one full Moon: its instant on the result's scale and its
+    # date-time value are kept (timescales.DateTimes.of_tt, cells._one_date_time_value)
+    # and found by the next cells.  The same values to the bit as with nothing kept, on
+    # every scale and null date (a changed one is never answered from the other's).
+    rng = np.random.default_rng(43)
+    serials = list(45292.0 + np.sort(rng.random(60)) * 90.0)
+    for null_date in ((1899, 12, 30), (1904, 1, 1)):
+        for scale in (None, "TT", "UT1", "TDB"):
+            timescales._ONE_SHOWN.clear()
+            cells._ONE_VALUE.clear()
+            kept = _phase_cells(serials, null_date, scale)
+            # Three or four full Moons, each found from one or two search windows (whose
+            # two-part instants are split at their own starts): far fewer than the cells.
+            assert 3 <= len(timescales._ONE_SHOWN) <= 8
+            with monkeypatch.context() as m:
+                m.setattr(timescales, "_ONE_SHOWN", _Forgetful())  # nothing found kept
+                m.setattr(cells, "_ONE_VALUE", _Forgetful())
+                fresh = _phase_cells(serials, null_date, scale)
+            assert all(isinstance(v, float) for v in kept)
+            assert kept == fresh, (null_date, scale)
+    # The same instants under the other null date: every value 1,462 days smaller.
+    base = _phase_cells(serials)
+    moved = _phase_cells([v - 1462.0 for v in serials], (1904, 1, 1))
+    assert all(a - b == pytest.approx(1462.0, abs=1e-9) for a, b in zip(base, moved))
+
+
+def test_the_kept_conversions_stay_within_their_bounds(monkeypatch):
+    monkeypatch.setattr(timescales, "ONE_SHOWN_KEPT", 5)
+    monkeypatch.setattr(cells, "_ONE_VALUE_KEPT", 5)
+    timescales._ONE_SHOWN.clear()
+    cells._ONE_VALUE.clear()
+    serials = list(45292.0 + np.arange(0.0, 400.0, 3.7))  # thirteen full Moons
+    got = _phase_cells(serials)
+    assert len(timescales._ONE_SHOWN) <= 5 and len(cells._ONE_VALUE) <= 5
+    monkeypatch.setattr(timescales, "_ONE_SHOWN", _Forgetful())
+    monkeypatch.setattr(cells, "_ONE_VALUE", _Forgetful())
+    assert _phase_cells(serials) == got
