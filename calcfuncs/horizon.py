@@ -10,7 +10,9 @@ rotation, and refraction when a pressure is given.  From an apparent place of da
 (TRUE: true equator and equinox) it is that of ERFA apio13 + atioq, the same chain from
 the apparent place on.  The steps are taken one by one (apco or apio, then atciq and
 atioq) with our own TT and UT1, so that dates before UTC (1960) are reached through
-Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit.  Refraction follows ERFA's model (refco), for optical light
+Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit, or to
+their last bits where the Earth's series is evaluated with numpy (earth_theory.py: within
+7e-15 au of epv00's own).  Refraction follows ERFA's model (refco), for optical light
 (0.55 um, relative humidity 0.5); pressure 0 gives the geometric (unrefracted) place.
 """
 
