@@ -16,6 +16,7 @@ import erfa
 import numpy as np
 
 from . import ephemeris, frames, nodes, vectors
+from .events import wrap180
 from .timescales import same_shape
 from .vocabulary import BUILTIN, ECLIPTIC_OF_FRAME, EQUATORIAL_OF_FRAME, LIGHT_DAYS_PER_AU
 
@@ -181,6 +182,23 @@ def longitude_from_sun(p, tt1, tt2):
     body = frames.spherical(vectors.apply(m, p.direction))[0]
     sun = frames.spherical(vectors.apply(m, p.sun_direction))[0]
     return body - sun
+
+
+def rough_geocentric(body_helio, earth_helio):
+    """Geometric geocentric vectors of a body and of the Sun (au, ecliptic J2000 axes) from
+    heliocentric positions on the J2000 axes: no light time, no aberration.  With ERFA
+    plan94's Earth-Moon barycentre for the Earth (ephemeris.rough_earth), within a few
+    hundredths of a degree of the apparent places in longitude difference and
+    elongation: for locating events only (planets.py, smallbodies.py)."""
+    to_ecliptic = frames.system_matrix("ECLIPTIC J2000")
+    return (vectors.apply(to_ecliptic, body_helio - earth_helio),
+            vectors.apply(to_ecliptic, -earth_helio))
+
+
+def rough_longitude_from_sun(body, sun, offset=0.0):
+    """The ecliptic longitude of ``body`` minus the Sun's, less ``offset``, in [-180, 180)
+    degrees, from ``rough_geocentric``'s vectors."""
+    return wrap180(frames.spherical(body)[0] - frames.spherical(sun)[0] - offset)
 
 
 def phase_angle(p):

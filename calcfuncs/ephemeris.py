@@ -62,15 +62,11 @@ def _calendar(jd):
 # ---- the built-in theories ---------------------------------------------------------------
 
 
-def _earth_and_sun(tdb1, tdb2):
-    """Barycentric p and v of the Earth, then of the Sun, from ERFA epv00's series
-    (earth_theory: ERFA's routine or the same series with numpy, the faster)."""
-    return earth_theory.states(tdb1, tdb2)
-
-
 @nodes.kept_per_instant
 def _earth_and_sun_one(tdb1, tdb2):
-    """The same for one instant (floats), kept for the row's other columns
+    """Barycentric p and v of the Earth, then of the Sun, from ERFA epv00's series
+    (earth_theory: ERFA's routine or the same series with numpy, the faster) for one
+    instant (floats), kept for the row's other columns
     (nodes.INSTANTS_KEPT).  Read-only arrays of one row."""
     out = earth_theory.states_of_one(tdb1, tdb2)
     out.flags.writeable = False
@@ -87,8 +83,9 @@ def rough_earth(tt1, tt2):
 
 
 def _earth_and_sun_states(tdb1, tdb2):
-    """The same as one array (..., 12), for the nodes to interpolate."""
-    return np.concatenate(_earth_and_sun(tdb1, tdb2), axis=-1)
+    """The barycentric states of earth_theory.states as one array (..., 12), for the
+    nodes to interpolate."""
+    return np.concatenate(earth_theory.states(tdb1, tdb2), axis=-1)
 
 
 class Builtin:
@@ -143,7 +140,7 @@ class Builtin:
             if t1.shape == (1,):  # a single cell: kept for the row's other columns
                 return _earth_and_sun_one(float(t1[0]), float(t2[0]))
             if nodes.dense(t1, t2) is None:
-                return _earth_and_sun(t1, t2)
+                return earth_theory.states(t1, t2)
             s = nodes.over_nodes(_earth_and_sun_states, t1, t2)
             return s[..., 0:3], s[..., 3:6], s[..., 6:9], s[..., 9:12]
 

@@ -160,20 +160,15 @@ def _elongation_rate(body, source, sign):
 
 
 def _rough_places(body, tt1, tt2):
-    """Geometric geocentric vectors of the planet and of the Sun (au, ecliptic J2000), from
-    ERFA plan94 alone (the Earth-Moon barycentre for the Earth, no light time, no
-    aberration): within a few hundredths of a degree of the apparent places in longitude
-    difference and elongation.  For locating events only."""
+    """Rough geocentric vectors of the planet and of the Sun (bodies.rough_geocentric) from
+    ERFA plan94 alone.  For locating events only."""
     planet = erfa.ufunc.plan94(tt1, tt2, ephemeris.PLAN94_NUMBERS[body])[0]["p"]
-    earth = ephemeris.rough_earth(tt1, tt2)[0]
-    to_ecliptic = frames.system_matrix("ECLIPTIC J2000")
-    return vectors.apply(to_ecliptic, planet - earth), vectors.apply(to_ecliptic, -earth)
+    return bodies.rough_geocentric(planet, ephemeris.rough_earth(tt1, tt2)[0])
 
 
 def _rough_longitude_from_sun(body, offset):
     def rough(jd1, jd2, row=None):
-        planet, sun = _rough_places(body, jd1, jd2)
-        return wrap180(frames.spherical(planet)[0] - frames.spherical(sun)[0] - offset)
+        return bodies.rough_longitude_from_sun(*_rough_places(body, jd1, jd2), offset)
 
     return rough
 
@@ -185,7 +180,7 @@ def _rough_elongation_rate(body, sign):
         before, after = _rough_places(body, jd1, jd2 - h), _rough_places(body, jd1, jd2 + h)
         elongation = vectors.angle_between(*after)
         rate = np.degrees(elongation - vectors.angle_between(*before)) / (2.0 * h)
-        side = np.sign(wrap180(frames.spherical(after[0])[0] - frames.spherical(after[1])[0]))
+        side = np.sign(bodies.rough_longitude_from_sun(*after))
         searched = (side == sign) & (np.degrees(elongation) > _GREATEST_ELONGATION_ABOVE_DEG)
         return np.where(searched, rate, 1.0)
 

@@ -424,10 +424,8 @@ def next_event_cells(orbit, time, event="OPPOSITION", result_scale=None, source=
 
         def rough(jd1, jd2, row):
             body, earth = _rough_states(o, jd1, jd2, row)
-            to_ecliptic = frames.system_matrix("ECLIPTIC J2000")
-            geo = vectors.apply(to_ecliptic, body[0] - earth[0])
-            sun = vectors.apply(to_ecliptic, -earth[0])
-            return wrap180(frames.spherical(geo)[0] - frames.spherical(sun)[0] - 180.0)
+            return bodies.rough_longitude_from_sun(
+                *bodies.rough_geocentric(body[0], earth[0]), 180.0)
         roots = crossings(f, jd, jd + window, 2.0, direction=0, jump=90.0, estimate=rough)
     else:  # CLOSEST: the geocentric distance's rate rises through zero
         src = ephemeris.get(source)
