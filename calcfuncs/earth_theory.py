@@ -145,6 +145,18 @@ def states(tdb1, tdb2):
     return _states_erfa(tdb1, tdb2)
 
 
+def states_floats(tdb1, tdb2):
+    """``states`` at one instant (floats) as four lists of three floats: Earth p, v, Sun
+    p, v (a cell's place on floats, bodies.sun_rows)."""
+    if chosen() == "numpy":
+        return states_one(tdb1, tdb2)
+    pvh, pvb, _ = erfa.ufunc.epv00(tdb1, tdb2)
+    ep, ev = pvb["p"].tolist(), pvb["v"].tolist()
+    hp, hv = pvh["p"].tolist(), pvh["v"].tolist()
+    # The Sun as ``_states_erfa`` gives it: barycentric minus heliocentric Earth.
+    return [ep, ev, [a - b for a, b in zip(ep, hp)], [a - b for a, b in zip(ev, hv)]]
+
+
 def states_of_one(tdb1, tdb2):
     """``states`` at one instant (floats): a (4, 1, 3) array, Earth p, v, Sun p, v."""
     if chosen() == "numpy":

@@ -63,14 +63,44 @@ def _calendar(jd):
 
 
 @nodes.kept_per_instant
-def _earth_and_sun_one(tdb1, tdb2):
+def earth_and_sun_floats(tdb1, tdb2):
     """Barycentric p and v of the Earth, then of the Sun, from ERFA epv00's series
     (earth_theory: ERFA's routine or the same series with numpy, the faster) for one
-    instant (floats), kept for the row's other columns
-    (nodes.INSTANTS_KEPT).  Read-only arrays of one row."""
-    out = earth_theory.states_of_one(tdb1, tdb2)
+    instant (floats), kept for the row's other columns (nodes.INSTANTS_KEPT): four
+    tuples of three floats."""
+    return tuple(tuple(v) for v in earth_theory.states_floats(tdb1, tdb2))
+
+
+@nodes.kept_per_instant
+def _earth_and_sun_one(tdb1, tdb2):
+    """``earth_and_sun_floats`` as read-only arrays of one row."""
+    out = np.array(earth_and_sun_floats(tdb1, tdb2)).reshape(4, 1, 3)
     out.flags.writeable = False
     return tuple(out)
+
+
+_BIAS_ROWS = erfa.bp06(J2000_JD, 0.0)[0].tolist()  # Builtin._bias, as rows of floats
+
+
+def heliocentric_floats(body, t1, t2, earth_helio):
+    """``Builtin.heliocentric``'s position of the Moon or a planet of plan94 at one
+    instant inside BUILTIN_YEARS, on floats: a function of the light time ``tau`` (days)
+    giving the body at t1 + t2 - tau as three floats (au, ICRS axes).  ``earth_helio``:
+    the Earth's heliocentric (p, v) at t1 + t2, lists of floats, for the Moon."""
+    if body == "MOON":
+        (px, py, pz), (vx, vy, vz) = earth_helio
+
+        def at(tau):
+            m = erfa.ufunc.moon98(t1, t2 - tau)["p"].tolist()
+            dt = (t1 - t1) + ((t2 - tau) - t2)  # the Earth extrapolated over the light time
+            return [m[0] + (px + dt * vx), m[1] + (py + dt * vy), m[2] + (pz + dt * vz)]
+        return at
+    number, b = PLAN94_NUMBERS[body], _BIAS_ROWS
+
+    def at(tau):
+        x, y, z = erfa.ufunc.plan94(t1, t2 - tau, number)[0]["p"].tolist()
+        return [b[0][k] * x + b[1][k] * y + b[2][k] * z for k in range(3)]
+    return at
 
 
 def rough_earth(tt1, tt2):

@@ -23,6 +23,8 @@ stay those of the input.
 """
 
 
+import math
+
 import erfa
 import numpy as np
 
@@ -231,6 +233,38 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
         m = _dated_one(system, float(jd1.flat[0]), float(jd2.flat[0]))
         return np.broadcast_to(m, jd1.shape + (3, 3))
     return _dated(system, jd1, jd2, nutation_over_nodes if smooth else _nutation)
+
+
+def matrix_rows(system, jd1, jd2):
+    """The rotation from ICRS axes to a checked ``system`` at one TT date (floats; None for
+    a fixed system) as three rows of three floats, the IAU 2006/2000A matrix of a single
+    cell (``_dated_one``, kept): for a place computed on floats."""
+    if system not in DATED:
+        found = _FIXED_ROWS.get(system)
+        if found is None:
+            found = _FIXED_ROWS[system] = _fixed(system).tolist()
+        return found
+    return _dated_one(system, jd1, jd2).tolist()
+
+
+_FIXED_ROWS = {}
+
+
+def spherical_floats(x, y, z, index):
+    """``spherical``'s longitude (``index`` 0, in [0, 360)) or latitude (1), degrees, of
+    one vector of floats: the steps of ERFA c2s and anp and of ``degrees_360``."""
+    if index == 0:
+        angle = 0.0 if x * x + y * y == 0.0 else math.atan2(y, x)
+        angle = math.fmod(angle, _TURN)
+        if angle < 0.0:
+            angle += _TURN
+        degrees = math.degrees(angle)
+        return 0.0 if degrees >= 360.0 else degrees
+    xy = x * x + y * y
+    return math.degrees(0.0 if z == 0.0 else math.atan2(z, math.sqrt(xy)))
+
+
+_TURN = 2.0 * math.pi
 
 
 def rotate(v, m_from, m_to):

@@ -65,7 +65,7 @@ def _phase_angle_rad(tt1, tt2, source=BUILTIN):
 # ---- cell functions: place -------------------------------------------------------------
 
 
-lon_cells, lat_cells, ra_cells, dec_cells = bodies.place_cells(moon_in)
+lon_cells, lat_cells, ra_cells, dec_cells = bodies.place_cells("MOON")
 
 
 def distance_cells(time, unit="KM", source=BUILTIN):

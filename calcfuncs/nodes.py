@@ -204,16 +204,8 @@ def for_one(quantity, compute, jd1, jd2):
     if not _IN_CELLS[0] or jd1.size != 1:
         return None
     t1, t2 = jd1.item(), jd2.item()
-    last = _LAST_ONE[0]
-    if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
-        cell, dense = last[2], last[3]
-    else:
-        if not math.isfinite(t1 + t2):
-            return None
-        cell = math.floor((t1 + t2) / SPACING)
-        dense = _note(cell, t1, t2)
-        _LAST_ONE[0] = (t1, t2, cell, dense)
-    if not dense:
+    cell = _dense_cell(t1, t2)
+    if cell is None:
         return None
     stack = _STACKS.get((quantity, cell))
     if stack is None:
@@ -221,6 +213,28 @@ def for_one(quantity, compute, jd1, jd2):
     first = (cell - BEFORE) * SPACING
     return np.dot(_weights_at(((t1 - first) + t2) / SPACING), stack).reshape(
         np.shape(jd1) + (-1,))
+
+
+def cell_is_dense(t1, t2):
+    """Whether a one-instant call at ``t1 + t2`` (floats) is interpolated from kept nodes
+    (``for_one``), the instant noted as ``for_one`` notes it: a caller with a path of
+    its own for a cell computed directly asks first (bodies.sun_rows)."""
+    return bool(_IN_CELLS[0]) and _dense_cell(t1, t2) is not None
+
+
+def _dense_cell(t1, t2):
+    """The half day of an instant asked for by a cell, if the cells are dense around it
+    (its nodes are then interpolated); None otherwise.  Each instant is noted once: the
+    same cell's other quantities find it as the last one."""
+    last = _LAST_ONE[0]
+    if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
+        return last[2] if last[3] else None
+    if not math.isfinite(t1 + t2):
+        return None
+    cell = math.floor((t1 + t2) / SPACING)
+    dense = _note(cell, t1, t2)
+    _LAST_ONE[0] = (t1, t2, cell, dense)
+    return cell if dense else None
 
 
 def _note(cell, t1, t2):

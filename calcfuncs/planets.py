@@ -83,26 +83,25 @@ def _place(body, time, kind, source):
     return bodies.place(body, tdb1, tdb2, kind, source), tt1, tt2
 
 
-def _spherical_in(body, time, system, kind, source):
+def _spherical_in(body, time, system, kind, source, index):
     with nodes.single_cells():  # a log filled down: nodes.for_one
-        tt1, tt2 = time.tt()
-        return frames.spherical(bodies.body_in(body, tt1, tt2, system, kind, source))
+        return bodies.spherical_component(body, *time.tt(), system, kind, source, index)
 
 
 def lon_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source)[0]
+    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source, 0)
 
 
 def lat_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source)[1]
+    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source, 1)
 
 
 def ra_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source)[0]
+    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source, 0)
 
 
 def dec_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source)[1]
+    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source, 1)
 
 
 def dist_cells(body, time, source=BUILTIN):

@@ -59,7 +59,7 @@ def sun_and_sidereal(tt1, tt2, ut, with_distance=False):
 # ---- cell functions: position ---------------------------------------------------------
 
 
-lon_cells, lat_cells, ra_cells, dec_cells = bodies.place_cells(sun_in)
+lon_cells, lat_cells, ra_cells, dec_cells = bodies.place_cells("SUN")
 
 
 def distance_cells(time, source=BUILTIN):

@@ -122,10 +122,15 @@ def all_within_years(jd1, jd2, span):
     instant's year is worked out on Python floats (the same operations, so the same
     year to the bit), a third of the array arithmetic's cost for a single cell."""
     if jd1.size == 1 and jd2.size == 1:
-        year = 2000.0 + ((float(jd1.flat[0]) - J2000_JD) + float(jd2.flat[0])) / JULIAN_YEAR_DAYS
-        return span[0] <= year <= span[1]
+        return within_years_one(float(jd1.flat[0]), float(jd2.flat[0]), span)
     years = julian_year(jd1, jd2)
     return bool(np.all((years >= span[0]) & (years <= span[1])))
+
+
+def within_years_one(t1, t2, span):
+    """``all_within_years`` of one instant (floats)."""
+    year = 2000.0 + ((t1 - J2000_JD) + t2) / JULIAN_YEAR_DAYS
+    return span[0] <= year <= span[1]
 
 
 def check_years(jd1, jd2, span, what, hint=""):

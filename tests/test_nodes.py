@@ -212,10 +212,10 @@ def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers():
         for s in serials:  # column by column, as Calc computes
             assert cells.evaluate(name, [*lead, s]) == alone[name, s]
     assert frames.nutation_one.cache_info().hits >= 300
-    assert ephemeris._earth_and_sun_one.cache_info().hits >= 2 * 300
+    assert ephemeris.earth_and_sun_floats.cache_info().hits >= 2 * 300
     # The last three columns found the places of the first three (a body's longitude
-    # beside its declination): one place an instant and body.
-    assert bodies._direction_one.cache_info().hits >= 3 * 300
+    # beside its declination): one place an instant and body (on floats, a cell's path).
+    assert bodies._direction_floats.cache_info().hits >= 3 * 300
     # The true obliquity of the row's instant finds the same kept nutation (one series
     # a row, not one for the places and one for the obliquity), and gives what it gives
     # computed alone.
@@ -241,7 +241,7 @@ def test_the_instants_kept_stay_within_their_bound(monkeypatch):
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)  # every cell computed directly
     for s in serials:
         cells.evaluate("SKY.SUN.RA", [s])
-    for kept in (frames.nutation_one, ephemeris._earth_and_sun_one, bodies._direction_one):
+    for kept in (frames.nutation_one, ephemeris.earth_and_sun_floats, bodies._direction_floats):
         assert kept.cache_info().currsize == nodes.INSTANTS_KEPT
     nodes.forget_single_cells()  # the benchmarks' cold start forgets them too
     assert frames.nutation_one.cache_info().currsize == 0
