@@ -155,10 +155,3 @@ def states_floats(tdb1, tdb2):
     hp, hv = pvh["p"].tolist(), pvh["v"].tolist()
     # The Sun as ``_states_erfa`` gives it: barycentric minus heliocentric Earth.
     return [ep, ev, [a - b for a, b in zip(ep, hp)], [a - b for a, b in zip(ev, hv)]]
-
-
-def states_of_one(tdb1, tdb2):
-    """``states`` at one instant (floats): a (4, 1, 3) array, Earth p, v, Sun p, v."""
-    if chosen() == "numpy":
-        return np.array(states_one(tdb1, tdb2)).reshape(4, 1, 3)
-    return np.array(_states_erfa(np.array([tdb1]), np.array([tdb2])))

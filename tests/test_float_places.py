@@ -1,0 +1,79 @@
+"""A place of one instant on floats (bodies._direction_floats, frames.matrix_rows,
+frames.spherical_floats) gives what the pipeline on arrays gives (bodies.place, in_system,
+frames.spherical), over random instants of the built-in theories' years, every body,
+kind and coordinate system; a column takes the same path row by row, so its rows equal
+their cells (tests/test_column_form.py and tests/test_earth_theory.py check that to the
+bit); rows outside the years take the arrays and keep their own messages.
+
+The array pipeline is the one whose places are checked against outside references
+(test_sun.py, test_moon.py, test_planets.py: Meeus, the Astronomical Almanac, JPL
+Horizons); here the float steps are checked against it.
+"""
+
+from unittest import mock
+
+import numpy as np
+import pytest
+
+from calcfuncs import bodies, cells, frames, nodes
+from calcfuncs.errors import PREFIX
+from calcfuncs.events import wrap180
+from calcfuncs.vocabulary import J2000_JD
+
+SYSTEMS = ("ECLIPTIC J2000", "ECLIPTIC DATE", "ECLIPTIC TRUE", "EQUATORIAL J2000",
+           "EQUATORIAL DATE", "EQUATORIAL TRUE", "ICRS")
+KINDS = ("GEOMETRIC", "ASTROMETRIC", "APPARENT")
+BODIES = sorted(bodies.FLOAT_BODIES)
+# Largest difference allowed, degrees: 1e-12 degree is 0.0036 micro-arcseconds (5.7e-14
+# measured over 270 instants, 2026-12-05), far below
+# the theories' own errors (milliarcseconds and more); the two differ only in the
+# order of a few roundings (a sum of three squares, a matrix product).
+BOUND_DEG = 1e-12
+
+
+@pytest.mark.parametrize("body", BODIES)
+def test_a_place_on_floats_equals_the_arrays(body):
+    rng = np.random.default_rng(sum(map(ord, body)))
+    years = rng.uniform(1000.0, 3000.0, 12)
+    worst = 0.0
+    for year in years:
+        t1 = J2000_JD + np.floor((year - 2000.0) * 365.25)
+        t2 = float(rng.uniform(0.0, 1.0))
+        for kind in KINDS:
+            nodes.forget_kept_instants()
+            for system in SYSTEMS:
+                lon, lat = frames.spherical(bodies.body_in(
+                    body, np.array([t1]), np.array([t2]), system, kind, "BUILTIN"))
+                got_lon = bodies._value_floats(body, float(t1), t2, system, kind, 0)
+                got_lat = bodies._value_floats(body, float(t1), t2, system, kind, 1)
+                worst = max(worst, abs(float(wrap180(got_lon - lon[0]))),
+                            abs(got_lat - lat[0]))
+    assert worst < BOUND_DEG, worst
+
+
+def test_a_cell_of_a_dense_log_is_still_interpolated_from_its_nodes(monkeypatch):
+    # Cells close together in time take the nutation and the Earth from kept nodes
+    # (nodes.for_one); the float path steps aside for them.
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 4)
+    nodes.forget_single_cells()
+    cells._SINGLE_CELL_CACHE.clear()
+    calls = []
+    real = bodies._value_floats
+    with mock.patch.object(bodies, "_value_floats",
+                           side_effect=lambda *a: calls.append(a) or real(*a)):
+        for k in range(12):
+            cells.evaluate("SKY.SUN.LON", (46000.25 + 0.01 * k,))
+    assert len(calls) == 3  # the first three; from the fourth the cells are dense
+    nodes.forget_single_cells()
+
+
+def test_a_column_across_the_end_of_the_builtin_years_keeps_each_rows_own_answer():
+    # Mid 2999, late 3000 (the long-range theories), and about 8977, beyond every
+    # theory (a message in its row only).
+    rows = ("JD 2816612.5", "JD 2817000.5", "JD 5000000.5")
+    with mock.patch.object(nodes, "DENSE_CELLS", 10**9):
+        column = cells.evaluate("SKY.SUN.LON", (tuple((t,) for t in rows), "TT"))
+        alone = [cells.evaluate("SKY.SUN.LON", (t, "TT")) for t in rows]
+    assert [row[0] for row in column] == alone
+    assert isinstance(alone[0], float) and isinstance(alone[1], float)
+    assert alone[2].startswith(PREFIX) and "built-in theories" in alone[2]
