@@ -231,11 +231,13 @@ FLOAT_BODIES = frozenset(("SUN", "MOON") + tuple(ephemeris.PLAN94_NUMBERS))
 
 
 @nodes.kept_per_instant
-def _direction_floats(body, t1, t2, kind):
+def _direction_floats(body, t1, t2, kind, dense=False):
     """``place``'s unit vector (three floats, GCRS axes) of a body of FLOAT_BODIES at one
     TT instant (taken for TDB; floats) inside BUILTIN_YEARS: its steps on floats, from
-    the Earth's and the Sun's kept states.  Kept for the row's other columns."""
-    ep, ev, sp, sv = ephemeris.earth_and_sun_floats(t1, t2)
+    the Earth's and the Sun's kept states, or, ``dense``, from their nodes (a cell of a
+    dense log, nodes.cell_is_dense).  Kept for the row's other columns."""
+    ep, ev, sp, sv = (ephemeris.earth_and_sun_from_nodes(t1, t2) if dense
+                      else ephemeris.earth_and_sun_floats(t1, t2))
     if body == "SUN":  # _sun_geocentric's steps
         g = [sp[k] - ep[k] for k in range(3)]
         distance = _length(g)
@@ -283,11 +285,12 @@ def _aberrate_floats(u, earth_v, sun_distance):
     return erfa.ufunc.ab(u, c, sun_distance, bm1).tolist()
 
 
-def _value_floats(body, t1, t2, system, kind, index):
+def _value_floats(body, t1, t2, system, kind, index, dense=False):
     """A longitude or latitude (``index`` 0 or 1, degrees) of a body in a checked
-    ``system`` at one TT instant (floats) inside BUILTIN_YEARS, on floats."""
-    x, y, z = _direction_floats(body, t1, t2, kind)
-    m = frames.matrix_rows(system, t1, t2)
+    ``system`` at one TT instant (floats) inside BUILTIN_YEARS, on floats (``dense``:
+    the nutation and the Earth from their nodes)."""
+    x, y, z = _direction_floats(body, t1, t2, kind, dense)
+    m = frames.matrix_rows(system, t1, t2, dense)
     return frames.spherical_floats(m[0][0] * x + m[0][1] * y + m[0][2] * z,
                                    m[1][0] * x + m[1][1] * y + m[1][2] * z,
                                    m[2][0] * x + m[2][1] * y + m[2][2] * z, index)
@@ -296,16 +299,17 @@ def _value_floats(body, t1, t2, system, kind, index):
 def rows_on_floats(body, tt1, tt2, system, kind, index):
     """(values, rows done): a body's longitude or latitude in a checked ``system`` (the
     built-in source) for the rows of TT arrays that are computed directly and lie
-    inside BUILTIN_YEARS, on floats row by row (``_value_floats``); None when no row is
-    (another body, a dense column, a cell of a dense log: their nodes are interpolated
-    on arrays)."""
+    inside BUILTIN_YEARS, on floats row by row (``_value_floats``; a cell of a dense log
+    with its nutation and Earth from their nodes); None when no row is (another body, a
+    dense column: its nodes are interpolated on arrays)."""
     if body not in FLOAT_BODIES:
         return None
     if tt1.size == 1:
         t1, t2 = float(tt1.flat[0]), float(tt2.flat[0])
-        if not within_years_one(t1, t2, BUILTIN_YEARS) or nodes.cell_is_dense(t1, t2):
+        if not within_years_one(t1, t2, BUILTIN_YEARS):
             return None
-        return _value_floats(body, t1, t2, system, kind, index), True
+        return _value_floats(body, t1, t2, system, kind, index,
+                             nodes.cell_is_dense(t1, t2)), True
     if nodes.dense(tt1, tt2) is not None:
         return None
     values = np.full(tt1.shape, np.nan)

@@ -71,6 +71,14 @@ def earth_and_sun_floats(tdb1, tdb2):
     return tuple(tuple(v) for v in earth_theory.states_floats(tdb1, tdb2))
 
 
+def earth_and_sun_from_nodes(tdb1, tdb2):
+    """``earth_and_sun_floats`` interpolated over the kept nodes of a dense log's cells
+    (nodes.from_nodes, as ``Builtin.earth_and_sun`` takes them for a cell): four lists
+    of three floats."""
+    s = nodes.from_nodes("epv00", _earth_and_sun_states, tdb1, tdb2)
+    return s[0:3], s[3:6], s[6:9], s[9:12]
+
+
 @nodes.kept_per_instant
 def _earth_and_sun_one(tdb1, tdb2):
     """``earth_and_sun_floats`` as read-only arrays of one row."""

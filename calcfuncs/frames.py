@@ -235,16 +235,23 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
     return _dated(system, jd1, jd2, nutation_over_nodes if smooth else _nutation)
 
 
-def matrix_rows(system, jd1, jd2):
-    """The rotation from ICRS axes to a checked ``system`` at one TT date (floats; None for
-    a fixed system) as three rows of three floats, the IAU 2006/2000A matrix of a single
-    cell (``_dated_one``, kept): for a place computed on floats."""
+def matrix_rows(system, jd1, jd2, dense=False):
+    """The rotation from ICRS axes to a checked ``system`` at one TT date (floats) as
+    three rows of three floats, the IAU 2006/2000A matrix of a single cell
+    (``_dated_one``, kept; ``dense``: the nutation from the nodes of a dense log's cells,
+    as ``system_matrix`` takes it for such a cell): for a place computed on floats."""
     if system not in DATED:
         found = _FIXED_ROWS.get(system)
         if found is None:
             found = _FIXED_ROWS[system] = _fixed(system).tolist()
         return found
+    if dense and system in _NUTATED:
+        dpsi, deps = nodes.from_nodes("nut06a", _nutation_rows, jd1, jd2)
+        return _dated(system, jd1, jd2, lambda a, b: (dpsi, deps)).tolist()
     return _dated_one(system, jd1, jd2).tolist()
+
+
+_NUTATED = frozenset(("EQUATORIAL TRUE", "ECLIPTIC TRUE"))
 
 
 _FIXED_ROWS = {}

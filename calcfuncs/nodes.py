@@ -204,21 +204,30 @@ def for_one(quantity, compute, jd1, jd2):
     if not _IN_CELLS[0] or jd1.size != 1:
         return None
     t1, t2 = jd1.item(), jd2.item()
-    cell = _dense_cell(t1, t2)
-    if cell is None:
+    if _dense_cell(t1, t2) is None:
         return None
+    return _interpolated(quantity, compute, t1, t2).reshape(np.shape(jd1) + (-1,))
+
+
+def from_nodes(quantity, compute, t1, t2):
+    """``for_one``'s values (a list of k floats) at an instant (floats) of which
+    ``cell_is_dense`` has just said yes: a place on floats (bodies._direction_floats)."""
+    return _interpolated(quantity, compute, t1, t2).tolist()
+
+
+def _interpolated(quantity, compute, t1, t2):
+    cell = math.floor((t1 + t2) / SPACING)  # as _dense_cell finds it
     stack = _STACKS.get((quantity, cell))
     if stack is None:
         stack = _stack(quantity, compute, cell)
     first = (cell - BEFORE) * SPACING
-    return np.dot(_weights_at(((t1 - first) + t2) / SPACING), stack).reshape(
-        np.shape(jd1) + (-1,))
+    return np.dot(_weights_at(((t1 - first) + t2) / SPACING), stack)
 
 
 def cell_is_dense(t1, t2):
     """Whether a one-instant call at ``t1 + t2`` (floats) is interpolated from kept nodes
-    (``for_one``), the instant noted as ``for_one`` notes it: a caller with a path of
-    its own for a cell computed directly asks first (bodies.sun_rows)."""
+    (``for_one``), the instant noted as ``for_one`` notes it: a place on floats asks
+    first (bodies.rows_on_floats), and then takes its values ``from_nodes``."""
     return bool(_IN_CELLS[0]) and _dense_cell(t1, t2) is not None
 
 

@@ -51,20 +51,30 @@ def test_a_place_on_floats_equals_the_arrays(body):
     assert worst < BOUND_DEG, worst
 
 
-def test_a_cell_of_a_dense_log_is_still_interpolated_from_its_nodes(monkeypatch):
+def test_a_cell_of_a_dense_log_takes_the_nutation_and_the_earth_from_nodes(monkeypatch):
     # Cells close together in time take the nutation and the Earth from kept nodes
-    # (nodes.for_one); the float path steps aside for them.
+    # (nodes.for_one for arrays, nodes.from_nodes on floats), within the bounds of
+    # test_nodes.py (1.5 uas, 0.5 m: under 3 uas on the Sun's place) of the direct values.
     monkeypatch.setattr(nodes, "DENSE_CELLS", 4)
     nodes.forget_single_cells()
     cells._SINGLE_CELL_CACHE.clear()
     calls = []
     real = bodies._value_floats
+    serials = [46000.25 + 0.01 * k for k in range(12)]
     with mock.patch.object(bodies, "_value_floats",
-                           side_effect=lambda *a: calls.append(a) or real(*a)):
-        for k in range(12):
-            cells.evaluate("SKY.SUN.LON", (46000.25 + 0.01 * k,))
-    assert len(calls) == 3  # the first three; from the fourth the cells are dense
+                           side_effect=lambda *a: calls.append(a[-1]) or real(*a)):
+        got = [cells.evaluate(name, (s,)) for name in ("SKY.SUN.LON", "SKY.MOON.DEC")
+               for s in serials]
+    # The first three cells computed directly; from the fourth the cells are dense.
+    assert calls == [False] * 3 + [True] * 21
     nodes.forget_single_cells()
+    cells._SINGLE_CELL_CACHE.clear()
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    direct = [cells.evaluate(name, (s,)) for name in ("SKY.SUN.LON", "SKY.MOON.DEC")
+              for s in serials]
+    differences = np.abs(np.array(got) - np.array(direct)) * 3.6e9  # micro-arcseconds
+    assert differences.max() < 3.0
+    assert differences[3:12].max() > 0.0  # interpolated, not the direct values
 
 
 def test_a_column_across_the_end_of_the_builtin_years_keeps_each_rows_own_answer():
