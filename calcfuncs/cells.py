@@ -502,9 +502,9 @@ def _plain_single(fn, rows, options, null_jd):
                 jd1, jd2, messages = read_times(column, scale, null_jd, dut1)
                 if messages is not None and messages[0] is not None:
                     return None
-            else:
-                jd1, jd2 = found
-            kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
+                kwargs[arg.name] = Instants(jd1, jd2, scale, dut1)
+            else:  # UTC from 1960 (read_utc_serial) and a DUT1 read within its limit
+                kwargs[arg.name] = Instants.unchecked(*found, "UTC", dut1)
         elif arg.kind == "text":  # a text (an orbit, an angle to read): the column's form
             column = np.empty(1, dtype=object)
             column[0] = value
@@ -527,6 +527,8 @@ def _plain_single(fn, rows, options, null_jd):
         out = func(**kwargs)
     except (RowErrors, SkyError):
         return None
+    if type(out) is float:  # a place on floats (bodies.spherical_component)
+        return out if math.isfinite(out) else None
     if isinstance(out, DateTimes):
         if out.words is not None:
             return None

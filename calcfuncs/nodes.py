@@ -21,7 +21,6 @@ milliarcseconds, the nutation model to a fraction of a milliarcsecond).
 """
 
 import math
-from contextlib import contextmanager
 from functools import lru_cache
 
 import numpy as np
@@ -186,14 +185,26 @@ def forget_single_cells():
     forget_kept_instants()
 
 
-@contextmanager
+class _SingleCells:
+    """``single_cells()``: a class rather than a generator (a third of the cost, which a
+    cell pays each time)."""
+
+    __slots__ = ()
+
+    def __enter__(self):
+        _IN_CELLS[0] += 1
+
+    def __exit__(self, *exc):
+        _IN_CELLS[0] -= 1
+        return False
+
+
+_SINGLE_CELLS = _SingleCells()
+
+
 def single_cells():
     """Within: one-instant calls may be interpolated (``for_one``)."""
-    _IN_CELLS[0] += 1
-    try:
-        yield
-    finally:
-        _IN_CELLS[0] -= 1
+    return _SINGLE_CELLS
 
 
 def for_one(quantity, compute, jd1, jd2):

@@ -329,7 +329,7 @@ class Instants:
         if status.item() < 0:
             return None
         tt1, tt2, _ = erfa.ufunc.taitt(tai1, tai2)  # status always 0
-        tt = self._derived["TT"] = Instants._unchecked(tt1, tt2, "TT", self.dut1)
+        tt = self._derived["TT"] = Instants.unchecked(tt1, tt2, "TT", self.dut1)
         return tt
 
     def _one_tt_to_utc(self):
@@ -341,10 +341,10 @@ class Instants:
         if (status.item() < 0 or (tai1 + tai2).item() < UTC_START_JD
                 or (utc1 + utc2).item() < UTC_START_JD):
             return None
-        return Instants._unchecked(utc1, utc2, "UTC", self.dut1)
+        return Instants.unchecked(utc1, utc2, "UTC", self.dut1)
 
     @staticmethod
-    def _unchecked(jd1, jd2, scale, dut1):
+    def unchecked(jd1, jd2, scale, dut1):
         """Instants made from float arrays an ERFA conversion gave, on a canonical scale
         within its limits: what __init__ would check is known to hold."""
         made = Instants.__new__(Instants)
