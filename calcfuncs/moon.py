@@ -41,10 +41,6 @@ def moon_gcrs(tt1, tt2, kind="APPARENT", source=BUILTIN):
     return bodies.geocentric("MOON", tt1, tt2, kind, source)
 
 
-def moon_in(tt1, tt2, system, kind="APPARENT", source=BUILTIN):
-    return bodies.body_in("MOON", tt1, tt2, system, kind, source)
-
-
 def elongation_lon(tt1, tt2, source=BUILTIN):
     """Apparent ecliptic longitude of the Moon minus the Sun's (true equinox), degrees
     in [0, 360): 0 new, 90 first quarter, 180 full, 270 last quarter.  The apparent

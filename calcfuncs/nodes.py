@@ -149,10 +149,11 @@ HALF_DAYS_KEPT = 2_000
 
 # A row of a log asks for one instant in several columns (a longitude, a declination,
 # the Moon beside the Sun), and Calc computes a sheet column by column: a single cell's
-# nutation and Earth (45 and 35 us of ERFA) are kept for the next column's cell of the
+# nutation and Earth (about 18 and 15 us) are kept for the next column's cell of the
 # same row, for the last INSTANTS_KEPT instants (frames.nutation_one, _dated_one,
-# ephemeris._earth_and_sun_one and, for a body's other columns, bodies._direction_one;
-# 9.4 MB when all four are full, measured with tracemalloc).
+# ephemeris.earth_and_sun_floats and _earth_and_sun_one and, for a body's other
+# columns, bodies._direction_floats and _direction_one; 13.1 MB when all six are full,
+# measured with tracemalloc, 2026-12-05).
 INSTANTS_KEPT = 4096
 _KEPT_PER_INSTANT = []  # the kept functions (kept_per_instant)
 

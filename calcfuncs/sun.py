@@ -67,8 +67,9 @@ def distance_cells(time, source=BUILTIN):
 
 
 def solar_longitude_cells(time):
-    """The meteor-work solar longitude: apparent, on the ecliptic and equinox J2000.0."""
-    return sun_longitude(*time.tt(), "J2000", "APPARENT")
+    """The meteor-work solar longitude: apparent, on the ecliptic and equinox J2000.0 (the
+    cells of SKY.SUN.LON with those options, to the bit)."""
+    return lon_cells(time, "J2000", "APPARENT")
 
 
 def equation_of_time_minutes(time):

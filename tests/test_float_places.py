@@ -87,3 +87,11 @@ def test_a_column_across_the_end_of_the_builtin_years_keeps_each_rows_own_answer
     assert [row[0] for row in column] == alone
     assert isinstance(alone[0], float) and isinstance(alone[1], float)
     assert alone[2].startswith(PREFIX) and "built-in theories" in alone[2]
+
+
+def test_the_solar_longitude_is_the_suns_j2000_apparent_longitude_to_the_bit():
+    # Its definition (registry: the same as SKY.SUN.LON with frame J2000, kind APPARENT).
+    rng = np.random.default_rng(83)
+    for serial in rng.uniform(20000.0, 80000.0, 50).tolist():
+        assert cells.evaluate("SKY.SUN.SOLARLON", (serial,)) == cells.evaluate(
+            "SKY.SUN.LON", (serial, None, "J2000", "APPARENT"))
