@@ -17,7 +17,7 @@ import math
 import erfa
 import numpy as np
 
-from . import ephemeris, frames, nodes, vectors
+from . import ephemeris, frames, nodes, orbits, vectors
 from .errors import RowErrors
 from .events import wrap180
 from .timescales import same_shape, within_years_one
@@ -236,9 +236,10 @@ def _direction_floats(body, t1, t2, kind, dense=False):
     TT instant (taken for TDB; floats) inside BUILTIN_YEARS: its steps on floats, from
     the Earth's and the Sun's kept states, or, ``dense``, from their nodes (a cell of a
     dense log, nodes.cell_is_dense).  Kept for the row's other columns."""
-    ep, ev, sp, sv = (ephemeris.earth_and_sun_from_nodes(t1, t2) if dense
-                      else ephemeris.earth_and_sun_floats(t1, t2))
+    states = (ephemeris.earth_and_sun_from_nodes(t1, t2) if dense
+              else ephemeris.earth_and_sun_floats(t1, t2))
     if body == "SUN":  # _sun_geocentric's steps
+        ep, ev, sp, sv = states
         g = [sp[k] - ep[k] for k in range(3)]
         distance = _length(g)
         if kind == "GEOMETRIC":
@@ -246,9 +247,26 @@ def _direction_floats(body, t1, t2, kind, dense=False):
         tau = distance * LIGHT_DAYS_PER_AU
         u = _direction([g[k] - tau * sv[k] for k in range(3)])
         return _aberrate_floats(u, ev, distance) if kind == "APPARENT" else u
+    ep, ev, sp, sv = states
+    earth_helio = ([ep[k] - sp[k] for k in range(3)], [ev[k] - sv[k] for k in range(3)])
+    return _place_floats(ephemeris.heliocentric_floats(body, t1, t2, earth_helio), states, kind)
+
+
+@nodes.kept_per_instant
+def _orbit_direction_floats(elements, t1, t2, kind, dense=False):
+    """``_direction_floats`` of a two-body orbit (orbits.Orbit.elements_floats, which
+    tell one orbit from another in the key), its positions from orbits.helio_floats."""
+    states = (ephemeris.earth_and_sun_from_nodes(t1, t2) if dense
+              else ephemeris.earth_and_sun_floats(t1, t2))
+    return _place_floats(orbits.helio_floats(elements, t1, t2), states, kind)
+
+
+def _place_floats(helio_at, states, kind):
+    """``place``'s steps on floats for a body whose heliocentric position at the light
+    time ``tau`` is ``helio_at(tau)``, from the barycentric states of the Earth and the
+    Sun at the instant."""
+    ep, ev, sp, sv = states
     earth_helio = [ep[k] - sp[k] for k in range(3)]
-    helio_at = ephemeris.heliocentric_floats(
-        body, t1, t2, (earth_helio, [ev[k] - sv[k] for k in range(3)]))
 
     def geocentric(helio, tau):  # the Sun at t - tau from its slow motion at t
         return [helio[k] + (sp[k] - tau * sv[k]) - ep[k] for k in range(3)]
@@ -285,15 +303,37 @@ def _aberrate_floats(u, earth_v, sun_distance):
     return erfa.ufunc.ab(u, c, sun_distance, bm1).tolist()
 
 
-def _value_floats(body, t1, t2, system, kind, index, dense=False):
-    """A longitude or latitude (``index`` 0 or 1, degrees) of a body in a checked
-    ``system`` at one TT instant (floats) inside BUILTIN_YEARS, on floats (``dense``:
-    the nutation and the Earth from their nodes)."""
-    x, y, z = _direction_floats(body, t1, t2, kind, dense)
+def _value_floats(direction, t1, t2, system, index, dense=False):
+    """A longitude or latitude (``index`` 0 or 1, degrees) in a checked ``system`` at one
+    TT instant (floats) inside BUILTIN_YEARS of the unit vector ``direction(t1, t2,
+    dense)`` (three floats, GCRS axes), on floats (``dense``: the nutation and the Earth
+    from their nodes)."""
+    x, y, z = direction(t1, t2, dense)
     m = frames.matrix_rows(system, t1, t2, dense)
     return frames.spherical_floats(m[0][0] * x + m[0][1] * y + m[0][2] * z,
                                    m[1][0] * x + m[1][1] * y + m[1][2] * z,
                                    m[2][0] * x + m[2][1] * y + m[2][2] * z, index)
+
+
+def _directions_on_floats(body, kind, rows):
+    """For ``rows`` instants: a function (row, t1, t2, dense) -> unit vector on floats of
+    the body (a name of FLOAT_BODIES or a two-body orbits.Orbit of one row or of
+    ``rows``), or None where the body has no float path (another body, a perturbed
+    orbit)."""
+    if type(body) is str:
+        if body not in FLOAT_BODIES:
+            return None
+        return lambda row, t1, t2, dense: _direction_floats(body, t1, t2, kind, dense)
+    if type(body) is not orbits.Orbit or body.q.size not in (1, rows):
+        return None
+    one = body.q.size == 1
+    return lambda row, t1, t2, dense: _orbit_direction_floats(
+        body.elements_floats(0 if one else row), t1, t2, kind, dense)
+
+
+# A float step that overflows or divides by zero (an extreme orbit) raises where numpy
+# gives inf or NaN: such a row is computed on arrays instead, a cell as its column's row.
+_FLOAT_FAILURES = (ArithmeticError, ValueError)
 
 
 def rows_on_floats(body, tt1, tt2, system, kind, index):
@@ -302,14 +342,18 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
     inside BUILTIN_YEARS, on floats row by row (``_value_floats``; a cell of a dense log
     with its nutation and Earth from their nodes); None when no row is (another body, a
     dense column: its nodes are interpolated on arrays)."""
-    if body not in FLOAT_BODIES:
+    direction = _directions_on_floats(body, kind, tt1.size)
+    if direction is None:
         return None
     if tt1.size == 1:
         t1, t2 = float(tt1.flat[0]), float(tt2.flat[0])
         if not within_years_one(t1, t2, BUILTIN_YEARS):
             return None
-        return _value_floats(body, t1, t2, system, kind, index,
-                             nodes.cell_is_dense(t1, t2)), True
+        try:
+            return _value_floats(lambda a, b, d: direction(0, a, b, d), t1, t2, system, index,
+                                 nodes.cell_is_dense(t1, t2)), True
+        except _FLOAT_FAILURES:
+            return None
     if nodes.dense(tt1, tt2) is not None:
         return None
     values = np.full(tt1.shape, np.nan)
@@ -317,7 +361,11 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
     flat, mask = values.reshape(-1), done.reshape(-1)
     for k, (t1, t2) in enumerate(zip(tt1.ravel().tolist(), tt2.ravel().tolist())):
         if within_years_one(t1, t2, BUILTIN_YEARS):
-            flat[k] = _value_floats(body, t1, t2, system, kind, index)
+            try:
+                flat[k] = _value_floats(lambda a, b, d: direction(k, a, b, d), t1, t2, system,
+                                        index)
+            except _FLOAT_FAILURES:
+                continue
             mask[k] = True
     return (values, done) if mask.any() else None
 

@@ -195,6 +195,15 @@ class Orbit:
         """(p, v), the interface of an ephemeris source's heliocentric(): bodies.place."""
         return self.state(t1, t2)
 
+    def elements_floats(self, row):
+        """One row's (q, e, P, Q, tp1, tp2) as floats (P and Q tuples of three): what
+        ``helio_floats`` propagates, and a key that tells one two-body orbit from
+        another."""
+        return (float(self.q.flat[row]), float(self.e.flat[row]),
+                tuple(self.p_hat.reshape(-1, 3)[row].tolist()),
+                tuple(self.q_hat.reshape(-1, 3)[row].tolist()),
+                float(self.tp1.flat[row]), float(self.tp2.flat[row]))
+
     def age_days(self, t1, t2):
         """Time from the epoch of the elements to the instants, days."""
         return (np.asarray(t1, float) - self.epoch1) + (np.asarray(t2, float) - self.epoch2)
@@ -398,4 +407,113 @@ def _first_guess(q, e, alpha, target):
         big_e = mean + e[ellipse] * np.sin(mean)      # a start for E (Danby-like)
         xe = np.clip(big_e, -np.pi, np.pi) / sa
         x[ellipse] = np.where(np.abs(xe) < np.abs(x[ellipse]), xe, x[ellipse])
+    return x
+
+
+# ---- one row on floats --------------------------------------------------------------
+#
+# A cell's place of a minor planet (bodies.rows_on_floats) asks for one orbit at one
+# instant and twice more at its light times: on arrays of one row each step is a numpy
+# call of a microsecond or more.  The same steps on Python floats, for a cell and for
+# each row of a column alike (so the two agree to the bit): ``Orbit.state``'s choice of
+# the f and g series or a new solution, ``propagate_from_perihelion`` and
+# ``_first_guess``, with the same Laguerre and Newton steps.
+
+
+def helio_floats(elements, t1, t2):
+    """For one orbit (``Orbit.elements_floats``) at the instant t1 + t2 (TT, floats): a
+    function of the light time ``tau`` (days) giving the heliocentric position (three
+    floats, au, ICRS axes) at t1 + t2 - tau.  As ``Orbit.state``: the first instant
+    solved, the next ones from the f and g series of the last solution where they
+    reach, solved anew where not."""
+    q, e, p_hat, q_hat, tp1, tp2 = elements
+    last = []
+
+    def at(tau):
+        dt = (t1 - tp1) + ((t2 - tau) - tp2)
+        if last:
+            pos, vel, near = _fg_series_floats(last[1], last[2], dt - last[0])
+            if near:
+                return pos
+        pos, vel = _propagate_floats(q, e, p_hat, q_hat, dt)
+        last[:] = (dt, pos, vel)
+        return pos
+    return at
+
+
+def _fg_series_floats(pos, vel, h):
+    """``fg_series`` of one row on floats: (position, velocity, whether it reaches)."""
+    r2 = pos[0] * pos[0] + pos[1] * pos[1] + pos[2] * pos[2]
+    r = math.sqrt(r2)
+    u = GM_SUN / (r2 * r)
+    s = (pos[0] * vel[0] + pos[1] * vel[1] + pos[2] * vel[2]) / r2
+    v2 = vel[0] * vel[0] + vel[1] * vel[1] + vel[2] * vel[2]
+    w = v2 / r2 - u
+    h2 = h * h
+    h3 = h2 * h
+    f = 1.0 - 0.5 * u * h2 + 0.5 * u * s * h3
+    g = h - u * h3 / 6.0
+    f_dot = -u * h + 1.5 * u * s * h2
+    g_dot = 1.0 - 0.5 * u * h2 + u * s * h3
+    out_p = [f * pos[k] + g * vel[k] for k in range(3)]
+    out_v = [f_dot * pos[k] + g_dot * vel[k] for k in range(3)]
+    fourth = abs(u * (3.0 * w - 15.0 * s * s + u)) * r / 24.0 + abs(u * s) * math.sqrt(v2) / 4.0
+    near = (10.0 * fourth * h2 * h2 <= SERIES_POSITION_AU
+            and 40.0 * fourth * abs(h3) <= SERIES_VELOCITY_AU_DAY)
+    return out_p, out_v, near
+
+
+def _propagate_floats(q, e, p_hat, q_hat, dt):
+    """``propagate_from_perihelion`` of one row on floats: (position, velocity), lists."""
+    alpha = (1.0 - e) / q
+    wrapped = dt
+    if alpha > 0:  # an ellipse repeats: within half a period of the perihelion
+        period = 2.0 * math.pi / (SQRT_GM * math.sqrt(alpha) ** 3)
+        if math.isfinite(period) and abs(dt) > 0.5 * period:
+            wrapped = dt - period * round(dt / period)
+    target = SQRT_GM * wrapped
+    x = _first_guess_floats(q, e, alpha, target)
+    for _ in range(_LAGUERRE_STEPS):
+        x, done = _laguerre_step(x, q, e, alpha, target, _stumpff_of_float)
+        if done:
+            break
+    for _ in range(_NEWTON_STEPS):
+        x = _newton_step(x, q, e, alpha, target, _stumpff_of_float)
+    x = float(x)
+    z = alpha * x * x
+    c, s = _stumpff_of_float(z)
+    r = q + e * x * x * c
+    f = 1.0 - x * x * c / q
+    g = wrapped - x * x * x * s / SQRT_GM
+    fdot = SQRT_GM / (r * q) * x * (z * s - 1.0)
+    gdot = 1.0 - x * x * c / r
+    v0 = math.sqrt(GM_SUN * (1.0 + e) / q)
+    pos = [(f * q) * p_hat[k] + (g * v0) * q_hat[k] for k in range(3)]
+    vel = [(fdot * q) * p_hat[k] + (gdot * v0) * q_hat[k] for k in range(3)]
+    return pos, vel
+
+
+def _first_guess_floats(q, e, alpha, target):
+    """``_first_guess`` of one row on floats."""
+    if e < 1e-8:  # a circle: x = sqrt(GM) dt / a
+        x = target / q
+    else:
+        p = 6.0 * q / e
+        r = 6.0 * target / e
+        disc = math.sqrt((r / 2.0) ** 2 + (p / 3.0) ** 3)
+        u = float(np.cbrt(abs(r) / 2.0 + disc))
+        x = math.copysign(1.0, r) * (u - p / (3.0 * u)) if r != 0.0 else 0.0
+    if alpha < 0:
+        sa = math.sqrt(-alpha)
+        mean = target * sa ** 3
+        xh = math.asinh(mean / e) / sa
+        if abs(mean) > 1.0 and abs(xh) < abs(x):
+            x = xh
+    elif alpha > 0:
+        sa = math.sqrt(alpha)
+        mean = target * sa ** 3
+        big_e = mean + e * math.sin(mean)
+        xe = min(max(big_e, -math.pi), math.pi) / sa
+        if abs(xe) < abs(x):
+            x = xe
     return x

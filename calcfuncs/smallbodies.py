@@ -210,25 +210,39 @@ def _place_of(orbit, time, kind, source, model):
     return place(moved(o, model, source), tt1, tt2, kind, source), tt1, tt2
 
 
-def _spherical(orbit, time, system, kind, source, model):
+def _spherical(orbit, time, system, kind, source, model, index):
+    """The longitude (``index`` 0) or latitude (1) in ``system``: a two-body orbit of the
+    built-in source on floats, row by row, inside the built-in theories' years
+    (bodies.rows_on_floats); every other row through the kept place on arrays."""
+    done = None
+    if source == BUILTIN and model == TWO_BODY:
+        tt1, tt2 = time.tt()
+        done = bodies.rows_on_floats(mpcformat.orbits_of(orbit), np.ravel(tt1), np.ravel(tt2),
+                                     system, kind, index)
+        if done is not None and (done[1] is True or done[1].all()):
+            return done[0]
     p, tt1, tt2 = _place(orbit, time, kind, source, model)
-    return frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))
+    values = frames.spherical(bodies.in_system(p.direction, system, tt1, tt2))[index]
+    if done is not None:  # a column reaching beyond the years: the rest on arrays
+        values = np.array(values, dtype=float)
+        values[done[1]] = done[0][done[1]]
+    return values
 
 
 def ra_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model)[0]
+    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model, 0)
 
 
 def dec_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model)[1]
+    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model, 1)
 
 
 def lon_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model)[0]
+    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model, 0)
 
 
 def lat_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model)[1]
+    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model, 1)
 
 
 # ---- seen from a site --------------------------------------------------------------------

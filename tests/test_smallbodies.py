@@ -758,8 +758,8 @@ def test_kept_orbits_and_places_stay_within_their_bounds(monkeypatch):
     monkeypatch.setattr(smallbodies, "_ONE_PLACE", {})
     monkeypatch.setattr(mpcformat, "ONE_ORBITS_KEPT", 2)
     monkeypatch.setattr(mpcformat, "_ONE_ORBIT", {})
-    for k in range(12):
-        evaluate("SKY.ORBIT.DEC", [LINES[k % len(LINES)], 45400.3 + k])
+    for k in range(12):  # (a place's RA and Dec go on floats, unkept: bodies.rows_on_floats)
+        evaluate("SKY.ORBIT.ELONGATION", [LINES[k % len(LINES)], 45400.3 + k])
         assert len(smallbodies._ONE_PLACE) <= 5 and len(mpcformat._ONE_ORBIT) <= 2
     assert len(smallbodies._ONE_PLACE) == 5
 
