@@ -474,14 +474,15 @@ def _propagate_floats(q, e, p_hat, q_hat, dt):
     target = SQRT_GM * wrapped
     x = _first_guess_floats(q, e, alpha, target)
     for _ in range(_LAGUERRE_STEPS):
-        x, done = _laguerre_step(x, q, e, alpha, target, _stumpff_of_float)
+        x, done = _laguerre_step_floats(x, q, e, alpha, target)
         if done:
             break
     for _ in range(_NEWTON_STEPS):
-        x = _newton_step(x, q, e, alpha, target, _stumpff_of_float)
-    x = float(x)
+        z = alpha * x * x
+        c, s = _stumpff_floats(z)
+        x = x - (q * x + e * (x * x * x) * s - target) / (q + e * x * x * c)
     z = alpha * x * x
-    c, s = _stumpff_of_float(z)
+    c, s = _stumpff_floats(z)
     r = q + e * x * x * c
     f = 1.0 - x * x * c / q
     g = wrapped - x * x * x * s / SQRT_GM
@@ -491,6 +492,25 @@ def _propagate_floats(q, e, p_hat, q_hat, dt):
     pos = [(f * q) * p_hat[k] + (g * v0) * q_hat[k] for k in range(3)]
     vel = [(fdot * q) * p_hat[k] + (gdot * v0) * q_hat[k] for k in range(3)]
     return pos, vel
+
+
+def _stumpff_floats(z):
+    """``_stumpff_of_float`` as Python floats (its closed forms give numpy's)."""
+    c, s = _stumpff_of_float(z)
+    return float(c), float(s)
+
+
+def _laguerre_step_floats(x, q, e, alpha, target):
+    """``_laguerre_step`` on Python floats: the same operations (square roots correctly
+    rounded by both; F' = r > 0, so numpy's sign of it is the sign copied here)."""
+    z = alpha * x * x
+    c, s = _stumpff_floats(z)
+    f = q * x + e * (x * x * x) * s - target
+    f1 = q + e * x * x * c
+    f2 = e * x * (1.0 - z * s)
+    root = math.sqrt(abs(16.0 * f1 * f1 - 20.0 * f * f2))
+    step = 5.0 * f / (f1 + math.copysign(root, f1))
+    return x - step, abs(step) <= 1e-13 * max(abs(x), 1e-300) + 1e-300
 
 
 def _first_guess_floats(q, e, alpha, target):
