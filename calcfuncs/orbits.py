@@ -270,12 +270,7 @@ def fg_series(pos, vel, h):
     s = np.add.reduce(pos * vel, axis=-1) / r2
     v2 = np.add.reduce(vel * vel, axis=-1)
     w = v2 / r2 - u
-    h2 = h * h
-    h3 = h2 * h
-    f = 1.0 - 0.5 * u * h2 + 0.5 * u * s * h3
-    g = h - u * h3 / 6.0
-    f_dot = -u * h + 1.5 * u * s * h2
-    g_dot = 1.0 - 0.5 * u * h2 + u * s * h3
+    f, g, f_dot, g_dot, h2, h3 = _series_coefficients(u, s, h)
     out_p = f[..., None] * pos + g[..., None] * vel
     out_v = f_dot[..., None] * pos + g_dot[..., None] * vel
     # The first omitted terms' sizes: position (h^4) and velocity (h^3, their rates).
@@ -285,6 +280,18 @@ def fg_series(pos, vel, h):
         near = (10.0 * fourth * h2 * h2 <= SERIES_POSITION_AU) & (
             40.0 * fourth * np.abs(h3) <= SERIES_VELOCITY_AU_DAY)
     return out_p, out_v, near
+
+
+def _series_coefficients(u, s, h):
+    """The f and g series' f, g, f', g' over ``h`` days (``fg_series``'s u and s), and h^2
+    and h^3: floats or arrays alike."""
+    h2 = h * h
+    h3 = h2 * h
+    f = 1.0 - 0.5 * u * h2 + 0.5 * u * s * h3
+    g = h - u * h3 / 6.0
+    f_dot = -u * h + 1.5 * u * s * h2
+    g_dot = 1.0 - 0.5 * u * h2 + u * s * h3
+    return f, g, f_dot, g_dot, h2, h3
 
 
 def propagate_from_perihelion(q, e, p_hat, q_hat, dt):
@@ -306,15 +313,23 @@ def propagate_from_perihelion(q, e, p_hat, q_hat, dt):
     x = _solve_universal(q, e, alpha, SQRT_GM * wrapped)
     z = alpha * x * x
     c, s = stumpff(z)
+    fq, gv, fdq, gdv = _along_p_and_q(q, e, x, z, c, s, wrapped, np.sqrt(GM_SUN * (1.0 + e) / q))
+    pos = fq[..., None] * p_hat + gv[..., None] * q_hat
+    vel = fdq[..., None] * p_hat + gdv[..., None] * q_hat
+    return pos, vel
+
+
+def _along_p_and_q(q, e, x, z, c, s, wrapped, v0):
+    """The position's and the velocity's components along P and Q, (f q, g v0, f' q,
+    g' v0), from the universal anomaly ``x`` (``z`` = alpha x^2, ``c`` and ``s`` its
+    Stumpff functions) ``wrapped`` days after perihelion, with v0 the speed there:
+    floats or arrays alike."""
     r = q + e * x * x * c
     f = 1.0 - x * x * c / q
     g = wrapped - x * x * x * s / SQRT_GM
     fdot = SQRT_GM / (r * q) * x * (z * s - 1.0)
     gdot = 1.0 - x * x * c / r
-    v0 = np.sqrt(GM_SUN * (1.0 + e) / q)
-    pos = (f * q)[..., None] * p_hat + (g * v0)[..., None] * q_hat
-    vel = (fdot * q)[..., None] * p_hat + (gdot * v0)[..., None] * q_hat
-    return pos, vel
+    return f * q, g * v0, fdot * q, gdot * v0
 
 
 def _solve_universal(q, e, alpha, target):
@@ -449,12 +464,7 @@ def _fg_series_floats(pos, vel, h):
     s = (pos[0] * vel[0] + pos[1] * vel[1] + pos[2] * vel[2]) / r2
     v2 = vel[0] * vel[0] + vel[1] * vel[1] + vel[2] * vel[2]
     w = v2 / r2 - u
-    h2 = h * h
-    h3 = h2 * h
-    f = 1.0 - 0.5 * u * h2 + 0.5 * u * s * h3
-    g = h - u * h3 / 6.0
-    f_dot = -u * h + 1.5 * u * s * h2
-    g_dot = 1.0 - 0.5 * u * h2 + u * s * h3
+    f, g, f_dot, g_dot, h2, h3 = _series_coefficients(u, s, h)
     out_p = [f * pos[k] + g * vel[k] for k in range(3)]
     out_v = [f_dot * pos[k] + g_dot * vel[k] for k in range(3)]
     fourth = abs(u * (3.0 * w - 15.0 * s * s + u)) * r / 24.0 + abs(u * s) * math.sqrt(v2) / 4.0
@@ -483,15 +493,9 @@ def _propagate_floats(q, e, p_hat, q_hat, dt):
         x = x - (q * x + e * (x * x * x) * s - target) / (q + e * x * x * c)
     z = alpha * x * x
     c, s = _stumpff_floats(z)
-    r = q + e * x * x * c
-    f = 1.0 - x * x * c / q
-    g = wrapped - x * x * x * s / SQRT_GM
-    fdot = SQRT_GM / (r * q) * x * (z * s - 1.0)
-    gdot = 1.0 - x * x * c / r
-    v0 = math.sqrt(GM_SUN * (1.0 + e) / q)
-    pos = [(f * q) * p_hat[k] + (g * v0) * q_hat[k] for k in range(3)]
-    vel = [(fdot * q) * p_hat[k] + (gdot * v0) * q_hat[k] for k in range(3)]
-    return pos, vel
+    fq, gv, fdq, gdv = _along_p_and_q(q, e, x, z, c, s, wrapped, math.sqrt(GM_SUN * (1.0 + e) / q))
+    return ([fq * p_hat[k] + gv * q_hat[k] for k in range(3)],
+            [fdq * p_hat[k] + gdv * q_hat[k] for k in range(3)])
 
 
 def _stumpff_floats(z):
