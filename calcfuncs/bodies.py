@@ -87,7 +87,7 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     (ep, ev), (sp, sv) = earth_b, sun_b
     # The Earth's heliocentric state, for the Moon's geocentric theory (always the
     # geocentre's, whoever observes).
-    near = (ep - sp, ev - sv, (tdb1, tdb2))
+    near = [ep - sp, ev - sv, (tdb1, tdb2), None]  # (Builtin.heliocentric keeps the Moon's state)
     if observer is not None:
         ep, ev = ep + observer[0], ev + observer[1]
         earth_b = (ep, ev)

@@ -95,13 +95,14 @@ def heliocentric_floats(body, t1, t2, earth_helio):
     instant inside BUILTIN_YEARS, on floats: a function of the light time ``tau`` (days)
     giving the body at t1 + t2 - tau as three floats (au, ICRS axes).  ``earth_helio``:
     the Earth's heliocentric (p, v) at t1 + t2, lists of floats, for the Moon."""
-    if body == "MOON":
-        (px, py, pz), (vx, vy, vz) = earth_helio
+    if body == "MOON":  # the Moon and the Earth extrapolated over the light time, as there
+        p, v = earth_helio
+        pv = erfa.ufunc.moon98(t1, t2)
+        m, mv = pv["p"].tolist(), pv["v"].tolist()
 
         def at(tau):
-            m = erfa.ufunc.moon98(t1, t2 - tau)["p"].tolist()
-            dt = (t1 - t1) + ((t2 - tau) - t2)  # the Earth extrapolated over the light time
-            return [m[0] + (px + dt * vx), m[1] + (py + dt * vy), m[2] + (pz + dt * vz)]
+            dt = (t1 - t1) + ((t2 - tau) - t2)
+            return [(m[k] + dt * mv[k]) + (p[k] + dt * v[k]) for k in range(3)]
         return at
     number, b = PLAN94_NUMBERS[body], _BIAS_ROWS
 
@@ -206,24 +207,27 @@ class Builtin:
         return p, (v if velocity else None)
 
     def heliocentric(self, body, tdb1, tdb2, earth_helio=None, velocity=True):
-        """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = (p, v, jd) of
-        the Earth at a nearby instant: the Moon's geocentric theory is added to it,
-        extrapolated linearly over the light time (seconds, metres of error at most).
+        """Heliocentric (p, v) of a planet or the Moon.  ``earth_helio`` = [p, v, jd,
+        moon] of the Earth at a nearby instant (bodies.place, for the light-time rounds):
+        the Moon's geocentric state there (``moon``, made at the first round and kept in
+        the list) and the Earth's are both extrapolated linearly over the light time (1.3
+        s: 2 mm of the Moon's curvature, 1 uas; the Earth's, metres at most).
         ``velocity`` False: v is None where the long-range theories would compute it
         for nothing (the light-time iterations want positions; it halves their cost)."""
         if body == "PLUTO":
             raise SkyError("Pluto is not in the built-in theories; give a JPL kernel (source "
                            "DE440 or a .bsp path)")
         if body == "MOON":
-            mp, mv = self.moon_geocentric(tdb1, tdb2, velocity)
             if earth_helio is None:
+                mp, mv = self.moon_geocentric(tdb1, tdb2, velocity)
                 (ep, ev), (sp, sv) = self.earth_and_sun(tdb1, tdb2)
-                ep, ev = ep - sp, ev - sv
-            else:
-                p0, v0, (j1, j2) = earth_helio
-                dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
-                ep, ev = p0 + dt * v0, v0
-            return mp + ep, (mv + ev if velocity else None)
+                return mp + (ep - sp), (mv + (ev - sv) if velocity else None)
+            p0, v0, (j1, j2) = earth_helio[:3]
+            if earth_helio[3] is None:
+                earth_helio[3] = self.moon_geocentric(j1, j2, True)
+            m0, mv0 = earth_helio[3]
+            dt = ((tdb1 - j1) + (tdb2 - j2))[..., None]
+            return (m0 + dt * mv0) + (p0 + dt * v0), (mv0 + v0 if velocity else None)
 
         def with_erfa(t1, t2):
             # The ufunc: plan94's statuses for our bodies are warnings only (outside

@@ -167,3 +167,37 @@ def test_a_perturbed_orbit_stays_on_arrays():
                                                     "PLANETS"))
     assert len(calls) == 1
     assert isinstance(two_body, float) and isinstance(perturbed, float)
+
+
+# ---- the Moon's light time --------------------------------------------------------------
+
+
+def test_the_moons_light_time_by_its_velocity_against_erfa_iterated():
+    # The light-time rounds of the Moon's place take its geocentric state (ERFA moon98)
+    # and the Earth's once, at the instant, extrapolated over the 1.3 s (Builtin.
+    # heliocentric, ephemeris.heliocentric_floats).  The reference asks ERFA afresh at
+    # each retarded instant: moon98 and epv00 at t - tau, five rounds.  Within 12 uas
+    # (the curvature of 1.3 s of the Moon's path and the Earth's: a few millimetres; 7.9
+    # uas the largest over 1,000 instants 1945-2055, 5.6 when moon98 was asked at each
+    # round and only the Earth extrapolated, measured 2026-12-05).
+    import erfa
+
+    rng = np.random.default_rng(113)
+    worst = 0.0
+    for t2 in rng.uniform(-20000.0, 20000.0, 200).tolist():
+        t1 = J2000_JD
+        pvh, pvb = erfa.epv00(t1, t2)
+        earth_b = pvb["p"]
+        tau = 0.0
+        for _ in range(5):
+            h_r, b_r = erfa.epv00(t1, t2 - tau)
+            moon_helio = erfa.moon98(t1, t2 - tau)["p"] + h_r["p"]
+            sun_b = b_r["p"] - h_r["p"]
+            vector = moon_helio + sun_b - earth_b
+            tau = np.linalg.norm(vector) * (erfa.DAU / erfa.CMPS / 86400.0)
+        expected = vector / np.linalg.norm(vector)
+        for got in (bodies.place("MOON", np.array([t1]), np.array([t2]), "ASTROMETRIC")
+                    .direction[0],
+                    np.array(bodies._direction_floats("MOON", t1, t2, "ASTROMETRIC"))):
+            worst = max(worst, float(np.linalg.norm(got - expected)))
+    assert worst * 206264.806e6 < 12.0, worst * 206264.806e6
