@@ -78,21 +78,36 @@ def illuminated_cells(time, source=BUILTIN):
     return 0.5 * (1.0 + np.cos(_phase_angle_rad(*time.tt(), source)))
 
 
+# A new Moon's instant as SKY.MOON.PHASE.NEXT gives it (found within the event searches'
+# tolerance, 1e-8 day, then made a date-time value, whose last bit is 0.6 us today) lies
+# a hair before or after the crossing that another search finds: at it, the elongation
+# would read 360 less a few billionths of a degree as often as nearly 0, and the age
+# nearly a whole lunation as often as nearly 0.  Within these margins (that tolerance,
+# 0.9 ms, in which the Moon gains 1.2e-7 degree on the Sun) both read the new Moon as at
+# the instant.
+NEW_MOON_MARGIN_DAYS = 1e-8
+NEW_MOON_MARGIN_DEG = 1.2e-7
+
+
 def elongation_cells(time, source=BUILTIN):
-    """Moon minus Sun apparent ecliptic longitude, degrees in [0, 360)."""
-    return elongation_lon(*time.tt(), source)
+    """Moon minus Sun apparent ecliptic longitude, degrees in [0, 360); within
+    NEW_MOON_MARGIN_DEG below 360, 0."""
+    elongation = elongation_lon(*time.tt(), source)
+    return np.where(elongation > 360.0 - NEW_MOON_MARGIN_DEG, 0.0, elongation)
 
 
 def age_cells(time):
-    """Days since the last new Moon."""
+    """Days since the last new Moon (one within NEW_MOON_MARGIN_DAYS after the instant
+    counts as at it: 0)."""
     tt1, tt2 = time.tt()
     tt1, tt2 = np.ravel(tt1), np.ravel(tt2)
     jd = tt1 + tt2  # where the sampling starts: the ages keep two parts
-    roots = _phase_crossings(PHASES["NEW"], jd - 31.0, jd)
-    new1, new2, found = roots.first(jd.size, ~roots.after(tt1, tt2), last=True)
+    roots = _phase_crossings(PHASES["NEW"], jd - 31.0, jd + NEW_MOON_MARGIN_DAYS)
+    new1, new2, found = roots.first(
+        jd.size, ~roots.after(tt1, tt2 + NEW_MOON_MARGIN_DAYS), last=True)
     if not np.all(found):
         raise rows_failing(~found, "no new Moon found in the month before")
-    return (tt1 - new1) + (tt2 - new2)
+    return np.maximum((tt1 - new1) + (tt2 - new2), 0.0)
 
 
 def node_cells(time, kind="TRUE"):

@@ -219,3 +219,22 @@ def test_polished_phases_are_the_bracketed_ones():
         assert polished.row.size >= 122, name
         diff = (polished.jd1 - bracketed.jd1) + (polished.jd2 - bracketed.jd2)
         assert np.max(np.abs(diff)) < 1e-8, name
+
+
+def test_at_each_new_moon_the_age_and_the_elongation_read_zero():
+    # By definition (common practice) the age is 0 and the elongation 0 at a new Moon.
+    # Given the instants SKY.MOON.PHASE.NEXT finds (as date-time values, 2020-2025), both
+    # read 0 rather than a whole lunation or 360 less a hair; a second before a new Moon
+    # the age is a whole lunation (29.27 to 29.83 days, common practice) and the
+    # elongation just under 360 (the Moon gains about 0.5" on the Sun in a second).
+    start, ages, elongations, before = 43831.0, [], [], []
+    for _ in range(70):
+        new = evaluate("SKY.MOON.PHASE.NEXT", [start, None, "NEW"])
+        ages.append(evaluate("SKY.MOON.AGE", [new]))
+        elongations.append(evaluate("SKY.MOON.ELONGATION", [new]))
+        before.append((evaluate("SKY.MOON.AGE", [new - 1.0 / 86400.0]),
+                       evaluate("SKY.MOON.ELONGATION", [new - 1.0 / 86400.0])))
+        start = new + 1.0
+    assert max(ages) < 1e-8 and min(ages) >= 0.0
+    assert max(elongations) < 1.2e-7 and min(elongations) >= 0.0
+    assert all(29.2 < age < 29.9 and 359.999 < e < 360.0 for age, e in before)
