@@ -302,6 +302,8 @@ def spherical(vectors):
 
 
 def check_latitudes(lat_deg, what="latitude"):
+    if type(lat_deg) is np.ndarray and lat_deg.size == 1 and not abs(lat_deg.flat[0]) > 90.0:
+        return  # a cell's one latitude, within range (told without numpy's reductions)
     lat = np.asarray(lat_deg, dtype=float)
     bad = np.abs(lat) > 90.0
     if np.any(bad):

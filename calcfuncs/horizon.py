@@ -19,7 +19,7 @@ their last bits where the Earth's series is evaluated with numpy (earth_theory.p
 import erfa
 import numpy as np
 
-from . import earth_theory, frames, nodes
+from . import earth_theory, ephemeris, frames, nodes
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360
 from .timescales import check_years
@@ -110,16 +110,17 @@ def observer_astrom(time, latitude, longitude, height, pressure, temperature, fr
     return _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame), phpa
 
 
-def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
+def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, states=None):
     """``observer_astrom``'s parameters from checked inputs (TT and UT1 two-part JDs,
-    the site in radians and metres, the atmosphere)."""
+    the site in radians and metres, the atmosphere).  ``states``: earth_theory.states
+    at the instants, where the caller has them."""
     theta = erfa.era00(ut1, ut2)
     sp = erfa.sp00(tt1, tt2)
     refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
     if frame != "ICRS":
         return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb)
     # The Earth from epv00's series (earth_theory; TT taken for TDB, as ERFA's apco13 does).
-    earth_p, earth_v, sun_p, _ = earth_theory.states(tt1, tt2)
+    earth_p, earth_v, sun_p, _ = earth_theory.states(tt1, tt2) if states is None else states
     x, y = erfa.bpn2xy(_true_equator(tt1, tt2))
     s = erfa.s06(tt1, tt2, x, y)
     earth_pv = np.empty(earth_p.shape[:-1], dtype=erfa.dt_pv)
@@ -130,9 +131,13 @@ def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
 
 @nodes.kept_per_instant
 def _astrom_one(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
-    """``_astrom`` of one row (floats), kept: a read-only array of one row."""
+    """``_astrom`` of one row (floats), kept: a read-only array of one row.  The Earth's
+    state is the instant's kept one (ephemeris.earth_and_sun_floats, the same values as
+    earth_theory.states gives a row), shared with the row's places."""
+    states = (None if frame != "ICRS"
+              else np.array(ephemeris.earth_and_sun_floats(tt1, tt2)).reshape(4, 1, 3))
     astrom = _astrom(*(np.array([v]) for v in (tt1, tt2, ut1, ut2, elong, phi, hm)), phpa,
-                     tc, frame)
+                     tc, frame, states)
     astrom.flags.writeable = False
     return astrom
 
@@ -157,7 +162,9 @@ def _equation_of_origins(time):
 
 def _all_one(*arrays):
     """Whether every array holds one value repeated (and more than one row)."""
-    if max(np.size(a) for a in arrays) < 2:  # one cell: nothing to share
+    if all(type(a) is np.ndarray and a.size < 2 for a in arrays):  # one cell: nothing to share
+        return False
+    if max(np.size(a) for a in arrays) < 2:
         return False
     flat = [np.ravel(a) for a in arrays]
     return all(np.all(a == a[0]) for a in flat)
