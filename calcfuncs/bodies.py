@@ -370,10 +370,32 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
     return (values, done) if mask.any() else None
 
 
+# A body's longitude or right ascension within WRAP_MARGIN_DEG below 360 reads 0.  At an
+# equinox as SKY.SEASON gives it (found within the searches' tolerance, 1e-8 day, in
+# which the Sun moves 1e-8 degree, then made a date-time value) the Sun's longitude would
+# otherwise read 360 less a hair as often as nearly 0, and a cell shows 360.0000.
+WRAP_MARGIN_DEG = 1e-8
+
+
+def shown_longitudes(values, index):
+    """Longitudes or RAs (``index`` 0; a float or an array) with those within
+    WRAP_MARGIN_DEG below 360 read as 0; latitudes (1) as they are."""
+    if index != 0:
+        return values
+    if type(values) is float:
+        return 0.0 if values >= 360.0 - WRAP_MARGIN_DEG else values
+    return np.where(values >= 360.0 - WRAP_MARGIN_DEG, 0.0, values)
+
+
 def spherical_component(body, tt1, tt2, system, kind, source, index):
     """The longitude (``index`` 0) or latitude (1) of a body in a checked ``system`` at TT
-    instants, degrees: on floats row by row where ``rows_on_floats`` takes the rows, on
-    arrays otherwise."""
+    instants, degrees (``shown_longitudes``): on floats row by row where
+    ``rows_on_floats`` takes the rows, on arrays otherwise."""
+    return shown_longitudes(_spherical_component(body, tt1, tt2, system, kind, source, index),
+                            index)
+
+
+def _spherical_component(body, tt1, tt2, system, kind, source, index):
     done = rows_on_floats(body, tt1, tt2, system, kind, index) if source == BUILTIN else None
     if done is None:
         return frames.spherical(body_in(body, tt1, tt2, system, kind, source))[index]

@@ -211,9 +211,15 @@ def _place_of(orbit, time, kind, source, model):
 
 
 def _spherical(orbit, time, system, kind, source, model, index):
-    """The longitude (``index`` 0) or latitude (1) in ``system``: a two-body orbit of the
-    built-in source on floats, row by row, inside the built-in theories' years
-    (bodies.rows_on_floats); every other row through the kept place on arrays."""
+    """The longitude (``index`` 0) or latitude (1) in ``system`` (bodies.shown_longitudes)."""
+    return bodies.shown_longitudes(_spherical_of(orbit, time, system, kind, source, model, index),
+                                   index)
+
+
+def _spherical_of(orbit, time, system, kind, source, model, index):
+    """A two-body orbit of the built-in source on floats, row by row, inside the built-in
+    theories' years (bodies.rows_on_floats); every other row through the kept place on
+    arrays."""
     done = None
     if source == BUILTIN and model == TWO_BODY:
         tt1, tt2 = time.tt()

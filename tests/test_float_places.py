@@ -201,3 +201,16 @@ def test_the_moons_light_time_by_its_velocity_against_erfa_iterated():
                     np.array(bodies._direction_floats("MOON", t1, t2, "ASTROMETRIC"))):
             worst = max(worst, float(np.linalg.norm(got - expected)))
     assert worst * 206264.806e6 < 12.0, worst * 206264.806e6
+
+
+def test_the_suns_longitude_at_each_march_equinox_reads_zero():
+    # The March equinox is the instant of apparent longitude 0 (true equinox of date,
+    # common practice).  At the instants SKY.SEASON gives (as date-time values) the Sun's
+    # longitude reads 0 or a hair above, never 360 less a hair (bodies.shown_longitudes);
+    # a second before the equinox it is just under 360 (the Sun moves 0.04" a second, 1.1e-5
+    # degree).
+    # On TT, 1000 to 2999 (the built-in theories' years: the float path).
+    for year in range(1000, 3000, 17):
+        equinox = cells.evaluate("SKY.SEASON", (float(year), "MARCH", "TT"))
+        assert 0.0 <= cells.evaluate("SKY.SUN.LON", (equinox, "TT")) < 1e-6
+        assert 359.9999 < cells.evaluate("SKY.SUN.LON", (equinox - 1.0 / 86400.0, "TT")) < 360.0
