@@ -151,9 +151,10 @@ HALF_DAYS_KEPT = 2_000
 # the Moon beside the Sun), and Calc computes a sheet column by column: a single cell's
 # nutation and Earth (about 18 and 15 us) are kept for the next column's cell of the
 # same row, for the last INSTANTS_KEPT instants (frames.nutation_one, _dated_one,
-# ephemeris.earth_and_sun_floats and _earth_and_sun_one and, for a body's other
-# columns, bodies._direction_floats and _direction_one; 13.1 MB when all six are full,
-# measured with tracemalloc, 2026-12-05).
+# ephemeris.earth_and_sun_floats and _earth_and_sun_one, horizon._astrom_one and, for a
+# body's other columns, bodies._direction_floats, _orbit_direction_floats and
+# _direction_one; 19.3 MB when all eight are full, measured with tracemalloc,
+# 2026-12-05).
 INSTANTS_KEPT = 4096
 _KEPT_PER_INSTANT = []  # the kept functions (kept_per_instant)
 
