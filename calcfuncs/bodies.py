@@ -236,8 +236,7 @@ def _direction_floats(body, t1, t2, kind, dense=False):
     TT instant (taken for TDB; floats) inside BUILTIN_YEARS: its steps on floats, from
     the Earth's and the Sun's kept states, or, ``dense``, from their nodes (a cell of a
     dense log, nodes.cell_is_dense).  Kept for the row's other columns."""
-    states = (ephemeris.earth_and_sun_from_nodes(t1, t2) if dense
-              else ephemeris.earth_and_sun_floats(t1, t2))
+    states = _states_floats(t1, t2, dense)
     if body == "SUN":  # _sun_geocentric's steps
         ep, ev, sp, sv = states
         g = [sp[k] - ep[k] for k in range(3)]
@@ -256,9 +255,16 @@ def _direction_floats(body, t1, t2, kind, dense=False):
 def _orbit_direction_floats(elements, t1, t2, kind, dense=False):
     """``_direction_floats`` of a two-body orbit (orbits.Orbit.elements_floats, which
     tell one orbit from another in the key), its positions from orbits.helio_floats."""
-    states = (ephemeris.earth_and_sun_from_nodes(t1, t2) if dense
-              else ephemeris.earth_and_sun_floats(t1, t2))
-    return _place_floats(orbits.helio_floats(elements, t1, t2), states, kind)
+    return _place_floats(orbits.helio_floats(elements, t1, t2), _states_floats(t1, t2, dense),
+                         kind)
+
+
+def _states_floats(t1, t2, dense):
+    """The Earth's and the Sun's barycentric states at one instant, floats: kept, or
+    (``dense``) from the nodes of a dense log's cells."""
+    if dense:
+        return ephemeris.earth_and_sun_from_nodes(t1, t2)
+    return ephemeris.earth_and_sun_floats(t1, t2)
 
 
 def _place_floats(helio_at, states, kind):
