@@ -20,7 +20,7 @@ A benchmark, not a test: it prints numbers and asserts nothing about speed.
              computes lazily: reading is what makes it compute, as drawing would)
 
 Inputs are invented: the patrol-camera log of bench_recalc.py (2024-2026, and for
-later runs the same log moved back by whole spans of three years, log_window), consecutive
+later runs the same log moved by whole spans of three years, log_window), consecutive
 days of 2025 at an invented hill station (47.3814 N, 8.0542 E), years 1000 to 2999.
 """
 
@@ -82,19 +82,23 @@ CASES = {
 # What the core keeps (answers, event windows, the Sun's days, one instant's nutation)
 # lives as long as the office: every run of every case gets inputs of its own, so that
 # "cold" is cold (``shift``: the run's number among all runs of all cases).  A log's
-# instants also lie in years of their own: the core notes the half days that cells ask
-# for (calcfuncs/nodes.py, the last 2,000), and a second run over the same years would
-# find them dense and interpolate its places from nodes.  The run's three years step
-# back from 2024-2026 to 1982-1984 and begin again, by which time the half days of those
-# years are long forgotten.
+# instants also lie in years of their own: the core notes the segments of 16 days that
+# cells ask for and keeps the series' coefficients over them (calcfuncs/nodes.py, the
+# last 4,000), and a second run over the same years would find them made.  The run's
+# three years step back from 2024-2026 to 1972-1974 (UTC of whole leap seconds, as
+# today), then forward from 2027-2029 to 2144-2146: 58 spans, more than the runs of a
+# full benchmark (about 54), so no span is used twice in one office.
 SEASON_EVENTS = ("JUNE", "SEPTEMBER", "DECEMBER", "MARCH")
-LOG_WINDOWS = 15
+_BACK_SPANS = 18     # 2024-2026 back to 1972-1974
+LOG_WINDOWS = _BACK_SPANS + 40  # then 2027-2029 on to 2144-2146
 
 
 def log_window(shift):
     """The date-time values (first, last) of the run ``shift``'s log."""
-    back = (LOG_END - LOG_START) * (shift % LOG_WINDOWS)
-    return LOG_START - back, LOG_END - back
+    k = shift % LOG_WINDOWS
+    spans = -k if k < _BACK_SPANS else k - _BACK_SPANS + 1
+    step = (LOG_END - LOG_START) * spans
+    return LOG_START + step, LOG_END + step
 
 
 NIGHT_ROWS = 20

@@ -95,6 +95,30 @@ def _states_numpy(tdb1, tdb2):
     return out[0], out[1], out[2], out[3]
 
 
+def states_vector(tdb1, tdb2):
+    """(n, 12): barycentric p, v of the Earth, then of the Sun, at n TDB instants (flat
+    two-part JDs) in one pass over all of them: the nodes of a segment (nodes.py), where
+    the bits need not be states_one's.  With numpy's vectorised sines (``chosen``) the
+    series as one array of instants by terms; otherwise ERFA's routine over the array."""
+    if chosen() != "numpy":
+        return np.concatenate(_states_erfa(tdb1, tdb2), axis=-1)
+    t = ((np.asarray(tdb1, dtype=float) - J2000_JD) + np.asarray(tdb2, dtype=float)) / _DAYS_PER_YEAR
+    arg = np.multiply.outer(t, _C)
+    arg += _B
+    terms = np.empty((2, t.size, _A.size))
+    np.multiply(_A, np.cos(arg), out=terms[0])
+    np.multiply(_AC, np.sin(arg), out=terms[1])
+    p, q = np.add.reduceat(terms, _STARTS, axis=2)  # (n, 18) each, as in states_one
+    t = t[:, None]
+    position = p[:, 0:6] + t * p[:, 6:12] + t * t * p[:, 12:18]
+    velocity = (p[:, 6:12] + 2.0 * t * p[:, 12:18]
+                - (q[:, 0:6] + t * q[:, 6:12] + t * t * q[:, 12:18])) / _DAYS_PER_YEAR
+    rotation = np.array(_ROWS).T
+    return np.concatenate([v @ rotation for v in (
+        position[:, 0:3] + position[:, 3:6], velocity[:, 0:3] + velocity[:, 3:6],
+        position[:, 3:6], velocity[:, 3:6])], axis=1)
+
+
 def _states_erfa(tdb1, tdb2):
     """ERFA epv00's own: its ufunc, whose status is only ever a warning (outside the
     series' 1900-2100 fit), read and dropped."""

@@ -219,9 +219,9 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
         check_years(jd1, jd2, IAU2006_YEARS, f"{system} uses IAU 2006/2000A",
                     "for other dates precess with SKY.PRECESS.RA/DEC and model VONDRAK2011")
     if jd1.size == 1 and smooth:
-        # A cell of a dense log of places (nodes.single_cells): the nutation from kept
-        # nodes.
-        both = nodes.for_one("nut06a", _nutation_rows, jd1, jd2)
+        # A cell of a dense log of places (nodes.single_cells): the nutation from its
+        # segment's coefficients.
+        both = nodes.for_one("nut06a", iau2000a.nutation_vector, jd1, jd2)
         if both is not None:
             return _dated(system, jd1, jd2, lambda a, b: (both[..., 0], both[..., 1]))
     if jd1.size == 1:
@@ -245,13 +245,24 @@ def matrix_rows(system, jd1, jd2, dense=False):
         if found is None:
             found = _FIXED_ROWS[system] = _fixed(system).tolist()
         return found
-    if dense and system in _NUTATED:
-        dpsi, deps = nodes.from_nodes("nut06a", _nutation_rows, jd1, jd2)
-        return _dated(system, jd1, jd2, lambda a, b: (dpsi, deps)).tolist()
+    if dense:  # the matrix itself from the segment's coefficients
+        m = nodes.from_nodes(("matrix", system), _MATRIX_POINTS[system], jd1, jd2)
+        return [m[0:3], m[3:6], m[6:9]]
     return _dated_one(system, jd1, jd2).tolist()
 
 
-_NUTATED = frozenset(("EQUATORIAL TRUE", "ECLIPTIC TRUE"))
+def _matrix_points(system):
+    """The nine elements of ``system``'s matrix at a segment's points (nodes.py), the
+    nutation series evaluated over them at once."""
+    def compute(jd1, jd2):
+        return _dated(system, jd1, jd2, lambda a, b: tuple(iau2000a.nutation_vector(a, b).T)
+                      ).reshape(-1, 9)
+    return compute
+
+
+_MATRIX_POINTS = {system: _matrix_points(system) for system in DATED}
+
+
 
 
 _FIXED_ROWS = {}

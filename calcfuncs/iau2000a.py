@@ -107,6 +107,23 @@ def nutation_one(jd1, jd2):
     return dpsi + dpsi * (0.4697e-6 + j2_rate), deps + deps * j2_rate
 
 
+def nutation_vector(jd1, jd2):
+    """(n, 2): dpsi and deps (radians) at n TT instants (flat two-part JDs) in one pass
+    of numpy over all of them: the nodes of a segment (nodes.py), where the bits need not
+    be nutation_one's (they differ by 1e-8 micro-arcsecond, the order of the sums)."""
+    t = ((np.asarray(jd1, dtype=float) - J2000_JD) + np.asarray(jd2, dtype=float)) / 36525.0
+    arguments = np.array([_delaunay(v) for v in t.tolist()]).reshape(t.size, 5)
+    luni = arguments @ _LS_MULTIPLES
+    planetary = _PL_START + t[:, None] * (_PL_RATE + t[:, None] * _PL_CURVE)
+    waves = np.concatenate((np.sin(luni), np.cos(luni), np.sin(planetary), np.cos(planetary)),
+                           axis=1)
+    both = waves @ _CONSTANT.T + t[:, None] * (waves[:, :2 * _N_LS] @ _RATE.T)
+    j2_rate = -2.7774e-6 * t
+    both[:, 0] += both[:, 0] * (0.4697e-6 + j2_rate)
+    both[:, 1] += both[:, 1] * j2_rate
+    return both
+
+
 def nutation(jd1, jd2):
     """(dpsi, deps) arrays in radians at TT instants (two-part JDs of one shape, or
     broadcastable): each instant by nutation_one."""

@@ -125,27 +125,51 @@ def over_nodes(compute, jd1, jd2):
     return nodes.interpolate(at_nodes)
 
 
-# ---- single cells of a log ------------------------------------------------------------
+# ---- single cells of a log: Chebyshev segments ---------------------------------------------
 #
 # A log's column of places filled down is computed one cell at a time, each with its own
-# call of the nutation series and the Earth's (about 19 and 16 us for a new instant with
-# the office's numpy, a quarter of a place cell).  Inside ``single_cells()`` (the cell functions of places), a one-instant
-# call notes its instant; once cells have asked for DENSE_CELLS distinct instants within
-# the five half days around one, it is interpolated from its six nodes (those not yet
-# kept computed, in one call, and kept), as a dense column is.  A log of nine instants
-# a day: SKY.SUN.LON 156 -> 122 us a cell (bench/bench_core.py, its log rows); a
-# sparse sheet never reaches the count, is computed directly and pays about 5 us a
-# cell for the noting.
-# A cell can therefore give either ERFA's own value or the interpolated one, which
-# differ by the bounds above (1.5 uas, 0.5 m): each is a function of the instant alone,
-# and which one a cell shows depends on the cells computed before it, twelve digits down.
+# call of the nutation series and the Earth's (about 18 and 15 us for a new instant with
+# the office's numpy, and more inside Calc, whose own work between two cells evicts the
+# series' 200 KB of tables from the processor's caches).  Inside ``single_cells()`` (the
+# cell functions of places), a one-instant call notes its instant; once cells have asked
+# for DENSE_CELLS distinct instants within one segment of SEGMENT_DAYS (TT, counted from
+# J2000.0, so that every call shares the same segments), the segment's nutation and
+# Earth are computed at its SEGMENT_POINTS Chebyshev points in one pass of numpy each
+# (iau2000a.nutation_vector, earth_theory.states_vector: 13 and 8 us a point against 18
+# and 15 for an instant alone), kept as Chebyshev coefficients, and every later cell of
+# the segment takes its values from them: a cosine of twenty angles and one small
+# matrix product.  A log of two instants a day pays the segment's twenty points once
+# for its thirty-odd cells; a sheet of instants spread over the years never reaches the
+# count, is computed directly and pays about 3 us a cell for the noting.
+# A place cell takes two quantities so (bodies._value_floats): the Earth's state, and the
+# matrix of its coordinate system (frames.matrix_rows: the IAU 2006/2000A matrix of the
+# dated systems, the nutation computed over the points with it), each a table of its own.
+# Against the direct computation over random instants 1000-3000 (tests/test_nodes.py):
+# the nutation and the matrices within 0.1 uas (0.06 and 0.07 measured: twenty points
+# over sixteen days resolve the nutation's shortest terms, of five to nine days), the
+# Earth's position within 1 m (the direct series' own rounding far from J2000, a few
+# tenths of a metre, not the fit's) and its velocity within 1 um/s.
+# A cell can therefore give either the direct value or the segment's, which differ by
+# those bounds: each is a function of the instant alone, and which one a cell shows
+# depends on the cells computed before it, twelve digits down.
 
-DENSE_CELLS = 8        # distinct instants asked for near a half day before its nodes are made
-# Bounded: at most NODES_KEPT node values (each at most 12 floats), NODES_KEPT / 6 stacks
-# of six and HALF_DAYS_KEPT half days of asked instants (at most DENSE_CELLS each): 15 MB
-# when every one is full (measured with tracemalloc over 200,000 instants).
-NODES_KEPT = 20_000
-HALF_DAYS_KEPT = 2_000
+SEGMENT_DAYS = 16.0
+SEGMENT_POINTS = 20
+SEGMENT_ORIGIN = 2451545.0  # J2000.0 TT: segments start at whole days, exact in a double
+DENSE_CELLS = 3   # distinct instants asked for in a segment before it is made
+# Bounded: at most SEGMENTS_KEPT coefficient tables (SEGMENT_POINTS x at most 12 floats:
+# 2 KB) and SEGMENTS_NOTED segments of asked instants (at most DENSE_CELLS each): 11 MB
+# when both are full (tracemalloc over 4,200 segments, 2026-12-05).
+SEGMENTS_KEPT = 4_000
+SEGMENTS_NOTED = 4_000
+
+_ORDERS = np.arange(SEGMENT_POINTS, dtype=float)
+_ANGLES = np.pi * (np.arange(SEGMENT_POINTS) + 0.5) / SEGMENT_POINTS
+_POINT_DAYS = (np.cos(_ANGLES) + 1.0) * (SEGMENT_DAYS / 2.0)  # days from the segment's start
+# Values at the points -> coefficients (the discrete cosine transform of Chebyshev
+# interpolation at the points of the first kind).
+_TO_COEFFICIENTS = (2.0 / SEGMENT_POINTS) * np.cos(np.outer(_ORDERS, _ANGLES))
+_TO_COEFFICIENTS[0] /= 2.0
 
 # A row of a log asks for one instant in several columns (a longitude, a declination,
 # the Moon beside the Sun), and Calc computes a sheet column by column: a single cell's
@@ -171,17 +195,17 @@ def forget_kept_instants():
         kept.cache_clear()
 
 
-_AT_NODE = {}   # (quantity, node instant) -> values at the node
-_STACKS = {}    # (quantity, half day) -> its six nodes' values, stacked
-_ASKED = {}     # half day -> distinct instants asked for in it
+_SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (SEGMENT_POINTS, k)
+_ASKED = {}      # segment -> distinct instants asked for in it
 _IN_CELLS = [0]
-_LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, half day, dense)
+_LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, segment, dense)
+_LAST_POLYNOMIALS = [(None, None, None)]  # the last instant's T_k: (jd1, jd2, array)
 
 
 def forget_single_cells():
     """Empty what single cells have kept and noted (a benchmark's cold start)."""
-    _AT_NODE.clear()
-    _STACKS.clear()
+    _SEGMENTS.clear()
+    _LAST_POLYNOMIALS[0] = (None, None, None)
     _ASKED.clear()
     _LAST_ONE[0] = (None, None, None, False)
     forget_kept_instants()
@@ -210,10 +234,10 @@ def single_cells():
 
 
 def for_one(quantity, compute, jd1, jd2):
-    """``compute(jd1, jd2)`` -> (1, k) interpolated over kept nodes, for a one-row instant
-    inside ``single_cells()`` where the cells are dense around it; None otherwise (the
-    caller computes directly).  ``quantity`` names what ``compute`` gives (its kept
-    nodes are keyed by it)."""
+    """``compute(jd1, jd2)`` -> (n, k) at a one-row instant inside ``single_cells()``,
+    from its segment's coefficients where the cells are dense around it, as (1, k); None
+    otherwise (the caller computes directly).  ``quantity`` names what ``compute`` gives
+    (its segments are keyed by it); ``compute`` takes flat arrays of instants."""
     if not _IN_CELLS[0] or jd1.size != 1:
         return None
     t1, t2 = jd1.item(), jd2.item()
@@ -229,77 +253,53 @@ def from_nodes(quantity, compute, t1, t2):
 
 
 def _interpolated(quantity, compute, t1, t2):
-    cell = math.floor((t1 + t2) / SPACING)  # as _dense_cell finds it
-    stack = _STACKS.get((quantity, cell))
-    if stack is None:
-        stack = _stack(quantity, compute, cell)
-    first = (cell - BEFORE) * SPACING
-    return np.dot(_weights_at(((t1 - first) + t2) / SPACING), stack)
+    segment = math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)  # as _dense_cell
+    start = SEGMENT_ORIGIN + segment * SEGMENT_DAYS
+    coefficients = _SEGMENTS.get((quantity, segment))
+    if coefficients is None:
+        values = compute(np.full(SEGMENT_POINTS, start), _POINT_DAYS)
+        coefficients = _TO_COEFFICIENTS @ values
+        keep(_SEGMENTS, (quantity, segment), coefficients, SEGMENTS_KEPT)
+    last = _LAST_POLYNOMIALS[0]
+    if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
+        polynomials = last[2]
+    else:  # x in [-1, 1] over the segment; T_k(x) = cos(k arccos x)
+        x = min(1.0, max(-1.0, ((t1 - start) + t2) * (2.0 / SEGMENT_DAYS) - 1.0))
+        polynomials = np.cos(_ORDERS * math.acos(x))
+        _LAST_POLYNOMIALS[0] = (t1, t2, polynomials)
+    return np.dot(polynomials, coefficients)
 
 
 def cell_is_dense(t1, t2):
-    """Whether a one-instant call at ``t1 + t2`` (floats) is interpolated from kept nodes
-    (``for_one``), the instant noted as ``for_one`` notes it: a place on floats asks
-    first (bodies.rows_on_floats), and then takes its values ``from_nodes``."""
+    """Whether a one-instant call at ``t1 + t2`` (floats) takes its values from a
+    segment (``for_one``), the instant noted as ``for_one`` notes it: a place on floats
+    asks first (bodies.rows_on_floats), and then takes its values ``from_nodes``."""
     return bool(_IN_CELLS[0]) and _dense_cell(t1, t2) is not None
 
 
 def _dense_cell(t1, t2):
-    """The half day of an instant asked for by a cell, if the cells are dense around it
-    (its nodes are then interpolated); None otherwise.  Each instant is noted once: the
-    same cell's other quantities find it as the last one."""
+    """The segment of an instant asked for by a cell, if the cells are dense in it (its
+    values then come from the segment's coefficients); None otherwise.  Each instant is
+    noted once: the same cell's other quantities find it as the last one."""
     last = _LAST_ONE[0]
     if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
         return last[2] if last[3] else None
     if not math.isfinite(t1 + t2):
         return None
-    cell = math.floor((t1 + t2) / SPACING)
-    dense = _note(cell, t1, t2)
-    _LAST_ONE[0] = (t1, t2, cell, dense)
-    return cell if dense else None
+    segment = math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)
+    dense = _note(segment, t1, t2)
+    _LAST_ONE[0] = (t1, t2, segment, dense)
+    return segment if dense else None
 
 
-def _note(cell, t1, t2):
-    """Note an instant asked for in the half day ``cell``; whether the cells are dense
-    around it (DENSE_CELLS distinct instants asked for in the five half days)."""
-    asked = _ASKED.get(cell)
+def _note(segment, t1, t2):
+    """Note an instant asked for in ``segment``; whether the cells are dense in it
+    (DENSE_CELLS distinct instants asked for)."""
+    asked = _ASKED.get(segment)
     if asked is None:
         asked = set()
-        keep(_ASKED, cell, asked, HALF_DAYS_KEPT)
+        keep(_ASKED, segment, asked, SEGMENTS_NOTED)
     if len(asked) >= DENSE_CELLS:  # (no more kept: the count is all that is asked of it)
         return True
     asked.add((t1, t2))
-    if len(asked) >= DENSE_CELLS:
-        return True
-    get = _ASKED.get
-    return (len(asked) + len(get(cell - 2, ())) + len(get(cell - 1, ())) + len(get(cell + 1, ()))
-            + len(get(cell + 2, ()))) >= DENSE_CELLS
-
-
-def _stack(quantity, compute, cell):
-    """The six nodes' values (6, k) around the half day ``cell``, kept."""
-    at = [(cell + k) * SPACING for k in range(-BEFORE, NODES - BEFORE)]
-    values = [_AT_NODE.get((quantity, t)) for t in at]
-    todo = [t for t, v in zip(at, values) if v is None]
-    if todo:
-        fresh = compute(np.array(todo), np.zeros(len(todo)))
-        for t, v in zip(todo, fresh):
-            keep(_AT_NODE, (quantity, t), v, NODES_KEPT)
-        found = dict(zip(todo, fresh))
-        values = [found[t] if v is None else v for t, v in zip(at, values)]
-    stack = np.array(values)
-    keep(_STACKS, (quantity, cell), stack, NODES_KEPT // NODES)
-    return stack
-
-
-def _weights_at(x):
-    """``weights`` at one point, in plain floats (a tenth of the array version's cost)."""
-    gaps = [x - j for j in range(NODES)]
-    out = []
-    for k in range(NODES):
-        p = 1.0
-        for j in range(NODES):
-            if j != k:
-                p *= gaps[j]
-        out.append(p / _DENOMINATORS_LIST[k])
-    return np.array(out)
+    return len(asked) >= DENSE_CELLS

@@ -258,6 +258,32 @@ def utc_to_tai(jd1, jd2):
     return tai1, tai2
 
 
+# A UTC instant of a cell on TT without ERFA's calls (two ufunc calls on one-element
+# arrays cost more inside Calc than in a loop).  On a day that starts at 0h UTC after
+# 1972, whose TAI - UTC holds from its start to the next day's (no leap second at its
+# end), ERFA utctai adds to the day's fraction f the day's TAI - UTC over 86400 and taitt
+# adds 32.184 s over 86400: TT = (day, (f + dat0 / 86400) + 32.184 / 86400), the same two
+# roundings (bit for bit against ERFA over 60,000 random instants 1960-2100 and every
+# UTC step day: tests/test_quick_paths.py).  Other days (before 1972, when UTC's second
+# was scaled; a day ending in a leap second) take ERFA.
+_TT_MINUS_TAI_DAYS = 32.184 / 86400.0
+_STEADY_TABLE = []  # (starts, TAI - UTC over 86400, days ending in a leap second), floats
+
+
+def _steady_day_offset(day):
+    """TAI - UTC in days for a UTC day starting at ``day`` (a JD ending in .5) from 1972
+    that keeps one TAI - UTC throughout (ERFA's table, ``_whole_second_table``, read in
+    one lookup); None otherwise (then ERFA converts)."""
+    if not _STEADY_TABLE:
+        starts, dat, steps = _whole_second_table()
+        _STEADY_TABLE.append((starts.tolist(), (dat / 86400.0).tolist(),
+                              frozenset(steps.tolist())))
+    starts, offsets, steps = _STEADY_TABLE[0]
+    if not day >= starts[0] or day % 1.0 != 0.5 or day in steps:
+        return None
+    return offsets[bisect.bisect_right(starts, day) - 1]
+
+
 class Instants:
     """An array of instants on one time scale, held as two-part JDs.
 
@@ -294,7 +320,10 @@ class Instants:
             return self
         found = self._derived.get(scale)
         if found is None:
-            found = self._derived[scale] = self._convert(scale)
+            if scale == "TT" and self.scale == "UTC" and self.jd1.size == 1:
+                found = self._one_utc_to_tt()  # (None where the general path has more to say)
+            if found is None:
+                found = self._derived[scale] = self._convert(scale)
         return found
 
     def _convert(self, scale):
@@ -323,8 +352,15 @@ class Instants:
 
     def _one_utc_to_tt(self):
         """A single cell's UTC instant on TT: the ERFA calls the general path makes for
-        a few rows (utc_to_tai, _from_tai), without its dispatch (8 us of a cell -> 3);
-        None where ERFA says the date is not acceptable (the general path says why)."""
+        a few rows (utc_to_tai, _from_tai), without its dispatch (8 us of a cell -> 3),
+        or on floats for a whole day of one TAI - UTC (``_utc_tt_on_floats``); None where
+        ERFA says the date is not acceptable (the general path says why)."""
+        d, f = self.jd1.item(), self.jd2.item()
+        offset = _steady_day_offset(d) if 0.0 <= f < 1.0 else None
+        if offset is not None:
+            tt = self._derived["TT"] = Instants.unchecked(
+                self.jd1, np.array([(f + offset) + _TT_MINUS_TAI_DAYS]), "TT", self.dut1)
+            return tt
         tai1, tai2, status = erfa.ufunc.utctai(self.jd1, self.jd2)
         if status.item() < 0:
             return None

@@ -60,13 +60,13 @@ def sheet_doc(office):
 
 @pytest.fixture(autouse=True)
 def _fresh_single_cell_nodes(monkeypatch):
-    """Each test starts with no single-cell nodes kept (calcfuncs/nodes.py): a dense run
-    of cells may be interpolated, so the cells computed by earlier tests must not decide
-    whether a later test's cells are (nor their answers, kept by the cell layer)."""
+    """Each test starts with no single-cell segments kept (calcfuncs/nodes.py): a dense
+    run of cells takes its values from a segment, so the cells computed by earlier tests
+    must not decide whether a later test's cells do (nor their answers, kept by the cell
+    layer)."""
     from calcfuncs import cells, nodes
 
-    monkeypatch.setattr(nodes, "_AT_NODE", {})
-    monkeypatch.setattr(nodes, "_STACKS", {})
+    monkeypatch.setattr(nodes, "_SEGMENTS", {})
     monkeypatch.setattr(nodes, "_ASKED", {})
     monkeypatch.setattr(nodes, "_LAST_ONE", [(None, None, None, False)])
     monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})

@@ -1,4 +1,5 @@
-"""Interpolation over nodes (calcfuncs/nodes.py) against the direct computation.
+"""Interpolation over nodes and segments (calcfuncs/nodes.py) against the direct
+computation.
 
 The reference is ERFA itself (nut06a, epv00: the IAU 2000A/2006 nutation and the
 VSOP2000-based Earth of the SOFA/ERFA standard) evaluated at every instant; the
@@ -11,7 +12,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import cells, ephemeris, frames, nodes
+from calcfuncs import cells, earth_theory, ephemeris, frames, iau2000a, nodes
 
 UAS_PER_RAD = np.degrees(1.0) * 3.6e9
 AU_M = erfa.DAU
@@ -95,7 +96,7 @@ def test_a_dense_column_agrees_with_each_cell_alone(name, extra):
     assert np.max(difference) < 2.0
 
 
-# ---- single cells of a dense log (nodes.for_one) -----------------------------------------
+# ---- single cells of a dense log (nodes.for_one: Chebyshev segments) ---------------------
 
 
 def log_instants(seed, n=3000, per_day=9.0, start=2451545.0):
@@ -106,41 +107,88 @@ def log_instants(seed, n=3000, per_day=9.0, start=2451545.0):
     return [(np.array([np.floor(v)]), np.array([v - np.floor(v)])) for v in t]
 
 
-def test_dense_single_cells_interpolate_within_the_bounds():
-    # The same bounds as a dense column (1.5 uas, 0.5 m, 3 um/s), over logs at the
-    # start of the IAU models' range, near J2000 and near their end.
+def test_dense_single_cells_take_their_segments_within_the_bounds():
+    # nodes.py states 0.1 uas for the nutation, 1 m and 1 um/s for the Earth, against
+    # ERFA's own nut06a and epv00 at each instant, over logs at the start of the IAU
+    # models' range, near J2000 and near their end; two a day is dense.
     interpolated = 0
+    worst = np.zeros(4)
     with nodes.single_cells():
         for seed, start in ((1, 2086500.5), (2, 2451545.0), (3, 2816500.5)):
-            for j1, j2 in log_instants(seed, n=1500, start=start):
-                got = nodes.for_one("nut06a", frames._nutation_rows, j1, j2)
-                earth = nodes.for_one("epv00", ephemeris._earth_and_sun_states, j1, j2)
+            for j1, j2 in log_instants(seed, n=1500, per_day=2.0, start=start):
+                got = nodes.for_one("nut06a", iau2000a.nutation_vector, j1, j2)
+                earth = nodes.for_one("epv00", earth_theory.states_vector, j1, j2)
                 if got is None:
                     assert earth is None  # one decision per instant
                     continue
                 interpolated += 1
                 dpsi, deps = erfa.nut06a(j1, j2)
-                assert abs(got[0, 0] - dpsi[0]) * UAS_PER_RAD < 1.5
-                assert abs(got[0, 1] - deps[0]) * UAS_PER_RAD < 1.5
                 with np.errstate(all="ignore"), warnings.catch_warnings():
                     warnings.simplefilter("ignore", erfa.ErfaWarning)
                     pvh, pvb = erfa.epv00(j1, j2)
-                assert np.max(np.abs(earth[0, 0:3] - pvb["p"][0])) * AU_M < 0.5
-                assert np.max(np.abs(earth[0, 3:6] - pvb["v"][0])) * AU_M / erfa.DAYSEC < 3e-6
                 sun = earth[0, 6:9] - (pvb["p"][0] - pvh["p"][0])
-                assert np.max(np.abs(sun)) * AU_M < 0.5
-    # Nine a day is dense: most cells take the nodes (91 % measured; the first cells of a
-    # half day that follows a thinner stretch of the log are computed directly).
-    assert interpolated > 0.85 * 4500
+                worst = np.maximum(worst, [
+                    max(abs(got[0, 0] - dpsi[0]), abs(got[0, 1] - deps[0])) * UAS_PER_RAD,
+                    np.max(np.abs(earth[0, 0:3] - pvb["p"][0])) * AU_M,
+                    np.max(np.abs(earth[0, 3:6] - pvb["v"][0])) * AU_M / erfa.DAYSEC,
+                    np.max(np.abs(sun)) * AU_M])
+    assert worst[0] < 0.1, worst       # uas
+    assert worst[1] < 1.0, worst       # m
+    assert worst[2] < 1e-6, worst      # m/s
+    assert worst[3] < 1.0, worst       # m
+    # All but the first DENSE_CELLS - 1 cells of each segment take it: 2,250 instants
+    # over 70 segments of 16 days.
+    assert interpolated > 0.9 * 4500
+
+
+def test_the_matrices_of_dense_single_cells_within_their_bound():
+    # nodes.py states 0.1 uas for a dated system's matrix from its segment (0.07
+    # measured), against the direct IAU 2006/2000A matrix of one instant
+    # (frames._dated_one: ERFA pfw06 and fw2m with the series of iau2000a.py), over logs
+    # at the ends of the IAU models' range and near J2000.
+    worst = {}
+    with nodes.single_cells():
+        for seed, start in ((6, 2086500.5), (7, 2451545.0), (8, 2816500.5)):
+            for j1, j2 in log_instants(seed, n=300, per_day=2.0, start=start):
+                t1, t2 = float(j1[0]), float(j2[0])
+                if not nodes.cell_is_dense(t1, t2):
+                    continue
+                for system in sorted(frames.DATED):
+                    got = np.array(frames.matrix_rows(system, t1, t2, True))
+                    direct = np.array(frames._dated_one(system, t1, t2))
+                    worst[system] = max(worst.get(system, 0.0),
+                                        np.max(np.abs(got - direct)) * UAS_PER_RAD)
+    assert set(worst) == set(frames.DATED)
+    assert max(worst.values()) < 0.1, worst
+
+
+def test_a_segments_values_follow_the_series_inside_it():
+    # Nodes.py's own points of a segment give the series' values (Chebyshev interpolation
+    # passes through them), and its ends join the next segment's within the bounds.
+    with nodes.single_cells():
+        for k in range(nodes.DENSE_CELLS):  # make the segment at J2000.0 dense
+            nodes.for_one("nut06a", iau2000a.nutation_vector, np.array([2451545.0]),
+                          np.array([0.1 * k]))
+        for k in range(nodes.DENSE_CELLS):
+            nodes.for_one("nut06a", iau2000a.nutation_vector, np.array([2451545.0]),
+                          np.array([16.0 + 0.1 * k]))
+        ends = []
+        for t2 in (16.0 - 1e-9, 16.0):
+            nodes._LAST_ONE[0] = (None, None, None, False)
+            ends.append(nodes.for_one("nut06a", iau2000a.nutation_vector,
+                                      np.array([2451545.0]), np.array([t2]))[0])
+    assert np.max(np.abs(ends[0] - ends[1])) * UAS_PER_RAD < 0.1
+    assert len(nodes._SEGMENTS) == 2
 
 
 def test_sparse_single_cells_and_calls_outside_cells_are_computed_directly():
     with nodes.single_cells():
-        for j1, j2 in log_instants(4, n=400, per_day=1.0):  # one a day: sparse
-            assert nodes.for_one("nut06a", frames._nutation_rows, j1, j2) is None
+        for k in range(200):  # one instant every 9 days: at most two in a segment
+            j1, j2 = np.array([2451545.0 + 9 * k]), np.array([0.3])
+            assert nodes.for_one("nut06a", iau2000a.nutation_vector, j1, j2) is None
     for j1, j2 in log_instants(5, n=200):  # dense, but not inside single_cells()
-        assert nodes.for_one("nut06a", frames._nutation_rows, j1, j2) is None
-    assert nodes._STACKS == {}
+        assert nodes.for_one("nut06a", iau2000a.nutation_vector, j1, j2) is None
+    assert nodes._SEGMENTS == {}
 
 
 @pytest.mark.parametrize("name, body", [("SKY.SUN.LON", []), ("SKY.SUN.DEC", []),
@@ -148,52 +196,52 @@ def test_sparse_single_cells_and_calls_outside_cells_are_computed_directly():
                                         ("SKY.PLANET.RA", ["JUPITER"]),
                                         ("SKY.PLANET.LON", ["MERCURY"])])
 def test_a_dense_log_of_cells_agrees_with_each_cell_computed_directly(name, body, monkeypatch):
-    # The places of a log of 600 instants, nine a day, filled down one cell at a time:
-    # within 2 uas of the same cells computed directly (DENSE_CELLS out of reach), and
-    # most of them interpolated.
+    # The places of a log of 600 instants, two a day, filled down one cell at a time:
+    # within 1 uas of the same cells computed directly (DENSE_CELLS out of reach), and
+    # most of them from segments.
     rng = np.random.default_rng(9)
-    serials = 45300.0 + np.sort(rng.uniform(0.0, 600 / 9.0, 600))
+    serials = 45300.0 + np.sort(rng.uniform(0.0, 600 / 2.0, 600))
     got = np.array([cells.evaluate(name, [*body, float(s)]) for s in serials])
-    assert len(nodes._STACKS) > 100
+    assert len(nodes._SEGMENTS) >= 2 * 18  # nutation and Earth, 19 or 20 segments
     monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     nodes.forget_kept_instants()  # the places kept for a row's other columns, too
     direct = np.array([cells.evaluate(name, [*body, float(s)]) for s in serials])
     difference = np.abs((got - direct + 180.0) % 360.0 - 180.0) * 3.6e9
-    assert np.max(difference) < 2.0
-    assert np.count_nonzero(got != direct) > 300  # the interpolated ones differ, slightly
+    assert np.max(difference) < 1.0
+    assert np.count_nonzero(got != direct) > 300  # those from segments differ, slightly
 
 
-def test_single_cell_nodes_stay_within_their_bounds(monkeypatch):
-    # The kept nodes, stacks and asked half days never outgrow their sizes (shrunk here
-    # so that a few thousand cells fill them many times over), and the answers stay
-    # within the bounds while entries are dropped.
-    monkeypatch.setattr(nodes, "NODES_KEPT", 60)
-    monkeypatch.setattr(nodes, "HALF_DAYS_KEPT", 40)
+def test_single_cell_segments_stay_within_their_bounds(monkeypatch):
+    # The kept segments and noted instants never outgrow their sizes (shrunk here so that
+    # a few thousand cells fill them many times over), and the answers stay within the
+    # bounds while entries are dropped.
+    monkeypatch.setattr(nodes, "SEGMENTS_KEPT", 6)
+    monkeypatch.setattr(nodes, "SEGMENTS_NOTED", 4)
     rng = np.random.default_rng(12)
-    serials = 45300.0 + np.sort(rng.uniform(0.0, 400.0, 4000))
+    serials = 45300.0 + np.sort(rng.uniform(0.0, 800.0, 4000))
     for s in serials:
         lon = cells.evaluate("SKY.SUN.LON", [float(s)])
-        assert len(nodes._AT_NODE) <= 60
-        assert len(nodes._STACKS) <= 60 // nodes.NODES
-        assert len(nodes._ASKED) <= 40
+        assert len(nodes._SEGMENTS) <= 6
+        assert len(nodes._ASKED) <= 4
+    assert nodes._SEGMENTS  # the last cells took their segments
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     direct = cells.evaluate("SKY.SUN.LON", [(float(serials[-1]),)])[0][0]
-    assert abs(lon - direct) * 3.6e9 < 2.0
+    assert abs(lon - direct) * 3.6e9 < 1.0
 
 
 # ---- one instant's ERFA values kept for the row's other columns --------------------------
 
 
-def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers():
+def test_a_rows_other_columns_find_the_instants_values_and_the_same_answers(monkeypatch):
     # Calc computes column by column: the nutation and the Earth of each instant, made
     # for the first column's cells, are found again by the next column's.  The answers
-    # are those of each cell computed alone (exact values, not interpolated), and no more
-    # than nodes.INSTANTS_KEPT instants are kept.
-    from calcfuncs import cells, ephemeris, frames
-
+    # are those of each cell computed alone (exact values: no segments here), and no
+    # more than nodes.INSTANTS_KEPT instants are kept.
     from calcfuncs import bodies
 
+
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     rng = np.random.default_rng(46)
     serials = np.sort(45292.0 + rng.uniform(0.0, 3000.0, 300)).tolist()  # sparse log
     alone = {}

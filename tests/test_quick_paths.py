@@ -16,7 +16,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import cells, frames, timeinput, timescales, vectors
+from calcfuncs import cells, frames, nodes, timeinput, timescales, vectors
 from calcfuncs.errors import PREFIX, SkyError
 
 NULL_JD = 2415018.5  # Calc's default null date 1899-12-30 (PLATFORM-NOTES.md)
@@ -112,9 +112,11 @@ def test_norm_is_numpys_own():
     assert np.array_equal(vectors.norm(v), np.linalg.norm(v, axis=-1))
 
 
-def test_a_cell_on_the_quick_path_equals_the_same_row_of_a_column():
+def test_a_cell_on_the_quick_path_equals_the_same_row_of_a_column(monkeypatch):
     # 30 log instants (under the interpolated columns' density): the column is computed
-    # directly, as each cell alone is.
+    # directly, as each cell alone is (cells dense in time may take segments instead,
+    # within their bounds: test_nodes.py; not here).
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     rng = np.random.default_rng(8)
     serials = list(45292.0 + rng.random(30) * 1000.0)
     for name in ("SKY.JD", "SKY.SUN.LON", "SKY.MOON.RA", "SKY.OBLIQUITY.TRUE"):
@@ -185,6 +187,39 @@ def test_column_utc_to_tai_is_erfa_utctai_to_the_bit():
         found = timescales.utc_to_tai(split1, split2)
         reference = erfa.utctai(split1, split2)
     assert np.array_equal(found[0], reference[0]) and np.array_equal(found[1], reference[1])
+
+
+def test_one_utc_instant_on_tt_is_erfa_utctai_and_taitt_to_the_bit():
+    # ERFA utctai then taitt (the IAU SOFA routines) are the reference.  A cell's UTC
+    # instant on TT takes floats on a day of one TAI - UTC from 1972 (timescales.
+    # _steady_day_offset) and ERFA otherwise: over 1960-2100 with every UTC step day and
+    # the days either side of each, both ends of each day, and splits not made by a cell.
+    rng = np.random.default_rng(23)
+    steps = timeinput._utc_step_days()
+    days = np.concatenate([rng.integers(2436935, 2488070, 60_000) - 0.5,
+                           np.repeat(steps, 20), steps - 1.0, steps + 1.0])
+    fractions = np.concatenate([rng.uniform(0.0, 1.0, days.size - 5),
+                                [0.0, 0.5, np.nextafter(1.0, 0.0), 0.999999, 2.0**-52]])
+    rng.shuffle(fractions)
+    jd1 = np.concatenate([days, rng.uniform(2441317.0, 2488070.0, 2_000)])
+    jd2 = np.concatenate([fractions, rng.uniform(-1.0, 2.0, 2_000)])
+    floats = 0
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", erfa.ErfaWarning)  # dates past the table
+        tt1, tt2 = erfa.taitt(*erfa.utctai(jd1, jd2))
+        for k in range(jd1.size):
+            one = timescales.Instants(jd1[k:k + 1], jd2[k:k + 1], "UTC")
+            floats += timescales._steady_day_offset(jd1[k]) is not None and 0 <= jd2[k] < 1
+            a, b = one.tt()
+            assert a.tobytes() == tt1[k:k + 1].tobytes(), (jd1[k], jd2[k])
+            assert b.tobytes() == tt2[k:k + 1].tobytes(), (jd1[k], jd2[k])
+            c = timescales.Instants(jd1[k:k + 1], jd2[k:k + 1], "UTC").to("TT")
+            assert c.jd1.tobytes() == a.tobytes() and c.jd2.tobytes() == b.tobytes()
+    assert floats > 0.6 * 60_000  # most of 1972-2100 takes the floats
+    # A day that ends in a leap second, and one before 1972, take ERFA.
+    assert timescales._steady_day_offset(2457753.5) is None  # 2016-12-31
+    assert timescales._steady_day_offset(2441316.5) is None  # 1971-12-31
+    assert timescales._steady_day_offset(2457754.5) == 37.0 / 86400.0  # 2017-01-01
 
 
 def _tt_instants_of_events():
