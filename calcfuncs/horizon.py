@@ -16,6 +16,8 @@ their last bits where the Earth's series is evaluated with numpy (earth_theory.p
 (0.55 um, relative humidity 0.5); pressure 0 gives the geometric (unrefracted) place.
 """
 
+import functools
+
 import erfa
 import numpy as np
 
@@ -105,15 +107,17 @@ def observer_astrom(time, latitude, longitude, height, pressure, temperature, fr
     if all(type(v) is np.ndarray and v.shape == (1,) for v in one) and np.size(hm) == 1:
         # A single cell: kept for the row's other columns (the azimuth beside the
         # altitude), whose parameters are the same.
-        return _astrom_one(*(v.item() for v in one), float(np.ravel(hm)[0]), phpa, tc,
-                           frame), phpa
+        t1, t2 = tt1.item(), tt2.item()
+        return _astrom_one(t1, t2, *(v.item() for v in one[2:]), float(np.ravel(hm)[0]), phpa,
+                           tc, frame, frame == "ICRS" and nodes.cell_is_dense(t1, t2)), phpa
     return _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame), phpa
 
 
-def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, states=None):
+def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, states=None,
+            true_equator=None):
     """``observer_astrom``'s parameters from checked inputs (TT and UT1 two-part JDs,
     the site in radians and metres, the atmosphere).  ``states``: earth_theory.states
-    at the instants, where the caller has them."""
+    at the instants, and ``true_equator`` its matrix, where the caller has them."""
     theta = erfa.era00(ut1, ut2)
     sp = erfa.sp00(tt1, tt2)
     refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
@@ -121,7 +125,7 @@ def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, states=None):
         return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb)
     # The Earth from epv00's series (earth_theory; TT taken for TDB, as ERFA's apco13 does).
     earth_p, earth_v, sun_p, _ = earth_theory.states(tt1, tt2) if states is None else states
-    x, y = erfa.bpn2xy(_true_equator(tt1, tt2))
+    x, y = erfa.bpn2xy(_true_equator(tt1, tt2) if true_equator is None else true_equator)
     s = erfa.s06(tt1, tt2, x, y)
     earth_pv = np.empty(earth_p.shape[:-1], dtype=erfa.dt_pv)
     earth_pv["p"], earth_pv["v"] = earth_p, earth_v
@@ -130,14 +134,21 @@ def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, states=None):
 
 
 @nodes.kept_per_instant
-def _astrom_one(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame):
+def _astrom_one(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, dense=False):
     """``_astrom`` of one row (floats), kept: a read-only array of one row.  The Earth's
     state is the instant's kept one (ephemeris.earth_and_sun_floats, the same values as
-    earth_theory.states gives a row), shared with the row's places."""
-    states = (None if frame != "ICRS"
-              else np.array(ephemeris.earth_and_sun_floats(tt1, tt2)).reshape(4, 1, 3))
+    earth_theory.states gives a row), shared with the row's places; ``dense``, a cell of
+    a log filled down (nodes.cell_is_dense): the Earth and the true equator's matrix from
+    their segments, as the places take them."""
+    states = true_equator = None
+    if dense:
+        states = np.array(ephemeris.earth_and_sun_from_nodes(tt1, tt2)).reshape(4, 1, 3)
+        true_equator = np.array(frames.matrix_rows("EQUATORIAL TRUE", tt1, tt2, True)
+                                ).reshape(1, 3, 3)
+    elif frame == "ICRS":
+        states = np.array(ephemeris.earth_and_sun_floats(tt1, tt2)).reshape(4, 1, 3)
     astrom = _astrom(*(np.array([v]) for v in (tt1, tt2, ut1, ut2, elong, phi, hm)), phpa,
-                     tc, frame, states)
+                     tc, frame, states, true_equator)
     astrom.flags.writeable = False
     return astrom
 
@@ -220,34 +231,51 @@ def _deg180(rad):
 # ---- cell functions -----------------------------------------------------------------
 
 
+def _a_log_of_cells(cells):
+    """A cell function of the observed place: a log of its cells filled down takes the
+    Earth and the true equator from segments (nodes.single_cells), as places do."""
+    @functools.wraps(cells)  # (its signature too: the cell layer reads the arguments)
+    def within(*args, **kwargs):
+        with nodes.single_cells():
+            return cells(*args, **kwargs)
+    return within
+
+
+
+@_a_log_of_cells
 def altitude_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
                    temperature=10.0, frame="ICRS"):
     _, zob, _, _ = observed(ra, dec, time, latitude, longitude, height, pressure, temperature, frame)
     return 90.0 - np.degrees(zob)
 
 
+@_a_log_of_cells
 def azimuth_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     aob, _, _, _ = observed(ra, dec, time, latitude, longitude, height, pressure, temperature, frame)
     return degrees_360(aob)
 
 
+@_a_log_of_cells
 def hour_angle_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
     _, _, hob, _ = observed(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
     return _deg180(hob)
 
 
+@_a_log_of_cells
 def parallactic_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
     _, _, hob, dob = observed(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
     return np.degrees(erfa.hd2pa(hob, dob, np.radians(latitude)))
 
 
+@_a_log_of_cells
 def horizon_ra_cells(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                      temperature=10.0, frame="ICRS"):
     ra, _ = from_observed(az, alt, time, latitude, longitude, height, pressure, temperature, frame)
     return degrees_360(ra)
 
 
+@_a_log_of_cells
 def horizon_dec_cells(az, alt, time, latitude, longitude, height=0.0, pressure=0.0,
                       temperature=10.0, frame="ICRS"):
     _, dec = from_observed(az, alt, time, latitude, longitude, height, pressure, temperature, frame)

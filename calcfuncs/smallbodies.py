@@ -17,7 +17,7 @@ SKY.ORBIT.AGE shows the time from the epoch; keep it within a few months, or int
 
 import numpy as np
 
-from . import bodies, ephemeris, frames, mpcformat, topocentric, vectors
+from . import bodies, ephemeris, frames, mpcformat, nodes, topocentric, vectors
 from .bounded import keep
 from .errors import rows_failing
 from .events import crossings, wrap180
@@ -211,9 +211,12 @@ def _place_of(orbit, time, kind, source, model):
 
 
 def _spherical(orbit, time, system, kind, source, model, index):
-    """The longitude (``index`` 0) or latitude (1) in ``system`` (bodies.shown_longitudes)."""
-    return bodies.shown_longitudes(_spherical_of(orbit, time, system, kind, source, model, index),
-                                   index)
+    """The longitude (``index`` 0) or latitude (1) in ``system`` (bodies.shown_longitudes).
+    A log of cells filled down takes the Earth and the system's matrix from segments, as
+    the bodies' places do (nodes.single_cells)."""
+    with nodes.single_cells():
+        return bodies.shown_longitudes(
+            _spherical_of(orbit, time, system, kind, source, model, index), index)
 
 
 def _spherical_of(orbit, time, system, kind, source, model, index):

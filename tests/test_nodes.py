@@ -295,11 +295,14 @@ def test_the_instants_kept_stay_within_their_bound(monkeypatch):
     assert frames.nutation_one.cache_info().currsize == 0
 
 
-def test_a_rows_altitude_and_azimuth_share_the_sites_parameters():
+def test_a_rows_altitude_and_azimuth_share_the_sites_parameters(monkeypatch):
     # ERFA's astrometry parameters of an instant at a site (horizon.observer_astrom:
     # epv00, the CIP, s06, refraction constants) are kept for the row's next column:
-    # the azimuth beside the altitude gives what it gives computed alone.
+    # the azimuth beside the altitude gives what it gives computed alone (each cell
+    # computed directly here: no segments).
     from calcfuncs import cells, horizon
+
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
 
     rng = np.random.default_rng(61)
     rows = [(float(ra), float(dec), float(t)) for ra, dec, t in
@@ -325,3 +328,30 @@ def test_a_rows_altitude_and_azimuth_share_the_sites_parameters():
         moved = cells.evaluate("SKY.HORIZON.ALT", [*row, *other])
         assert horizon._astrom_one.cache_info().misses == misses + 1
         assert moved != alone["SKY.HORIZON.ALT", row]
+
+
+@pytest.mark.parametrize("name", ["SKY.HORIZON.ALT", "SKY.HORIZON.AZ", "SKY.ORBIT.RA",
+                                  "SKY.ORBIT.LAT"])
+def test_a_dense_log_of_observed_places_and_orbits_agrees_with_direct_cells(name, monkeypatch):
+    # A log of a site's targets (altitude, azimuth: the Earth and the true equator from
+    # segments, horizon._astrom_one) and of a minor planet's places (the Earth and the
+    # matrix from segments), two rows a day: within 1 uas of the same cells computed
+    # directly, most of them from segments.  Ceres's MPC line is test_smallbodies.py's
+    # (its source named there); the site is invented.
+    from test_smallbodies import CERES
+
+    rng = np.random.default_rng(14)
+    serials = 45300.0 + np.sort(rng.uniform(0.0, 150.0, 300))
+    if name.startswith("SKY.HORIZON"):
+        args = lambda s: [float((s * 7919.0) % 360.0), 20.0, float(s), 47.3814, 8.0542]  # noqa: E731
+    else:
+        args = lambda s: [CERES, float(s)]  # noqa: E731
+    got = np.array([cells.evaluate(name, args(s)) for s in serials])
+    assert len(nodes._SEGMENTS) >= 2 * 8
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    nodes.forget_kept_instants()
+    direct = np.array([cells.evaluate(name, args(s)) for s in serials])
+    difference = np.abs((got - direct + 180.0) % 360.0 - 180.0) * 3.6e9
+    assert np.max(difference) < 1.0
+    assert np.count_nonzero(got != direct) > 100
