@@ -69,6 +69,15 @@ def _aberrate(u, earth_v, sun_distance):
 LIGHT_TIME_ROUNDS = 2  # after the geometric distance (place, below)
 
 
+def _on_chord(at_0, at_tau1, tau1, tau):
+    """A body's heliocentric position at light time ``tau`` on the chord between its
+    positions at light times 0 and ``tau1`` (arrays (..., 3), light times (...)): within
+    2 m of the body itself where ``tau`` is ``tau1`` to 1e-4 of it, as in the light-time
+    rounds (tests/test_planets.py)."""
+    f = ((tau1 - tau) / tau1)[..., None]
+    return at_tau1 + f * (at_0 - at_tau1)
+
+
 def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     """The ``Place`` of ``body`` (SUN, MOON or a planet, or an object whose
     ``heliocentric(t1, t2)`` gives (p, v): a two-body orbit) at the source's argument
@@ -111,12 +120,16 @@ def place(body, tdb1, tdb2, kind="APPARENT", source=BUILTIN, observer=None):
     vector = geocentric(helio, tau)
     if kind != "GEOMETRIC":
         # Each round gains a factor of the radial speed over c (up to about 2e-4, for
-        # Mercury) on the light time: after two, the places are within 0.6 micro-
-        # arcseconds and 1.1 m of the converged ones (measured over 1900-2100 against
-        # five rounds, tests/test_planets.py); the Moon's 1.3 s is off by 1e-11 s.
-        for _ in range(LIGHT_TIME_ROUNDS):
+        # Mercury) on the light time.  The body is evaluated at t and at t - tau1 only;
+        # later rounds take it on the chord between the two (``_on_chord``: tau moves by
+        # 1e-4 of itself after the first round, where the chord is off by metres).
+        first = helio
+        tau1 = vectors.norm(vector) * LIGHT_DAYS_PER_AU
+        helio = at_tau1 = helio_at(tau1)
+        vector = geocentric(helio, tau1)
+        for _ in range(LIGHT_TIME_ROUNDS - 1):
             tau = vectors.norm(vector) * LIGHT_DAYS_PER_AU
-            helio = helio_at(tau)
+            helio = _on_chord(first, at_tau1, tau1, tau)
             vector = geocentric(helio, tau)
     distance = vectors.norm(vector)
     u = vector / distance[..., None]
@@ -279,10 +292,15 @@ def _place_floats(helio_at, states, kind):
 
     helio = helio_at(0.0)
     vector = geocentric(helio, 0.0)
-    if kind != "GEOMETRIC":
-        for _ in range(LIGHT_TIME_ROUNDS):
+    if kind != "GEOMETRIC":  # place's rounds: the body at t - tau1, then on the chord
+        first = helio
+        tau1 = _length(vector) * LIGHT_DAYS_PER_AU
+        helio = at_tau1 = helio_at(tau1)
+        vector = geocentric(helio, tau1)
+        for _ in range(LIGHT_TIME_ROUNDS - 1):
             tau = _length(vector) * LIGHT_DAYS_PER_AU
-            helio = helio_at(tau)
+            f = (tau1 - tau) / tau1
+            helio = [at_tau1[k] + f * (first[k] - at_tau1[k]) for k in range(3)]
             vector = geocentric(helio, tau)
     u = _direction(vector)
     if kind != "APPARENT":
