@@ -106,8 +106,10 @@ def states_vector(tdb1, tdb2):
     arg = np.multiply.outer(t, _C)
     arg += _B
     terms = np.empty((2, t.size, _A.size))
-    np.multiply(_A, np.cos(arg), out=terms[0])
-    np.multiply(_AC, np.sin(arg), out=terms[1])
+    np.cos(arg, out=terms[0])
+    terms[0] *= _A
+    np.sin(arg, out=terms[1])
+    terms[1] *= _AC
     p, q = np.add.reduceat(terms, _STARTS, axis=2)  # (n, 18) each, as in states_one
     t = t[:, None]
     position = p[:, 0:6] + t * p[:, 6:12] + t * t * p[:, 12:18]

@@ -135,7 +135,7 @@ def over_nodes(compute, jd1, jd2):
 # for DENSE_CELLS distinct instants within one segment of SEGMENT_DAYS (TT, counted from
 # J2000.0, so that every call shares the same segments), the segment's nutation and
 # Earth are computed at its SEGMENT_POINTS Chebyshev points in one pass of numpy each
-# (iau2000a.nutation_vector, earth_theory.states_vector: 13 and 8 us a point against 18
+# (iau2000a.nutation_vector, earth_theory.states_vector: 10 and 8 us a point against 18
 # and 15 for an instant alone), kept as Chebyshev coefficients, and every later cell of
 # the segment takes its values from them: a cosine of twenty angles and one small
 # matrix product.  A log of two instants a day pays the segment's twenty points once

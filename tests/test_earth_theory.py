@@ -62,6 +62,21 @@ def test_the_series_with_numpy_within_a_millimetre_of_erfa():
     assert np.all(np.linalg.norm(ours[0] - ours[2], axis=-1) > 0.98)
 
 
+def test_the_points_of_a_segment_within_a_millimetre_of_erfa(evaluation):
+    # states_vector (a segment's points, calcfuncs/nodes.py: all points in one pass, with
+    # numpy's series or ERFA's routine as the process chose) against ERFA epv00.
+    rng = np.random.default_rng(37)
+    for _ in range(20):
+        jd1 = np.full(20, 2451545.0)
+        jd2 = rng.uniform(-1000.0, 1000.0) * 365.25 + np.sort(rng.uniform(0.0, 16.0, 20))
+        got = earth_theory.states_vector(jd1, jd2)
+        pvh, pvb, _ = erfa.ufunc.epv00(jd1, jd2)
+        assert np.abs(got[:, 0:3] - pvb["p"]).max() < 2e-14
+        assert np.abs(got[:, 3:6] - pvb["v"]).max() < 2e-16
+        assert np.abs(got[:, 6:9] - (pvb["p"] - pvh["p"])).max() < 2e-14
+        assert np.abs(got[:, 9:12] - (pvb["v"] - pvh["v"])).max() < 2e-16
+
+
 def test_a_column_is_its_instants_one_by_one():
     rng = np.random.default_rng(31)
     jd1 = 2451544.5 + np.floor(rng.uniform(-3e5, 3e5, 200))

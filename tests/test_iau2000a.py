@@ -38,6 +38,19 @@ def test_within_a_millionth_of_a_microarcsecond_of_erfa(first, last):
     assert np.max(np.abs(dpsi)) * UAS_PER_RAD > 1e7
 
 
+def test_the_points_of_a_segment_within_a_millionth_of_a_microarcsecond_of_erfa():
+    # nutation_vector (a segment's points, calcfuncs/nodes.py: all points in one pass)
+    # against ERFA nut06a, over the places' whole span.  Measured: 7.0e-8 uas (numpy 2.4).
+    rng = np.random.default_rng(19)
+    for _ in range(20):
+        jd1 = np.full(20, 2451545.0)
+        jd2 = rng.uniform(-6000.0, 6000.0) * 365.25 + np.sort(rng.uniform(0.0, 16.0, 20))
+        got = iau2000a.nutation_vector(jd1, jd2)
+        want_dpsi, want_deps = erfa.nut06a(jd1, jd2)
+        assert np.max(np.abs(got[:, 0] - want_dpsi)) * UAS_PER_RAD < 1e-6
+        assert np.max(np.abs(got[:, 1] - want_deps)) * UAS_PER_RAD < 1e-6
+
+
 def test_a_column_gives_each_instant_what_it_gives_alone():
     rng = np.random.default_rng(3)
     jd1 = np.full((40, 2), 2451545.0)
