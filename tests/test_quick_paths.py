@@ -164,17 +164,25 @@ def test_a_cell_leaves_numpys_error_settings_as_it_found_them():
         np.seterr(**before)
 
 
+def _utc_days_and_fractions(rng, n, more=()):
+    """UTC days (JDs at 0h) over 1960-2100, ``n`` at random, every UTC step day twenty
+    times and the days either side of each; fractions of a day at random with both ends
+    of a day and noon among them (and ``more``), shuffled."""
+    steps = timeinput._utc_step_days()
+    days = np.concatenate([rng.integers(2436935, 2488070, n) - 0.5,
+                           np.repeat(steps, 20), steps - 1.0, steps + 1.0])
+    edges = [0.0, 0.5, np.nextafter(1.0, 0.0), 0.999999, *more]
+    fractions = np.concatenate([rng.uniform(0.0, 1.0, days.size - len(edges)), edges])
+    rng.shuffle(fractions)
+    return days, fractions
+
+
 def test_column_utc_to_tai_is_erfa_utctai_to_the_bit():
     # ERFA utctai (the IAU SOFA routine) is the reference.  Date-time columns as the
     # cells read them, over 1960-2100 with every UTC step day, the days either side of
     # each, both ends of each day; then arbitrary two-part splits (ERFA's own way).
     rng = np.random.default_rng(21)
-    steps = timeinput._utc_step_days()
-    days = np.concatenate([rng.integers(2436935, 2488070, 100_000) - 0.5,
-                           np.repeat(steps, 20), steps - 1.0, steps + 1.0])
-    fractions = np.concatenate([rng.uniform(0.0, 1.0, days.size - 4),
-                                [0.0, 0.5, np.nextafter(1.0, 0.0), 0.999999]])
-    rng.shuffle(fractions)
+    days, fractions = _utc_days_and_fractions(rng, 100_000)
     serials = days - NULL_JD + fractions
     jd1, jd2 = timeinput._serial_pairs(serials, "UTC", NULL_JD)
     with warnings.catch_warnings():
@@ -195,12 +203,7 @@ def test_one_utc_instant_on_tt_is_erfa_utctai_and_taitt_to_the_bit():
     # _steady_day_offset) and ERFA otherwise: over 1960-2100 with every UTC step day and
     # the days either side of each, both ends of each day, and splits not made by a cell.
     rng = np.random.default_rng(23)
-    steps = timeinput._utc_step_days()
-    days = np.concatenate([rng.integers(2436935, 2488070, 60_000) - 0.5,
-                           np.repeat(steps, 20), steps - 1.0, steps + 1.0])
-    fractions = np.concatenate([rng.uniform(0.0, 1.0, days.size - 5),
-                                [0.0, 0.5, np.nextafter(1.0, 0.0), 0.999999, 2.0**-52]])
-    rng.shuffle(fractions)
+    days, fractions = _utc_days_and_fractions(rng, 60_000, (2.0**-52,))
     jd1 = np.concatenate([days, rng.uniform(2441317.0, 2488070.0, 2_000)])
     jd2 = np.concatenate([fractions, rng.uniform(-1.0, 2.0, 2_000)])
     floats = 0
