@@ -247,8 +247,8 @@ FLOAT_BODIES = frozenset(("SUN", "MOON") + tuple(ephemeris.PLAN94_NUMBERS))
 def _direction_floats(body, t1, t2, kind, dense=False):
     """``place``'s unit vector (three floats, GCRS axes) of a body of FLOAT_BODIES at one
     TT instant (taken for TDB; floats) inside BUILTIN_YEARS: its steps on floats, from
-    the Earth's and the Sun's kept states, or, ``dense``, from their nodes (a cell of a
-    dense log, nodes.cell_is_dense).  Kept for the row's other columns."""
+    the Earth's and the Sun's kept states, or, ``dense``, from their segment (a cell of a
+    log filled down, nodes.cell_is_dense).  Kept for the row's other columns."""
     states = _states_floats(t1, t2, dense)
     if body == "SUN":  # _sun_geocentric's steps
         ep, ev, sp, sv = states
@@ -274,7 +274,7 @@ def _orbit_direction_floats(elements, t1, t2, kind, dense=False):
 
 def _states_floats(t1, t2, dense):
     """The Earth's and the Sun's barycentric states at one instant, floats: kept, or
-    (``dense``) from the nodes of a dense log's cells."""
+    (``dense``) from the segment of a log's cells (nodes.py)."""
     if dense:
         return ephemeris.earth_and_sun_from_nodes(t1, t2)
     return ephemeris.earth_and_sun_floats(t1, t2)
@@ -330,8 +330,8 @@ def _aberrate_floats(u, earth_v, sun_distance):
 def _value_floats(direction, t1, t2, system, index, dense=False):
     """A longitude or latitude (``index`` 0 or 1, degrees) in a checked ``system`` at one
     TT instant (floats) inside BUILTIN_YEARS of the unit vector ``direction(t1, t2,
-    dense)`` (three floats, GCRS axes), on floats (``dense``: the nutation and the Earth
-    from their nodes)."""
+    dense)`` (three floats, GCRS axes), on floats (``dense``: the Earth and the system's
+    matrix from their segments, nodes.py)."""
     x, y, z = direction(t1, t2, dense)
     m = frames.matrix_rows(system, t1, t2, dense)
     return frames.spherical_floats(m[0][0] * x + m[0][1] * y + m[0][2] * z,
@@ -363,9 +363,9 @@ _FLOAT_FAILURES = (ArithmeticError, ValueError)
 def rows_on_floats(body, tt1, tt2, system, kind, index):
     """(values, rows done): a body's longitude or latitude in a checked ``system`` (the
     built-in source) for the rows of TT arrays that are computed directly and lie
-    inside BUILTIN_YEARS, on floats row by row (``_value_floats``; a cell of a dense log
-    with its nutation and Earth from their nodes); None when no row is (another body, a
-    dense column: its nodes are interpolated on arrays)."""
+    inside BUILTIN_YEARS, on floats row by row (``_value_floats``; a cell of a log filled
+    down with its Earth and matrix from their segments); None when no row is (another
+    body, a dense column: its nodes are interpolated on arrays)."""
     direction = _directions_on_floats(body, kind, tt1.size)
     if direction is None:
         return None

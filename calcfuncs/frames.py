@@ -238,8 +238,8 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
 def matrix_rows(system, jd1, jd2, dense=False):
     """The rotation from ICRS axes to a checked ``system`` at one TT date (floats) as
     three rows of three floats, the IAU 2006/2000A matrix of a single cell
-    (``_dated_one``, kept; ``dense``: the nutation from the nodes of a dense log's cells,
-    as ``system_matrix`` takes it for such a cell): for a place computed on floats."""
+    (``_dated_one``, kept; ``dense``: the matrix itself from the segment of a log's cells,
+    nodes.py): for a place computed on floats."""
     if system not in DATED:
         found = _FIXED_ROWS.get(system)
         if found is None:

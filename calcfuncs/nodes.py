@@ -13,8 +13,9 @@ measured), the Earth's position within 0.5 m (0.41) and its velocity within 3 um
 
 A column is interpolated only when it is dense: fewer distinct nodes than a quarter of
 its rows.  A short column, or instants spread over the centuries, are computed
-directly.  A cell alone is computed directly too, unless it is one of a dense run of
-cells of places (``for_one`` below: a log filled down, computed one cell at a time).
+directly.  A cell alone is computed directly too, unless it is one of a run of cells of
+places filled down a log, computed one cell at a time: those share Chebyshev segments of
+16 days instead (``for_one`` below, with their own bounds).
 An interpolated value differs from ERFA's own by the bounds above, far below the stated
 accuracy of every model involved (the built-in theories are good to tens of
 milliarcseconds, the nutation model to a fraction of a milliarcsecond).

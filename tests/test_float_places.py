@@ -52,10 +52,10 @@ def test_a_place_on_floats_equals_the_arrays(body):
     assert worst < BOUND_DEG, worst
 
 
-def test_a_cell_of_a_dense_log_takes_the_nutation_and_the_earth_from_nodes(monkeypatch):
-    # Cells close together in time take the nutation and the Earth from kept nodes
-    # (nodes.for_one for arrays, nodes.from_nodes on floats), within the bounds of
-    # test_nodes.py (1.5 uas, 0.5 m: under 3 uas on the Sun's place) of the direct values.
+def test_a_cell_of_a_dense_log_takes_the_earth_and_the_matrix_from_its_segment(monkeypatch):
+    # Cells close together in time take the Earth and the system's matrix from their
+    # segment (nodes.from_nodes on floats), within the bounds of test_nodes.py (0.1 uas,
+    # 1 m: under 1 uas on a place) of the direct values.
     monkeypatch.setattr(nodes, "DENSE_CELLS", 4)
     nodes.forget_single_cells()
     cells._SINGLE_CELL_CACHE.clear()
@@ -74,7 +74,7 @@ def test_a_cell_of_a_dense_log_takes_the_nutation_and_the_earth_from_nodes(monke
     direct = [cells.evaluate(name, (s,)) for name in ("SKY.SUN.LON", "SKY.MOON.DEC")
               for s in serials]
     differences = np.abs(np.array(got) - np.array(direct)) * 3.6e9  # micro-arcseconds
-    assert differences.max() < 3.0
+    assert differences.max() < 1.0
     assert differences[3:12].max() > 0.0  # interpolated, not the direct values
 
 
