@@ -99,6 +99,8 @@ _WORDS_READ_SIZE = 4096
 
 def _read_option(arg, value):
     """The option's value, or a ``SkyError`` worded for the cell."""
+    if value is None and (arg.kind != "choice" or arg.optional):
+        return arg.default  # left out: what _read_option_anew reads a blank as, at once
     if type(value) is not str or arg.kind == "source":
         return _read_option_anew(arg, value)
     key = (id(arg), value)
