@@ -253,14 +253,24 @@ def matrix_rows(system, jd1, jd2, dense=False):
 
 def _matrix_points(system):
     """The nine elements of ``system``'s matrix at a segment's points (nodes.py), the
-    nutation series evaluated over them at once."""
+    nutation series evaluated over them at once (``_nutation_at_points``)."""
     def compute(jd1, jd2):
-        return _dated(system, jd1, jd2, lambda a, b: tuple(iau2000a.nutation_vector(a, b).T)
-                      ).reshape(-1, 9)
+        return _dated(system, jd1, jd2, _nutation_at_points).reshape(-1, 9)
     return compute
 
 
 _MATRIX_POINTS = {system: _matrix_points(system) for system in DATED}
+
+
+def _nutation_at_points(jd1, jd2):
+    """The nutation at a segment's points, shared by the segments of every system (a log
+    whose row holds a longitude and a declination asks for two systems' matrices over the
+    same points, and the series over them is most of a segment's cost)."""
+    return nodes.shared_at_points("nutation", _nutation_vector_pair, jd1, jd2)
+
+
+def _nutation_vector_pair(jd1, jd2):
+    return tuple(iau2000a.nutation_vector(jd1, jd2).T)
 
 
 

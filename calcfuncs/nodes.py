@@ -160,13 +160,16 @@ SEGMENT_ORIGIN = 2451545.0  # J2000.0 TT: segments start at whole days, exact in
 DENSE_CELLS = 3   # distinct instants asked for in a segment before it is made
 # Bounded: at most SEGMENTS_KEPT coefficient tables (SEGMENT_POINTS x at most 12 floats:
 # 2 KB) and SEGMENTS_NOTED segments of asked instants (at most DENSE_CELLS each): 11 MB
-# when both are full (tracemalloc over 4,200 segments, 2026-12-05).
+# when both are full (tracemalloc over 4,200 segments, 2026-12-05); and the values of
+# AT_POINTS_KEPT segments' points shared between quantities (shared_at_points: 40 floats
+# each for the nutation).
 SEGMENTS_KEPT = 4_000
 SEGMENTS_NOTED = 4_000
 
 _ORDERS = np.arange(SEGMENT_POINTS, dtype=float)
 _ANGLES = np.pi * (np.arange(SEGMENT_POINTS) + 0.5) / SEGMENT_POINTS
 _POINT_DAYS = (np.cos(_ANGLES) + 1.0) * (SEGMENT_DAYS / 2.0)  # days from the segment's start
+_POINT_DAYS.flags.writeable = False  # (shared_at_points knows the points by this array)
 # Values at the points -> coefficients (the discrete cosine transform of Chebyshev
 # interpolation at the points of the first kind).
 _TO_COEFFICIENTS = (2.0 / SEGMENT_POINTS) * np.cos(np.outer(_ORDERS, _ANGLES))
@@ -197,6 +200,8 @@ def forget_kept_instants():
 
 
 _SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (SEGMENT_POINTS, k)
+_AT_POINTS = {}  # (name, segment's start) -> values at its points (shared_at_points)
+AT_POINTS_KEPT = 64
 _ASKED = {}      # segment -> distinct instants asked for in it
 _IN_CELLS = [0]
 _LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, segment, dense)
@@ -206,6 +211,7 @@ _LAST_POLYNOMIALS = [(None, None, None)]  # the last instant's T_k: (jd1, jd2, a
 def forget_single_cells():
     """Empty what single cells have kept and noted (a benchmark's cold start)."""
     _SEGMENTS.clear()
+    _AT_POINTS.clear()
     _LAST_POLYNOMIALS[0] = (None, None, None)
     _ASKED.clear()
     _LAST_ONE[0] = (None, None, None, False)
@@ -269,6 +275,20 @@ def _interpolated(quantity, compute, t1, t2):
         polynomials = np.cos(_ORDERS * math.acos(x))
         _LAST_POLYNOMIALS[0] = (t1, t2, polynomials)
     return np.dot(polynomials, coefficients)
+
+
+def shared_at_points(name, compute, jd1, jd2):
+    """``compute(jd1, jd2)`` at a segment's points (the arrays ``_interpolated`` hands a
+    segment's ``compute``), kept under ``name`` for the segments of other quantities over
+    the same points; computed afresh for any other instants."""
+    if jd2 is not _POINT_DAYS:
+        return compute(jd1, jd2)
+    key = (name, float(jd1[0]))
+    found = _AT_POINTS.get(key)
+    if found is None:
+        found = compute(jd1, jd2)
+        keep(_AT_POINTS, key, found, AT_POINTS_KEPT)
+    return found
 
 
 def cell_is_dense(t1, t2):

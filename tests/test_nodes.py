@@ -162,6 +162,30 @@ def test_the_matrices_of_dense_single_cells_within_their_bound():
     assert max(worst.values()) < 0.1, worst
 
 
+def test_two_systems_matrices_share_the_nutation_at_their_points(monkeypatch):
+    # A log's longitude and declination ask for two systems' matrices over the same
+    # segment: the nutation series runs once over its points (nodes.shared_at_points),
+    # and each matrix is what it is computed alone.
+    calls = []
+    real = iau2000a.nutation_vector
+    monkeypatch.setattr(iau2000a, "nutation_vector", lambda a, b: calls.append(1) or real(a, b))
+    t1, t2s = 2460000.5, [0.1, 0.2, 0.3, 0.4]
+    with nodes.single_cells():
+        for t2 in t2s:
+            nodes.cell_is_dense(t1, t2)
+        shared = {system: frames.matrix_rows(system, t1, 0.4, True)
+                  for system in ("ECLIPTIC TRUE", "EQUATORIAL TRUE")}
+    assert len(calls) == 1
+    nodes.forget_single_cells()  # and again, each system alone
+    for system, rows in shared.items():
+        with nodes.single_cells():
+            for t2 in t2s:
+                nodes.cell_is_dense(t1, t2)
+            assert frames.matrix_rows(system, t1, 0.4, True) == rows
+        nodes.forget_single_cells()
+    assert len(calls) == 3
+
+
 def test_a_segments_values_follow_the_series_inside_it():
     # Nodes.py's own points of a segment give the series' values (Chebyshev interpolation
     # passes through them), and its ends join the next segment's within the bounds.
