@@ -96,7 +96,7 @@ def _nutation_rows(jd1, jd2):
 def nutation_over_nodes(jd1, jd2):
     """The same, interpolated over half-day nodes for a dense column (nodes.py: within
     1.5 uas of the series), computed directly otherwise."""
-    both = nodes.over_nodes(lambda j1, j2: np.stack(_nutation(j1, j2), axis=-1), jd1, jd2)
+    both = nodes.over_nodes(_nutation_rows, jd1, jd2)
     return both[..., 0], both[..., 1]
 
 

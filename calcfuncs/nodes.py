@@ -259,8 +259,13 @@ def from_nodes(quantity, compute, t1, t2):
     return _interpolated(quantity, compute, t1, t2).tolist()
 
 
+def _segment_of(t1, t2):
+    """The segment (its number from J2000.0) that holds the TT instant ``t1 + t2``."""
+    return math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)
+
+
 def _interpolated(quantity, compute, t1, t2):
-    segment = math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)  # as _dense_cell
+    segment = _segment_of(t1, t2)
     start = SEGMENT_ORIGIN + segment * SEGMENT_DAYS
     coefficients = _SEGMENTS.get((quantity, segment))
     if coefficients is None:
@@ -307,7 +312,7 @@ def _dense_cell(t1, t2):
         return last[2] if last[3] else None
     if not math.isfinite(t1 + t2):
         return None
-    segment = math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)
+    segment = _segment_of(t1, t2)
     dense = _note(segment, t1, t2)
     _LAST_ONE[0] = (t1, t2, segment, dense)
     return segment if dense else None
