@@ -250,17 +250,16 @@ def _direction_floats(body, t1, t2, kind, dense=False):
     the Earth's and the Sun's kept states, or, ``dense``, from their segment (a cell of a
     log filled down, nodes.cell_is_dense).  Kept for the row's other columns."""
     states = _states_floats(t1, t2, dense)
+    (ex, ey, ez), ev, (sx, sy, sz), sv = states
     if body == "SUN":  # _sun_geocentric's steps
-        ep, ev, sp, sv = states
-        g = [sp[k] - ep[k] for k in range(3)]
+        g = (sx - ex, sy - ey, sz - ez)
         distance = _length(g)
         if kind == "GEOMETRIC":
-            return [x / distance for x in g]
+            return [g[0] / distance, g[1] / distance, g[2] / distance]
         tau = distance * LIGHT_DAYS_PER_AU
-        u = _direction([g[k] - tau * sv[k] for k in range(3)])
+        u = _direction((g[0] - tau * sv[0], g[1] - tau * sv[1], g[2] - tau * sv[2]))
         return _aberrate_floats(u, ev, distance) if kind == "APPARENT" else u
-    ep, ev, sp, sv = states
-    earth_helio = ([ep[k] - sp[k] for k in range(3)], [ev[k] - sv[k] for k in range(3)])
+    earth_helio = ((ex - sx, ey - sy, ez - sz), (ev[0] - sv[0], ev[1] - sv[1], ev[2] - sv[2]))
     return _place_floats(ephemeris.heliocentric_floats(body, t1, t2, earth_helio), states, kind)
 
 
@@ -280,15 +279,20 @@ def _states_floats(t1, t2, dense):
     return ephemeris.earth_and_sun_floats(t1, t2)
 
 
+# The steps on floats below write each vector's three components out rather than in
+# comprehensions: Python 3.11 runs a comprehension as a function call of its own, and a
+# place made of some thirty of them spent a third of its time calling them.
+
+
 def _place_floats(helio_at, states, kind):
     """``place``'s steps on floats for a body whose heliocentric position at the light
     time ``tau`` is ``helio_at(tau)``, from the barycentric states of the Earth and the
     Sun at the instant."""
-    ep, ev, sp, sv = states
-    earth_helio = [ep[k] - sp[k] for k in range(3)]
+    (ex, ey, ez), ev, (sx, sy, sz), (svx, svy, svz) = states
 
-    def geocentric(helio, tau):  # the Sun at t - tau from its slow motion at t
-        return [helio[k] + (sp[k] - tau * sv[k]) - ep[k] for k in range(3)]
+    def geocentric(h, tau):  # the Sun at t - tau from its slow motion at t
+        return (h[0] + (sx - tau * svx) - ex, h[1] + (sy - tau * svy) - ey,
+                h[2] + (sz - tau * svz) - ez)
 
     helio = helio_at(0.0)
     vector = geocentric(helio, 0.0)
@@ -300,15 +304,16 @@ def _place_floats(helio_at, states, kind):
         for _ in range(LIGHT_TIME_ROUNDS - 1):
             tau = _length(vector) * LIGHT_DAYS_PER_AU
             f = (tau1 - tau) / tau1
-            helio = [at_tau1[k] + f * (first[k] - at_tau1[k]) for k in range(3)]
+            helio = (at_tau1[0] + f * (first[0] - at_tau1[0]),
+                     at_tau1[1] + f * (first[1] - at_tau1[1]),
+                     at_tau1[2] + f * (first[2] - at_tau1[2]))
             vector = geocentric(helio, tau)
     u = _direction(vector)
     if kind != "APPARENT":
         return u
-    em = _length(earth_helio)
-    e = [x / em for x in earth_helio]
-    return _aberrate_floats(erfa.ufunc.ld(1.0, u, _direction(helio), e, em, 1e-9).tolist(),
-                            ev, em)
+    em = _length((ex - sx, ey - sy, ez - sz))
+    e = ((ex - sx) / em, (ey - sy) / em, (ez - sz) / em)
+    return _aberrate_floats(_deflect_floats(u, _direction(helio), e, em), ev, em)
 
 
 def _length(v):
@@ -317,14 +322,48 @@ def _length(v):
 
 def _direction(v):
     size = _length(v)
-    return [x / size for x in v]
+    return [v[0] / size, v[1] / size, v[2] / size]
+
+
+# The Sun's Schwarzschild radius 2GM/c^2 in au (the IAU 2009 constants), the scale of
+# both relativistic terms below; ERFA's ERFA_SRS holds the same number.
+SUN_SCHWARZSCHILD_AU = 1.97412574336e-8
+
+# The two steps below are the formulas ERFA's ab and ld evaluate, written out on Python
+# floats: a cell's direction is three floats, and an ERFA call on them (broadcasting,
+# a structured result, a list made of it) costs three times the arithmetic, and more in
+# Calc, where every numpy or ERFA call of a cell's path comes back from memory.
+# tests/test_float_places.py holds them to ERFA's own to 1e-15 over random inputs.
 
 
 def _aberrate_floats(u, earth_v, sun_distance):
-    """``_aberrate`` of one direction on floats."""
-    c = [x * LIGHT_DAYS_PER_AU for x in earth_v]
-    bm1 = math.sqrt(1.0 - (c[0] * c[0] + c[1] * c[1] + c[2] * c[2]))
-    return erfa.ufunc.ab(u, c, sun_distance, bm1).tolist()
+    """``_aberrate`` of one direction on floats: the relativistic annual aberration of
+    the unit vector ``u`` for an observer moving at ``earth_v`` (au/day, barycentric)
+    at ``sun_distance`` au from the Sun, with the Sun's potential's small term (the
+    Explanatory Supplement, 3rd ed., eq. 7.40, as ERFA ab takes it)."""
+    (ux, uy, uz), (vx, vy, vz) = u, earth_v
+    bx, by, bz = vx * LIGHT_DAYS_PER_AU, vy * LIGHT_DAYS_PER_AU, vz * LIGHT_DAYS_PER_AU  # v/c
+    root = math.sqrt(1.0 - (bx * bx + by * by + bz * bz))  # 1 / the Lorentz factor
+    ub = ux * bx + uy * by + uz * bz
+    along = 1.0 + ub / (1.0 + root)
+    potential = SUN_SCHWARZSCHILD_AU / sun_distance
+    return _direction((root * ux + along * bx + potential * (bx - ub * ux),
+                       root * uy + along * by + potential * (by - ub * uy),
+                       root * uz + along * bz + potential * (bz - ub * uz)))
+
+
+def _deflect_floats(u, q, e, sun_earth):
+    """The Sun's deflection of the light of a body at a finite distance, on floats: ``u``
+    the body's direction from the Earth, ``q`` its direction from the Sun, ``e`` the
+    Earth's from the Sun, all unit vectors, the Earth ``sun_earth`` au from the Sun (the
+    Explanatory Supplement, 3rd ed., eq. 7.64; ERFA ld with one solar mass and its
+    floor of 1e-9 on 1 + q.e, which keeps a body behind the Sun finite)."""
+    (ux, uy, uz), (qx, qy, qz), (ex, ey, ez) = u, q, e
+    scale = SUN_SCHWARZSCHILD_AU / sun_earth / max(
+        qx * (qx + ex) + qy * (qy + ey) + qz * (qz + ez), 1e-9)
+    ax, ay, az = ey * qz - ez * qy, ez * qx - ex * qz, ex * qy - ey * qx  # e x q
+    return [ux + scale * (uy * az - uz * ay), uy + scale * (uz * ax - ux * az),
+            uz + scale * (ux * ay - uy * ax)]
 
 
 def _value_floats(direction, t1, t2, system, index, dense=False):
@@ -366,19 +405,12 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
     inside BUILTIN_YEARS, on floats row by row (``_value_floats``; a cell of a log filled
     down with its Earth and matrix from their segments); None when no row is (another
     body, a dense column: its nodes are interpolated on arrays)."""
-    direction = _directions_on_floats(body, kind, tt1.size)
-    if direction is None:
-        return None
     if tt1.size == 1:
-        t1, t2 = float(tt1.flat[0]), float(tt2.flat[0])
-        if not within_years_one(t1, t2, BUILTIN_YEARS):
-            return None
-        try:
-            return _value_floats(lambda a, b, d: direction(0, a, b, d), t1, t2, system, index,
-                                 nodes.cell_is_dense(t1, t2)), True
-        except _FLOAT_FAILURES:
-            return None
-    if nodes.dense(tt1, tt2) is not None:
+        value = one_on_floats(body, float(tt1.flat[0]), float(tt2.flat[0]), system, kind,
+                              index)
+        return None if value is None else (value, True)
+    direction = _directions_on_floats(body, kind, tt1.size)
+    if direction is None or nodes.dense(tt1, tt2) is not None:
         return None
     values = np.full(tt1.shape, np.nan)
     done = np.zeros(tt1.shape, dtype=bool)
@@ -392,6 +424,32 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
                 continue
             mask[k] = True
     return (values, done) if mask.any() else None
+
+
+def one_on_floats(body, t1, t2, system, kind, index):
+    """``rows_on_floats``'s value for one TT instant (floats) of a single cell, or None
+    where the float path does not take it (another body, outside BUILTIN_YEARS, a step
+    that fails): the Earth and the matrix from their segments in a dense log."""
+    direction = _directions_on_floats(body, kind, 1)
+    if direction is None or not within_years_one(t1, t2, BUILTIN_YEARS):
+        return None
+    try:
+        return _value_floats(lambda a, b, d: direction(0, a, b, d), t1, t2, system, index,
+                             nodes.cell_is_dense(t1, t2))
+    except _FLOAT_FAILURES:
+        return None
+
+
+def cell_on_floats(body, time, system, kind, source, index):
+    """A place cell's twin on floats (cells.py's float lane): the longitude or latitude
+    of ``spherical_component`` for one TT instant given as two floats ``time``, with the
+    same value to the bit, or None where the lane does not take it (another source or
+    body; then the cell's usual path)."""
+    if source != BUILTIN:
+        return None
+    with nodes.single_cells():
+        value = one_on_floats(body, *time, system, kind, index)
+    return None if value is None else shown_longitudes(value, index)
 
 
 # A body's longitude or right ascension within WRAP_MARGIN_DEG below 360 reads 0.  At an
@@ -446,6 +504,10 @@ def place_cells(body):
         def cells(time, frame="TRUE", kind="APPARENT", source=BUILTIN):
             with nodes.single_cells():  # a log filled down: nodes.for_one
                 return spherical_component(body, *time.tt(), systems[frame], kind, source, index)
+
+        def on_floats(time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+            return cell_on_floats(body, time, systems[frame], kind, source, index)
+        cells.on_floats = on_floats
         return cells
 
     return (component(ECLIPTIC_OF_FRAME, 0), component(ECLIPTIC_OF_FRAME, 1),

@@ -101,13 +101,16 @@ def heliocentric_floats(body, t1, t2, earth_helio):
 
         def at(tau):
             dt = (t1 - t1) + ((t2 - tau) - t2)
-            return [(m[k] + dt * mv[k]) + (p[k] + dt * v[k]) for k in range(3)]
+            return ((m[0] + dt * mv[0]) + (p[0] + dt * v[0]),
+                    (m[1] + dt * mv[1]) + (p[1] + dt * v[1]),
+                    (m[2] + dt * mv[2]) + (p[2] + dt * v[2]))
         return at
-    number, b = PLAN94_NUMBERS[body], _BIAS_ROWS
+    number, (b0, b1, b2) = PLAN94_NUMBERS[body], _BIAS_ROWS
 
     def at(tau):
         x, y, z = erfa.ufunc.plan94(t1, t2 - tau, number)[0]["p"].tolist()
-        return [b[0][k] * x + b[1][k] * y + b[2][k] * z for k in range(3)]
+        return (b0[0] * x + b1[0] * y + b2[0] * z, b0[1] * x + b1[1] * y + b2[1] * z,
+                b0[2] * x + b1[2] * y + b2[2] * z)
     return at
 
 

@@ -279,7 +279,7 @@ def _interpolated(quantity, compute, t1, t2):
         x = min(1.0, max(-1.0, ((t1 - start) + t2) * (2.0 / SEGMENT_DAYS) - 1.0))
         polynomials = np.cos(_ORDERS * math.acos(x))
         _LAST_POLYNOMIALS[0] = (t1, t2, polynomials)
-    return np.dot(polynomials, coefficients)
+    return polynomials.dot(coefficients)
 
 
 def shared_at_points(name, compute, jd1, jd2):

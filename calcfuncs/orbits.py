@@ -84,11 +84,7 @@ def _stumpff_of_float(v):
     Python floats (IEEE double arithmetic, as numpy's), the closed forms with numpy's own
     sqrt, cos, sin, cosh and sinh, so a cell equals its row of a column to the bit."""
     if abs(v) < _SERIES_LIMIT:
-        cs = ss = 0.0
-        for c_k, s_k in zip(_C_SERIES[::-1], _S_SERIES[::-1]):
-            cs = c_k - v * cs
-            ss = s_k - v * ss
-        return cs, ss
+        return _stumpff_series(v)
     if v > 0:
         w = np.sqrt(v)
         return (1.0 - np.cos(w)) / v, (w - np.sin(w)) / (w * v)
@@ -96,6 +92,18 @@ def _stumpff_of_float(v):
         w = np.sqrt(-v)
         return (np.cosh(w) - 1.0) / -v, (np.sinh(w) - w) / (w * -v)
     return math.nan, math.nan  # (NaN: no branch takes it)
+
+
+_C_SERIES_DOWN, _S_SERIES_DOWN = _C_SERIES[::-1], _S_SERIES[::-1]
+
+
+def _stumpff_series(v):
+    """c(v) and s(v) by their series (Horner's scheme, from the last term), |v| small."""
+    cs = ss = 0.0
+    for c_k, s_k in zip(_C_SERIES_DOWN, _S_SERIES_DOWN):
+        cs = c_k - v * cs
+        ss = s_k - v * ss
+    return cs, ss
 
 
 class Orbit:
@@ -465,8 +473,9 @@ def _fg_series_floats(pos, vel, h):
     v2 = vel[0] * vel[0] + vel[1] * vel[1] + vel[2] * vel[2]
     w = v2 / r2 - u
     f, g, f_dot, g_dot, h2, h3 = _series_coefficients(u, s, h)
-    out_p = [f * pos[k] + g * vel[k] for k in range(3)]
-    out_v = [f_dot * pos[k] + g_dot * vel[k] for k in range(3)]
+    (px, py, pz), (vx, vy, vz) = pos, vel
+    out_p = (f * px + g * vx, f * py + g * vy, f * pz + g * vz)
+    out_v = (f_dot * px + g_dot * vx, f_dot * py + g_dot * vy, f_dot * pz + g_dot * vz)
     fourth = abs(u * (3.0 * w - 15.0 * s * s + u)) * r / 24.0 + abs(u * s) * math.sqrt(v2) / 4.0
     near = (10.0 * fourth * h2 * h2 <= SERIES_POSITION_AU
             and 40.0 * fourth * abs(h3) <= SERIES_VELOCITY_AU_DAY)
@@ -494,14 +503,27 @@ def _propagate_floats(q, e, p_hat, q_hat, dt):
     z = alpha * x * x
     c, s = _stumpff_floats(z)
     fq, gv, fdq, gdv = _along_p_and_q(q, e, x, z, c, s, wrapped, math.sqrt(GM_SUN * (1.0 + e) / q))
-    return ([fq * p_hat[k] + gv * q_hat[k] for k in range(3)],
-            [fdq * p_hat[k] + gdv * q_hat[k] for k in range(3)])
+    (px, py, pz), (qx, qy, qz) = p_hat, q_hat
+    return ((fq * px + gv * qx, fq * py + gv * qy, fq * pz + gv * qz),
+            (fdq * px + gdv * qx, fdq * py + gdv * qy, fdq * pz + gdv * qz))
 
 
 def _stumpff_floats(z):
-    """``_stumpff_of_float`` as Python floats (its closed forms give numpy's)."""
-    c, s = _stumpff_of_float(z)
-    return float(c), float(s)
+    """``_stumpff_of_float`` on Python floats, its closed forms by the math module: a
+    numpy function called on one float costs a microsecond, and an orbit's place calls
+    this seven times.  A cell and every row a column computes on floats take this one
+    function, so they agree to the bit; against numpy's closed forms (the arrays' path)
+    the place differs in its last bits at most (tests/test_float_places.py).  A cosh
+    that overflows raises, and the row is computed on arrays (bodies._FLOAT_FAILURES)."""
+    if abs(z) < _SERIES_LIMIT:
+        return _stumpff_series(z)
+    if z > 0:
+        w = math.sqrt(z)
+        return (1.0 - math.cos(w)) / z, (w - math.sin(w)) / (w * z)
+    if z < 0:
+        w = math.sqrt(-z)
+        return (math.cosh(w) - 1.0) / -z, (math.sinh(w) - w) / (w * -z)
+    return math.nan, math.nan  # (NaN: no branch takes it)
 
 
 def _laguerre_step_floats(x, q, e, alpha, target):
@@ -517,6 +539,11 @@ def _laguerre_step_floats(x, q, e, alpha, target):
     return x - step, abs(step) <= 1e-13 * max(abs(x), 1e-300) + 1e-300
 
 
+# The cube root of a float: the math module's from Python 3.11, numpy's before (the
+# one a cell's and a column's rows on floats alike take on a given Python).
+_cube_root = getattr(math, "cbrt", None) or (lambda v: float(np.cbrt(v)))
+
+
 def _first_guess_floats(q, e, alpha, target):
     """``_first_guess`` of one row on floats."""
     if e < 1e-8:  # a circle: x = sqrt(GM) dt / a
@@ -525,7 +552,7 @@ def _first_guess_floats(q, e, alpha, target):
         p = 6.0 * q / e
         r = 6.0 * target / e
         disc = math.sqrt((r / 2.0) ** 2 + (p / 3.0) ** 3)
-        u = float(np.cbrt(abs(r) / 2.0 + disc))
+        u = _cube_root(abs(r) / 2.0 + disc)
         x = math.copysign(1.0, r) * (u - p / (3.0 * u)) if r != 0.0 else 0.0
     if alpha < 0:
         sa = math.sqrt(-alpha)

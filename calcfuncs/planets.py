@@ -88,20 +88,22 @@ def _spherical_in(body, time, system, kind, source, index):
         return bodies.spherical_component(body, *time.tt(), system, kind, source, index)
 
 
-def lon_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source, 0)
+def _place_cell(systems, index):
+    """A cell function of a planet's place (longitude or latitude, ``index`` 0 or 1, in
+    the system of ``systems[frame]``), with its twin on floats (cells.py's float lane)."""
+    def cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+        return _spherical_in(body, time, systems[frame], kind, source, index)
+
+    def on_floats(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
+        return bodies.cell_on_floats(body, time, systems[frame], kind, source, index)
+    cells.on_floats = on_floats
+    return cells
 
 
-def lat_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, ECLIPTIC_OF_FRAME[frame], kind, source, 1)
-
-
-def ra_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source, 0)
-
-
-def dec_cells(body, time, frame="TRUE", kind="APPARENT", source=BUILTIN):
-    return _spherical_in(body, time, EQUATORIAL_OF_FRAME[frame], kind, source, 1)
+lon_cells = _place_cell(ECLIPTIC_OF_FRAME, 0)
+lat_cells = _place_cell(ECLIPTIC_OF_FRAME, 1)
+ra_cells = _place_cell(EQUATORIAL_OF_FRAME, 0)
+dec_cells = _place_cell(EQUATORIAL_OF_FRAME, 1)
 
 
 def dist_cells(body, time, source=BUILTIN):

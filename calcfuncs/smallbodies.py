@@ -238,20 +238,26 @@ def _spherical_of(orbit, time, system, kind, source, model, index):
     return values
 
 
-def ra_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model, 0)
+def _place_cell(systems, index):
+    """A cell function of an orbit's place (longitude or latitude, ``index`` 0 or 1, in
+    the system of ``systems[frame]``), with its twin on floats (cells.py's float lane)
+    for a two-body orbit of the built-in source."""
+    def cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+        return _spherical(orbit, time, systems[frame], kind, source, model, index)
+
+    def on_floats(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
+        if model != TWO_BODY:
+            return None
+        return bodies.cell_on_floats(mpcformat.orbits_of(orbit), time, systems[frame], kind,
+                                     source, index)
+    cells.on_floats = on_floats
+    return cells
 
 
-def dec_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, EQUATORIAL_OF_FRAME[frame], kind, source, model, 1)
-
-
-def lon_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model, 0)
-
-
-def lat_cells(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
-    return _spherical(orbit, time, ECLIPTIC_OF_FRAME[frame], kind, source, model, 1)
+ra_cells = _place_cell(EQUATORIAL_OF_FRAME, 0)
+dec_cells = _place_cell(EQUATORIAL_OF_FRAME, 1)
+lon_cells = _place_cell(ECLIPTIC_OF_FRAME, 0)
+lat_cells = _place_cell(ECLIPTIC_OF_FRAME, 1)
 
 
 # ---- seen from a site --------------------------------------------------------------------

@@ -72,6 +72,13 @@ def solar_longitude_cells(time):
     return lon_cells(time, "J2000", "APPARENT")
 
 
+def _solar_longitude_on_floats(time):
+    return lon_cells.on_floats(time, "J2000", "APPARENT")
+
+
+solar_longitude_cells.on_floats = _solar_longitude_on_floats
+
+
 def equation_of_time_minutes(time):
     """Apparent minus mean solar time, in minutes (positive: a sundial is fast)."""
     ut = time.to("UT")

@@ -31,6 +31,7 @@ from .timescales import (
     leap_table,
     split_days,
     utc_day_lengths,
+    utc_on_tt_floats,
 )
 from .vocabulary import J2000_JD, MJD_ZERO, UTC_START_JD
 
@@ -232,6 +233,24 @@ def read_utc_serial(v, null_jd):
     """One UTC date-time value (a float) as one-row two-part JDs, as ``read_times``
     reads it, or None where that reading has more to do (a message to give, a UTC step
     day, a date before 1960): the quick path of a single cell."""
+    found = _utc_serial_floats(v, null_jd)
+    if found is None:
+        return None
+    return np.array([found[0]]), np.array([found[1]])
+
+
+def utc_serial_on_tt(v, null_jd):
+    """One UTC date-time value on TT as two floats (day, fraction), as ``read_utc_serial``
+    and then Instants.tt give it, to the bit (timescales.utc_on_tt_floats), without the
+    arrays: a cell's float lane (cells.py).  None where either has more to do (the
+    usual path then)."""
+    found = _utc_serial_floats(v, null_jd)
+    if found is None:
+        return None
+    return utc_on_tt_floats(*found)
+
+
+def _utc_serial_floats(v, null_jd):
     global _STEP_DAY_SET
     if _serial_problem(v, null_jd) is not None:
         return None
@@ -242,7 +261,7 @@ def read_utc_serial(v, null_jd):
     fraction = v - whole
     if day_start in _STEP_DAY_SET or day_start + fraction < UTC_START_JD:
         return None
-    return np.array([day_start]), np.array([fraction])
+    return day_start, fraction
 
 
 def _serial_problem(v, null_jd):

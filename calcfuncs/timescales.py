@@ -284,6 +284,16 @@ def _steady_day_offset(day):
     return offsets[bisect.bisect_right(starts, day) - 1]
 
 
+def utc_on_tt_floats(day, fraction):
+    """A UTC instant (the day's start, a JD ending in .5, and the fraction of it in
+    [0, 1)) on TT as two floats, on a day of one TAI - UTC from 1972
+    (``_steady_day_offset``), as ERFA's utctai and taitt give it; None on other days."""
+    offset = _steady_day_offset(day) if 0.0 <= fraction < 1.0 else None
+    if offset is None:
+        return None
+    return day, (fraction + offset) + _TT_MINUS_TAI_DAYS
+
+
 class Instants:
     """An array of instants on one time scale, held as two-part JDs.
 
@@ -355,11 +365,10 @@ class Instants:
         a few rows (utc_to_tai, _from_tai), without its dispatch (8 us of a cell -> 3),
         or on floats for a whole day of one TAI - UTC (``_utc_tt_on_floats``); None where
         ERFA says the date is not acceptable (the general path says why)."""
-        d, f = self.jd1.item(), self.jd2.item()
-        offset = _steady_day_offset(d) if 0.0 <= f < 1.0 else None
-        if offset is not None:
+        found = utc_on_tt_floats(self.jd1.item(), self.jd2.item())
+        if found is not None:
             tt = self._derived["TT"] = Instants.unchecked(
-                self.jd1, np.array([(f + offset) + _TT_MINUS_TAI_DAYS]), "TT", self.dut1)
+                self.jd1, np.array([found[1]]), "TT", self.dut1)
             return tt
         tai1, tai2, status = erfa.ufunc.utctai(self.jd1, self.jd2)
         if status.item() < 0:

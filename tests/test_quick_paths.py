@@ -20,6 +20,8 @@ from calcfuncs import cells, frames, nodes, timeinput, timescales, vectors
 from calcfuncs.errors import PREFIX, SkyError
 
 NULL_JD = 2415018.5  # Calc's default null date 1899-12-30 (PLATFORM-NOTES.md)
+ORBIT_LINE = ("K26S01A 12.40  0.15 K2731 210.00000  112.40000  203.70000    6.30000  "
+              "0.1280000  0.23347711   2.6120000")  # the invented asteroid of the samples
 
 
 def _general(v, null_jd=NULL_JD):
@@ -411,3 +413,63 @@ def test_the_kept_conversions_stay_within_their_bounds(monkeypatch):
     monkeypatch.setattr(timescales, "_ONE_SHOWN", _Forgetful())
     monkeypatch.setattr(cells, "_ONE_VALUE", _Forgetful())
     assert _phase_cells(serials) == got
+
+
+PLACE_CELLS = [  # (name, the arguments before the time, after it) of each place twin
+    ("SKY.SUN.LON", (), ()), ("SKY.SUN.LAT", (), (None, "DATE")),
+    ("SKY.SUN.RA", (), (None, "J2000", "ASTROMETRIC")), ("SKY.SUN.DEC", (), (None, "J2000")),
+    ("SKY.SUN.SOLARLON", (), ()), ("SKY.MOON.LON", (), (None, "J2000")),
+    ("SKY.MOON.LAT", (), ()), ("SKY.MOON.RA", (), (None, "TRUE", "GEOMETRIC")),
+    ("SKY.MOON.DEC", (), ()), ("SKY.PLANET.LON", ("MERCURY",), ()),
+    ("SKY.PLANET.LAT", ("NEPTUNE",), (None, "DATE")), ("SKY.PLANET.RA", ("MARS",), ()),
+    ("SKY.PLANET.DEC", ("JUPITER",), (None, "J2000", "ASTROMETRIC")),
+    ("SKY.ORBIT.RA", (ORBIT_LINE,), ()), ("SKY.ORBIT.DEC", (ORBIT_LINE,), (None, "J2000")),
+    ("SKY.ORBIT.LON", (ORBIT_LINE,), ()), ("SKY.ORBIT.LAT", (ORBIT_LINE,), (None, "DATE")),
+]
+
+
+def test_a_place_cell_takes_the_float_lane_and_gives_its_row_of_a_column(monkeypatch):
+    # A place cell whose instant is a UTC date-time value on a day of one TAI - UTC
+    # (1972 on, no leap second at its end) is read straight onto TT as floats and handed
+    # to the function's twin on floats (cells._on_floats): no Instants, no arrays.  The
+    # range form of one row (the general path) is the reference, to the bit.  Cells
+    # spread thinner than a log (no segments: DENSE_CELLS) so both compute directly.
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    rng = np.random.default_rng(61)
+    serials = rng.uniform(26000.0, 70000.0, 8).tolist()  # 1971-2091, floats as from Calc
+    usual = cells.read_utc_serial
+    calls = []
+    monkeypatch.setattr(cells, "read_utc_serial", lambda *a: calls.append(1) or usual(*a))
+    for name, before, after in PLACE_CELLS:
+        for s in serials:
+            cells._SINGLE_CELL_CACHE.clear()
+            got = cells.evaluate(name, [*before, s, *after])
+            steady = timescales.utc_on_tt_floats(
+                *timeinput._utc_serial_floats(s, NULL_JD)) is not None
+            assert bool(calls) != steady, (name, s)  # the lane, unless a 1971 day
+            calls.clear()
+            want = cells.evaluate(name, [*before, ((s,),), *after])[0][0]
+            assert isinstance(got, float) and got == want, (name, s, got, want)
+
+
+def test_the_float_lane_leaves_other_cells_to_the_usual_path(monkeypatch):
+    # A place cell the lane does not take answers as before: a leap second's day and
+    # last second, a day of 1968 (UTC's old steps), a date in TT, a year beyond the
+    # built-in theories (3542: the long-range path), a planet name that is no planet
+    # (its message).
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    lane = cells._on_floats
+    taken = []
+    monkeypatch.setattr(cells, "_on_floats", lambda *a: taken.append(lane(*a)) or taken[-1])
+    leap_eve = float(timeinput._utc_step_days()[-1] - NULL_JD)  # 2016-12-31
+    cases = [("SKY.SUN.LON", [leap_eve + 0.5]), ("SKY.SUN.LON", [leap_eve + 0.99999]),
+             ("SKY.MOON.RA", [25000.3]), ("SKY.SUN.LON", [45000.3, "TT"]),
+             ("SKY.SUN.LON", [600000.5]), ("SKY.PLANET.RA", ["PLUTO", 45000.3])]
+    for name, args in cases:
+        cells._SINGLE_CELL_CACHE.clear()
+        got = cells.evaluate(name, args)
+        assert all(found is None for found in taken), (name, args)
+        taken.clear()
+        want = cells.evaluate(name, [((a,),) if type(a) is float else a for a in args])[0][0]
+        assert got == want, (name, args, got, want)
+    assert cells.evaluate("SKY.PLANET.RA", ["PLUTO", 45000.3]).startswith(PREFIX)
