@@ -79,18 +79,19 @@ def _stumpff_one(z):
     return np.full(z.shape, c), np.full(z.shape, s)
 
 
-def _stumpff_of_float(v):
+def _stumpff_of_float(v, functions=np):
     """``stumpff`` of one float by the same operations in the same order: the series in
     Python floats (IEEE double arithmetic, as numpy's), the closed forms with numpy's own
-    sqrt, cos, sin, cosh and sinh, so a cell equals its row of a column to the bit."""
+    sqrt, cos, sin, cosh and sinh, so a cell equals its row of a column to the bit (or
+    with those of ``functions``: ``_stumpff_floats``)."""
     if abs(v) < _SERIES_LIMIT:
         return _stumpff_series(v)
     if v > 0:
-        w = np.sqrt(v)
-        return (1.0 - np.cos(w)) / v, (w - np.sin(w)) / (w * v)
+        w = functions.sqrt(v)
+        return (1.0 - functions.cos(w)) / v, (w - functions.sin(w)) / (w * v)
     if v < 0:
-        w = np.sqrt(-v)
-        return (np.cosh(w) - 1.0) / -v, (np.sinh(w) - w) / (w * -v)
+        w = functions.sqrt(-v)
+        return (functions.cosh(w) - 1.0) / -v, (functions.sinh(w) - w) / (w * -v)
     return math.nan, math.nan  # (NaN: no branch takes it)
 
 
@@ -515,15 +516,7 @@ def _stumpff_floats(z):
     function, so they agree to the bit; against numpy's closed forms (the arrays' path)
     the place differs in its last bits at most (tests/test_float_places.py).  A cosh
     that overflows raises, and the row is computed on arrays (bodies._FLOAT_FAILURES)."""
-    if abs(z) < _SERIES_LIMIT:
-        return _stumpff_series(z)
-    if z > 0:
-        w = math.sqrt(z)
-        return (1.0 - math.cos(w)) / z, (w - math.sin(w)) / (w * z)
-    if z < 0:
-        w = math.sqrt(-z)
-        return (math.cosh(w) - 1.0) / -z, (math.sinh(w) - w) / (w * -z)
-    return math.nan, math.nan  # (NaN: no branch takes it)
+    return _stumpff_of_float(z, math)
 
 
 def _laguerre_step_floats(x, q, e, alpha, target):
