@@ -141,7 +141,12 @@ def over_nodes(compute, jd1, jd2):
 # the segment takes its values from them: a cosine of twenty angles and one small
 # matrix product.  A log of two instants a day pays the segment's twenty points once
 # for its thirty-odd cells; a sheet of instants spread over the years never reaches the
-# count, is computed directly and pays about 3 us a cell for the noting.
+# count, is computed directly and pays about 3 us a cell for the noting.  A segment
+# next to one that reached the count is made at its first cell: a log filled down
+# computes directly only the first cells of its first segment, not of every one (in
+# Calc those cells had cost about as much as making the segments, 2026-12-05).  That
+# does not pass on: a segment made so counts as dense for its neighbours only once it
+# reaches the count itself, so a sparse stretch beside a dense one makes one segment.
 # A place cell takes two quantities so (bodies._value_floats): the Earth's state, and the
 # matrix of its coordinate system (frames.matrix_rows: the IAU 2006/2000A matrix of the
 # dated systems, the nutation computed over the points with it), each a table of its own.
@@ -320,7 +325,7 @@ def _dense_cell(t1, t2):
 
 def _note(segment, t1, t2):
     """Note an instant asked for in ``segment``; whether the cells are dense in it
-    (DENSE_CELLS distinct instants asked for)."""
+    (DENSE_CELLS distinct instants asked for in it, or in a segment next to it)."""
     asked = _ASKED.get(segment)
     if asked is None:
         asked = set()
@@ -328,4 +333,11 @@ def _note(segment, t1, t2):
     if len(asked) >= DENSE_CELLS:  # (no more kept: the count is all that is asked of it)
         return True
     asked.add((t1, t2))
-    return len(asked) >= DENSE_CELLS
+    return (len(asked) >= DENSE_CELLS or _counted_dense(segment - 1)
+            or _counted_dense(segment + 1))
+
+
+def _counted_dense(segment):
+    """Whether DENSE_CELLS distinct instants were asked for in ``segment`` itself."""
+    asked = _ASKED.get(segment)
+    return asked is not None and len(asked) >= DENSE_CELLS

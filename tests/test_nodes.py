@@ -205,6 +205,24 @@ def test_a_segments_values_follow_the_series_inside_it():
     assert len(nodes._SEGMENTS) == 2
 
 
+def test_a_log_filled_down_makes_each_next_segment_at_its_first_cell():
+    # A log of two instants a day over three segments: the first DENSE_CELLS - 1 cells
+    # of the first segment are computed directly, every later one takes its segment,
+    # the first cell of each next segment included.  A sparse stretch beside a dense
+    # segment (one instant in each of the next three) makes only the segment next to it.
+    start = nodes.SEGMENT_ORIGIN + 100 * nodes.SEGMENT_DAYS
+    log = [start + 0.5 * k + 0.1 for k in range(int(3 * nodes.SEGMENT_DAYS / 0.5))]
+    decided = [nodes._dense_cell(t, 0.0) is not None for t in log]
+    first = nodes.DENSE_CELLS - 1
+    assert decided == [False] * first + [True] * (len(log) - first)
+    later = start + 50 * nodes.SEGMENT_DAYS
+    for k in range(nodes.DENSE_CELLS):  # a dense segment
+        assert (nodes._dense_cell(later + 0.2 * k, 0.0) is not None) == (k == first)
+    sparse = [nodes._dense_cell(later + 0.5 + j * nodes.SEGMENT_DAYS, 0.0) is not None
+              for j in (1, 2, 3)]
+    assert sparse == [True, False, False]
+
+
 def test_sparse_single_cells_and_calls_outside_cells_are_computed_directly():
     with nodes.single_cells():
         for k in range(200):  # one instant every 9 days: at most two in a segment
