@@ -430,12 +430,20 @@ def one_on_floats(body, t1, t2, system, kind, index):
     """``rows_on_floats``'s value for one TT instant (floats) of a single cell, or None
     where the float path does not take it (another body, outside BUILTIN_YEARS, a step
     that fails): the Earth and the matrix from their segments in a dense log."""
-    direction = _directions_on_floats(body, kind, 1)
-    if direction is None or not within_years_one(t1, t2, BUILTIN_YEARS):
+    if type(body) is str and body in FLOAT_BODIES:  # (the usual cell: no closure made)
+        def direction(a, b, d):
+            return _direction_floats(body, a, b, kind, d)
+    else:
+        of_row = _directions_on_floats(body, kind, 1)
+        if of_row is None:
+            return None
+
+        def direction(a, b, d):
+            return of_row(0, a, b, d)
+    if not within_years_one(t1, t2, BUILTIN_YEARS):
         return None
     try:
-        return _value_floats(lambda a, b, d: direction(0, a, b, d), t1, t2, system, index,
-                             nodes.cell_is_dense(t1, t2))
+        return _value_floats(direction, t1, t2, system, index, nodes.cell_is_dense(t1, t2))
     except _FLOAT_FAILURES:
         return None
 

@@ -36,14 +36,16 @@ _SINGLE_CELL_CACHE_SIZE = 200_000
 
 
 def _impl(fn):
-    """(the core's function, its parameters' names, its twin on floats or None: see
-    ``_on_floats``)."""
+    """(the core's function, its parameters' names, and its twin on floats with the
+    names and kinds of the row arguments, or None: see ``_on_floats``)."""
     found = _IMPLS.get(fn.method)
     if found is None:
         module, name = fn.impl.split(":")
         func = getattr(importlib.import_module(f"{__package__}.{module}"), name)
+        twin = getattr(func, "on_floats", None)
         found = (func, frozenset(inspect.signature(func).parameters),
-                 getattr(func, "on_floats", None))
+                 twin and (twin, tuple((a.name, a.kind) for a in fn.args
+                                       if a.kind in registry.ROW_KINDS)))
         _IMPLS[fn.method] = found
     return found
 
@@ -493,9 +495,9 @@ def _plain_single(fn, rows, options, null_jd):
     then says what it says.  ``rows``: each row argument's value as the cell holds it (a
     Python float, a text that is no message, or None for an optional number left out)."""
     func, params, twin = _impl(fn)
-    kwargs = {k: v for k, v in options.items() if k in params}
+    kwargs = {k: v for k, v in options.items() if k in params} if options else {}
     if twin is not None and options.get("scale", "UTC") == "UTC":
-        found = _on_floats(fn, twin, rows, kwargs, null_jd)
+        found = _on_floats(*twin, rows, kwargs, null_jd)
         if found is not None:
             return found
     for arg in fn.args:
@@ -551,7 +553,7 @@ def _plain_single(fn, rows, options, null_jd):
     return value if math.isfinite(value) else None
 
 
-def _on_floats(fn, twin, rows, kwargs, null_jd):
+def _on_floats(twin, row_args, rows, kwargs, null_jd):
     """The float lane of a single cell whose function has a twin on floats (its
     ``on_floats``: the places of the Sun, the Moon, the planets and two-body orbits).
     The instant, a UTC date-time value on a day of one TAI - UTC, is read straight onto
@@ -562,19 +564,17 @@ def _on_floats(fn, twin, rows, kwargs, null_jd):
     function gives, to the bit, or None where it does not take the cell; None here sends
     the cell down ``_plain_single``'s usual path, which says what it says."""
     given = dict(kwargs)
-    for arg in fn.args:
-        if arg.kind not in registry.ROW_KINDS:
-            continue
-        value = rows[arg.name]
-        if arg.kind == "time":
+    for name, kind in row_args:
+        value = rows[name]
+        if kind == "time":
             tt = utc_serial_on_tt(value, null_jd) if type(value) is float else None
             if tt is None:
                 return None
-            given[arg.name] = tt
-        elif arg.kind == "text":
+            given[name] = tt
+        elif kind == "text":
             column = np.empty(1, dtype=object)
             column[0] = value
-            given[arg.name] = column
+            given[name] = column
         else:
             return None
     try:
@@ -815,7 +815,7 @@ def _kernel_stamps(fn, raw_args):
         where = _SOURCE_ARGS[fn.method] = tuple(
             k for k, arg in enumerate(fn.args)
             if arg.kind == "source" or arg.name == "source")  # SKY.EPHEMERIS: text
-    if not where:
+    if not where or where[0] >= len(raw_args):  # (none named: a cell leaving it out)
         return ()
     return tuple(ephemeris.content_stamp(raw_args[k]) for k in where
                  if k < len(raw_args) and isinstance(raw_args[k], str))
