@@ -16,7 +16,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import cells, frames, nodes, timeinput, timescales, vectors
+from calcfuncs import bodies, cells, frames, nodes, timeinput, timescales, vectors
 from calcfuncs.errors import PREFIX, SkyError
 
 NULL_JD = 2415018.5  # Calc's default null date 1899-12-30 (PLATFORM-NOTES.md)
@@ -473,3 +473,20 @@ def test_the_float_lane_leaves_other_cells_to_the_usual_path(monkeypatch):
         want = cells.evaluate(name, [((a,),) if type(a) is float else a for a in args])[0][0]
         assert got == want, (name, args, got, want)
     assert cells.evaluate("SKY.PLANET.RA", ["PLUTO", 45000.3]).startswith(PREFIX)
+
+
+def test_a_twin_that_fails_leaves_the_cell_to_the_usual_path(monkeypatch):
+    # The lane only saves time: a twin that raises (a defect, say) sends the cell down
+    # the usual path, which answers as it always did.
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    want = cells.evaluate("SKY.SUN.LON", [((45000.3,),)])[0][0]
+
+    calls = []
+
+    def broken(*args, **kwargs):
+        calls.append(1)
+        raise TypeError("a defect of the lane")
+    monkeypatch.setattr(bodies, "cell_on_floats", broken)
+    cells._SINGLE_CELL_CACHE.clear()
+    assert cells.evaluate("SKY.SUN.LON", [45000.3]) == want
+    assert calls == [1]  # the lane was tried
