@@ -450,13 +450,13 @@ def one_on_floats(body, t1, t2, system, kind, index):
 
 def cell_on_floats(body, time, system, kind, source, index):
     """A place cell's twin on floats (cells.py's float lane): the longitude or latitude
-    of ``spherical_component`` for one TT instant given as two floats ``time``, with the
+    of ``spherical_component`` for one instant (``time``, a timescales.OneUTC), with the
     same value to the bit, or None where the lane does not take it (another source or
     body; then the cell's usual path)."""
     if source != BUILTIN:
         return None
     with nodes.single_cells():
-        value = one_on_floats(body, *time, system, kind, index)
+        value = one_on_floats(body, *time.tt, system, kind, index)
     return None if value is None else shown_longitudes(value, index)
 
 

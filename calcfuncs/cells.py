@@ -19,7 +19,7 @@ from . import ephemeris, registry
 from .angles import parse_angle
 from .bounded import NEWEST, keep
 from .errors import PREFIX, RowErrors, SkyError
-from .timeinput import null_date_jd, read_times, read_utc_serial, to_serial, utc_serial_on_tt
+from .timeinput import null_date_jd, one_utc_serial, read_times, read_utc_serial, to_serial
 from .timescales import DUT1_LIMIT, DateTimes, Instants, check_scale
 from .vocabulary import J2000_JD, SCALE_WORDS, SOURCE_WORDS
 
@@ -44,10 +44,18 @@ def _impl(fn):
         func = getattr(importlib.import_module(f"{__package__}.{module}"), name)
         twin = getattr(func, "on_floats", None)
         found = (func, frozenset(inspect.signature(func).parameters),
-                 twin and (twin, tuple((a.name, a.kind) for a in fn.args
+                 twin and (twin, tuple((a.name, a.kind, _lane_default(a)) for a in fn.args
                                        if a.kind in registry.ROW_KINDS)))
         _IMPLS[fn.method] = found
     return found
+
+
+def _lane_default(arg):
+    """What the float lane hands a twin for a number or angle left out of a cell: its
+    default as a float, or None where it has none to give (the lane then declines)."""
+    if arg.optional and type(arg.default) in (float, int):
+        return float(arg.default)
+    return None
 
 
 def _null_jd(null_date):
@@ -497,7 +505,7 @@ def _plain_single(fn, rows, options, null_jd):
     func, params, twin = _impl(fn)
     kwargs = {k: v for k, v in options.items() if k in params} if options else {}
     if twin is not None and options.get("scale", "UTC") == "UTC":
-        found = _on_floats(*twin, rows, kwargs, null_jd)
+        found = _on_floats(*twin, rows, kwargs, null_jd, options.get("dut1", 0.0))
         if found is not None:
             return found
     for arg in fn.args:
@@ -553,30 +561,38 @@ def _plain_single(fn, rows, options, null_jd):
     return value if math.isfinite(value) else None
 
 
-def _on_floats(twin, row_args, rows, kwargs, null_jd):
+def _on_floats(twin, row_args, rows, kwargs, null_jd, dut1):
     """The float lane of a single cell whose function has a twin on floats (its
-    ``on_floats``: the places of the Sun, the Moon, the planets and two-body orbits).
-    The instant, a UTC date-time value on a day of one TAI - UTC, is read straight onto
-    TT as two floats (timeinput.utc_serial_on_tt) and handed to the twin with the
-    cell's options, a text (an orbit's line) as a column of one as ``_plain_single``
-    hands it.  No Instants and no arrays are made: in Calc each numpy call of a cell's
+    ``on_floats``: the places of the Sun, the Moon, the planets and two-body orbits, the
+    observed place at a site).  The instant, a UTC date-time value on a day of one
+    TAI - UTC, is read straight onto TT as two floats (timeinput.one_utc_serial, a
+    timescales.OneUTC, which also gives its UT1) and handed to the twin with the cell's
+    options, its numbers and angles as floats (one left out as its default), a text (an
+    orbit's line) as a column of one as ``_plain_single`` hands it.  No Instants and no
+    arrays are made: in Calc each numpy call of a cell's
     path costs two to three times what it costs in a loop.  The twin gives the value the
     function gives, to the bit, or None where it does not take the cell; None here sends
     the cell down ``_plain_single``'s usual path, which says what it says.  So does any
     failure of the twin: the lane only saves time, and the usual path reports a defect
     as one (the tests hold the lane to being taken and to the usual path's values)."""
     given = dict(kwargs)
-    for name, kind in row_args:
+    for name, kind, default in row_args:
         value = rows[name]
         if kind == "time":
-            tt = utc_serial_on_tt(value, null_jd) if type(value) is float else None
-            if tt is None:
+            instant = one_utc_serial(value, null_jd, dut1) if type(value) is float else None
+            if instant is None:
                 return None
-            given[name] = tt
+            given[name] = instant
         elif kind == "text":
             column = np.empty(1, dtype=object)
             column[0] = value
             given[name] = column
+        elif type(value) is float:  # a number or an angle
+            if not math.isfinite(value):
+                return None
+            given[name] = value
+        elif value is None and default is not None:  # left out
+            given[name] = default
         else:
             return None
     try:

@@ -282,14 +282,18 @@ def spherical_floats(x, y, z, index):
     """``spherical``'s longitude (``index`` 0, in [0, 360)) or latitude (1), degrees, of
     one vector of floats: the steps of ERFA c2s and anp and of ``degrees_360``."""
     if index == 0:
-        angle = 0.0 if x * x + y * y == 0.0 else math.atan2(y, x)
-        angle = math.fmod(angle, _TURN)
-        if angle < 0.0:
-            angle += _TURN
-        degrees = math.degrees(angle)
-        return 0.0 if degrees >= 360.0 else degrees
+        return degrees_360_float(0.0 if x * x + y * y == 0.0 else math.atan2(y, x))
     xy = x * x + y * y
     return math.degrees(0.0 if z == 0.0 else math.atan2(z, math.sqrt(xy)))
+
+
+def degrees_360_float(radians):
+    """``degrees_360`` of one float: the steps of ERFA anp, then degrees."""
+    angle = math.fmod(radians, _TURN)
+    if angle < 0.0:
+        angle += _TURN
+    degrees = math.degrees(angle)
+    return 0.0 if degrees >= 360.0 else degrees
 
 
 _TURN = 2.0 * math.pi

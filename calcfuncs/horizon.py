@@ -17,14 +17,15 @@ their last bits where the Earth's series is evaluated with numpy (earth_theory.p
 """
 
 import functools
+import math
 
 import erfa
 import numpy as np
 
 from . import earth_theory, ephemeris, frames, nodes
 from .errors import SkyError, rows_failing
-from .frames import check_latitudes, degrees_360
-from .timescales import check_years
+from .frames import check_latitudes, degrees_360, degrees_360_float
+from .timescales import check_years, within_years_one
 from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
@@ -254,6 +255,48 @@ def azimuth_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
                   temperature=10.0, frame="ICRS"):
     aob, _, _, _ = observed(ra, dec, time, latitude, longitude, height, pressure, temperature, frame)
     return degrees_360(aob)
+
+
+def _observed_on_floats(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
+                        temperature=10.0, frame="ICRS"):
+    """``observed``'s (azimuth, zenith distance), radians, of a single cell on floats
+    (cells.py's float lane: ``time`` a timescales.OneUTC, the rest floats), or None
+    where the cell's usual path has more to do: a TRUE place, an input out of range or
+    a date outside the IAU models' years (it gives the message), a refracted place too
+    low.  The same steps and ERFA calls with the same inputs, so the same values to the
+    bit: the site's parameters kept per instant (``_astrom_one``, shared with the
+    usual path and the row's other column), ERFA atciq and atioq on one row."""
+    if frame != "ICRS" or not (abs(dec) <= 90.0 and abs(latitude) <= 90.0
+                               and -1000.0 <= height <= 20000.0 and 0.0 <= pressure <= 1500.0
+                               and -80.0 <= temperature <= 60.0):
+        return None
+    tt1, tt2 = time.tt
+    if not within_years_one(tt1, tt2, IAU2006_YEARS):
+        return None
+    with nodes.single_cells():
+        astrom = _astrom_one(tt1, tt2, *time.ut1(), math.radians(longitude),
+                             math.radians(latitude), float(height), pressure, temperature,
+                             frame, nodes.cell_is_dense(tt1, tt2))
+    ri, di = erfa.ufunc.atciq(math.radians(ra), math.radians(dec), 0.0, 0.0, 0.0, 0.0, astrom)
+    aob, zob = erfa.ufunc.atioq(ri, di, astrom)[:2]
+    aob, zob = aob.item(), zob.item()
+    if pressure > 0.0 and not 90.0 - math.degrees(zob) >= REFRACTION_MIN_ALTITUDE:
+        return None
+    return aob, zob
+
+
+def _altitude_on_floats(*args, **kwargs):
+    found = _observed_on_floats(*args, **kwargs)
+    return None if found is None else 90.0 - math.degrees(found[1])
+
+
+def _azimuth_on_floats(*args, **kwargs):
+    found = _observed_on_floats(*args, **kwargs)
+    return None if found is None else degrees_360_float(found[0])
+
+
+altitude_cells.on_floats = _altitude_on_floats
+azimuth_cells.on_floats = _azimuth_on_floats
 
 
 @_a_log_of_cells

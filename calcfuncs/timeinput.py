@@ -26,6 +26,7 @@ from .timescales import (
     JD_LIMIT,
     LEAP_TABLE_START_JD,
     Instants,
+    OneUTC,
     before_1960_message,
     erfa_quietly,
     leap_table,
@@ -239,15 +240,16 @@ def read_utc_serial(v, null_jd):
     return np.array([found[0]]), np.array([found[1]])
 
 
-def utc_serial_on_tt(v, null_jd):
-    """One UTC date-time value on TT as two floats (day, fraction), as ``read_utc_serial``
-    and then Instants.tt give it, to the bit (timescales.utc_on_tt_floats), without the
-    arrays: a cell's float lane (cells.py).  None where either has more to do (the
-    usual path then)."""
+def one_utc_serial(v, null_jd, dut1=0.0):
+    """One UTC date-time value as a timescales.OneUTC: its TT as two floats, as
+    ``read_utc_serial`` and then Instants.tt give it, to the bit
+    (timescales.utc_on_tt_floats), and its UT1 when asked, without the arrays: a cell's
+    float lane (cells.py).  None where either has more to do (the usual path then)."""
     found = _utc_serial_floats(v, null_jd)
     if found is None:
         return None
-    return utc_on_tt_floats(*found)
+    tt = utc_on_tt_floats(*found)
+    return None if tt is None else OneUTC(tt, found[0], found[1], dut1)
 
 
 def _utc_serial_floats(v, null_jd):

@@ -284,6 +284,23 @@ def _steady_day_offset(day):
     return offsets[bisect.bisect_right(starts, day) - 1]
 
 
+class OneUTC:
+    """A single cell's UTC instant on a day of one TAI - UTC from 1972, as floats: what
+    cells.py's float lane hands a function's twin.  ``tt`` is its TT two-part JD
+    (``utc_on_tt_floats``: what Instants.tt gives, to the bit); ``ut1()`` its UT1 as
+    Instants.to("UT") gives it (ERFA utcut1 with the cell's DUT1, read within its limit
+    by the cell layer)."""
+
+    __slots__ = ("tt", "day", "fraction", "dut1")
+
+    def __init__(self, tt, day, fraction, dut1):
+        self.tt, self.day, self.fraction, self.dut1 = tt, day, fraction, dut1
+
+    def ut1(self):
+        ut11, ut12, _ = erfa.ufunc.utcut1(self.day, self.fraction, self.dut1)
+        return float(ut11), float(ut12)
+
+
 def utc_on_tt_floats(day, fraction):
     """A UTC instant (the day's start, a JD ending in .5, and the fraction of it in
     [0, 1)) on TT as two floats, on a day of one TAI - UTC from 1972

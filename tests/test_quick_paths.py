@@ -490,3 +490,49 @@ def test_a_twin_that_fails_leaves_the_cell_to_the_usual_path(monkeypatch):
     cells._SINGLE_CELL_CACHE.clear()
     assert cells.evaluate("SKY.SUN.LON", [45000.3]) == want
     assert calls == [1]  # the lane was tried
+
+
+def test_an_observed_place_cell_takes_the_float_lane_and_gives_its_row_of_a_column(monkeypatch):
+    # The altitude and azimuth at a site (SKY.HORIZON.ALT, .AZ) of a cell whose instant
+    # the lane reads (UTC from 1972, a day of one TAI - UTC) are computed by the twin on
+    # floats (horizon._observed_on_floats): the same ERFA calls on the same inputs, so the
+    # range form of one row (the general path) is equal to the bit.  Random targets,
+    # sites (an invented one among them) and heights, with and without refraction and a
+    # DUT1; targets below 5 degrees with refraction, a TRUE place, a site beyond the
+    # poles and a DUT1 out of its limit go the usual way and give its message or value.
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    lane = cells._on_floats
+    taken = []
+    monkeypatch.setattr(cells, "_on_floats", lambda *a: taken.append(lane(*a)) or taken[-1])
+    rng = np.random.default_rng(73)
+    answered = 0
+    for k in range(60):
+        ra, dec = float(rng.uniform(0.0, 360.0)), float(rng.uniform(-60.0, 89.0))
+        s = float(rng.uniform(30000.0, 60000.0))  # 1982-2064
+        site = (47.3814, 8.0542) if k % 3 == 0 else (float(rng.uniform(-70.0, 70.0)),
+                                                       float(rng.uniform(-180.0, 180.0)))
+        tail = [None, float(rng.uniform(0.0, 3000.0))]  # the scale left out, a height
+        if k % 2:
+            tail += [1010.0, 12.0, None, float(rng.uniform(-0.9, 0.9))]  # air, DUT1
+        for name in ("SKY.HORIZON.ALT", "SKY.HORIZON.AZ"):
+            cells._SINGLE_CELL_CACHE.clear()
+            got = cells.evaluate(name, [ra, dec, s, *site, *tail])
+            want = cells.evaluate(name, [((ra,),), ((dec,),), ((s,),), *site, *tail])[0][0]
+            assert got == want, (name, ra, dec, s, site, tail, got, want)
+            if isinstance(got, float):
+                assert taken[-1] == got  # the lane answered
+                answered += 1
+            else:  # refraction refused below 5 degrees: the usual path's message
+                assert taken[-1] is None and got.startswith(PREFIX)
+            taken.clear()
+    assert answered > 60
+    for args in ([10.0, 20.0, 45000.3, 47.0, 8.0, None, 0.0, 0.0, 10.0, "TRUE"],
+                 [10.0, 20.0, 45000.3, 95.0, 8.0], [10.0, 20.0, 45000.3, 47.0, 8.0, "TT"],
+                 [10.0, 20.0, 45000.3, 47.0, 8.0, None, 0.0, 0.0, 10.0, None, 1.5]):
+        cells._SINGLE_CELL_CACHE.clear()
+        got = cells.evaluate("SKY.HORIZON.ALT", args)
+        assert all(found is None for found in taken), args
+        taken.clear()
+        want = cells.evaluate("SKY.HORIZON.ALT",
+                              [((a,),) if k < 5 else a for k, a in enumerate(args)])[0][0]
+        assert got == want, (args, got, want)
