@@ -259,7 +259,8 @@ def azimuth_cells(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
 
 def _observed_on_floats(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
                         temperature=10.0, frame="ICRS"):
-    """``observed``'s (azimuth, zenith distance), radians, of a single cell on floats
+    """``observed``'s (azimuth, zenith distance, hour angle, declination), radians, of a
+    single cell on floats
     (cells.py's float lane: ``time`` a timescales.OneUTC, the rest floats), or None
     where the cell's usual path has more to do: a TRUE place, an input out of range or
     a date outside the IAU models' years (it gives the message), a refracted place too
@@ -278,11 +279,10 @@ def _observed_on_floats(ra, dec, time, latitude, longitude, height=0.0, pressure
                              math.radians(latitude), float(height), pressure, temperature,
                              frame, nodes.cell_is_dense(tt1, tt2))
     ri, di = erfa.ufunc.atciq(math.radians(ra), math.radians(dec), 0.0, 0.0, 0.0, 0.0, astrom)
-    aob, zob = erfa.ufunc.atioq(ri, di, astrom)[:2]
-    aob, zob = aob.item(), zob.item()
+    aob, zob, hob, dob = (v.item() for v in erfa.ufunc.atioq(ri, di, astrom)[:4])
     if pressure > 0.0 and not 90.0 - math.degrees(zob) >= REFRACTION_MIN_ALTITUDE:
         return None
-    return aob, zob
+    return aob, zob, hob, dob
 
 
 def _altitude_on_floats(*args, **kwargs):
@@ -293,6 +293,18 @@ def _altitude_on_floats(*args, **kwargs):
 def _azimuth_on_floats(*args, **kwargs):
     found = _observed_on_floats(*args, **kwargs)
     return None if found is None else degrees_360_float(found[0])
+
+
+def _hour_angle_on_floats(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
+    found = _observed_on_floats(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
+    return None if found is None else float(_deg180(found[2]))
+
+
+def _parallactic_on_floats(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
+    found = _observed_on_floats(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
+    if found is None:
+        return None
+    return math.degrees(erfa.ufunc.hd2pa(found[2], found[3], math.radians(latitude)))
 
 
 altitude_cells.on_floats = _altitude_on_floats
@@ -309,6 +321,10 @@ def hour_angle_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS
 def parallactic_cells(ra, dec, time, latitude, longitude, height=0.0, frame="ICRS"):
     _, _, hob, dob = observed(ra, dec, time, latitude, longitude, height, 0.0, 10.0, frame)
     return np.degrees(erfa.hd2pa(hob, dob, np.radians(latitude)))
+
+
+hour_angle_cells.on_floats = _hour_angle_on_floats
+parallactic_cells.on_floats = _parallactic_on_floats
 
 
 @_a_log_of_cells
