@@ -34,6 +34,30 @@ def modified_julian_date(time, result_scale=None):
     return (out.jd1 - MJD_ZERO) + out.jd2
 
 
+def _parts_on_floats(time, result_scale):
+    """The two parts of a single cell's UTC instant (a timescales.OneUTC, cells.py's float
+    lane) on UTC or TT, the floats the Instants path holds; None on another scale."""
+    if result_scale is None or result_scale == "UTC":
+        return time.day, time.fraction
+    if result_scale == "TT":
+        return time.tt
+    return None
+
+
+def _julian_date_on_floats(time, result_scale=None):
+    parts = _parts_on_floats(time, result_scale)
+    return None if parts is None else parts[0] + parts[1]
+
+
+def _modified_julian_date_on_floats(time, result_scale=None):
+    parts = _parts_on_floats(time, result_scale)
+    return None if parts is None else (parts[0] - MJD_ZERO) + parts[1]
+
+
+julian_date.on_floats = _julian_date_on_floats
+modified_julian_date.on_floats = _modified_julian_date_on_floats
+
+
 def calc_datetime(time, result_scale=None):
     """The instant on ``result_scale``, shown as a date-time value (the cell layer
     refuses an instant inside a leap second, which a date-time cell cannot show)."""

@@ -538,3 +538,25 @@ def test_an_observed_place_cell_takes_the_float_lane_and_gives_its_row_of_a_colu
         want = cells.evaluate("SKY.HORIZON.ALT",
                               [((a,),) if k < 5 else a for k, a in enumerate(args)])[0][0]
         assert got == want, (args, got, want)
+
+
+def test_a_julian_date_cell_takes_the_float_lane_on_utc_and_tt(monkeypatch):
+    # SKY.JD and SKY.MJD of a UTC date-time value on a day of one TAI - UTC, on UTC or
+    # TT, add the parts the lane reads (the floats the Instants path holds): the range
+    # form of one row is equal to the bit.  Other result scales go the usual way.
+    lane = cells._on_floats
+    taken = []
+    monkeypatch.setattr(cells, "_on_floats", lambda *a: taken.append(lane(*a)) or taken[-1])
+    rng = np.random.default_rng(79)
+    for s in rng.uniform(26400.0, 75000.0, 200).tolist() + _step_day_values():  # 1972-2105
+        found = timeinput._utc_serial_floats(s, NULL_JD)
+        steady = found is not None and timescales.utc_on_tt_floats(*found) is not None
+        for name in ("SKY.JD", "SKY.MJD"):
+            for result in (None, "UTC", "TT", "TAI", "TDB"):
+                cells._SINGLE_CELL_CACHE.clear()
+                got = cells.evaluate(name, [s, "UTC", result])
+                want = cells.evaluate(name, [((s,),), "UTC", result])[0][0]
+                assert got == want, (name, s, result, got, want)
+                lane_answered = bool(taken) and taken[-1] is not None
+                assert lane_answered == (steady and result in (None, "UTC", "TT")), (name, s, result)
+                taken.clear()
