@@ -564,7 +564,7 @@ def _plain_single(fn, rows, options, null_jd):
 def _on_floats(twin, row_args, rows, kwargs, null_jd, dut1):
     """The float lane of a single cell whose function has a twin on floats (its
     ``on_floats``: the places of the Sun, the Moon, the planets and two-body orbits, the
-    observed place at a site).  The instant, a UTC date-time value on a day of one
+    observed place at a site, the Julian date on UTC or TT).  The instant, a UTC date-time value on a day of one
     TAI - UTC, is read straight onto TT as two floats (timeinput.one_utc_serial, a
     timescales.OneUTC, which also gives its UT1) and handed to the twin with the cell's
     options, its numbers and angles as floats (one left out as its default), a text (an
