@@ -560,3 +560,23 @@ def test_a_julian_date_cell_takes_the_float_lane_on_utc_and_tt(monkeypatch):
                 lane_answered = bool(taken) and taken[-1] is not None
                 assert lane_answered == (steady and result in (None, "UTC", "TT")), (name, s, result)
                 taken.clear()
+
+
+def test_the_float_lane_reads_the_instant_with_the_documents_null_date(monkeypatch):
+    # A document whose null date is 1904-01-01 (or 1899-12-31) sends the same date-time
+    # value for another instant: the lane reads it with that null date, as the usual path
+    # does (the range form of one row is the reference, to the bit), and a kept answer of
+    # one null date is never given for another.
+    monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
+    rng = np.random.default_rng(83)
+    for s in rng.uniform(30000.0, 60000.0, 20).tolist():
+        answers = set()
+        for null_date in ((1899, 12, 30), (1904, 1, 1), (1899, 12, 31)):
+            for name, args in (("SKY.SUN.LON", [s]), ("SKY.JD", [s, "UTC", "TT"]),
+                               ("SKY.HORIZON.ALT", [10.0, 20.0, s, 47.3814, 8.0542])):
+                got = cells.evaluate(name, args, null_date)
+                want = cells.evaluate(name, [((a,),) if a == s else a for a in args],
+                                      null_date)[0][0]
+                assert got == want, (name, s, null_date)
+                answers.add((name, got))
+        assert len(answers) == 9  # each null date its own instant
