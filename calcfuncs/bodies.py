@@ -379,18 +379,19 @@ def _value_floats(direction, t1, t2, system, index, dense=False):
 
 
 def _directions_on_floats(body, kind, rows):
-    """For ``rows`` instants: a function (row, t1, t2, dense) -> unit vector on floats of
-    the body (a name of FLOAT_BODIES or a two-body orbits.Orbit of one row or of
+    """For ``rows`` instants: a function (t1, t2, dense, row=0) -> unit vector on floats
+    of the body (a name of FLOAT_BODIES or a two-body orbits.Orbit of one row or of
     ``rows``), or None where the body has no float path (another body, a perturbed
-    orbit)."""
+    orbit).  A cell's instant is row 0, so the function serves ``_value_floats`` as it
+    is."""
     if type(body) is str:
         if body not in FLOAT_BODIES:
             return None
-        return lambda row, t1, t2, dense: _direction_floats(body, t1, t2, kind, dense)
+        return lambda t1, t2, dense, row=0: _direction_floats(body, t1, t2, kind, dense)
     if type(body) is not orbits.Orbit or body.q.size not in (1, rows):
         return None
     one = body.q.size == 1
-    return lambda row, t1, t2, dense: _orbit_direction_floats(
+    return lambda t1, t2, dense, row=0: _orbit_direction_floats(
         body.elements_floats(0 if one else row), t1, t2, kind, dense)
 
 
@@ -418,7 +419,7 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
     for k, (t1, t2) in enumerate(zip(tt1.ravel().tolist(), tt2.ravel().tolist())):
         if within_years_one(t1, t2, BUILTIN_YEARS):
             try:
-                flat[k] = _value_floats(lambda a, b, d: direction(k, a, b, d), t1, t2, system,
+                flat[k] = _value_floats(lambda a, b, d: direction(a, b, d, k), t1, t2, system,
                                         index)
             except _FLOAT_FAILURES:
                 continue
@@ -430,17 +431,8 @@ def one_on_floats(body, t1, t2, system, kind, index):
     """``rows_on_floats``'s value for one TT instant (floats) of a single cell, or None
     where the float path does not take it (another body, outside BUILTIN_YEARS, a step
     that fails): the Earth and the matrix from their segments in a dense log."""
-    if type(body) is str and body in FLOAT_BODIES:  # (the usual cell: no closure made)
-        def direction(a, b, d):
-            return _direction_floats(body, a, b, kind, d)
-    else:
-        of_row = _directions_on_floats(body, kind, 1)
-        if of_row is None:
-            return None
-
-        def direction(a, b, d):
-            return of_row(0, a, b, d)
-    if not within_years_one(t1, t2, BUILTIN_YEARS):
+    direction = _directions_on_floats(body, kind, 1)
+    if direction is None or not within_years_one(t1, t2, BUILTIN_YEARS):
         return None
     try:
         return _value_floats(direction, t1, t2, system, index, nodes.cell_is_dense(t1, t2))

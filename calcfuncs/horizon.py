@@ -34,6 +34,11 @@ WAVELENGTH_UM = 0.55
 # rather than answered with a refraction that is minutes of arc too small.
 REFRACTION_MIN_ALTITUDE = 5.0
 HUMIDITY = 0.5
+# The ranges a site's height (m above the ellipsoid), pressure (hPa) and temperature
+# (degrees C) are taken within: the usual path's messages and the float lane's test.
+HEIGHT_RANGE_M = (-1000.0, 20000.0)
+PRESSURE_RANGE_HPA = (0.0, 1500.0)
+TEMPERATURE_RANGE_C = (-80.0, 60.0)
 
 
 def _check_years(time, what, hint=""):
@@ -70,18 +75,27 @@ def sidereal_cells(time, kind="GAST", longitude=0.0, unit="DEG"):
 def site_radians(latitude, longitude, height):
     check_latitudes(latitude)
     height = np.asarray(height, dtype=float)
-    bad = (height < -1000.0) | (height > 20000.0)
+    low, high = HEIGHT_RANGE_M
+    bad = (height < low) | (height > high)
     if np.any(bad):
-        raise rows_failing(bad, "the height must be within -1000 to 20000 m above the ellipsoid")
+        raise rows_failing(bad, f"the height must be within {low:g} to {high:g} m above the "
+                                "ellipsoid")
     return np.radians(longitude), np.radians(latitude), height
 
 
 def _atmosphere(pressure, temperature):
-    if not 0.0 <= pressure <= 1500.0:
-        raise SkyError(f"the pressure must be 0 (no refraction) to 1500 hPa, not {pressure:g}")
-    if not -80.0 <= temperature <= 60.0:
-        raise SkyError(f"the temperature must be -80 to 60 degrees C, not {temperature:g}")
+    if not _within(pressure, PRESSURE_RANGE_HPA):
+        raise SkyError(f"the pressure must be 0 (no refraction) to {PRESSURE_RANGE_HPA[1]:g} "
+                       f"hPa, not {pressure:g}")
+    if not _within(temperature, TEMPERATURE_RANGE_C):
+        low, high = TEMPERATURE_RANGE_C
+        raise SkyError(f"the temperature must be {low:g} to {high:g} degrees C, not "
+                       f"{temperature:g}")
     return pressure, temperature
+
+
+def _within(value, limits):
+    return limits[0] <= value <= limits[1]
 
 
 def observer_astrom(time, latitude, longitude, height, pressure, temperature, frame):
@@ -268,8 +282,9 @@ def _observed_on_floats(ra, dec, time, latitude, longitude, height=0.0, pressure
     bit: the site's parameters kept per instant (``_astrom_one``, shared with the
     usual path and the row's other column), ERFA atciq and atioq on one row."""
     if frame != "ICRS" or not (abs(dec) <= 90.0 and abs(latitude) <= 90.0
-                               and -1000.0 <= height <= 20000.0 and 0.0 <= pressure <= 1500.0
-                               and -80.0 <= temperature <= 60.0):
+                               and _within(height, HEIGHT_RANGE_M)
+                               and _within(pressure, PRESSURE_RANGE_HPA)
+                               and _within(temperature, TEMPERATURE_RANGE_C)):
         return None
     tt1, tt2 = time.tt
     if not within_years_one(tt1, tt2, IAU2006_YEARS):
