@@ -249,7 +249,11 @@ def _direction_floats(body, t1, t2, kind, dense=False):
     TT instant (taken for TDB; floats) inside BUILTIN_YEARS: its steps on floats, from
     the Earth's and the Sun's kept states, or, ``dense``, from their segment (a cell of a
     log filled down, nodes.cell_is_dense).  Kept for the row's other columns."""
-    states = _states_floats(t1, t2, dense)
+    return _direction_of_states(body, t1, t2, kind, _states_floats(t1, t2, dense))
+
+
+def _direction_of_states(body, t1, t2, kind, states):
+    """``_direction_floats`` from the Earth's and the Sun's barycentric states."""
     (ex, ey, ez), ev, (sx, sy, sz), sv = states
     if body == "SUN":  # _sun_geocentric's steps
         g = (sx - ex, sy - ey, sz - ez)
@@ -435,9 +439,51 @@ def one_on_floats(body, t1, t2, system, kind, index):
     if direction is None or not within_years_one(t1, t2, BUILTIN_YEARS):
         return None
     try:
-        return _value_floats(direction, t1, t2, system, index, nodes.cell_is_dense(t1, t2))
+        dense = nodes.cell_is_dense(t1, t2)
+        if dense and type(body) is str and body in PLACE_SEGMENT_BODIES:
+            quantity = ("place", body, kind, system)
+            if nodes.quantity_is_dense(quantity, t1, t2):
+                found = nodes.from_nodes(quantity, _place_at_points(body, kind, system),
+                                         t1, t2)
+                if found is not None:
+                    return frames.spherical_floats(found[0], found[1], found[2], index)
+        return _value_floats(direction, t1, t2, system, index, dense)
     except _FLOAT_FAILURES:
         return None
+
+
+PLACE_SEGMENT_BODIES = frozenset(("SUN",) + tuple(ephemeris.PLAN94_NUMBERS))
+PLACE_SEGMENT_MIN_ELONGATION_DEG = 10.0
+_NEAR_SUN_COSINE = math.cos(math.radians(PLACE_SEGMENT_MIN_ELONGATION_DEG))
+_PLACES_AT_POINTS = {}
+
+
+def _place_at_points(body, kind, system):
+    """For nodes.from_nodes: the function giving a body's place (unit vectors, ``system``'s
+    axes) at a segment's points, each computed as a cell alone computes it."""
+    found = _PLACES_AT_POINTS.get((body, kind, system))
+    if found is None:
+        near_sun = kind == "APPARENT" and body != "SUN"
+
+        def directions(jd1, jd2):
+            states = ephemeris.earth_and_sun_at_points(jd1, jd2)
+            out = []
+            for t1, t2, s in zip(jd1.tolist(), jd2.tolist(), states.tolist()):
+                u = _direction_of_states(body, t1, t2, kind, (s[0:3], s[3:6], s[6:9], s[9:12]))
+                if near_sun:
+                    g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])
+                    if u[0] * g[0] + u[1] * g[1] + u[2] * g[2] > _NEAR_SUN_COSINE * _length(g):
+                        return None
+                out.append(u)
+            return np.array(out)
+
+        def compute(jd1, jd2):
+            u = nodes.shared_at_points(("direction", body, kind), directions, jd1, jd2)
+            if u is None:
+                return None
+            return np.einsum("nij,nj->ni", frames.matrices_at_points(system, jd1, jd2), u)
+        found = _PLACES_AT_POINTS[(body, kind, system)] = compute
+    return found
 
 
 def cell_on_floats(body, time, system, kind, source, index):

@@ -74,8 +74,14 @@ def earth_and_sun_floats(tdb1, tdb2):
 def earth_and_sun_from_nodes(tdb1, tdb2):
     """``earth_and_sun_floats`` from the segment of a dense log's cells (nodes.from_nodes,
     as ``Builtin.earth_and_sun`` takes them for a cell): four lists of three floats."""
-    s = nodes.from_nodes("epv00", earth_theory.states_vector, tdb1, tdb2)
+    s = nodes.from_nodes("epv00", earth_and_sun_at_points, tdb1, tdb2)
     return s[0:3], s[3:6], s[6:9], s[9:12]
+
+
+def earth_and_sun_at_points(tdb1, tdb2):
+    """(n, 12): ``earth_theory.states_vector`` at a segment's points, kept for the other
+    quantities made over the same points (the Earth's own segment, a body's place)."""
+    return nodes.shared_at_points("epv00", earth_theory.states_vector, tdb1, tdb2)
 
 
 @nodes.kept_per_instant
@@ -175,7 +181,7 @@ class Builtin:
         def with_erfa(t1, t2):
             # A dense column takes the states interpolated over half-day nodes (nodes.py:
             # within 0.5 m and 3 um/s of the series, which is good to kilometres).
-            one = nodes.for_one("epv00", earth_theory.states_vector, t1, t2)  # a cell of a log
+            one = nodes.for_one("epv00", earth_and_sun_at_points, t1, t2)  # a cell of a log
             if one is not None:
                 return one[..., 0:3], one[..., 3:6], one[..., 6:9], one[..., 9:12]
             if t1.shape == (1,):  # a single cell: kept for the row's other columns

@@ -251,6 +251,14 @@ def matrix_rows(system, jd1, jd2, dense=False):
     return _dated_one(system, jd1, jd2).tolist()
 
 
+def matrices_at_points(system, jd1, jd2):
+    """(n, 3, 3): the rotation from ICRS axes to a checked ``system`` at a segment's points
+    (nodes.py), the nutation over them shared with the matrices' own segments."""
+    if system not in DATED:
+        return np.broadcast_to(_fixed(system), (np.size(jd1), 3, 3))
+    return _MATRIX_POINTS[system](jd1, jd2).reshape(-1, 3, 3)
+
+
 def _matrix_points(system):
     """The nine elements of ``system``'s matrix at a segment's points (nodes.py), the
     nutation series evaluated over them at once (``_nutation_at_points``)."""

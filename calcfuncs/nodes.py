@@ -206,8 +206,9 @@ def forget_kept_instants():
 
 _SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (SEGMENT_POINTS, k)
 _AT_POINTS = {}  # (name, segment's start) -> values at its points (shared_at_points)
-AT_POINTS_KEPT = 64
+AT_POINTS_KEPT = 1024
 _ASKED = {}      # segment -> distinct instants asked for in it
+_ASKED_OF = {}   # (quantity, segment) -> distinct instants asked for it (quantity_is_dense)
 _IN_CELLS = [0]
 _LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, segment, dense)
 _LAST_POLYNOMIALS = [(None, None, None)]  # the last instant's T_k: (jd1, jd2, array)
@@ -219,6 +220,7 @@ def forget_single_cells():
     _AT_POINTS.clear()
     _LAST_POLYNOMIALS[0] = (None, None, None)
     _ASKED.clear()
+    _ASKED_OF.clear()
     _LAST_ONE[0] = (None, None, None, False)
     forget_kept_instants()
 
@@ -260,8 +262,14 @@ def for_one(quantity, compute, jd1, jd2):
 
 def from_nodes(quantity, compute, t1, t2):
     """``for_one``'s values (a list of k floats) at an instant (floats) of which
-    ``cell_is_dense`` has just said yes: a place on floats (bodies._direction_floats)."""
-    return _interpolated(quantity, compute, t1, t2).tolist()
+    ``cell_is_dense`` has just said yes: a place on floats (bodies._direction_floats).
+    None where ``compute`` declined the segment (returned None: a body too near the Sun
+    for its place to be interpolated, bodies._place_at_points)."""
+    found = _interpolated(quantity, compute, t1, t2)
+    return None if found is None else found.tolist()
+
+
+_DECLINED = np.zeros(0)  # kept for a segment whose compute declined it
 
 
 def _segment_of(t1, t2):
@@ -275,8 +283,10 @@ def _interpolated(quantity, compute, t1, t2):
     coefficients = _SEGMENTS.get((quantity, segment))
     if coefficients is None:
         values = compute(np.full(SEGMENT_POINTS, start), _POINT_DAYS)
-        coefficients = _TO_COEFFICIENTS @ values
+        coefficients = _DECLINED if values is None else _TO_COEFFICIENTS @ values
         keep(_SEGMENTS, (quantity, segment), coefficients, SEGMENTS_KEPT)
+    if coefficients is _DECLINED:
+        return None
     last = _LAST_POLYNOMIALS[0]
     if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
         polynomials = last[2]
@@ -335,6 +345,26 @@ def _note(segment, t1, t2):
     asked.add((t1, t2))
     return (len(asked) >= DENSE_CELLS or _counted_dense(segment - 1)
             or _counted_dense(segment + 1))
+
+
+def quantity_is_dense(quantity, t1, t2):
+    """For an instant of which ``cell_is_dense`` has just said yes: whether ``quantity``
+    itself (a body's place in a system) is taken from a segment of its own there: one is
+    made for it in this segment or the next or last one (a log filled down), or
+    DENSE_CELLS distinct instants have asked for it in this one.  Counted per quantity, so
+    that one cell of a rare body among a dense log of others computes directly rather than
+    making a segment for itself."""
+    segment = _LAST_ONE[0][2]
+    key = (quantity, segment)
+    if (key in _SEGMENTS or (quantity, segment - 1) in _SEGMENTS
+            or (quantity, segment + 1) in _SEGMENTS):
+        return True
+    asked = _ASKED_OF.get(key)
+    if asked is None:
+        asked = set()
+        keep(_ASKED_OF, key, asked, SEGMENTS_NOTED)
+    asked.add((t1, t2))
+    return len(asked) >= DENSE_CELLS
 
 
 def _counted_dense(segment):
