@@ -24,6 +24,7 @@ import importlib
 import erfa
 import numpy as np
 
+from . import nodes
 from .earth_series import ROTATION, TERMS
 from .vocabulary import J2000_JD
 
@@ -43,10 +44,10 @@ def _tables():
     key = power * 6 + group
     starts = np.flatnonzero(np.r_[True, key[1:] != key[:-1]])
     assert key[starts].tolist() == list(range(18))  # every table has terms
-    return a, b, c, a * c, starts
+    return a, b, c, a * c, starts, key
 
 
-_A, _B, _C, _AC, _STARTS = _tables()
+_A, _B, _C, _AC, _STARTS, _KEYS = _tables()
 _R = ROTATION
 # Ecliptic series axes -> BCRS (its first element is exactly 1, the third row's first 0, as
 # ERFA applies it).
@@ -97,20 +98,45 @@ def _states_numpy(tdb1, tdb2):
 
 def states_vector(tdb1, tdb2):
     """(n, 12): barycentric p, v of the Earth, then of the Sun, at n TDB instants (flat
-    two-part JDs) in one pass over all of them: the nodes of a segment (nodes.py), where
-    the bits need not be states_one's.  With numpy's vectorised sines (``chosen``) the
-    series as one array of instants by terms; otherwise ERFA's routine over the array."""
+    two-part JDs) in one pass over all of them, where the bits need not be states_one's.
+    With numpy's vectorised sines (``chosen``) the series as one array of instants by
+    terms; otherwise ERFA's routine over the array."""
     if chosen() != "numpy":
         return np.concatenate(_states_erfa(tdb1, tdb2), axis=-1)
-    t = ((np.asarray(tdb1, dtype=float) - J2000_JD) + np.asarray(tdb2, dtype=float)) / _DAYS_PER_YEAR
-    arg = np.multiply.outer(t, _C)
-    arg += _B
-    terms = np.empty((2, t.size, _A.size))
-    np.cos(arg, out=terms[0])
-    terms[0] *= _A
-    np.sin(arg, out=terms[1])
-    terms[1] *= _AC
-    p, q = np.add.reduceat(terms, _STARTS, axis=2)  # (n, 18) each, as in states_one
+    return _states_of_terms(_years(tdb1, tdb2), _ALL_TERMS)
+
+
+def _years(tdb1, tdb2):
+    return ((np.asarray(tdb1, dtype=float) - J2000_JD) + np.asarray(tdb2, dtype=float)) / _DAYS_PER_YEAR
+
+
+def _terms(selected):
+    """The series' terms ``selected`` (a mask): a, b, c, a c, where each run of terms of
+    one sum starts, and which of the 18 sums (power of t by axis) each run is."""
+    keys = _KEYS[selected]
+    starts = np.flatnonzero(np.r_[True, keys[1:] != keys[:-1]])
+    return _A[selected], _B[selected], _C[selected], _AC[selected], starts, keys[starts]
+
+
+_ALL_TERMS = _terms(np.ones(_A.size, dtype=bool))
+
+
+def _states_of_terms(t, terms):
+    """(n, 12): the states of ``terms`` alone at n instants (t Julian years from J2000):
+    the series is linear in its terms, so the states of two sets add up to theirs."""
+    a, b, c, ac, starts, sums = terms
+    arg = np.multiply.outer(t, c)
+    arg += b
+    waves = np.empty((2, t.size, a.size))
+    np.cos(arg, out=waves[0])
+    waves[0] *= a
+    np.sin(arg, out=waves[1])
+    waves[1] *= ac
+    if sums.size == 18:
+        p, q = np.add.reduceat(waves, starts, axis=2)  # (n, 18) each, as in states_one
+    else:
+        p, q = np.zeros((2, t.size, 18))
+        p[:, sums], q[:, sums] = np.add.reduceat(waves, starts, axis=2)
     t = t[:, None]
     position = p[:, 0:6] + t * p[:, 6:12] + t * t * p[:, 12:18]
     velocity = (p[:, 6:12] + 2.0 * t * p[:, 12:18]
@@ -119,6 +145,30 @@ def states_vector(tdb1, tdb2):
     return np.concatenate([v @ rotation for v in (
         position[:, 0:3] + position[:, 3:6], velocity[:, 0:3] + velocity[:, 3:6],
         position[:, 3:6], velocity[:, 3:6])], axis=1)
+
+
+# At a segment's points (nodes.py) the terms of periods of FAST_PERIOD_DAYS and more
+# (1,805 of the 1,951) are interpolated from a long segment's points
+# (nodes.over_long_segment), and only the others (146, the Moon's pull on the Earth) are
+# evaluated at the segment's own.
+FAST_PERIOD_DAYS = 40.0
+_FAST = np.abs(_C) > 2.0 * np.pi * _DAYS_PER_YEAR / FAST_PERIOD_DAYS
+_FAST_TERMS = _terms(_FAST)
+_SLOW_TERMS = _terms(~_FAST)
+
+
+def _slow_states(tdb1, tdb2):
+    return _states_of_terms(_years(tdb1, tdb2), _SLOW_TERMS)
+
+
+def states_at_points(tdb1, tdb2):
+    """``states_vector`` at a segment's points, its slow terms from their long segment
+    (with numpy whichever evaluation the process has chosen: these bits need not be
+    states_one's); ``states_vector`` itself at any other instants."""
+    slow = nodes.over_long_segment("epv00, terms over 40 days", _slow_states, tdb1, tdb2)
+    if slow is None:
+        return states_vector(tdb1, tdb2)
+    return _states_of_terms(_years(tdb1, tdb2), _FAST_TERMS) + slow
 
 
 def _states_erfa(tdb1, tdb2):

@@ -81,7 +81,7 @@ def earth_and_sun_from_nodes(tdb1, tdb2):
 def earth_and_sun_at_points(tdb1, tdb2):
     """(n, 12): ``earth_theory.states_vector`` at a segment's points, kept for the other
     quantities made over the same points (the Earth's own segment, a body's place)."""
-    return nodes.shared_at_points("epv00", earth_theory.states_vector, tdb1, tdb2)
+    return nodes.shared_at_points("epv00", earth_theory.states_at_points, tdb1, tdb2)
 
 
 @nodes.kept_per_instant

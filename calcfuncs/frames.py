@@ -221,7 +221,7 @@ def system_matrix(system, jd1=None, jd2=None, given=None, smooth=False, long_ter
     if jd1.size == 1 and smooth:
         # A cell of a dense log of places (nodes.single_cells): the nutation from its
         # segment's coefficients.
-        both = nodes.for_one("nut06a", iau2000a.nutation_vector, jd1, jd2)
+        both = nodes.for_one("nut06a", iau2000a.nutation_at_points, jd1, jd2)
         if both is not None:
             return _dated(system, jd1, jd2, lambda a, b: (both[..., 0], both[..., 1]))
     if jd1.size == 1:
@@ -278,7 +278,7 @@ def _nutation_at_points(jd1, jd2):
 
 
 def _nutation_vector_pair(jd1, jd2):
-    return tuple(iau2000a.nutation_vector(jd1, jd2).T)
+    return tuple(iau2000a.nutation_at_points(jd1, jd2).T)
 
 
 

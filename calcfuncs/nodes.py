@@ -218,6 +218,7 @@ def forget_single_cells():
     """Empty what single cells have kept and noted (a benchmark's cold start)."""
     _SEGMENTS.clear()
     _AT_POINTS.clear()
+    _LONG.clear()
     _LAST_POLYNOMIALS[0] = (None, None, None)
     _ASKED.clear()
     _ASKED_OF.clear()
@@ -295,6 +296,38 @@ def _interpolated(quantity, compute, t1, t2):
         polynomials = np.cos(_ORDERS * math.acos(x))
         _LAST_POLYNOMIALS[0] = (t1, t2, polynomials)
     return polynomials.dot(coefficients)
+
+
+# What varies slowly over a segment (the nutation's terms of periods over 40 days) is
+# computed at the points of a long segment, LONG_SEGMENT_OF segments, and interpolated
+# from it at each segment's points: the same Chebyshev points and transform over eight
+# times the span.  Long segments start at J2000.0 too, so a segment lies in one of them.
+LONG_SEGMENT_OF = 8
+LONG_SEGMENTS_KEPT = 512  # tables of SEGMENT_POINTS x k floats (k = 2 for the nutation)
+_LONG_POINT_DAYS = _POINT_DAYS * LONG_SEGMENT_OF
+# A segment's points within its long segment, for each of its LONG_SEGMENT_OF places
+# there: the Chebyshev polynomials T_k at them (SEGMENT_POINTS x SEGMENT_POINTS).
+_WITHIN_LONG = [np.cos(np.outer(np.arccos(
+    (place * SEGMENT_DAYS + _POINT_DAYS) * (2.0 / (SEGMENT_DAYS * LONG_SEGMENT_OF)) - 1.0),
+    _ORDERS)) for place in range(LONG_SEGMENT_OF)]
+_LONG = {}  # (quantity, long segment) -> Chebyshev coefficients
+
+
+def over_long_segment(quantity, compute, jd1, jd2):
+    """``compute(jd1, jd2)`` -> (n, k) at a segment's points (the arrays ``_interpolated``
+    hands a segment's ``compute``), interpolated from the points of the long segment that
+    holds it; None for any other instants (the caller computes them directly)."""
+    if jd2 is not _POINT_DAYS:
+        return None
+    segment = round((float(jd1[0]) - SEGMENT_ORIGIN) / SEGMENT_DAYS)
+    long_segment, place = divmod(segment, LONG_SEGMENT_OF)
+    coefficients = _LONG.get((quantity, long_segment))
+    if coefficients is None:
+        start = SEGMENT_ORIGIN + long_segment * (SEGMENT_DAYS * LONG_SEGMENT_OF)
+        coefficients = _TO_COEFFICIENTS @ compute(np.full(SEGMENT_POINTS, start),
+                                                  _LONG_POINT_DAYS)
+        keep(_LONG, (quantity, long_segment), coefficients, LONG_SEGMENTS_KEPT)
+    return _WITHIN_LONG[place] @ coefficients
 
 
 def shared_at_points(name, compute, jd1, jd2):
