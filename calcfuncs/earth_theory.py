@@ -150,7 +150,10 @@ def _states_of_terms(t, terms):
 # At a segment's points (nodes.py) the terms of periods of FAST_PERIOD_DAYS and more
 # (1,805 of the 1,951) are interpolated from a long segment's points
 # (nodes.over_long_segment), and only the others (146, the Moon's pull on the Earth) are
-# evaluated at the segment's own.
+# evaluated at the segment's own: 75 us for a segment's points against 180.  Against
+# ERFA epv00 at the points over 1000-3000: 0.26 m and 0.05 um/s (tests/test_nodes.py),
+# the series' own rounding far from J2000 (the fit's error is far below: more points
+# over the long segment do not change it).
 FAST_PERIOD_DAYS = 40.0
 _FAST = np.abs(_C) > 2.0 * np.pi * _DAYS_PER_YEAR / FAST_PERIOD_DAYS
 _FAST_TERMS = _terms(_FAST)

@@ -68,6 +68,9 @@ def _fresh_single_cell_nodes(monkeypatch):
 
     monkeypatch.setattr(nodes, "_SEGMENTS", {})
     monkeypatch.setattr(nodes, "_ASKED", {})
+    monkeypatch.setattr(nodes, "_ASKED_OF", {})
+    monkeypatch.setattr(nodes, "_AT_POINTS", {})
+    monkeypatch.setattr(nodes, "_LONG", {})
     monkeypatch.setattr(nodes, "_LAST_ONE", [(None, None, None, False)])
     monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
     nodes.forget_kept_instants()  # one instant's ERFA values (exact, but kept all the same)

@@ -78,22 +78,33 @@ def test_aberration_and_deflection_on_floats_are_erfas_ab_and_ld():
     assert worst_ab < 1e-15 and worst_ld < 1e-15, (worst_ab, worst_ld)
 
 
-def test_a_cell_of_a_dense_log_takes_the_earth_and_the_matrix_from_its_segment(monkeypatch):
+def test_a_cell_of_a_dense_log_takes_its_values_from_segments(monkeypatch):
     # Cells close together in time take the Earth and the system's matrix from their
-    # segment (nodes.from_nodes on floats), within the bounds of test_nodes.py (0.1 uas,
-    # 1 m: under 1 uas on a place) of the direct values.
+    # segment (nodes.from_nodes on floats), and once DENSE_CELLS of them have asked for
+    # one body's place in one system, that place itself from a segment of its own (the
+    # Sun and the planets: bodies.PLACE_SEGMENT_BODIES; the Moon keeps the first way):
+    # within the bounds of test_nodes.py (under 1 uas on a place) of the direct values.
     monkeypatch.setattr(nodes, "DENSE_CELLS", 4)
     nodes.forget_single_cells()
     cells._SINGLE_CELL_CACHE.clear()
-    calls = []
-    real = bodies._value_floats
+    calls, places = [], []
+    real_value, real_from_nodes = bodies._value_floats, nodes.from_nodes
+
+    def from_nodes(quantity, compute, t1, t2):
+        if type(quantity) is tuple and quantity[0] == "place":
+            places.append(quantity[1])
+        return real_from_nodes(quantity, compute, t1, t2)
     serials = [46000.25 + 0.01 * k for k in range(12)]
     with mock.patch.object(bodies, "_value_floats",
-                           side_effect=lambda *a: calls.append(a[-1]) or real(*a)):
+                           side_effect=lambda *a: calls.append(a[-1]) or real_value(*a)), \
+            mock.patch.object(nodes, "from_nodes", side_effect=from_nodes):
         got = [cells.evaluate(name, (s,)) for name in ("SKY.SUN.LON", "SKY.MOON.DEC")
                for s in serials]
-    # The first three cells computed directly; from the fourth the cells are dense.
-    assert calls == [False] * 3 + [True] * 21
+    # The Sun: three cells computed directly; from the fourth the cells are dense, and
+    # from the seventh (the fourth to ask for its place there) its place has a segment.
+    # The Moon: every cell dense, on the Earth's and the matrix's segments.
+    assert calls == [False] * 3 + [True] * 3 + [True] * 12
+    assert places == ["SUN"] * 6
     nodes.forget_single_cells()
     cells._SINGLE_CELL_CACHE.clear()
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
