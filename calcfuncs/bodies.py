@@ -18,6 +18,7 @@ import erfa
 import numpy as np
 
 from . import ephemeris, frames, nodes, orbits, vectors
+from .bounded import keep
 from .errors import RowErrors
 from .events import wrap180
 from .timescales import same_shape, within_years_one
@@ -434,56 +435,104 @@ def rows_on_floats(body, tt1, tt2, system, kind, index):
 def one_on_floats(body, t1, t2, system, kind, index):
     """``rows_on_floats``'s value for one TT instant (floats) of a single cell, or None
     where the float path does not take it (another body, outside BUILTIN_YEARS, a step
-    that fails): the Earth and the matrix from their segments in a dense log."""
+    that fails).  In a dense log, the place itself from its segment (``_place_from_segment``)
+    or the Earth and the matrix from theirs."""
     direction = _directions_on_floats(body, kind, 1)
     if direction is None or not within_years_one(t1, t2, BUILTIN_YEARS):
         return None
     try:
         dense = nodes.cell_is_dense(t1, t2)
-        if dense and type(body) is str and body in PLACE_SEGMENT_BODIES:
-            quantity = ("place", body, kind, system)
-            if nodes.quantity_is_dense(quantity, t1, t2):
-                found = nodes.from_nodes(quantity, _place_at_points(body, kind, system),
-                                         t1, t2)
-                if found is not None:
-                    return frames.spherical_floats(found[0], found[1], found[2], index)
+        if dense:
+            found = _place_from_segment(body, t1, t2, system, kind)
+            if found is not None:
+                return frames.spherical_floats(found[0], found[1], found[2], index)
         return _value_floats(direction, t1, t2, system, index, dense)
     except _FLOAT_FAILURES:
         return None
 
 
+# ---- a body's place from segments of its own --------------------------------------------
+#
+# In a dense log (nodes.py) a cell of the Sun's, a planet's or a two-body orbit's place
+# takes, once DENSE_CELLS instants have asked for that place in a segment, the place
+# itself from a segment of its own: its unit vector in the system's axes computed at the
+# segment's points as a cell alone computes it, then one interpolation a cell, where the
+# Earth's and the matrix's segments leave a cell the light time, the deflection, the
+# aberration and the rotation to do.  Not the Moon: its place needs several times the
+# points over sixteen days, and its theory costs a cell less than they would.
+# A segment is declined (its cells take the Earth's and the matrix's segments) where
+# interpolation would not hold the bound: a body whose apparent place comes within
+# PLACE_SEGMENT_MIN_ELONGATION_DEG of the Sun (the bending of its light changes sharply
+# there), or any place whose last Chebyshev coefficients exceed PLACE_SEGMENT_TAIL (an
+# orbit passing close to the Earth; a smooth place's fall below 1e-13, and the error of
+# one with a larger tail is about its size: measured on 300 segments of the planets).
+
 PLACE_SEGMENT_BODIES = frozenset(("SUN",) + tuple(ephemeris.PLAN94_NUMBERS))
 PLACE_SEGMENT_MIN_ELONGATION_DEG = 10.0
+PLACE_SEGMENT_TAIL = 1e-12  # radians on the unit vector (0.2 uas)
 _NEAR_SUN_COSINE = math.cos(math.radians(PLACE_SEGMENT_MIN_ELONGATION_DEG))
 _PLACES_AT_POINTS = {}
 
 
-def _place_at_points(body, kind, system):
-    """For nodes.from_nodes: the function giving a body's place (unit vectors, ``system``'s
-    axes) at a segment's points, each computed as a cell alone computes it."""
-    found = _PLACES_AT_POINTS.get((body, kind, system))
-    if found is None:
-        near_sun = kind == "APPARENT" and body != "SUN"
+def _place_from_segment(body, t1, t2, system, kind):
+    """The unit vector (three floats, ``system``'s axes) of a body's place at an instant
+    of which nodes.cell_is_dense has said yes, from the place's own segment, or None
+    (the Moon or a perturbed orbit, a place not yet asked for often enough there, a
+    segment declined)."""
+    if type(body) is str:
+        if body not in PLACE_SEGMENT_BODIES:
+            return None
+        which = body
+    elif type(body) is orbits.Orbit and body.q.size == 1:
+        which = body.elements_floats(0)
+    else:
+        return None
+    quantity = ("place", which, kind, system)
+    if not nodes.quantity_is_dense(quantity, t1, t2):
+        return None
+    return nodes.from_nodes(quantity, _place_at_points(which, kind, system), t1, t2)
 
-        def directions(jd1, jd2):
-            states = ephemeris.earth_and_sun_at_points(jd1, jd2)
-            out = []
-            for t1, t2, s in zip(jd1.tolist(), jd2.tolist(), states.tolist()):
-                u = _direction_of_states(body, t1, t2, kind, (s[0:3], s[3:6], s[6:9], s[9:12]))
-                if near_sun:
-                    g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])
-                    if u[0] * g[0] + u[1] * g[1] + u[2] * g[2] > _NEAR_SUN_COSINE * _length(g):
-                        return None
-                out.append(u)
-            return np.array(out)
 
-        def compute(jd1, jd2):
-            u = nodes.shared_at_points(("direction", body, kind), directions, jd1, jd2)
-            if u is None:
-                return None
-            return np.einsum("nij,nj->ni", frames.matrices_at_points(system, jd1, jd2), u)
-        found = _PLACES_AT_POINTS[(body, kind, system)] = compute
-    return found
+def _place_at_points(which, kind, system):
+    """For nodes.from_nodes: the function giving the place of a body (a name, or a two-
+    body orbit's ``Orbit.elements_floats``) at a segment's points (unit vectors,
+    ``system``'s axes), each as a cell alone computes it; None to decline the segment."""
+    found = _PLACES_AT_POINTS.get((which, kind, system))
+    if found is not None:
+        return found
+    near_sun = kind == "APPARENT" and which != "SUN"
+
+    def direction(t1, t2, states):
+        if type(which) is str:
+            return _direction_of_states(which, t1, t2, kind, states)
+        return _place_floats(orbits.helio_floats(which, t1, t2), states, kind)
+
+    def directions(jd1, jd2):
+        out = []
+        for t1, t2, s in zip(jd1.tolist(), jd2.tolist(),
+                             ephemeris.earth_and_sun_at_points(jd1, jd2).tolist()):
+            u = direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12]))
+            if near_sun:
+                g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])
+                if u[0] * g[0] + u[1] * g[1] + u[2] * g[2] > _NEAR_SUN_COSINE * _length(g):
+                    return None
+            out.append(u)
+        values = np.array(out)
+        if np.abs(nodes.chebyshev_tail(values)).max() > PLACE_SEGMENT_TAIL:
+            return None
+        return values
+
+    def compute(jd1, jd2):
+        u = nodes.shared_at_points(("direction", which, kind), directions, jd1, jd2)
+        if u is None:
+            return None
+        return np.einsum("nij,nj->ni", frames.matrices_at_points(system, jd1, jd2), u)
+
+    keep(_PLACES_AT_POINTS, (which, kind, system), compute, PLACES_AT_POINTS_KEPT)
+    return compute
+
+
+PLACES_AT_POINTS_KEPT = 256  # the functions of places (a sheet of many orbits: bounded)
 
 
 def cell_on_floats(body, time, system, kind, source, index):

@@ -286,6 +286,12 @@ def from_nodes(quantity, compute, t1, t2):
 _DECLINED = np.zeros(0)  # kept for a segment whose compute declined it
 
 
+def chebyshev_tail(values):
+    """The last three Chebyshev coefficients of values (SEGMENT_POINTS, k) at a
+    segment's points: the size of what the interpolation leaves out."""
+    return _TO_COEFFICIENTS[-3:] @ values
+
+
 def _segment_of(t1, t2):
     """The segment (its number from J2000.0) that holds the TT instant ``t1 + t2``."""
     return math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)
