@@ -502,12 +502,8 @@ def _plain_single(fn, rows, options, null_jd):
     unusual (a message to give, a result that is not one finite number): the general path
     then says what it says.  ``rows``: each row argument's value as the cell holds it (a
     Python float, a text that is no message, or None for an optional number left out)."""
-    func, params, twin = _impl(fn)
+    func, params, _ = _impl(fn)  # (its twin on floats: tried first, by _lane_of)
     kwargs = {k: v for k, v in options.items() if k in params} if options else {}
-    if twin is not None and options.get("scale", "UTC") == "UTC":
-        found = _on_floats(*twin, rows, kwargs, null_jd, options.get("dut1", 0.0))
-        if found is not None:
-            return found
     for arg in fn.args:
         if arg.kind not in registry.ROW_KINDS:
             continue
@@ -561,6 +557,78 @@ def _plain_single(fn, rows, options, null_jd):
     return value if math.isfinite(value) else None
 
 
+def _lane_of(fn):
+    """The float lane of a single cell of ``fn`` read straight from its raw arguments: a
+    function (raw_args, null_jd) -> value or None, made once per function from the
+    registry (None for a function without a twin on floats or whose result is not a
+    number or a date-time value).  It does what ``_evaluate_single`` and ``_plain_single``
+    do before they hand a cell to ``_on_floats`` (options read, each row argument taken
+    only as a plain number, date-time value or text, the scale UTC), without their
+    general bookkeeping: in Calc that bookkeeping had cost a cell as much as its place.
+    None from it (any argument out of the ordinary, any failure) sends the cell down the
+    usual path, which answers as before."""
+    found = _LANES.get(fn.method, _NOT_MADE)
+    if found is not _NOT_MADE:
+        return found
+    func, params, twin = _impl(fn)
+    lane = None
+    if twin is not None and fn.result_kind in ("number", "datetime") and not fn.reduces_series:
+        twin_fn, row_args = twin
+        options = tuple((k, a, a.name in params) for k, a in enumerate(fn.args)
+                        if a.kind in registry.OPTION_KINDS)
+        rows = tuple((k, a.name, _plain_row_kind(a)) for k, a in enumerate(fn.args)
+                     if a.kind not in registry.OPTION_KINDS)
+        lane = _make_lane(twin_fn, row_args, options, rows) if rows else None
+    _LANES[fn.method] = lane
+    return lane
+
+
+_LANES = {}
+_NOT_MADE = object()
+
+
+def _plain_row_kind(arg):
+    """How ``_evaluate_single`` takes a row argument on its quick path: "float" (a number
+    only), "float or left out", "text" (a text that is no message), or None (never)."""
+    if arg.kind in _PLAIN_KINDS:
+        return "float or left out" if _left_out_plainly(arg) else "float"
+    return "text" if arg.kind == "text" else None
+
+
+def _make_lane(twin, row_args, options, rows):
+    def lane(raw_args, null_jd):
+        count = len(raw_args)
+        kwargs = {}
+        scale, dut1 = "UTC", 0.0
+        for k, arg, wanted in options:
+            value = _read_option(arg, raw_args[k] if k < count else None)
+            if wanted:
+                kwargs[arg.name] = value
+            if arg.name == "scale":
+                scale = value
+            elif arg.name == "dut1":
+                dut1 = value
+        if scale != "UTC":
+            return None
+        given = {}
+        for k, name, kind in rows:
+            raw = raw_args[k] if k < count else None
+            if type(raw) is float:
+                if kind is None or kind == "text":
+                    return None
+            elif raw is None:
+                if kind != "float or left out":
+                    return None
+            elif type(raw) is str:
+                if kind != "text" or raw.startswith(PREFIX):
+                    return None
+            else:
+                return None
+            given[name] = raw
+        return _on_floats(twin, row_args, given, kwargs, null_jd, dut1)
+    return lane
+
+
 def _on_floats(twin, row_args, rows, kwargs, null_jd, dut1):
     """The float lane of a single cell whose function has a twin on floats (its
     ``on_floats``: the places of the Sun, the Moon, the planets and two-body orbits, the
@@ -569,13 +637,14 @@ def _on_floats(twin, row_args, rows, kwargs, null_jd, dut1):
     timescales.OneUTC, which also gives its UT1) and handed to the twin with the cell's
     options, its numbers and angles as floats (one left out as its default), a text (an
     orbit's line) as a column of one as ``_plain_single`` hands it.  No Instants and no
-    arrays are made: in Calc each numpy call of a cell's
-    path costs two to three times what it costs in a loop.  The twin gives the value the
-    function gives, to the bit, or None where it does not take the cell; None here sends
-    the cell down ``_plain_single``'s usual path, which says what it says.  So does any
-    failure of the twin: the lane only saves time, and the usual path reports a defect
-    as one (the tests hold the lane to being taken and to the usual path's values)."""
-    given = dict(kwargs)
+    arrays are made: in Calc each numpy call of a cell's path costs two to three times
+    what it costs in a loop.  The twin gives the value the function gives, to the bit,
+    or None where it does not take the cell; None here sends the cell down the usual
+    path (``evaluate``), which says what it says.  So does any failure of the twin: the
+    lane only saves time, and the usual path reports a defect as one (the tests hold
+    the lane to being taken and to the usual path's values).  ``kwargs``: the cell's
+    options, a dict of the lane's own, to which the row arguments are added."""
+    given = kwargs
     for name, kind, default in row_args:
         value = rows[name]
         if kind == "time":
@@ -860,6 +929,19 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
             return hit
+    if key is not None and not fn.reduces_series:
+        lane = _lane_of(fn)
+        if lane is not None:
+            try:
+                with _FloatsQuiet():
+                    found = lane(raw_args, _null_jd(null_date))
+            except Exception:  # (a message to give: the usual path gives it)
+                found = None
+            if found is not None:
+                _keep(key, found)
+                if fn.fills_down:
+                    _fill_down(fn, raw_args, null_date, key)
+                return found
     try:
         with _FloatsQuiet():
             result = (_without_collection(_evaluate, fn, raw_args, null_date, False)

@@ -489,7 +489,7 @@ def test_a_twin_that_fails_leaves_the_cell_to_the_usual_path(monkeypatch):
     monkeypatch.setattr(bodies, "cell_on_floats", broken)
     cells._SINGLE_CELL_CACHE.clear()
     assert cells.evaluate("SKY.SUN.LON", [45000.3]) == want
-    assert calls == [1]  # the lane was tried
+    assert calls == [1]  # the lane was tried, once
 
 
 def test_an_observed_place_cell_takes_the_float_lane_and_gives_its_row_of_a_column(monkeypatch):
