@@ -458,16 +458,19 @@ def one_on_floats(body, t1, t2, system, kind, index):
 # itself from a segment of its own: its unit vector in the system's axes computed at the
 # segment's points as a cell alone computes it, then one interpolation a cell, where the
 # Earth's and the matrix's segments leave a cell the light time, the deflection, the
-# aberration and the rotation to do.  Not the Moon: its place needs several times the
-# points over sixteen days, and its theory costs a cell less than they would.
+# aberration and the rotation to do.  The Moon's place, through the short periods of
+# its perturbations, takes 32 points over the sixteen days (nodes.GRIDS; 20 leave 1 mas
+# of error, 32 under 0.5 uas), with the Earth and the matrix at them from their own
+# segments.
 # A segment is declined (its cells take the Earth's and the matrix's segments) where
-# interpolation would not hold the bound: a body whose apparent place comes within
-# PLACE_SEGMENT_MIN_ELONGATION_DEG of the Sun (the bending of its light changes sharply
-# there), or any place whose last Chebyshev coefficients exceed PLACE_SEGMENT_TAIL (an
+# interpolation would not hold the bound: a planet or an orbit whose apparent place
+# comes within PLACE_SEGMENT_MIN_ELONGATION_DEG of the Sun (the bending of light from
+# behind the Sun changes sharply there), or any place whose last Chebyshev coefficients exceed PLACE_SEGMENT_TAIL (an
 # orbit passing close to the Earth; a smooth place's fall below 1e-13, and the error of
 # one with a larger tail is about its size: measured on 300 segments of the planets).
 
-PLACE_SEGMENT_BODIES = frozenset(("SUN",) + tuple(ephemeris.PLAN94_NUMBERS))
+PLACE_SEGMENT_BODIES = frozenset(("SUN", "MOON") + tuple(ephemeris.PLAN94_NUMBERS))
+PLACE_SEGMENT_POINTS = {"MOON": 32}  # the grids (nodes.GRIDS) of places with more points
 PLACE_SEGMENT_MIN_ELONGATION_DEG = 10.0
 PLACE_SEGMENT_TAIL = 1e-12  # radians on the unit vector (0.2 uas)
 _NEAR_SUN_COSINE = math.cos(math.radians(PLACE_SEGMENT_MIN_ELONGATION_DEG))
@@ -479,10 +482,12 @@ def _place_from_segment(body, t1, t2, system, kind):
     of which nodes.cell_is_dense has said yes, from the place's own segment, or None
     (the Moon or a perturbed orbit, a place not yet asked for often enough there, a
     segment declined)."""
+    points = nodes.SEGMENT_POINTS
     if type(body) is str:
         if body not in PLACE_SEGMENT_BODIES:
             return None
         which = body
+        points = PLACE_SEGMENT_POINTS.get(body, points)
     elif type(body) is orbits.Orbit and body.q.size == 1:
         which = body.elements_floats(0)
     else:
@@ -490,7 +495,7 @@ def _place_from_segment(body, t1, t2, system, kind):
     quantity = ("place", which, kind, system)
     if not nodes.quantity_is_dense(quantity, t1, t2):
         return None
-    return nodes.from_nodes(quantity, _place_at_points(which, kind, system), t1, t2)
+    return nodes.from_nodes(quantity, _place_at_points(which, kind, system), t1, t2, points)
 
 
 def _place_at_points(which, kind, system):
@@ -500,7 +505,8 @@ def _place_at_points(which, kind, system):
     found = _PLACES_AT_POINTS.get((which, kind, system))
     if found is not None:
         return found
-    near_sun = kind == "APPARENT" and which != "SUN"
+    # (Not the Moon: its light never passes the Sun, whose bending of it stays smooth.)
+    near_sun = kind == "APPARENT" and which not in ("SUN", "MOON")
 
     def direction(t1, t2, states):
         if type(which) is str:
@@ -508,9 +514,13 @@ def _place_at_points(which, kind, system):
         return _place_floats(orbits.helio_floats(which, t1, t2), states, kind)
 
     def directions(jd1, jd2):
+        if jd2 is nodes.GRIDS[nodes.SEGMENT_POINTS].days:
+            states = ephemeris.earth_and_sun_at_points(jd1, jd2)
+        else:  # the Moon's finer grid: the Earth from its own segment (within 1 m)
+            states = nodes.segment_at("epv00", ephemeris.earth_and_sun_at_points,
+                                      float(jd1[0]), jd2)
         out = []
-        for t1, t2, s in zip(jd1.tolist(), jd2.tolist(),
-                             ephemeris.earth_and_sun_at_points(jd1, jd2).tolist()):
+        for t1, t2, s in zip(jd1.tolist(), jd2.tolist(), states.tolist()):
             u = direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12]))
             if near_sun:
                 g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])

@@ -253,9 +253,13 @@ def matrix_rows(system, jd1, jd2, dense=False):
 
 def matrices_at_points(system, jd1, jd2):
     """(n, 3, 3): the rotation from ICRS axes to a checked ``system`` at a segment's points
-    (nodes.py), the nutation over them shared with the matrices' own segments."""
+    (nodes.py), the nutation over them shared with the matrices' own segments; at another
+    grid's points (the Moon's), from the matrix's own segment (within 0.1 uas)."""
     if system not in DATED:
         return np.broadcast_to(_fixed(system), (np.size(jd1), 3, 3))
+    if jd2 is not nodes.GRIDS[nodes.SEGMENT_POINTS].days:  # another grid's: from the segment
+        return nodes.segment_at(("matrix", system), _MATRIX_POINTS[system], float(jd1[0]),
+                                jd2).reshape(-1, 3, 3)
     return _MATRIX_POINTS[system](jd1, jd2).reshape(-1, 3, 3)
 
 

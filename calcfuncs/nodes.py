@@ -217,14 +217,38 @@ def forget_kept_instants():
         kept.cache_clear()
 
 
-_SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (SEGMENT_POINTS, k)
+
+class _Grid:
+    """The Chebyshev points (of the first kind) of a segment for ``points`` points: days
+    from the segment's start (read-only: shared_at_points knows a grid's points by this
+    array), the orders, and the transform from values at the points to coefficients."""
+
+    def __init__(self, points):
+        self.points = points
+        self.orders = np.arange(points, dtype=float)
+        angles = np.pi * (np.arange(points) + 0.5) / points
+        self.days = (np.cos(angles) + 1.0) * (SEGMENT_DAYS / 2.0)
+        self.days.flags.writeable = False
+        self.to_coefficients = (2.0 / points) * np.cos(np.outer(self.orders, angles))
+        self.to_coefficients[0] /= 2.0
+        self.last = (None, None, None)  # the last instant's T_k: (jd1, jd2, array)
+
+
+# The usual grid, and a finer one for the Moon's place (bodies.py: its place moves
+# through its perturbations' short periods; 32 points over 16 days hold it within
+# 0.5 uas where 20 leave 1 mas).
+GRIDS = {points: _Grid(points) for points in (SEGMENT_POINTS, 32)}
+_GRID = GRIDS[SEGMENT_POINTS]
+assert np.array_equal(_GRID.days, _POINT_DAYS)
+_GRID.days = _POINT_DAYS
+
+_SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (its grid's points, k)
 _AT_POINTS = {}  # (name, segment's start) -> values at its points (shared_at_points)
 AT_POINTS_KEPT = 1024
 _ASKED = {}      # segment -> distinct instants asked for in it
 _ASKED_OF = {}   # (quantity, segment) -> distinct instants asked for it (quantity_is_dense)
 _IN_CELLS = [0]
 _LAST_ONE = [(None, None, None, False)]  # the last instant: (jd1, jd2, segment, dense)
-_LAST_POLYNOMIALS = [(None, None, None)]  # the last instant's T_k: (jd1, jd2, array)
 
 
 def forget_single_cells():
@@ -232,7 +256,8 @@ def forget_single_cells():
     _SEGMENTS.clear()
     _AT_POINTS.clear()
     _LONG.clear()
-    _LAST_POLYNOMIALS[0] = (None, None, None)
+    for grid in GRIDS.values():
+        grid.last = (None, None, None)
     _ASKED.clear()
     _ASKED_OF.clear()
     _LAST_ONE[0] = (None, None, None, False)
@@ -274,22 +299,32 @@ def for_one(quantity, compute, jd1, jd2):
     return _interpolated(quantity, compute, t1, t2).reshape(np.shape(jd1) + (-1,))
 
 
-def from_nodes(quantity, compute, t1, t2):
+def from_nodes(quantity, compute, t1, t2, points=SEGMENT_POINTS):
     """``for_one``'s values (a list of k floats) at an instant (floats) of which
     ``cell_is_dense`` has just said yes: a place on floats (bodies._direction_floats).
     None where ``compute`` declined the segment (returned None: a body too near the Sun
-    for its place to be interpolated, bodies._place_at_points)."""
-    found = _interpolated(quantity, compute, t1, t2)
+    for its place to be interpolated, bodies._place_at_points).  ``points``: the grid
+    (GRIDS) of the quantity's segments, which ``compute`` is handed."""
+    found = _interpolated(quantity, compute, t1, t2, GRIDS[points])
     return None if found is None else found.tolist()
+
+
+def segment_at(quantity, compute, start, days):
+    """(n, k): a quantity of the usual grid (``for_one``'s) at ``days`` from the start of
+    a segment (``start``, its first instant, as handed to a segment's ``compute``), from
+    its segment's coefficients: the Earth and a matrix at another grid's points."""
+    coefficients = _coefficients(quantity, compute, _segment_of(start, 0.0), _GRID)
+    x = np.clip(days * (2.0 / SEGMENT_DAYS) - 1.0, -1.0, 1.0)
+    return np.cos(np.outer(np.arccos(x), _ORDERS)) @ coefficients
 
 
 _DECLINED = np.zeros(0)  # kept for a segment whose compute declined it
 
 
 def chebyshev_tail(values):
-    """The last three Chebyshev coefficients of values (SEGMENT_POINTS, k) at a
-    segment's points: the size of what the interpolation leaves out."""
-    return _TO_COEFFICIENTS[-3:] @ values
+    """The last three Chebyshev coefficients of values (n, k) at the points of a grid of
+    n points: the size of what the interpolation leaves out."""
+    return GRIDS[len(values)].to_coefficients[-3:] @ values
 
 
 def _segment_of(t1, t2):
@@ -297,23 +332,31 @@ def _segment_of(t1, t2):
     return math.floor(((t1 - SEGMENT_ORIGIN) + t2) / SEGMENT_DAYS)
 
 
-def _interpolated(quantity, compute, t1, t2):
-    segment = _segment_of(t1, t2)
-    start = SEGMENT_ORIGIN + segment * SEGMENT_DAYS
+def _coefficients(quantity, compute, segment, grid):
+    """The kept coefficients of ``quantity`` over ``segment`` (made at ``grid``'s points if
+    none are kept), or _DECLINED."""
     coefficients = _SEGMENTS.get((quantity, segment))
     if coefficients is None:
-        values = compute(np.full(SEGMENT_POINTS, start), _POINT_DAYS)
-        coefficients = _DECLINED if values is None else _TO_COEFFICIENTS @ values
+        start = SEGMENT_ORIGIN + segment * SEGMENT_DAYS
+        values = compute(np.full(grid.points, start), grid.days)
+        coefficients = _DECLINED if values is None else grid.to_coefficients @ values
         keep(_SEGMENTS, (quantity, segment), coefficients, SEGMENTS_KEPT)
+    return coefficients
+
+
+def _interpolated(quantity, compute, t1, t2, grid=_GRID):
+    segment = _segment_of(t1, t2)
+    coefficients = _coefficients(quantity, compute, segment, grid)
     if coefficients is _DECLINED:
         return None
-    last = _LAST_POLYNOMIALS[0]
+    last = grid.last
     if last[0] == t1 and last[1] == t2:  # the same cell's other quantity
         polynomials = last[2]
     else:  # x in [-1, 1] over the segment; T_k(x) = cos(k arccos x)
+        start = SEGMENT_ORIGIN + segment * SEGMENT_DAYS
         x = min(1.0, max(-1.0, ((t1 - start) + t2) * (2.0 / SEGMENT_DAYS) - 1.0))
-        polynomials = np.cos(_ORDERS * math.acos(x))
-        _LAST_POLYNOMIALS[0] = (t1, t2, polynomials)
+        polynomials = np.cos(grid.orders * math.acos(x))
+        grid.last = (t1, t2, polynomials)
     return polynomials.dot(coefficients)
 
 
@@ -353,9 +396,9 @@ def shared_at_points(name, compute, jd1, jd2):
     """``compute(jd1, jd2)`` at a segment's points (the arrays ``_interpolated`` hands a
     segment's ``compute``), kept under ``name`` for the segments of other quantities over
     the same points; computed afresh for any other instants."""
-    if jd2 is not _POINT_DAYS:
+    if not any(jd2 is grid.days for grid in GRIDS.values()):
         return compute(jd1, jd2)
-    key = (name, float(jd1[0]))
+    key = (name, float(jd1[0]), jd2.size)
     found = _AT_POINTS.get(key)
     if found is None:
         found = compute(jd1, jd2)

@@ -81,8 +81,8 @@ def test_aberration_and_deflection_on_floats_are_erfas_ab_and_ld():
 def test_a_cell_of_a_dense_log_takes_its_values_from_segments(monkeypatch):
     # Cells close together in time take the Earth and the system's matrix from their
     # segment (nodes.from_nodes on floats), and once DENSE_CELLS of them have asked for
-    # one body's place in one system, that place itself from a segment of its own (the
-    # Sun and the planets: bodies.PLACE_SEGMENT_BODIES; the Moon keeps the first way):
+    # one body's place in one system, that place itself from a segment of its own
+    # (bodies.PLACE_SEGMENT_BODIES):
     # within the bounds of test_nodes.py (under 1 uas on a place) of the direct values.
     monkeypatch.setattr(nodes, "DENSE_CELLS", 4)
     nodes.forget_single_cells()
@@ -90,10 +90,10 @@ def test_a_cell_of_a_dense_log_takes_its_values_from_segments(monkeypatch):
     calls, places = [], []
     real_value, real_from_nodes = bodies._value_floats, nodes.from_nodes
 
-    def from_nodes(quantity, compute, t1, t2):
+    def from_nodes(quantity, compute, t1, t2, *grid):
         if type(quantity) is tuple and quantity[0] == "place":
             places.append(quantity[1])
-        return real_from_nodes(quantity, compute, t1, t2)
+        return real_from_nodes(quantity, compute, t1, t2, *grid)
     serials = [46000.25 + 0.01 * k for k in range(12)]
     with mock.patch.object(bodies, "_value_floats",
                            side_effect=lambda *a: calls.append(a[-1]) or real_value(*a)), \
@@ -102,9 +102,10 @@ def test_a_cell_of_a_dense_log_takes_its_values_from_segments(monkeypatch):
                for s in serials]
     # The Sun: three cells computed directly; from the fourth the cells are dense, and
     # from the seventh (the fourth to ask for its place there) its place has a segment.
-    # The Moon: every cell dense, on the Earth's and the matrix's segments.
-    assert calls == [False] * 3 + [True] * 3 + [True] * 12
-    assert places == ["SUN"] * 6
+    # The Moon: every cell dense, its first three on the Earth's and the matrix's
+    # segments, then its place's own (on its finer grid).
+    assert calls == [False] * 3 + [True] * 3 + [True] * 3
+    assert places == ["SUN"] * 6 + ["MOON"] * 9
     nodes.forget_single_cells()
     cells._SINGLE_CELL_CACHE.clear()
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)

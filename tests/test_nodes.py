@@ -6,6 +6,7 @@ VSOP2000-based Earth of the SOFA/ERFA standard) evaluated at every instant; the
 interpolated column must stay within the bounds stated in nodes.py.
 """
 
+import math
 import warnings
 from unittest import mock
 
@@ -195,7 +196,8 @@ def place_in_cells(body, kind, system, instants, index=0):
     computed directly (no segment)."""
     got, direct = [], []
     for t in instants:
-        t1, t2 = 2451545.0, t - 2451545.0
+        t1 = math.floor(t - 0.5) + 0.5  # as a cell has its instant: the day, the fraction
+        t2 = t - t1
         with nodes.single_cells():
             got.append(bodies.one_on_floats(body, t1, t2, system, kind, index))
         direct.append(bodies._value_floats(
@@ -212,7 +214,8 @@ def test_a_bodys_place_from_its_segments_within_its_bound(body):
     # instant to the next by the rounding of its theory's arguments (measured
     # 2026-12-05, as the scatter of 400 direct places over half a day about a smooth
     # fit: Venus 0.008 uas at J2000, 1.7 uas in 2954; the largest differences here 0.43
-    # and 2.5 uas, Venus's longitude).
+    # and 2.5 uas, Venus's longitude).  The Moon's, on its finer grid: within 1 and 5 uas
+    # (0.52 and 3.3 measured; its direct place jitters by 3.9 uas about 1000 and 2950).
     rng = np.random.default_rng(len(body))
     worst, made = {}, 0
     for era, (lo, hi) in (("1900-2100", (2415020.5, 2488070.5)),
@@ -231,8 +234,9 @@ def test_a_bodys_place_from_its_segments_within_its_bound(body):
                 assert places  # made (or, near the Sun, declined: an empty table)
                 made += sum(size > 0 for size in places)
     assert made >= 10
-    assert worst["1900-2100"] < 0.5, worst
-    assert worst["1000-3000"] < 3.0, worst
+    modern, far = (1.0, 5.0) if body == "MOON" else (0.5, 3.0)
+    assert worst["1900-2100"] < modern, worst
+    assert worst["1000-3000"] < far, worst
 
 
 def test_a_planet_near_the_sun_keeps_its_place_off_segments():
