@@ -25,7 +25,7 @@ import numpy as np
 from . import earth_theory, ephemeris, frames, nodes
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360, degrees_360_float
-from .timescales import check_years, within_years_one
+from .timescales import OneUTC, check_years, within_years_one
 from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
@@ -133,19 +133,21 @@ def _astrom(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, states=None,
     """``observer_astrom``'s parameters from checked inputs (TT and UT1 two-part JDs,
     the site in radians and metres, the atmosphere).  ``states``: earth_theory.states
     at the instants, and ``true_equator`` its matrix, where the caller has them."""
-    theta = erfa.era00(ut1, ut2)
-    sp = erfa.sp00(tt1, tt2)
-    refa, refb = erfa.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
+    # ERFA's ufuncs themselves: none of these has a status to read, and pyerfa's Python
+    # wrappers around them cost a cell of a log 3 us each (the same results).
+    theta = erfa.ufunc.era00(ut1, ut2)
+    sp = erfa.ufunc.sp00(tt1, tt2)
+    refa, refb = erfa.ufunc.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
     if frame != "ICRS":
-        return erfa.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb)
+        return erfa.ufunc.apio(sp, theta, elong, phi, hm, 0.0, 0.0, refa, refb)
     # The Earth from epv00's series (earth_theory; TT taken for TDB, as ERFA's apco13 does).
     earth_p, earth_v, sun_p, _ = earth_theory.states(tt1, tt2) if states is None else states
-    x, y = erfa.bpn2xy(_true_equator(tt1, tt2) if true_equator is None else true_equator)
-    s = erfa.s06(tt1, tt2, x, y)
+    x, y = erfa.ufunc.bpn2xy(_true_equator(tt1, tt2) if true_equator is None else true_equator)
+    s = erfa.ufunc.s06(tt1, tt2, x, y)
     earth_pv = np.empty(earth_p.shape[:-1], dtype=erfa.dt_pv)
     earth_pv["p"], earth_pv["v"] = earth_p, earth_v
-    return erfa.apco(tt1, tt2, earth_pv, earth_p - sun_p, x, y, s, theta, elong, phi, hm, 0.0,
-                     0.0, sp, refa, refb)
+    return erfa.ufunc.apco(tt1, tt2, earth_pv, earth_p - sun_p, x, y, s, theta, elong, phi, hm,
+                           0.0, 0.0, sp, refa, refb)
 
 
 @nodes.kept_per_instant
@@ -286,13 +288,26 @@ def _observed_on_floats(ra, dec, time, latitude, longitude, height=0.0, pressure
                                and _within(pressure, PRESSURE_RANGE_HPA)
                                and _within(temperature, TEMPERATURE_RANGE_C)):
         return None
-    tt1, tt2 = time.tt
-    if not within_years_one(tt1, tt2, IAU2006_YEARS):
+    if not within_years_one(*time.tt, IAU2006_YEARS):
         return None
+    tt1, tt2 = time.tt
     with nodes.single_cells():
-        astrom = _astrom_one(tt1, tt2, *time.ut1(), math.radians(longitude),
-                             math.radians(latitude), float(height), pressure, temperature,
-                             frame, nodes.cell_is_dense(tt1, tt2))
+        dense = nodes.cell_is_dense(tt1, tt2)
+    return _observed_one(ra, dec, tt1, tt2, time.day, time.fraction, time.dut1, latitude,
+                         longitude, float(height), pressure, temperature, dense)
+
+
+@nodes.kept_per_instant
+def _observed_one(ra, dec, tt1, tt2, day, fraction, dut1, latitude, longitude, height,
+                  pressure, temperature, dense):
+    """``_observed_on_floats``'s place of a target at an instant (its TT, its UTC day and
+    fraction, the cell's DUT1: timescales.OneUTC's) and a site (floats), kept for the
+    row's other columns: the azimuth beside the altitude finds it rather than running
+    atciq and atioq again.  ``dense``: the site's parameters from the segments of a log
+    (``_astrom_one``)."""
+    ut1 = OneUTC((tt1, tt2), day, fraction, dut1).ut1()
+    astrom = _astrom_one(tt1, tt2, *ut1, math.radians(longitude), math.radians(latitude),
+                         height, pressure, temperature, "ICRS", dense)
     ri, di = erfa.ufunc.atciq(math.radians(ra), math.radians(dec), 0.0, 0.0, 0.0, 0.0, astrom)
     aob, zob, hob, dob = (v.item() for v in erfa.ufunc.atioq(ri, di, astrom)[:4])
     if pressure > 0.0 and not 90.0 - math.degrees(zob) >= REFRACTION_MIN_ALTITUDE:

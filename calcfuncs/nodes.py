@@ -199,8 +199,9 @@ _TO_COEFFICIENTS[0] /= 2.0
 # same row, for the last INSTANTS_KEPT instants (frames.nutation_one, _dated_one,
 # ephemeris.earth_and_sun_floats and _earth_and_sun_one, horizon._astrom_one and, for a
 # body's other columns, bodies._direction_floats, _orbit_direction_floats and
-# _direction_one; 19.3 MB when all eight are full, measured with tracemalloc,
-# 2026-12-05).
+# _direction_one, and a target's observed place, horizon._observed_one; 19.3 MB when
+# the first eight are full, measured with tracemalloc, 2026-12-05; the ninth holds
+# tuples of four floats).
 INSTANTS_KEPT = 4096
 _KEPT_PER_INSTANT = []  # the kept functions (kept_per_instant)
 
