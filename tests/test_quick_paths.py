@@ -16,7 +16,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import bodies, cells, frames, nodes, timeinput, timescales, vectors
+from calcfuncs import bodies, cells, frames, nodes, registry, timeinput, timescales, vectors
 from calcfuncs.errors import PREFIX, SkyError
 
 NULL_JD = 2415018.5  # Calc's default null date 1899-12-30 (PLATFORM-NOTES.md)
@@ -580,3 +580,22 @@ def test_the_float_lane_reads_the_instant_with_the_documents_null_date(monkeypat
                 assert got == want, (name, s, null_date)
                 answers.add((name, got))
         assert len(answers) == 9  # each null date its own instant
+
+
+def test_the_lane_is_made_once_per_function_and_only_for_twins(monkeypatch):
+    # cells._lane_of reads a function's registry entry once: a lane for a function with
+    # a twin on floats whose result is a number, none for others (a text result, a
+    # series, no twin).  A word the lane cannot read (a frame that is none) leaves the
+    # cell to the usual path, whose message it shows.
+    lane = cells._lane_of(registry.BY_NAME["SKY.SUN.LON"])
+    assert callable(lane) and cells._lane_of(registry.BY_NAME["SKY.SUN.LON"]) is lane
+    for name in ("SKY.VERSION", "SKY.OBLIQUITY.TRUE", "SKY.WRAP.360"):
+        assert cells._lane_of(registry.BY_NAME[name]) is None, name
+    taken = []
+    real = cells._on_floats
+    monkeypatch.setattr(cells, "_on_floats", lambda *a: taken.append(1) or real(*a))
+    got = cells.evaluate("SKY.SUN.LON", [45000.25, None, "NOPE"])
+    assert isinstance(got, str) and got.startswith(PREFIX) and "NOPE" in got
+    assert taken == []  # the lane stopped at the word, before the twin
+    assert isinstance(cells.evaluate("SKY.SUN.LON", [45000.25, None, "J2000"]), float)
+    assert taken == [1]
