@@ -929,28 +929,24 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
             return hit
-    if key is not None and not fn.reduces_series:
-        lane = _lane_of(fn)
-        if lane is not None:
-            try:
-                with _FloatsQuiet():
-                    found = lane(raw_args, _null_jd(null_date))
-            except Exception:  # (a message to give: the usual path gives it)
-                found = None
-            if found is not None:
-                _keep(key, found)
-                if fn.fills_down:
-                    _fill_down(fn, raw_args, null_date, key)
-                return found
-    try:
-        with _FloatsQuiet():
-            result = (_without_collection(_evaluate, fn, raw_args, null_date, False)
-                      if ranged else _evaluate(fn, raw_args, null_date, True))
-    except SkyError as err:
-        result = PREFIX + str(err)
-    except Exception as err:  # a defect of ours: say so in the cell, keep the office up
-        result = f"{PREFIX}internal error ({type(err).__name__}: {err}); please report it"
-        key = None
+    result = None
+    lane = _lane_of(fn) if key is not None and not fn.reduces_series else None
+    if lane is not None:  # a single cell's float lane (None: the usual path)
+        try:
+            with _FloatsQuiet():
+                result = lane(raw_args, _null_jd(null_date))
+        except Exception:  # (a message to give: the usual path gives it)
+            result = None
+    if result is None:
+        try:
+            with _FloatsQuiet():
+                result = (_without_collection(_evaluate, fn, raw_args, null_date, False)
+                          if ranged else _evaluate(fn, raw_args, null_date, True))
+        except SkyError as err:
+            result = PREFIX + str(err)
+        except Exception as err:  # a defect of ours: say so in the cell, keep the office up
+            result = f"{PREFIX}internal error ({type(err).__name__}: {err}); please report it"
+            key = None
     if key is not None:
         _keep(key, result)
         if fn.fills_down:
