@@ -437,8 +437,7 @@ def one_on_floats(body, t1, t2, system, kind, index):
     where the float path does not take it (another body, outside BUILTIN_YEARS, a step
     that fails).  In a dense log, the place itself from its segment (``_place_from_segment``)
     or the Earth and the matrix from theirs."""
-    direction = _directions_on_floats(body, kind, 1)
-    if direction is None or not within_years_one(t1, t2, BUILTIN_YEARS):
+    if not within_years_one(t1, t2, BUILTIN_YEARS):
         return None
     try:
         dense = nodes.cell_is_dense(t1, t2)
@@ -446,6 +445,9 @@ def one_on_floats(body, t1, t2, system, kind, index):
             found = _place_from_segment(body, t1, t2, system, kind)
             if found is not None:
                 return frames.spherical_floats(found[0], found[1], found[2], index)
+        direction = _directions_on_floats(body, kind, 1)
+        if direction is None:
+            return None
         return _value_floats(direction, t1, t2, system, index, dense)
     except _FLOAT_FAILURES:
         return None

@@ -574,8 +574,8 @@ def _lane_of(fn):
     lane = None
     if twin is not None and fn.result_kind in ("number", "datetime") and not fn.reduces_series:
         twin_fn, row_args = twin
-        options = tuple((k, a, a.name in params) for k, a in enumerate(fn.args)
-                        if a.kind in registry.OPTION_KINDS)
+        options = tuple((k, a, a.name in params, _left_out_option(a))
+                        for k, a in enumerate(fn.args) if a.kind in registry.OPTION_KINDS)
         rows = tuple((k, a.name, _plain_row_kind(a)) for k, a in enumerate(fn.args)
                      if a.kind not in registry.OPTION_KINDS)
         lane = _make_lane(twin_fn, row_args, options, rows) if rows else None
@@ -585,6 +585,15 @@ def _lane_of(fn):
 
 _LANES = {}
 _NOT_MADE = object()
+
+
+def _left_out_option(arg):
+    """What an option left out of a cell reads as (``_read_option(arg, None)``), or
+    _NOT_MADE where that is a message (a choice the cell must make)."""
+    try:
+        return _read_option(arg, None)
+    except SkyError:
+        return _NOT_MADE
 
 
 def _plain_row_kind(arg):
@@ -600,8 +609,11 @@ def _make_lane(twin, row_args, options, rows):
         count = len(raw_args)
         kwargs = {}
         scale, dut1 = "UTC", 0.0
-        for k, arg, wanted in options:
-            value = _read_option(arg, raw_args[k] if k < count else None)
+        for k, arg, wanted, left_out in options:
+            raw = raw_args[k] if k < count else None
+            value = left_out if raw is None else _NOT_MADE
+            if value is _NOT_MADE:
+                value = _read_option(arg, raw)
             if wanted:
                 kwargs[arg.name] = value
             if arg.name == "scale":

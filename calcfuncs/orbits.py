@@ -157,6 +157,7 @@ class Orbit:
         for value in self.__dict__.values():
             if isinstance(value, np.ndarray):
                 value.flags.writeable = False
+        self._floats_kept = {}  # elements_floats of these fixed arrays (tuples of floats)
         return self
 
     @property
@@ -207,11 +208,18 @@ class Orbit:
     def elements_floats(self, row):
         """One row's (q, e, P, Q, tp1, tp2) as floats (P and Q tuples of three): what
         ``helio_floats`` propagates, and a key that tells one two-body orbit from
-        another."""
-        return (float(self.q.flat[row]), float(self.e.flat[row]),
-                tuple(self.p_hat.reshape(-1, 3)[row].tolist()),
-                tuple(self.q_hat.reshape(-1, 3)[row].tolist()),
-                float(self.tp1.flat[row]), float(self.tp2.flat[row]))
+        another.  Kept for orbits made read-only (``read_only``: a cell's orbit kept by
+        its text), whose copies share them."""
+        kept = self.__dict__.get("_floats_kept")
+        found = None if kept is None else kept.get(row)
+        if found is None:
+            found = (float(self.q.flat[row]), float(self.e.flat[row]),
+                     tuple(self.p_hat.reshape(-1, 3)[row].tolist()),
+                     tuple(self.q_hat.reshape(-1, 3)[row].tolist()),
+                     float(self.tp1.flat[row]), float(self.tp2.flat[row]))
+            if kept is not None:
+                kept[row] = found
+        return found
 
     def age_days(self, t1, t2):
         """Time from the epoch of the elements to the instants, days."""
