@@ -467,9 +467,10 @@ def one_on_floats(body, t1, t2, system, kind, index):
 # A segment is declined (its cells take the Earth's and the matrix's segments) where
 # interpolation would not hold the bound: a planet or an orbit whose apparent place
 # comes within PLACE_SEGMENT_MIN_ELONGATION_DEG of the Sun (the bending of light from
-# behind the Sun changes sharply there), or any place whose last Chebyshev coefficients exceed PLACE_SEGMENT_TAIL (an
-# orbit passing close to the Earth; a smooth place's fall below 1e-13, and the error of
-# one with a larger tail is about its size: measured on 300 segments of the planets).
+# behind the Sun changes sharply there), or any place whose last Chebyshev coefficients
+# exceed PLACE_SEGMENT_TAIL (an orbit passing close to the Earth; a smooth place's fall
+# below 1e-13, and the error of one with a larger tail is about its size: measured on
+# 300 segments of the Sun and four planets).
 
 PLACE_SEGMENT_BODIES = frozenset(("SUN", "MOON") + tuple(ephemeris.PLAN94_NUMBERS))
 PLACE_SEGMENT_POINTS = {"MOON": 32}  # the grids (nodes.GRIDS) of places with more points
@@ -482,8 +483,8 @@ _PLACES_AT_POINTS = {}
 def _place_from_segment(body, t1, t2, system, kind):
     """The unit vector (three floats, ``system``'s axes) of a body's place at an instant
     of which nodes.cell_is_dense has said yes, from the place's own segment, or None
-    (the Moon or a perturbed orbit, a place not yet asked for often enough there, a
-    segment declined)."""
+    (a body without one, a perturbed orbit, a place not yet asked for often enough
+    there, a segment declined)."""
     points = nodes.SEGMENT_POINTS
     if type(body) is str:
         if body not in PLACE_SEGMENT_BODIES:

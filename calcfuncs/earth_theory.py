@@ -107,7 +107,8 @@ def states_vector(tdb1, tdb2):
 
 
 def _years(tdb1, tdb2):
-    return ((np.asarray(tdb1, dtype=float) - J2000_JD) + np.asarray(tdb2, dtype=float)) / _DAYS_PER_YEAR
+    return ((np.asarray(tdb1, dtype=float) - J2000_JD)
+            + np.asarray(tdb2, dtype=float)) / _DAYS_PER_YEAR
 
 
 def _terms(selected):
@@ -150,7 +151,7 @@ def _states_of_terms(t, terms):
 # At a segment's points (nodes.py) the terms of periods of FAST_PERIOD_DAYS and more
 # (1,805 of the 1,951) are interpolated from a long segment's points
 # (nodes.over_long_segment), and only the others (146, the Moon's pull on the Earth) are
-# evaluated at the segment's own: 75 us for a segment's points against 180.  Against
+# evaluated at the segment's own: 78 us for a segment's points against 178.  Against
 # ERFA epv00 at the points over 1000-3000: 0.26 m and 0.05 um/s (tests/test_nodes.py),
 # the series' own rounding far from J2000 (the fit's error is far below: more points
 # over the long segment do not change it).

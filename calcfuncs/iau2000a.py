@@ -174,11 +174,12 @@ def nutation_vector(jd1, jd2):
 
 
 # At a segment's points (nodes.py) the terms of periods of FAST_PERIOD_DAYS and more
-# (753 of the 1,365) are interpolated from a long segment's points (nodes.over_long_segment:
-# 128 days; within 1e-4 micro-arcsecond of the series, 9e-5 measured over 1000-3000,
-# tests/test_nodes.py), and only the others (612) are evaluated at the segment's own:
-# 140 us for a segment's points against 200.  A term's period from its argument's rate (the Delaunay arguments' linear
-# rates of eq. 5.43 above, the planetary terms' own).
+# (753 of the 1,365) are interpolated from a long segment's points
+# (nodes.over_long_segment: 128 days; within 1e-4 micro-arcsecond of the series, 9e-5
+# measured over 1000-3000, tests/test_nodes.py), and only the others (612) are evaluated
+# at the segment's own: 123 us for a segment's points against 206.  A term's period from
+# its argument's rate (the Delaunay arguments' linear rates of eq. 5.43 above, the
+# planetary terms' own).
 FAST_PERIOD_DAYS = 40.0
 _DELAUNAY_RATES = np.array([1717915923.2178, 129596581.0481, 1739527262.8478,
                             1602961601.2090, -6962890.5431]) * _RADIANS_PER_ARCSEC  # per century

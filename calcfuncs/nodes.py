@@ -136,9 +136,10 @@ def over_nodes(compute, jd1, jd2):
 # for DENSE_CELLS distinct instants within one segment of SEGMENT_DAYS (TT, counted from
 # J2000.0, so that every call shares the same segments), the segment's nutation and
 # Earth are computed at its SEGMENT_POINTS Chebyshev points in one pass of numpy each
-# (iau2000a.nutation_at_points, earth_theory.states_at_points: 7 and 4 us a point
+# (iau2000a.nutation_at_points, earth_theory.states_at_points: 6 and 4 us a point
 # against 18 and 15 for an instant alone, their terms of periods over 40 days taken from
-# long segments of 128 days, ``over_long_segment``), kept as Chebyshev coefficients, and every later cell of
+# long segments of 128 days, ``over_long_segment``), kept as Chebyshev coefficients, and
+# every later cell of
 # the segment takes its values from them: a cosine of twenty angles and one small
 # matrix product.  A log of two instants a day pays the segment's twenty points once
 # for its thirty-odd cells; a sheet of instants spread over the years never reaches the
@@ -156,16 +157,18 @@ def over_nodes(compute, jd1, jd2):
 # over sixteen days resolve the nutation's shortest terms, of five to nine days), the
 # Earth's position within 1 m (the direct series' own rounding far from J2000, a few
 # tenths of a metre, not the fit's) and its velocity within 1 um/s.
-# The place of the Sun or a planet (bodies.PLACE_SEGMENT_BODIES) goes one step further:
+# The place of the Sun, the Moon, a planet or a two-body orbit goes one step further:
 # once DENSE_CELLS instants have asked for one body's place in one system within a
 # segment (``quantity_is_dense``: counted per place, so that one cell of a rare body in
 # a log of others computes its own), the place itself is a quantity with its own
 # segment, its unit vector computed at the points as a cell alone computes it, and a
 # cell takes it as one interpolation and two arctangents: within 0.5 uas of the direct
 # place over 1900-2100, 3 uas over 1000-3000 (where the direct place itself jitters by
-# its theory's rounding).  A segment in which a planet's apparent place comes within 10
-# degrees of the Sun is declined (the bending of its light there changes too sharply to
-# be interpolated; bodies._place_at_points) and its cells take the first way.
+# its theory's rounding); the Moon's, on a grid of 32 points (GRIDS), within 1 and 5.
+# A segment in which a planet's apparent place comes within 10 degrees of the Sun (the
+# bending of its light there changes too sharply to be interpolated), or whose last
+# coefficients exceed 1e-12, is declined (bodies._place_at_points) and its cells take
+# the first way.
 # A cell can therefore give either the direct value or the segment's, which differ by
 # those bounds: each is a function of the instant alone, and which one a cell shows
 # depends on the cells computed before it, twelve digits down.
