@@ -352,7 +352,7 @@ def core_part(core_rows, cell_rows, repeats, report):
         "cold_s": total_cold,
         "warm_s": total_warm,
         "cold_us_per_cell_by_function": per_function,
-        "cache_size": cells._SINGLE_CELL_CACHE_SIZE,
+        "cache_size": cells._SINGLE_CELL_CACHE.size,
     }
     report(f"  core single-cell {n_cells} cells: cold {total_cold:.2f} s  warm {total_warm:.3f} s")
     return out

@@ -12,6 +12,7 @@ import importlib
 import inspect
 import math
 import time
+from collections import OrderedDict
 
 import numpy as np
 
@@ -26,13 +27,50 @@ from .vocabulary import J2000_JD, SCALE_WORDS, SOURCE_WORDS
 _IMPLS = {}
 _NULL_JDS = {}
 # Calc recomputes every cell of a sheet on each hard recalculation (and on load when so
-# set), and the answer of a single cell depends only on its arguments: keep recent
-# answers.
-# When full, the newest entry makes room (dict.popitem), so a sheet larger than the
-# cache still finds its first 200,000 cells on every recalculation instead of none, as
-# a least-recently-used policy would on a top-to-bottom pass.
-_SINGLE_CELL_CACHE = {}
-_SINGLE_CELL_CACHE_SIZE = 200_000
+# set), and the answer of a single cell depends only on its arguments: keep answers.
+
+
+class KeptAnswers:
+    """Single cells' answers, at most ``size``, in two parts.  The last ``recent`` kept,
+    in order of arrival: the newest work of a session, where a block of rows computed
+    ahead (``_fill_down``) and the cell next to a new one are found however long the
+    session has run.  Behind them the rest: when full, its newest entry makes room, so a
+    sheet larger than the bound still finds its first cells on every recalculation
+    instead of none, as a least-recently-used policy would on a top-to-bottom pass.  (One
+    part of that second kind alone, as before, once full kept no new answer for longer
+    than the next cell: a month of sunsets filled down then searched every day.)"""
+
+    __slots__ = ("size", "recent_size", "recent", "older")
+
+    def __init__(self, size=200_000, recent=8192):
+        self.size, self.recent_size = size, min(recent, size)
+        self.recent = OrderedDict()
+        self.older = {}
+
+    def get(self, key, default=None):
+        found = self.recent.get(key, _NOT_MADE)
+        return self.older.get(key, default) if found is _NOT_MADE else found
+
+    def __contains__(self, key):
+        return key in self.recent or key in self.older
+
+    def __len__(self):
+        return len(self.recent) + len(self.older)
+
+    def clear(self):
+        self.recent.clear()
+        self.older.clear()
+
+    def keep(self, key, value):
+        recent = self.recent
+        if key not in recent and len(recent) >= self.recent_size:
+            first, answer = recent.popitem(last=False)
+            if self.size > self.recent_size:
+                keep(self.older, first, answer, self.size - self.recent_size, evict=NEWEST)
+        recent[key] = value
+
+
+_SINGLE_CELL_CACHE = KeptAnswers()
 
 
 def _impl(fn):
@@ -981,7 +1019,7 @@ def _without_collection(call, *args):
 
 
 def _keep(key, result):
-    keep(_SINGLE_CELL_CACHE, key, result, _SINGLE_CELL_CACHE_SIZE, evict=NEWEST)
+    _SINGLE_CELL_CACHE.keep(key, result)
 
 
 # A formula filled down a column of days (=SKY.SUN.SET(A5;...) with A5 = A4+1) asks for

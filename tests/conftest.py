@@ -72,5 +72,5 @@ def _fresh_single_cell_nodes(monkeypatch):
     monkeypatch.setattr(nodes, "_AT_POINTS", {})
     monkeypatch.setattr(nodes, "_LONG", {})
     monkeypatch.setattr(nodes, "_LAST_ONE", [(None, None, None, False)])
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     nodes.forget_kept_instants()  # one instant's ERFA values (exact, but kept all the same)

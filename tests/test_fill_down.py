@@ -131,3 +131,40 @@ def test_steps_other_than_a_day_compute_nothing_ahead():
         cells.evaluate(fn, args_for(fn, 46023.0 + 7.0 * k))
     assert len(cells._SINGLE_CELL_CACHE) == 4
     assert np.isfinite(cells.evaluate(fn, args_for(fn, 46100.0)))
+
+
+def test_a_full_cache_still_keeps_the_rows_ahead(monkeypatch):
+    # When the kept answers reach their bound (a long session), the newest work is still
+    # kept (cells.KeptAnswers: the last answers in order of arrival before the rest): the
+    # cell above a new one and the rows of a block computed ahead are found, and a month
+    # of sunsets filled down takes a few blocks, not a search of its own for every day.
+    fn = registry.BY_NAME["SKY.SUN.SET"]
+    forget()
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers(60, recent=40))
+    for k in range(60):  # a full cache of other answers
+        cells.evaluate("SKY.WRAP.360", [k + 0.5])
+    assert len(cells._SINGLE_CELL_CACHE) == 60
+    columns = []
+    real = cells._evaluate
+    monkeypatch.setattr(cells, "_evaluate", lambda f, args, *rest: columns.append(
+        any(isinstance(a, tuple) for a in args)) or real(f, args, *rest))
+    values = [46023.0 + k for k in range(40)]
+    filled = [cells.evaluate(fn, args_for(fn, v)) for v in values]
+    assert len(cells._SINGLE_CELL_CACHE) == 60
+    assert columns.count(True) <= 3 and columns.count(False) <= 6, columns  # (was 40 and 0)
+    for k in (0, 2, 17, 39):
+        assert filled[k] == alone(fn, values[k]), k
+
+
+def test_kept_answers_stay_within_their_bound_and_keep_a_large_sheets_first_cells():
+    # cells.KeptAnswers holds at most its size; once full, the older part keeps its first
+    # entries (a sheet larger than the bound recalculated top to bottom finds them again)
+    # and the recent part the last answers.
+    kept = cells.KeptAnswers(100, recent=10)
+    for k in range(1000):
+        kept.keep(k, float(k))
+        assert len(kept) <= 100
+    assert all(k in kept for k in range(89)) and all(k in kept for k in range(990, 1000))
+    assert kept.get(500) is None and kept.get(995) == 995.0 and kept.get(3) == 3.0
+    kept.clear()
+    assert len(kept) == 0 and kept.get(995) is None

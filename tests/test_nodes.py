@@ -433,7 +433,7 @@ def test_a_dense_log_of_cells_agrees_with_each_cell_computed_directly(name, body
         assert sum(type(q) is tuple and q[0] == "place" for q in made) >= 18
     else:  # the Earth and the system's matrix
         assert made.count("epv00") >= 18 and len(made) >= 2 * 18
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     nodes.forget_kept_instants()  # the places kept for a row's other columns, too
     direct = np.array([cells.evaluate(name, [*body, float(s)]) for s in serials])
@@ -581,7 +581,7 @@ def test_a_dense_log_of_observed_places_and_orbits_agrees_with_direct_cells(name
     got = np.array([cells.evaluate(name, args(s)) for s in serials])
     # The Earth's and the matrix's segments; a minor planet's place has its own.
     assert len(nodes._SEGMENTS) >= (2 * 8 if name.startswith("SKY.HORIZON") else 8)
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     nodes.forget_kept_instants()
     direct = np.array([cells.evaluate(name, args(s)) for s in serials])

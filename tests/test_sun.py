@@ -976,7 +976,7 @@ def test_the_node_cache_stays_bounded_and_never_changes_an_answer(monkeypatch):
     monkeypatch.setattr(sun_days, "ANCHORS_KEPT", 20)
     sun_days.forget()
     from calcfuncs import cells
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     cell_by_cell = [evaluate("SKY.SUN.RISE", [d, 47.38, 8.05, "UTC", 1.0, "SUNRISE", 455.0])
                     for d in days]
     assert len(sun_days._DAYS) <= 50
@@ -1009,7 +1009,7 @@ def test_days_kept_for_a_filled_down_column_are_never_stale(monkeypatch):
 
     def fresh(args, null_date=(1899, 12, 30), name="SKY.SUN.RISE"):
         monkeypatch.setattr(sun, "_DAY_CACHE", {})
-        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
         return cells.evaluate(name, args, null_date)
 
     expected = [fresh(a) for a in variants]
@@ -1017,7 +1017,7 @@ def test_days_kept_for_a_filled_down_column_are_never_stale(monkeypatch):
     expected_set = fresh(base, name="SKY.SUN.SET")
     # Now with the stores shared: the first call fills them for 31 days ahead.
     monkeypatch.setattr(sun, "_DAY_CACHE", {})
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     got = [cells.evaluate("SKY.SUN.RISE", a) for a in variants]
     assert got == expected
     assert len(set(got)) == len(got)  # every variant moves the answer
@@ -1036,14 +1036,14 @@ def test_a_column_filled_down_cell_by_cell_equals_the_column_and_stays_bounded(m
     days = [45650.0 + i for i in range(120)]
     monkeypatch.setattr(sun, "DAY_CACHE_SIZE", 40)
     monkeypatch.setattr(sun, "_DAY_CACHE", {})
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     by_cell = [cells.evaluate("SKY.SUN.SET", [d, -33.9, 18.4, "UTC", 2.0]) for d in days]
     assert len(sun._DAY_CACHE) <= 40
     column = cells.evaluate("SKY.SUN.SET", [tuple((d,) for d in days), -33.9, 18.4, "UTC", 2.0])
     assert by_cell == [row[0] for row in column]
     for d, value in zip(days[::17], by_cell[::17]):
         monkeypatch.setattr(sun, "_DAY_CACHE", {})
-        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
         assert cells.evaluate("SKY.SUN.SET", [d, -33.9, 18.4, "UTC", 2.0]) == value
 
 

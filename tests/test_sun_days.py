@@ -146,7 +146,7 @@ def test_transit_by_hour_angle_equals_the_bracketing_search(monkeypatch):
     args = [column(days), column(lat), column(lon), "UTC", column(offsets)]
     quick = [r[0] for r in cells.evaluate("SKY.SUN.TRANSIT", args)]
     monkeypatch.setattr(sun, "EDGE_DAYS", 1.0)  # no guess inside: all by brackets
-    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+    monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     slow = [r[0] for r in cells.evaluate("SKY.SUN.TRANSIT", args)]
     assert [isinstance(v, str) for v in quick] == [isinstance(v, str) for v in slow]
     assert any(isinstance(v, str) for v in quick)  # dates without a transit were among them
@@ -191,10 +191,10 @@ def test_body_rise_of_the_sun_by_hour_angle_equals_the_bracketing_search(monkeyp
 
     for name in ("SKY.BODY.RISE", "SKY.BODY.SET"):
         args = ["SUN", column(days), column(lat), column(lon), "UTC", column(offsets)]
-        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
         quick = [r[0] for r in cells.evaluate(name, args)]
         monkeypatch.setattr(sun, "SAFE_COS", -1.0)  # no row is safe: all by brackets
-        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
         slow = [r[0] for r in cells.evaluate(name, args)]
         monkeypatch.undo()
         assert [isinstance(v, str) for v in quick] == [isinstance(v, str) for v in slow]
@@ -212,12 +212,12 @@ def test_body_rise_of_the_sun_from_its_days_within_a_millisecond(monkeypatch):
     exact = risings.body_node_vectors
     for lat, lon in ((-33.9, 18.4), (47.38, 8.05), (60.2, 24.9)):
         args = ["SUN", days, lat, lon]
-        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
         monkeypatch.setattr(risings, "_NODE_CACHE", {})
         ours = [r[0] for r in cells.evaluate("SKY.BODY.RISE", args)]
         monkeypatch.setattr(sun_days, "cirs_vectors",
                             lambda tt: exact("SUN", "BUILTIN", tt))
-        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", {})
+        monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
         full = [r[0] for r in cells.evaluate("SKY.BODY.RISE", args)]
         monkeypatch.undo()
         assert max(abs(a - b) for a, b in zip(ours, full)) * 86400.0 < 1e-3
