@@ -253,8 +253,9 @@ def _direction_floats(body, t1, t2, kind, dense=False):
     return _direction_of_states(body, t1, t2, kind, _states_floats(t1, t2, dense))
 
 
-def _direction_of_states(body, t1, t2, kind, states):
-    """``_direction_floats`` from the Earth's and the Sun's barycentric states."""
+def _direction_of_states(body, t1, t2, kind, states, known=None):
+    """``_direction_floats`` from the Earth's and the Sun's barycentric states (``known``:
+    see ephemeris.heliocentric_floats)."""
     (ex, ey, ez), ev, (sx, sy, sz), sv = states
     if body == "SUN":  # _sun_geocentric's steps
         g = (sx - ex, sy - ey, sz - ez)
@@ -265,7 +266,8 @@ def _direction_of_states(body, t1, t2, kind, states):
         u = _direction((g[0] - tau * sv[0], g[1] - tau * sv[1], g[2] - tau * sv[2]))
         return _aberrate_floats(u, ev, distance) if kind == "APPARENT" else u
     earth_helio = ((ex - sx, ey - sy, ez - sz), (ev[0] - sv[0], ev[1] - sv[1], ev[2] - sv[2]))
-    return _place_floats(ephemeris.heliocentric_floats(body, t1, t2, earth_helio), states, kind)
+    return _place_floats(ephemeris.heliocentric_floats(body, t1, t2, earth_helio, known),
+                         states, kind)
 
 
 @nodes.kept_per_instant
@@ -522,9 +524,13 @@ def _place_at_points(which, kind, system):
         else:  # the Moon's finer grid: the Earth from its own segment (within 1 m)
             states = nodes.segment_at("epv00", ephemeris.earth_and_sun_at_points,
                                       float(jd1[0]), jd2)
+        rows = states.tolist()
+        known = _planet_positions(which, kind, jd1, jd2, rows)
         out = []
-        for t1, t2, s in zip(jd1.tolist(), jd2.tolist(), states.tolist()):
-            u = direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12]))
+        for k, (t1, t2, s) in enumerate(zip(jd1.tolist(), jd2.tolist(), rows)):
+            u = (direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12])) if known is None
+                 else _direction_of_states(which, t1, t2, kind,
+                                           (s[0:3], s[3:6], s[6:9], s[9:12]), known[k]))
             if near_sun:
                 g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])
                 if u[0] * g[0] + u[1] * g[1] + u[2] * g[2] > _NEAR_SUN_COSINE * _length(g):
@@ -546,6 +552,31 @@ def _place_at_points(which, kind, system):
 
 
 PLACES_AT_POINTS_KEPT = 256  # the functions of places (a sheet of many orbits: bounded)
+
+
+def _planet_positions(which, kind, jd1, jd2, rows):
+    """For a planet's place at a segment's points: per point, its plan94 positions by
+    light time (ephemeris.heliocentric_floats' ``known``), at the instant and at the
+    first light time ``_place_floats`` asks for, each set in one call of plan94 over the
+    points rather than one call a point; None for another body.  The first light time
+    is formed as ``_place_floats`` forms it, so the same numbers are asked for (where one
+    were not, the place would ask plan94 for it itself)."""
+    if type(which) is not str or which not in ephemeris.PLAN94_NUMBERS:
+        return None
+    zeros = np.zeros(jd1.size)
+    at_instant = ephemeris.plan94_rows(which, jd1, jd2, zeros)
+    if kind == "GEOMETRIC":
+        return [{0.0: p} for p in at_instant]
+    (b0, b1, b2), taus = ephemeris.BIAS_ROWS, []
+    for (x, y, z), s in zip(at_instant, rows):
+        h = (b0[0] * x + b1[0] * y + b2[0] * z, b0[1] * x + b1[1] * y + b2[1] * z,
+             b0[2] * x + b1[2] * y + b2[2] * z)
+        tau = 0.0  # _place_floats' geocentric(helio, 0.0), and its first light time
+        vector = (h[0] + (s[6] - tau * s[9]) - s[0], h[1] + (s[7] - tau * s[10]) - s[1],
+                  h[2] + (s[8] - tau * s[11]) - s[2])
+        taus.append(_length(vector) * LIGHT_DAYS_PER_AU)
+    delayed = ephemeris.plan94_rows(which, jd1, jd2, np.array(taus))
+    return [{0.0: p, tau: q} for p, q, tau in zip(at_instant, delayed, taus)]
 
 
 def cell_on_floats(body, time, system, kind, source, index):

@@ -92,14 +92,16 @@ def _earth_and_sun_one(tdb1, tdb2):
     return tuple(out)
 
 
-_BIAS_ROWS = erfa.bp06(J2000_JD, 0.0)[0].tolist()  # Builtin._bias, as rows of floats
+BIAS_ROWS = erfa.bp06(J2000_JD, 0.0)[0].tolist()  # Builtin._bias, as rows of floats
 
 
-def heliocentric_floats(body, t1, t2, earth_helio):
+def heliocentric_floats(body, t1, t2, earth_helio, known=None):
     """``Builtin.heliocentric``'s position of the Moon or a planet of plan94 at one
     instant inside BUILTIN_YEARS, on floats: a function of the light time ``tau`` (days)
     giving the body at t1 + t2 - tau as three floats (au, ICRS axes).  ``earth_helio``:
-    the Earth's heliocentric (p, v) at t1 + t2, lists of floats, for the Moon."""
+    the Earth's heliocentric (p, v) at t1 + t2, lists of floats, for the Moon.
+    ``known``: a planet's plan94 positions already computed, by ``tau`` (``plan94_rows``:
+    a segment's points in one call), taken where the same ``tau`` is asked."""
     if body == "MOON":  # the Moon and the Earth extrapolated over the light time, as there
         p, v = earth_helio
         pv = erfa.ufunc.moon98(t1, t2)
@@ -111,13 +113,22 @@ def heliocentric_floats(body, t1, t2, earth_helio):
                     (m[1] + dt * mv[1]) + (p[1] + dt * v[1]),
                     (m[2] + dt * mv[2]) + (p[2] + dt * v[2]))
         return at
-    number, (b0, b1, b2) = PLAN94_NUMBERS[body], _BIAS_ROWS
+    number, (b0, b1, b2) = PLAN94_NUMBERS[body], BIAS_ROWS
 
     def at(tau):
-        x, y, z = erfa.ufunc.plan94(t1, t2 - tau, number)[0]["p"].tolist()
+        found = None if known is None else known.get(tau)
+        x, y, z = (erfa.ufunc.plan94(t1, t2 - tau, number)[0]["p"].tolist()
+                   if found is None else found)
         return (b0[0] * x + b1[0] * y + b2[0] * z, b0[1] * x + b1[1] * y + b2[1] * z,
                 b0[2] * x + b1[2] * y + b2[2] * z)
     return at
+
+
+def plan94_rows(body, jd1, jd2, taus):
+    """A planet's plan94 positions (lists of three floats, the theory's own axes) at the
+    instants jd1 + jd2 - taus (arrays), in one call: the same numbers as
+    ``heliocentric_floats`` asks for one at a time."""
+    return erfa.ufunc.plan94(jd1, jd2 - taus, PLAN94_NUMBERS[body])[0]["p"].tolist()
 
 
 def rough_earth(tt1, tt2):

@@ -16,7 +16,7 @@ import erfa
 import numpy as np
 import pytest
 
-from calcfuncs import bodies, cells, frames, nodes, orbits
+from calcfuncs import bodies, cells, ephemeris, frames, nodes, orbits
 from calcfuncs.errors import PREFIX
 from calcfuncs.events import wrap180
 from calcfuncs.vocabulary import J2000_JD
@@ -252,3 +252,30 @@ def test_the_suns_longitude_at_each_march_equinox_reads_zero():
         equinox = cells.evaluate("SKY.SEASON", (float(year), "MARCH", "TT"))
         assert 0.0 <= cells.evaluate("SKY.SUN.LON", (equinox, "TT")) < 1e-6
         assert 359.9999 < cells.evaluate("SKY.SUN.LON", (equinox - 1.0 / 86400.0, "TT")) < 360.0
+
+
+@pytest.mark.parametrize("kind", ["APPARENT", "ASTROMETRIC", "GEOMETRIC"])
+def test_a_planets_place_at_a_segments_points_asks_plan94_once_for_them_all(kind, monkeypatch):
+    # bodies._planet_positions asks ERFA plan94 for all of a segment's points in one call
+    # (at the instants, then at their first light times, formed as _place_floats forms
+    # them): each point's place is the one computed point by point, to the bit, and no
+    # point asks plan94 again on its own.
+    asked = []
+    real = ephemeris.heliocentric_floats
+
+    def counting(body, t1, t2, earth_helio, known=None):
+        at = real(body, t1, t2, earth_helio, known)
+        return lambda tau: asked.append(known is None or tau not in known) or at(tau)
+    for body in ("MERCURY", "MARS", "NEPTUNE"):
+        for segment in (-1500, 0, 700):
+            jd1 = np.full(nodes.SEGMENT_POINTS, nodes.SEGMENT_ORIGIN + segment * nodes.SEGMENT_DAYS)
+            rows = ephemeris.earth_and_sun_at_points(jd1, nodes._POINT_DAYS).tolist()
+            known = bodies._planet_positions(body, kind, jd1, nodes._POINT_DAYS, rows)
+            for k, (t2, s) in enumerate(zip(nodes._POINT_DAYS.tolist(), rows)):
+                states = (s[0:3], s[3:6], s[6:9], s[9:12])
+                alone = bodies._direction_of_states(body, float(jd1[k]), t2, kind, states)
+                with mock.patch.object(ephemeris, "heliocentric_floats", counting):
+                    together = bodies._direction_of_states(body, float(jd1[k]), t2, kind,
+                                                           states, known[k])
+                assert together == alone, (body, segment, k)
+    assert asked and not any(asked)  # every position asked for was among those known
