@@ -513,24 +513,22 @@ def _place_at_points(which, kind, system):
     # (Not the Moon: its light never passes the Sun, whose bending of it stays smooth.)
     near_sun = kind == "APPARENT" and which not in ("SUN", "MOON")
 
-    def direction(t1, t2, states):
+    def direction(t1, t2, states, known):
         if type(which) is str:
-            return _direction_of_states(which, t1, t2, kind, states)
+            return _direction_of_states(which, t1, t2, kind, states, known)
         return _place_floats(orbits.helio_floats(which, t1, t2), states, kind)
 
     def directions(jd1, jd2):
-        if jd2 is nodes.GRIDS[nodes.SEGMENT_POINTS].days:
+        if nodes.on_usual_grid(jd2):
             states = ephemeris.earth_and_sun_at_points(jd1, jd2)
         else:  # the Moon's finer grid: the Earth from its own segment (within 1 m)
             states = nodes.segment_at("epv00", ephemeris.earth_and_sun_at_points,
                                       float(jd1[0]), jd2)
         rows = states.tolist()
-        known = _planet_positions(which, kind, jd1, jd2, rows)
+        known = _planet_positions(which, kind, jd1, jd2, rows) or [None] * len(rows)
         out = []
-        for k, (t1, t2, s) in enumerate(zip(jd1.tolist(), jd2.tolist(), rows)):
-            u = (direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12])) if known is None
-                 else _direction_of_states(which, t1, t2, kind,
-                                           (s[0:3], s[3:6], s[6:9], s[9:12]), known[k]))
+        for t1, t2, s, positions in zip(jd1.tolist(), jd2.tolist(), rows, known):
+            u = direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12]), positions)
             if near_sun:
                 g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])
                 if u[0] * g[0] + u[1] * g[1] + u[2] * g[2] > _NEAR_SUN_COSINE * _length(g):

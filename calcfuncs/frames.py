@@ -257,7 +257,7 @@ def matrices_at_points(system, jd1, jd2):
     grid's points (the Moon's), from the matrix's own segment (within 0.1 uas)."""
     if system not in DATED:
         return np.broadcast_to(_fixed(system), (np.size(jd1), 3, 3))
-    if jd2 is not nodes.GRIDS[nodes.SEGMENT_POINTS].days:  # another grid's: from the segment
+    if not nodes.on_usual_grid(jd2):  # another grid's points: from the matrix's segment
         return nodes.segment_at(("matrix", system), _MATRIX_POINTS[system], float(jd1[0]),
                                 jd2).reshape(-1, 3, 3)
     return _MATRIX_POINTS[system](jd1, jd2).reshape(-1, 3, 3)

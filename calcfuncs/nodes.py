@@ -246,6 +246,15 @@ _GRID = GRIDS[SEGMENT_POINTS]
 assert np.array_equal(_GRID.days, _POINT_DAYS)
 _GRID.days = _POINT_DAYS
 
+
+
+def on_usual_grid(days):
+    """Whether ``days`` are the usual grid's points (the very array a segment's
+    ``compute`` is handed), whose values other quantities share (``shared_at_points``);
+    another grid's (the Moon's) take such quantities from their segments instead."""
+    return days is _POINT_DAYS
+
+
 _SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (its grid's points, k)
 _AT_POINTS = {}  # (name, segment's start) -> values at its points (shared_at_points)
 AT_POINTS_KEPT = 1024
