@@ -253,21 +253,23 @@ def _direction_floats(body, t1, t2, kind, dense=False):
     return _direction_of_states(body, t1, t2, kind, _states_floats(t1, t2, dense))
 
 
-def _direction_of_states(body, t1, t2, kind, states, known=None):
-    """``_direction_floats`` from the Earth's and the Sun's barycentric states (``known``:
-    see ephemeris.heliocentric_floats)."""
+def _direction_of_states(body, t1, t2, kind, states, sqrt=math.sqrt, floor=max):
+    """``_direction_floats`` from the Earth's and the Sun's barycentric states.  The same
+    steps take a segment's points at once (``_directions_at_points``): instants and
+    states as arrays, ``sqrt`` and ``floor`` numpy's (the same arithmetic, element by
+    element, so the same numbers)."""
     (ex, ey, ez), ev, (sx, sy, sz), sv = states
     if body == "SUN":  # _sun_geocentric's steps
         g = (sx - ex, sy - ey, sz - ez)
-        distance = _length(g)
+        distance = _length(g, sqrt)
         if kind == "GEOMETRIC":
             return [g[0] / distance, g[1] / distance, g[2] / distance]
         tau = distance * LIGHT_DAYS_PER_AU
-        u = _direction((g[0] - tau * sv[0], g[1] - tau * sv[1], g[2] - tau * sv[2]))
-        return _aberrate_floats(u, ev, distance) if kind == "APPARENT" else u
+        u = _direction((g[0] - tau * sv[0], g[1] - tau * sv[1], g[2] - tau * sv[2]), sqrt)
+        return _aberrate_floats(u, ev, distance, sqrt) if kind == "APPARENT" else u
     earth_helio = ((ex - sx, ey - sy, ez - sz), (ev[0] - sv[0], ev[1] - sv[1], ev[2] - sv[2]))
-    return _place_floats(ephemeris.heliocentric_floats(body, t1, t2, earth_helio, known),
-                         states, kind)
+    return _place_floats(ephemeris.heliocentric_floats(body, t1, t2, earth_helio),
+                         states, kind, sqrt, floor)
 
 
 @nodes.kept_per_instant
@@ -291,10 +293,10 @@ def _states_floats(t1, t2, dense):
 # place made of some thirty of them spent a third of its time calling them.
 
 
-def _place_floats(helio_at, states, kind):
+def _place_floats(helio_at, states, kind, sqrt=math.sqrt, floor=max):
     """``place``'s steps on floats for a body whose heliocentric position at the light
     time ``tau`` is ``helio_at(tau)``, from the barycentric states of the Earth and the
-    Sun at the instant."""
+    Sun at the instant (or on arrays of instants: ``_direction_of_states``)."""
     (ex, ey, ez), ev, (sx, sy, sz), (svx, svy, svz) = states
 
     def geocentric(h, tau):  # the Sun at t - tau from its slow motion at t
@@ -305,30 +307,31 @@ def _place_floats(helio_at, states, kind):
     vector = geocentric(helio, 0.0)
     if kind != "GEOMETRIC":  # place's rounds: the body at t - tau1, then on the chord
         first = helio
-        tau1 = _length(vector) * LIGHT_DAYS_PER_AU
+        tau1 = _length(vector, sqrt) * LIGHT_DAYS_PER_AU
         helio = at_tau1 = helio_at(tau1)
         vector = geocentric(helio, tau1)
         for _ in range(LIGHT_TIME_ROUNDS - 1):
-            tau = _length(vector) * LIGHT_DAYS_PER_AU
+            tau = _length(vector, sqrt) * LIGHT_DAYS_PER_AU
             f = (tau1 - tau) / tau1
             helio = (at_tau1[0] + f * (first[0] - at_tau1[0]),
                      at_tau1[1] + f * (first[1] - at_tau1[1]),
                      at_tau1[2] + f * (first[2] - at_tau1[2]))
             vector = geocentric(helio, tau)
-    u = _direction(vector)
+    u = _direction(vector, sqrt)
     if kind != "APPARENT":
         return u
-    em = _length((ex - sx, ey - sy, ez - sz))
+    em = _length((ex - sx, ey - sy, ez - sz), sqrt)
     e = ((ex - sx) / em, (ey - sy) / em, (ez - sz) / em)
-    return _aberrate_floats(_deflect_floats(u, _direction(helio), e, em), ev, em)
+    return _aberrate_floats(_deflect_floats(u, _direction(helio, sqrt), e, em, floor), ev, em,
+                            sqrt)
 
 
-def _length(v):
-    return math.sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2])
+def _length(v, sqrt=math.sqrt):
+    return sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2])
 
 
-def _direction(v):
-    size = _length(v)
+def _direction(v, sqrt=math.sqrt):
+    size = _length(v, sqrt)
     return [v[0] / size, v[1] / size, v[2] / size]
 
 
@@ -343,30 +346,30 @@ SUN_SCHWARZSCHILD_AU = 1.97412574336e-8
 # tests/test_float_places.py holds them to ERFA's own to 1e-15 over random inputs.
 
 
-def _aberrate_floats(u, earth_v, sun_distance):
+def _aberrate_floats(u, earth_v, sun_distance, sqrt=math.sqrt):
     """``_aberrate`` of one direction on floats: the relativistic annual aberration of
     the unit vector ``u`` for an observer moving at ``earth_v`` (au/day, barycentric)
     at ``sun_distance`` au from the Sun, with the Sun's potential's small term (the
     Explanatory Supplement, 3rd ed., eq. 7.40, as ERFA ab takes it)."""
     (ux, uy, uz), (vx, vy, vz) = u, earth_v
     bx, by, bz = vx * LIGHT_DAYS_PER_AU, vy * LIGHT_DAYS_PER_AU, vz * LIGHT_DAYS_PER_AU  # v/c
-    root = math.sqrt(1.0 - (bx * bx + by * by + bz * bz))  # 1 / the Lorentz factor
+    root = sqrt(1.0 - (bx * bx + by * by + bz * bz))  # 1 / the Lorentz factor
     ub = ux * bx + uy * by + uz * bz
     along = 1.0 + ub / (1.0 + root)
     potential = SUN_SCHWARZSCHILD_AU / sun_distance
     return _direction((root * ux + along * bx + potential * (bx - ub * ux),
                        root * uy + along * by + potential * (by - ub * uy),
-                       root * uz + along * bz + potential * (bz - ub * uz)))
+                       root * uz + along * bz + potential * (bz - ub * uz)), sqrt)
 
 
-def _deflect_floats(u, q, e, sun_earth):
+def _deflect_floats(u, q, e, sun_earth, floor=max):
     """The Sun's deflection of the light of a body at a finite distance, on floats: ``u``
     the body's direction from the Earth, ``q`` its direction from the Sun, ``e`` the
     Earth's from the Sun, all unit vectors, the Earth ``sun_earth`` au from the Sun (the
     Explanatory Supplement, 3rd ed., eq. 7.64; ERFA ld with one solar mass and its
     floor of 1e-9 on 1 + q.e, which keeps a body behind the Sun finite)."""
     (ux, uy, uz), (qx, qy, qz), (ex, ey, ez) = u, q, e
-    scale = SUN_SCHWARZSCHILD_AU / sun_earth / max(
+    scale = SUN_SCHWARZSCHILD_AU / sun_earth / floor(
         qx * (qx + ex) + qy * (qy + ey) + qz * (qz + ez), 1e-9)
     ax, ay, az = ey * qz - ez * qy, ez * qx - ex * qz, ex * qy - ey * qx  # e x q
     return [ux + scale * (uy * az - uz * ay), uy + scale * (uz * ax - ux * az),
@@ -513,31 +516,21 @@ def _place_at_points(which, kind, system):
     # (Not the Moon: its light never passes the Sun, whose bending of it stays smooth.)
     near_sun = kind == "APPARENT" and which not in ("SUN", "MOON")
 
-    def direction(t1, t2, states, known):
-        if type(which) is str:
-            return _direction_of_states(which, t1, t2, kind, states, known)
-        return _place_floats(orbits.helio_floats(which, t1, t2), states, kind)
-
     def directions(jd1, jd2):
         if nodes.on_usual_grid(jd2):
             states = ephemeris.earth_and_sun_at_points(jd1, jd2)
         else:  # the Moon's finer grid: the Earth from its own segment (within 1 m)
             states = nodes.segment_at("epv00", ephemeris.earth_and_sun_at_points,
                                       float(jd1[0]), jd2)
-        rows = states.tolist()
-        known = _planet_positions(which, kind, jd1, jd2, rows) or [None] * len(rows)
-        out = []
-        for t1, t2, s, positions in zip(jd1.tolist(), jd2.tolist(), rows, known):
-            u = direction(t1, t2, (s[0:3], s[3:6], s[6:9], s[9:12]), positions)
-            if near_sun:
-                g = (s[6] - s[0], s[7] - s[1], s[8] - s[2])
-                if u[0] * g[0] + u[1] * g[1] + u[2] * g[2] > _NEAR_SUN_COSINE * _length(g):
-                    return None
-            out.append(u)
-        values = np.array(out)
-        if np.abs(nodes.chebyshev_tail(values)).max() > PLACE_SEGMENT_TAIL:
+        u = _directions_at_points(which, kind, jd1, jd2, states)
+        if near_sun:  # the Sun's direction from the Earth, g, within the angle of u
+            g = states[:, 6:9] - states[:, 0:3]
+            if np.any(np.einsum("ni,ni->n", u, g)
+                      > _NEAR_SUN_COSINE * np.sqrt(np.einsum("ni,ni->n", g, g))):
+                return None
+        if np.abs(nodes.chebyshev_tail(u)).max() > PLACE_SEGMENT_TAIL:
             return None
-        return values
+        return u
 
     def compute(jd1, jd2):
         u = nodes.shared_at_points(("direction", which, kind), directions, jd1, jd2)
@@ -552,29 +545,34 @@ def _place_at_points(which, kind, system):
 PLACES_AT_POINTS_KEPT = 256  # the functions of places (a sheet of many orbits: bounded)
 
 
-def _planet_positions(which, kind, jd1, jd2, rows):
-    """For a planet's place at a segment's points: per point, its plan94 positions by
-    light time (ephemeris.heliocentric_floats' ``known``), at the instant and at the
-    first light time ``_place_floats`` asks for, each set in one call of plan94 over the
-    points rather than one call a point; None for another body.  The first light time
-    is formed as ``_place_floats`` forms it, so the same numbers are asked for (where one
-    were not, the place would ask plan94 for it itself)."""
-    if type(which) is not str or which not in ephemeris.PLAN94_NUMBERS:
-        return None
-    zeros = np.zeros(jd1.size)
-    at_instant = ephemeris.plan94_rows(which, jd1, jd2, zeros)
-    if kind == "GEOMETRIC":
-        return [{0.0: p} for p in at_instant]
-    (b0, b1, b2), taus = ephemeris.BIAS_ROWS, []
-    for (x, y, z), s in zip(at_instant, rows):
-        h = (b0[0] * x + b1[0] * y + b2[0] * z, b0[1] * x + b1[1] * y + b2[1] * z,
-             b0[2] * x + b1[2] * y + b2[2] * z)
-        tau = 0.0  # _place_floats' geocentric(helio, 0.0), and its first light time
-        vector = (h[0] + (s[6] - tau * s[9]) - s[0], h[1] + (s[7] - tau * s[10]) - s[1],
-                  h[2] + (s[8] - tau * s[11]) - s[2])
-        taus.append(_length(vector) * LIGHT_DAYS_PER_AU)
-    delayed = ephemeris.plan94_rows(which, jd1, jd2, np.array(taus))
-    return [{0.0: p, tau: q} for p, q, tau in zip(at_instant, delayed, taus)]
+def _directions_at_points(which, kind, jd1, jd2, states):
+    """(n, 3): the unit vectors (GCRS axes) of a body's place (a name, or a two-body
+    orbit's ``Orbit.elements_floats``) at n instants (a segment's points) from the Earth's
+    and the Sun's barycentric states there ((n, 12)), each the one a cell alone computes
+    (``_direction_of_states``, ``_place_floats``), to the bit: the same steps on numpy's
+    rows, element by element, with ERFA's theories called once for all the points (a
+    Moon's segment 550 -> 250 us; point by point, each point paid some ninety Python
+    calls)."""
+    rows = np.ascontiguousarray(states.T)
+    by_parts = ((rows[0], rows[1], rows[2]), (rows[3], rows[4], rows[5]),
+                (rows[6], rows[7], rows[8]), (rows[9], rows[10], rows[11]))
+    if type(which) is str:
+        u = _direction_of_states(which, jd1, jd2, kind, by_parts, np.sqrt, np.maximum)
+    else:  # an orbit: its positions point by point (its solutions are of one point)
+        u = _place_floats(_orbit_at_points(which, jd1, jd2), by_parts, kind, np.sqrt,
+                          np.maximum)
+    return np.stack(u, axis=1)
+
+
+def _orbit_at_points(elements, jd1, jd2):
+    """``orbits.helio_floats`` for n instants as one function of the light times (a
+    float, or an array of n): three arrays of n."""
+    each = [orbits.helio_floats(elements, t1, t2) for t1, t2 in zip(jd1.tolist(), jd2.tolist())]
+
+    def at(tau):
+        taus = [tau] * len(each) if type(tau) is float else tau.tolist()
+        return tuple(np.array(c) for c in zip(*[a(t) for a, t in zip(each, taus)]))
+    return at
 
 
 def cell_on_floats(body, time, system, kind, source, index):

@@ -959,10 +959,16 @@ def _kernel_stamps(fn, raw_args):
 
 
 def _cell_key(fn, raw_args, null_date, stamps):
-    """The key of a kept answer: everything that changes it.  Each argument with its
-    type, since 1, 1.0 and True are one key but not one input; the null date; what the
-    kernels named hold now (_kernel_stamps)."""
-    return (fn.method, tuple(zip(map(type, raw_args), raw_args)), tuple(null_date), stamps)
+    """The key of a kept answer: everything that changes it.  The arguments (a tuple)
+    and their types, since 1, 1.0 and True are one key but not one input; the null date
+    (a tuple); what the kernels named hold now (_kernel_stamps)."""
+    return (fn.method, tuple(map(type, raw_args)), raw_args, null_date, stamps)
+
+
+# What Calc hands a single cell's arguments as (a number, a text, one left out) and
+# what a Python caller may pass besides: a call of these alone is one cell and hashable,
+# found so by one look at the set rather than a walk over the arguments.
+_SCALAR_TYPES = frozenset((float, str, type(None), int, bool))
 
 
 def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
@@ -971,10 +977,14 @@ def evaluate(name_or_fn, raw_args, null_date=(1899, 12, 30)):
     Never raises for anything a user can type: problems come back as ``#SKY:`` text.
     """
     fn = name_or_fn if isinstance(name_or_fn, registry.CellFunction) else registry.BY_NAME[name_or_fn]
-    raw_args = tuple(raw_args)
+    if type(raw_args) is not tuple:
+        raw_args = tuple(raw_args)
+    if type(null_date) is not tuple:
+        null_date = tuple(null_date)
     key = None
-    ranged = any(isinstance(v, (tuple, list)) for v in raw_args)
-    if not ranged and _hashable(raw_args):
+    plain = _SCALAR_TYPES.issuperset(map(type, raw_args))
+    ranged = not plain and any(isinstance(v, (tuple, list)) for v in raw_args)
+    if plain or (not ranged and _hashable(raw_args)):
         key = _cell_key(fn, raw_args, null_date, _kernel_stamps(fn, raw_args))
         hit = _SINGLE_CELL_CACHE.get(key)
         if hit is not None:
@@ -1059,7 +1069,7 @@ def _fill_down(fn, raw_args, null_date, key):
 
     def key_at(value):  # the key of the cell whose stepped argument holds ``value``
         moved[k] = value
-        return _cell_key(fn, moved, null_date, key[3])
+        return _cell_key(fn, tuple(moved), null_date, key[4])
 
     here = raw_args[k]
     if key_at(here - 1.0) in _SINGLE_CELL_CACHE:

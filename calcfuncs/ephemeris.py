@@ -95,17 +95,18 @@ def _earth_and_sun_one(tdb1, tdb2):
 BIAS_ROWS = erfa.bp06(J2000_JD, 0.0)[0].tolist()  # Builtin._bias, as rows of floats
 
 
-def heliocentric_floats(body, t1, t2, earth_helio, known=None):
+def heliocentric_floats(body, t1, t2, earth_helio):
     """``Builtin.heliocentric``'s position of the Moon or a planet of plan94 at one
     instant inside BUILTIN_YEARS, on floats: a function of the light time ``tau`` (days)
     giving the body at t1 + t2 - tau as three floats (au, ICRS axes).  ``earth_helio``:
-    the Earth's heliocentric (p, v) at t1 + t2, lists of floats, for the Moon.
-    ``known``: a planet's plan94 positions already computed, by ``tau`` (``plan94_rows``:
-    a segment's points in one call), taken where the same ``tau`` is asked."""
+    the Earth's heliocentric (p, v) at t1 + t2, lists of floats, for the Moon.  The same
+    for a segment's points at once (bodies._directions_at_points): ``t1``, ``t2``, ``tau``
+    and the Earth's components arrays, one ERFA call for all the points, the same
+    numbers as point by point."""
     if body == "MOON":  # the Moon and the Earth extrapolated over the light time, as there
         p, v = earth_helio
         pv = erfa.ufunc.moon98(t1, t2)
-        m, mv = pv["p"].tolist(), pv["v"].tolist()
+        m, mv = _components(pv["p"]), _components(pv["v"])
 
         def at(tau):
             dt = (t1 - t1) + ((t2 - tau) - t2)
@@ -116,19 +117,16 @@ def heliocentric_floats(body, t1, t2, earth_helio, known=None):
     number, (b0, b1, b2) = PLAN94_NUMBERS[body], BIAS_ROWS
 
     def at(tau):
-        found = None if known is None else known.get(tau)
-        x, y, z = (erfa.ufunc.plan94(t1, t2 - tau, number)[0]["p"].tolist()
-                   if found is None else found)
+        x, y, z = _components(erfa.ufunc.plan94(t1, t2 - tau, number)[0]["p"])
         return (b0[0] * x + b1[0] * y + b2[0] * z, b0[1] * x + b1[1] * y + b2[1] * z,
                 b0[2] * x + b1[2] * y + b2[2] * z)
     return at
 
 
-def plan94_rows(body, jd1, jd2, taus):
-    """A planet's plan94 positions (lists of three floats, the theory's own axes) at the
-    instants jd1 + jd2 - taus (arrays), in one call: the same numbers as
-    ``heliocentric_floats`` asks for one at a time."""
-    return erfa.ufunc.plan94(jd1, jd2 - taus, PLAN94_NUMBERS[body])[0]["p"].tolist()
+def _components(vectors):
+    """An ERFA vector's three components: floats for one instant (numpy's own scalars
+    would slow a cell's arithmetic), rows of an array for several."""
+    return vectors.tolist() if vectors.ndim == 1 else vectors.T
 
 
 def rough_earth(tt1, tt2):

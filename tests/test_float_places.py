@@ -255,27 +255,32 @@ def test_the_suns_longitude_at_each_march_equinox_reads_zero():
 
 
 @pytest.mark.parametrize("kind", ["APPARENT", "ASTROMETRIC", "GEOMETRIC"])
-def test_a_planets_place_at_a_segments_points_asks_plan94_once_for_them_all(kind, monkeypatch):
-    # bodies._planet_positions asks ERFA plan94 for all of a segment's points in one call
-    # (at the instants, then at their first light times, formed as _place_floats forms
-    # them): each point's place is the one computed point by point, to the bit, and no
-    # point asks plan94 again on its own.
-    asked = []
-    real = ephemeris.heliocentric_floats
-
-    def counting(body, t1, t2, earth_helio, known=None):
-        at = real(body, t1, t2, earth_helio, known)
-        return lambda tau: asked.append(known is None or tau not in known) or at(tau)
-    for body in ("MERCURY", "MARS", "NEPTUNE"):
+def test_a_place_at_a_segments_points_equals_each_point_alone_to_the_bit(kind, monkeypatch):
+    # bodies._directions_at_points takes a segment's points at once: the float steps on
+    # numpy's rows, element by element, and ERFA's theories called once for all the
+    # points.  Each point's place is the one computed alone, to the bit (the Sun, the
+    # Moon, every planet, and orbits of the random kind above), and plan94 and moon98
+    # are asked once for the instants and, for a planet's light time, once more.
+    calls = []
+    for name in ("plan94", "moon98"):
+        real = getattr(erfa.ufunc, name)
+        monkeypatch.setattr(erfa.ufunc, name, lambda *a, _real=real, _name=name: (
+            calls.append((_name, np.ndim(a[0]))) or _real(*a)))
+    orbits_here = [o.elements_floats(0) for o in _random_orbits(np.random.default_rng(5), 4)]
+    for which in sorted(bodies.FLOAT_BODIES) + orbits_here:
         for segment in (-1500, 0, 700):
             jd1 = np.full(nodes.SEGMENT_POINTS, nodes.SEGMENT_ORIGIN + segment * nodes.SEGMENT_DAYS)
-            rows = ephemeris.earth_and_sun_at_points(jd1, nodes._POINT_DAYS).tolist()
-            known = bodies._planet_positions(body, kind, jd1, nodes._POINT_DAYS, rows)
-            for k, (t2, s) in enumerate(zip(nodes._POINT_DAYS.tolist(), rows)):
-                states = (s[0:3], s[3:6], s[6:9], s[9:12])
-                alone = bodies._direction_of_states(body, float(jd1[k]), t2, kind, states)
-                with mock.patch.object(ephemeris, "heliocentric_floats", counting):
-                    together = bodies._direction_of_states(body, float(jd1[k]), t2, kind,
-                                                           states, known[k])
-                assert together == alone, (body, segment, k)
-    assert asked and not any(asked)  # every position asked for was among those known
+            states = ephemeris.earth_and_sun_at_points(jd1, nodes._POINT_DAYS)
+            del calls[:]
+            together = bodies._directions_at_points(which, kind, jd1, nodes._POINT_DAYS, states)
+            if type(which) is str and which != "SUN":
+                assert all(ndim == 1 for _, ndim in calls), which  # all points in a call
+                assert len(calls) == (1 if which == "MOON" or kind == "GEOMETRIC" else 2)
+            for k, (t2, s) in enumerate(zip(nodes._POINT_DAYS.tolist(), states.tolist())):
+                by_parts = (s[0:3], s[3:6], s[6:9], s[9:12])
+                if type(which) is str:
+                    alone = bodies._direction_of_states(which, float(jd1[k]), t2, kind, by_parts)
+                else:
+                    alone = bodies._place_floats(orbits.helio_floats(which, float(jd1[k]), t2),
+                                                 by_parts, kind)
+                assert together[k].tolist() == alone, (which, segment, k)
