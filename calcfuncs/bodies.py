@@ -509,7 +509,8 @@ def _place_from_segment(body, t1, t2, system, kind):
 def _place_at_points(which, kind, system):
     """For nodes.from_nodes: the function giving the place of a body (a name, or a two-
     body orbit's ``Orbit.elements_floats``) at a segment's points (unit vectors,
-    ``system``'s axes), each as a cell alone computes it; None to decline the segment."""
+    ``system``'s axes), each as a cell alone computes it; not a number over a segment
+    it declines (nodes.py: its cells take the earlier way)."""
     found = _PLACES_AT_POINTS.get((which, kind, system))
     if found is not None:
         return found
@@ -523,19 +524,19 @@ def _place_at_points(which, kind, system):
             states = nodes.segment_at("epv00", ephemeris.earth_and_sun_at_points,
                                       float(jd1[0]), jd2)
         u = _directions_at_points(which, kind, jd1, jd2, states)
+        declined = np.abs(nodes.chebyshev_tail(u, jd2)).max(axis=(1, 2)) > PLACE_SEGMENT_TAIL
         if near_sun:  # the Sun's direction from the Earth, g, within the angle of u
             g = states[:, 6:9] - states[:, 0:3]
-            if np.any(np.einsum("ni,ni->n", u, g)
-                      > _NEAR_SUN_COSINE * np.sqrt(np.einsum("ni,ni->n", g, g))):
-                return None
-        if np.abs(nodes.chebyshev_tail(u)).max() > PLACE_SEGMENT_TAIL:
-            return None
+            near = (np.einsum("ni,ni->n", u, g)
+                    > _NEAR_SUN_COSINE * np.sqrt(np.einsum("ni,ni->n", g, g)))
+            declined |= near.reshape(declined.size, -1).any(axis=1)
+        if declined.any():  # (a run's other segments are made)
+            u = u.copy()
+            u.reshape(declined.size, -1, 3)[declined] = np.nan
         return u
 
     def compute(jd1, jd2):
         u = nodes.shared_at_points(("direction", which, kind), directions, jd1, jd2)
-        if u is None:
-            return None
         return np.einsum("nij,nj->ni", frames.matrices_at_points(system, jd1, jd2), u)
 
     keep(_PLACES_AT_POINTS, (which, kind, system), compute, PLACES_AT_POINTS_KEPT)
@@ -550,28 +551,32 @@ def _directions_at_points(which, kind, jd1, jd2, states):
     orbit's ``Orbit.elements_floats``) at n instants (a segment's points) from the Earth's
     and the Sun's barycentric states there ((n, 12)), each the one a cell alone computes
     (``_direction_of_states``, ``_place_floats``), to the bit: the same steps on numpy's
-    rows, element by element, with ERFA's theories called once for all the points (a
-    Moon's segment 550 -> 250 us; point by point, each point paid some ninety Python
-    calls)."""
+    rows, element by element, with ERFA's theories called once for all the points (an
+    orbit's positions within 1e-11 degree, ``_orbit_at_points``).  Point by point, each
+    point had paid some ninety Python calls."""
     rows = np.ascontiguousarray(states.T)
     by_parts = ((rows[0], rows[1], rows[2]), (rows[3], rows[4], rows[5]),
                 (rows[6], rows[7], rows[8]), (rows[9], rows[10], rows[11]))
     if type(which) is str:
         u = _direction_of_states(which, jd1, jd2, kind, by_parts, np.sqrt, np.maximum)
-    else:  # an orbit: its positions point by point (its solutions are of one point)
+    else:
         u = _place_floats(_orbit_at_points(which, jd1, jd2), by_parts, kind, np.sqrt,
                           np.maximum)
     return np.stack(u, axis=1)
 
 
 def _orbit_at_points(elements, jd1, jd2):
-    """``orbits.helio_floats`` for n instants as one function of the light times (a
-    float, or an array of n): three arrays of n."""
-    each = [orbits.helio_floats(elements, t1, t2) for t1, t2 in zip(jd1.tolist(), jd2.tolist())]
+    """An orbit's heliocentric positions at n instants as one function of the light
+    times (a float, or an array of n): three arrays of n, Kepler's equation solved for
+    all the points at once (orbits.propagate_from_perihelion, a column's way: within
+    1e-11 degree of the cells' steps on floats, tests/test_float_places.py)."""
+    q, e, p_hat, q_hat, tp1, tp2 = elements
+    p_hat, q_hat = np.array(p_hat), np.array(q_hat)
 
     def at(tau):
-        taus = [tau] * len(each) if type(tau) is float else tau.tolist()
-        return tuple(np.array(c) for c in zip(*[a(t) for a, t in zip(each, taus)]))
+        dt = (jd1 - tp1) + ((jd2 - tau) - tp2)
+        position = orbits.propagate_from_perihelion(q, e, p_hat, q_hat, dt)[0]
+        return position[:, 0], position[:, 1], position[:, 2]
     return at
 
 

@@ -236,23 +236,46 @@ class _Grid:
         self.to_coefficients = (2.0 / points) * np.cos(np.outer(self.orders, angles))
         self.to_coefficients[0] /= 2.0
         self.last = (None, None, None)  # the last instant's T_k: (jd1, jd2, array)
+        self.runs = {1: self.days}  # segments in a run -> its points' days (run_days)
+
+    def run_days(self, count):
+        """The days of the points of ``count`` segments in a row, from the first one's
+        start (one array for each count, read-only: known by identity, as ``days``)."""
+        found = self.runs.get(count)
+        if found is None:
+            found = (np.arange(count)[:, None] * SEGMENT_DAYS + self.days).ravel()
+            found.flags.writeable = False
+            self.runs[count] = found
+            _RUNS_BY_DAYS[id(found)] = (self, count)
+        return found
 
 
 # The usual grid, and a finer one for the Moon's place (bodies.py: its place moves
 # through its perturbations' short periods; 32 points over 16 days hold it within
 # 0.5 uas where 20 leave 1 mas).
+_RUNS_BY_DAYS = {}  # id of a run's days -> (its grid, its segments); the arrays live in grids
 GRIDS = {points: _Grid(points) for points in (SEGMENT_POINTS, 32)}
 _GRID = GRIDS[SEGMENT_POINTS]
 assert np.array_equal(_GRID.days, _POINT_DAYS)
-_GRID.days = _POINT_DAYS
+_GRID.days = _GRID.runs[1] = _POINT_DAYS
+for _grid in GRIDS.values():
+    _RUNS_BY_DAYS[id(_grid.days)] = (_grid, 1)
+
+
+def run_of(days):
+    """(grid, segments) of a run's days (``_Grid.run_days``, the very array a segment's
+    ``compute`` is handed: one segment's ``days`` or a run's), or None for other days."""
+    return _RUNS_BY_DAYS.get(id(days))
 
 
 
 def on_usual_grid(days):
-    """Whether ``days`` are the usual grid's points (the very array a segment's
-    ``compute`` is handed), whose values other quantities share (``shared_at_points``);
-    another grid's (the Moon's) take such quantities from their segments instead."""
-    return days is _POINT_DAYS
+    """Whether ``days`` are the usual grid's points of a segment or a run of segments
+    (the very array a segment's ``compute`` is handed), whose values other quantities
+    share (``shared_at_points``); another grid's (the Moon's) take such quantities from
+    their segments instead."""
+    found = _RUNS_BY_DAYS.get(id(days))
+    return found is not None and found[0] is _GRID
 
 
 _SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (its grid's points, k)
@@ -315,29 +338,55 @@ def for_one(quantity, compute, jd1, jd2):
 def from_nodes(quantity, compute, t1, t2, points=SEGMENT_POINTS):
     """``for_one``'s values (a list of k floats) at an instant (floats) of which
     ``cell_is_dense`` has just said yes: a place on floats (bodies._direction_floats).
-    None where ``compute`` declined the segment (returned None: a body too near the Sun
-    for its place to be interpolated, bodies._place_at_points).  ``points``: the grid
+    None where ``compute`` declined the segment (gave values there that are not all
+    numbers: a body too near the Sun for its place to be interpolated,
+    bodies._place_at_points).  ``points``: the grid
     (GRIDS) of the quantity's segments, which ``compute`` is handed."""
     found = _interpolated(quantity, compute, t1, t2, GRIDS[points])
     return None if found is None else found.tolist()
 
 
 def segment_at(quantity, compute, start, days):
-    """(n, k): a quantity of the usual grid (``for_one``'s) at ``days`` from the start of
-    a segment (``start``, its first instant, as handed to a segment's ``compute``), from
-    its segment's coefficients: the Earth and a matrix at another grid's points."""
-    coefficients = _coefficients(quantity, compute, _segment_of(start, 0.0), _GRID)
-    x = np.clip(days * (2.0 / SEGMENT_DAYS) - 1.0, -1.0, 1.0)
-    return np.cos(np.outer(np.arccos(x), _ORDERS)) @ coefficients
+    """(n, k): a quantity of the usual grid (``for_one``'s) at another grid's points of a
+    segment or a run of them (``days``, as handed to a segment's ``compute``, from
+    ``start``, its first instant), from the quantity's own segments (made as one run
+    where none of them is): the Earth and a matrix at the Moon's points."""
+    grid, count = run_of(days)
+    first = _segment_of(start, 0.0)
+    tables = _run_coefficients(quantity, compute, first, count)
+    at = _AT_OTHER_GRID.get(grid.points)
+    if at is None:  # T_k at the other grid's points of one segment
+        x = np.clip(grid.days * (2.0 / SEGMENT_DAYS) - 1.0, -1.0, 1.0)
+        at = _AT_OTHER_GRID[grid.points] = np.cos(np.outer(np.arccos(x), _ORDERS))
+    if count == 1:
+        return at @ tables[0]
+    return np.concatenate([at @ table for table in tables])
+
+
+_AT_OTHER_GRID = {}
+
+
+def _run_coefficients(quantity, compute, first, count):
+    """The usual grid's coefficients of ``quantity`` over ``count`` segments from
+    ``first``: those not kept made in one run (_make_run) where they lie in a row, one
+    by one otherwise."""
+    missing = [s for s in range(first, first + count) if (quantity, s) not in _SEGMENTS]
+    if len(missing) > 1 and missing[-1] - missing[0] == len(missing) - 1 and (
+            missing[0] // LONG_SEGMENT_OF == missing[-1] // LONG_SEGMENT_OF):
+        _make_run(quantity, compute, missing[0], len(missing), _GRID)
+    return [_coefficients(quantity, compute, s, _GRID) for s in range(first, first + count)]
 
 
 _DECLINED = np.zeros(0)  # kept for a segment whose compute declined it
 
 
-def chebyshev_tail(values):
-    """The last three Chebyshev coefficients of values (n, k) at the points of a grid of
-    n points: the size of what the interpolation leaves out."""
-    return GRIDS[len(values)].to_coefficients[-3:] @ values
+def chebyshev_tail(values, days):
+    """The last three Chebyshev coefficients of values (n, k) at the points ``days`` of
+    a segment or a run of them (as handed to a segment's ``compute``), each segment's:
+    (segments, 3, k), the size of what the interpolation leaves out."""
+    grid, count = run_of(days)
+    return np.einsum("ij,sjk->sik", grid.to_coefficients[-3:],
+                     values.reshape(count, grid.points, -1))
 
 
 def _segment_of(t1, t2):
@@ -347,14 +396,72 @@ def _segment_of(t1, t2):
 
 def _coefficients(quantity, compute, segment, grid):
     """The kept coefficients of ``quantity`` over ``segment`` (made at ``grid``'s points if
-    none are kept), or _DECLINED."""
+    none are kept, with the rest of its run where a log moves on into it), or
+    _DECLINED."""
     coefficients = _SEGMENTS.get((quantity, segment))
     if coefficients is None:
+        first, count = _run_ahead(quantity, segment)
+        if count > 1:
+            _make_run(quantity, compute, first, count, grid)
+            return _SEGMENTS[(quantity, segment)]
         start = SEGMENT_ORIGIN + segment * SEGMENT_DAYS
-        values = compute(np.full(grid.points, start), grid.days)
-        coefficients = _DECLINED if values is None else grid.to_coefficients @ values
-        keep(_SEGMENTS, (quantity, segment), coefficients, SEGMENTS_KEPT)
+        _keep_tables(quantity, segment, grid, compute(np.full(grid.points, start), grid.days))
+        coefficients = _SEGMENTS[(quantity, segment)]
     return coefficients
+
+
+# A log filled down moves from one segment into the next: when a segment is wanted whose
+# neighbour of the same quantity is made, the segments from it on to the end of its long
+# segment (or back to its start, for a log going back in time) are made in one run, all
+# their points in one call of the quantity's computation.  Most of a segment's cost is
+# numpy's and ERFA's cost a call, not a point: the Sun's place 219 -> 110 us a segment in
+# runs of eight, Mars's 315 -> 135 (measured 2026-12-05), the nutation's 612 terms at
+# the points being most of what is left.  A run stays within one long segment (so its
+# slow terms come from one, ``over_long_segment``) and stops at a segment already made;
+# a computation declines the segments of a run one by one (a place near the Sun,
+# bodies._place_at_points: not a number over them).  At most LONG_SEGMENT_OF - 1
+# segments are made that a log ends before: one run's worth, about two segments' cost.
+
+
+def _run_ahead(quantity, segment):
+    """(first segment, segments) of the run to make for ``segment``: from it to the end
+    of its long segment if the segment before is made, from the start of its long
+    segment to it if the one after is, and it alone otherwise; either stops at a
+    segment already made."""
+    place = segment % LONG_SEGMENT_OF
+    if (quantity, segment - 1) in _SEGMENTS:
+        count = LONG_SEGMENT_OF - place
+        for k in range(1, count):
+            if (quantity, segment + k) in _SEGMENTS:
+                return segment, k
+        return segment, count
+    if (quantity, segment + 1) in _SEGMENTS:
+        count = place + 1
+        for k in range(1, count):
+            if (quantity, segment - k) in _SEGMENTS:
+                return segment - k + 1, k
+        return segment - count + 1, count
+    return segment, 1
+
+
+def _make_run(quantity, compute, first, count, grid):
+    """Make and keep ``count`` segments of ``quantity`` from ``first`` at once."""
+    start = SEGMENT_ORIGIN + first * SEGMENT_DAYS
+    _keep_tables(quantity, first, grid,
+                 compute(np.full(count * grid.points, start), grid.run_days(count)))
+
+
+def _keep_tables(quantity, first, grid, values):
+    """Keep the coefficients of the segments from ``first`` whose values at ``grid``'s
+    points are ``values`` (segments x points, k); a segment whose values are not all
+    numbers (its computation declined it) as _DECLINED."""
+    count = len(values) // grid.points
+    per_segment = values.reshape(count, grid.points, -1)
+    tables = np.einsum("ij,sjk->sik", grid.to_coefficients, per_segment)
+    finite = np.isfinite(per_segment).all(axis=(1, 2))
+    for k in range(count):
+        keep(_SEGMENTS, (quantity, first + k), tables[k] if finite[k] else _DECLINED,
+             SEGMENTS_KEPT)
 
 
 def _interpolated(quantity, compute, t1, t2, grid=_GRID):
@@ -389,10 +496,12 @@ _LONG = {}  # (quantity, long segment) -> Chebyshev coefficients
 
 
 def over_long_segment(quantity, compute, jd1, jd2):
-    """``compute(jd1, jd2)`` -> (n, k) at a segment's points (the arrays ``_interpolated``
-    hands a segment's ``compute``), interpolated from the points of the long segment that
-    holds it; None for any other instants (the caller computes them directly)."""
-    if jd2 is not _POINT_DAYS:
+    """``compute(jd1, jd2)`` -> (n, k) at a segment's points or a run's of the usual grid
+    (the arrays ``_interpolated`` hands a segment's ``compute``), interpolated from the
+    points of the long segment that holds them; None for any other instants (the caller
+    computes them directly)."""
+    run = _RUNS_BY_DAYS.get(id(jd2))
+    if run is None or run[0] is not _GRID:
         return None
     segment = round((float(jd1[0]) - SEGMENT_ORIGIN) / SEGMENT_DAYS)
     long_segment, place = divmod(segment, LONG_SEGMENT_OF)
@@ -402,16 +511,28 @@ def over_long_segment(quantity, compute, jd1, jd2):
         coefficients = _TO_COEFFICIENTS @ compute(np.full(SEGMENT_POINTS, start),
                                                   _LONG_POINT_DAYS)
         keep(_LONG, (quantity, long_segment), coefficients, LONG_SEGMENTS_KEPT)
-    return _WITHIN_LONG[place] @ coefficients
+    return _within_long(place, run[1]) @ coefficients
+
+
+def _within_long(place, count):
+    """T_k at the points of ``count`` segments from the ``place``-th of a long segment."""
+    found = _WITHIN_LONG_RUNS.get((place, count))
+    if found is None:
+        found = _WITHIN_LONG_RUNS[(place, count)] = np.vstack(_WITHIN_LONG[place:place + count])
+    return found
+
+
+_WITHIN_LONG_RUNS = {}
 
 
 def shared_at_points(name, compute, jd1, jd2):
     """``compute(jd1, jd2)`` at a segment's points (the arrays ``_interpolated`` hands a
     segment's ``compute``), kept under ``name`` for the segments of other quantities over
     the same points; computed afresh for any other instants."""
-    if not any(jd2 is grid.days for grid in GRIDS.values()):
+    run = _RUNS_BY_DAYS.get(id(jd2))
+    if run is None:
         return compute(jd1, jd2)
-    key = (name, float(jd1[0]), jd2.size)
+    key = (name, float(jd1[0]), run[0].points, run[1])
     found = _AT_POINTS.get(key)
     if found is None:
         found = compute(jd1, jd2)

@@ -259,8 +259,10 @@ def test_a_place_at_a_segments_points_equals_each_point_alone_to_the_bit(kind, m
     # bodies._directions_at_points takes a segment's points at once: the float steps on
     # numpy's rows, element by element, and ERFA's theories called once for all the
     # points.  Each point's place is the one computed alone, to the bit (the Sun, the
-    # Moon, every planet, and orbits of the random kind above), and plan94 and moon98
-    # are asked once for the instants and, for a planet's light time, once more.
+    # Moon, every planet), and plan94 and moon98 are asked once for the instants and,
+    # for a planet's light time, once more.  An orbit's (of the random kind above)
+    # solves Kepler's equation for all the points at once, as a column does: within
+    # 1e-13 radian (0.02 uas) of the cell's steps on floats.
     calls = []
     for name in ("plan94", "moon98"):
         real = getattr(erfa.ufunc, name)
@@ -280,7 +282,8 @@ def test_a_place_at_a_segments_points_equals_each_point_alone_to_the_bit(kind, m
                 by_parts = (s[0:3], s[3:6], s[6:9], s[9:12])
                 if type(which) is str:
                     alone = bodies._direction_of_states(which, float(jd1[k]), t2, kind, by_parts)
+                    assert together[k].tolist() == alone, (which, segment, k)
                 else:
                     alone = bodies._place_floats(orbits.helio_floats(which, float(jd1[k]), t2),
                                                  by_parts, kind)
-                assert together[k].tolist() == alone, (which, segment, k)
+                    assert np.abs(together[k] - alone).max() < 1e-13, (segment, k)

@@ -386,7 +386,9 @@ def test_a_segments_values_follow_the_series_inside_it():
             ends.append(nodes.for_one("nut06a", iau2000a.nutation_vector,
                                       np.array([2451545.0]), np.array([t2]))[0])
     assert np.max(np.abs(ends[0] - ends[1])) * UAS_PER_RAD < 0.1
-    assert len(nodes._SEGMENTS) == 2
+    # The segment at J2000.0 alone, then the next one with the rest of its long segment
+    # in one run (the log moved on into it): segments 0 to 7.
+    assert sorted(segment for _, segment in nodes._SEGMENTS) == list(range(nodes.LONG_SEGMENT_OF))
 
 
 def test_a_log_filled_down_makes_each_next_segment_at_its_first_cell():
