@@ -326,6 +326,13 @@ def orbits_of(texts):
     return made
 
 
+def kept_orbit(text):
+    """The orbit of one cell's text as kept by ``orbits_of`` (read-only arrays, not a copy:
+    for reading its elements only, as a cell's float lane does), or None where none is
+    kept yet."""
+    return _ONE_ORBIT.get(text)
+
+
 def _orbits_of(texts):
     rows = []
     names = []

@@ -248,8 +248,11 @@ def _place_cell(systems, index):
     def on_floats(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
         if model != TWO_BODY:
             return None
-        return bodies.cell_on_floats(mpcformat.orbits_of(orbit), time, systems[frame], kind,
-                                     source, index)
+        # (The lane hands a text as a column of one.)  The kept orbit itself: the float
+        # path only reads its elements, and a copy of it costs a cell a microsecond.
+        kept = mpcformat.kept_orbit(orbit[0]) if type(orbit[0]) is str else None
+        return bodies.cell_on_floats(mpcformat.orbits_of(orbit) if kept is None else kept,
+                                     time, systems[frame], kind, source, index)
     cells.on_floats = on_floats
     return cells
 
