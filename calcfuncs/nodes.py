@@ -165,7 +165,7 @@ def over_nodes(compute, jd1, jd2):
 # cell takes it as one interpolation and two arctangents: within 0.5 uas of the direct
 # place over 1900-2100, 3 uas over 1000-3000 (where the direct place itself jitters by
 # its theory's rounding); the Moon's, on a grid of 32 points (GRIDS), within 1 and 5.
-# A segment in which a planet's apparent place comes within 10 degrees of the Sun (the
+# A segment in which a planet's apparent place comes within 3 degrees of the Sun (the
 # bending of its light there changes too sharply to be interpolated), or whose last
 # coefficients exceed 1e-12, is declined (bodies._place_at_points) and its cells take
 # the first way.

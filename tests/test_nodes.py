@@ -262,6 +262,36 @@ def test_a_planet_near_the_sun_keeps_its_place_off_segments():
                if type(quantity) is tuple and quantity[0] == "place")
 
 
+@pytest.mark.parametrize("body", ["MERCURY", "VENUS", "MARS", "SATURN"])
+def test_a_planet_a_few_degrees_from_the_sun_keeps_its_bound_on_segments(body):
+    # Down to PLACE_SEGMENT_MIN_ELONGATION_DEG (3 degrees) a planet's apparent place is
+    # taken from its segments wherever their Chebyshev tail passes: the first segments
+    # of 2000-2030 whose place comes within 3 to 10 degrees of the Sun are made, and
+    # their cells stay within 0.5 uas of the direct place, as elsewhere.
+    d = nodes._POINT_DAYS
+    found = []
+    for segment in range(0, 700):
+        jd1 = np.full(nodes.SEGMENT_POINTS, nodes.SEGMENT_ORIGIN + segment * nodes.SEGMENT_DAYS)
+        states = ephemeris.earth_and_sun_at_points(jd1, d)
+        u = bodies._directions_at_points(body, "APPARENT", jd1, d, states)
+        g = states[:, 6:9] - states[:, 0:3]
+        closest = np.degrees(np.arccos(
+            (np.einsum("ni,ni->n", u, g) / np.linalg.norm(g, axis=1)).max()))
+        if 3.5 < closest < 9.5 and np.abs(nodes.chebyshev_tail(u, d)).max() < bodies.PLACE_SEGMENT_TAIL:
+            found.append(segment)
+            if len(found) == 3:
+                break
+    assert len(found) == 3
+    for segment in found:
+        nodes.forget_single_cells()
+        start = nodes.SEGMENT_ORIGIN + segment * nodes.SEGMENT_DAYS
+        instants = start + np.sort(np.random.default_rng(segment).uniform(0.0, 16.0, 120))
+        got, direct = place_in_cells(body, "APPARENT", "ECLIPTIC TRUE", instants)
+        assert np.abs(got - direct).max() * 3.6e9 < 0.5, segment
+        made = nodes._SEGMENTS[(("place", body, "APPARENT", "ECLIPTIC TRUE"), segment)]
+        assert made.size > 0, segment
+
+
 def test_one_cell_of_a_body_among_a_dense_log_of_another_makes_no_segment():
     # A place's own segment is made when DENSE_CELLS instants ask for that place in it
     # (or its neighbour has one): one Neptune cell in each segment of a dense log of the
