@@ -26,7 +26,7 @@ from . import earth_theory, ephemeris, frames, nodes
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360, degrees_360_float
 from .timescales import OneUTC, check_years, within_years_one
-from .vocabulary import IAU2006_YEARS
+from .vocabulary import IAU2006_YEARS, J2000_JD
 
 WAVELENGTH_UM = 0.55
 # ERFA's refraction (refco: A tan z + B tan^3 z) is good to about zenith distance 85
@@ -158,16 +158,54 @@ def _astrom_one(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, dense=False
     a log filled down (nodes.cell_is_dense): the Earth and the true equator's matrix from
     their segments, as the places take them."""
     states = true_equator = None
-    if dense:
-        states = np.array(ephemeris.earth_and_sun_from_nodes(tt1, tt2)).reshape(4, 1, 3)
-        true_equator = np.array(frames.matrix_rows("EQUATORIAL TRUE", tt1, tt2, True)
-                                ).reshape(1, 3, 3)
-    elif frame == "ICRS":
+    if dense and frame == "ICRS":
+        astrom = _astrom_dense(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc)
+        astrom.flags.writeable = False
+        return astrom
+    if frame == "ICRS":
         states = np.array(ephemeris.earth_and_sun_floats(tt1, tt2)).reshape(4, 1, 3)
     astrom = _astrom(*(np.array([v]) for v in (tt1, tt2, ut1, ut2, elong, phi, hm)), phpa,
                      tc, frame, states, true_equator)
     astrom.flags.writeable = False
     return astrom
+
+
+def _astrom_dense(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc):
+    """``_astrom`` of one row of a log filled down (floats in, one row out), on the
+    segments of its cells (nodes.py): the Earth, the true equator's matrix, whose third
+    row's first two elements are the CIP's x and y (ERFA bpn2xy), and the series of the
+    CIO locator s (ERFA s06 less its -xy/2, interpolated like the rest); the TIO locator
+    s' as ERFA sp00 forms it and the refraction constants kept by the atmosphere.  Within
+    1 uas of the direct parameters' place (tests/test_nodes.py), for some twenty
+    microseconds fewer a row in a loop than ``_astrom``'s calls of ERFA on one-row arrays
+    (sp00, refco, bpn2xy, s06 and the arrays made for them)."""
+    e_p, e_v, s_p, _ = ephemeris.earth_and_sun_from_nodes(tt1, tt2)
+    m = frames.matrix_rows("EQUATORIAL TRUE", tt1, tt2, True)
+    x, y = m[2][0], m[2][1]
+    s = nodes.from_nodes("s06 series", _cio_series_at_points, tt1, tt2)[0] - x * y / 2.0
+    sp = -47e-6 * (((tt1 - J2000_JD) + tt2) / 36525.0) * _RADIANS_PER_ARCSEC
+    refa, refb = _refraction_constants(phpa, tc)
+    earth_pv = np.empty(1, dtype=erfa.dt_pv)
+    earth_pv["p"], earth_pv["v"] = e_p, e_v
+    heliocentric = [[e_p[0] - s_p[0], e_p[1] - s_p[1], e_p[2] - s_p[2]]]
+    return erfa.ufunc.apco(tt1, tt2, earth_pv, heliocentric, x, y, s, erfa.ufunc.era00(ut1, ut2),
+                           elong, phi, hm, 0.0, 0.0, sp, refa, refb)
+
+
+_RADIANS_PER_ARCSEC = math.pi / 648_000.0
+
+
+def _cio_series_at_points(jd1, jd2):
+    """The series of ERFA s06 (s + xy/2: s06 with x = y = 0) at a segment's points."""
+    return erfa.ufunc.s06(jd1, jd2, 0.0, 0.0)[:, None]
+
+
+@functools.lru_cache(maxsize=64)
+def _refraction_constants(phpa, tc):
+    """ERFA refco's A and B (radians) for an atmosphere (the humidity and wavelength
+    fixed here), as floats, kept: a log's rows share one site's."""
+    refa, refb = erfa.ufunc.refco(phpa, tc, HUMIDITY, WAVELENGTH_UM)
+    return float(refa), float(refb)
 
 
 def _true_equator(tt1, tt2):
