@@ -8,11 +8,11 @@ From a catalogue (ICRS astrometric) place the whole chain is that of ERFA atco13
 deflection, annual and diurnal aberration, IAU 2006/2000A precession-nutation, Earth
 rotation, and refraction when a pressure is given.  From an apparent place of date
 (TRUE: true equator and equinox) it is that of ERFA apio13 + atioq, the same chain from
-the apparent place on.  The steps are taken one by one (apco or apio, then atciq and
-atioq) with our own TT and UT1, so that dates before UTC (1960) are reached through
-Delta T; from 1960 on UTC the results are those of atco13 and apio13 to the bit, or to
-their last bits where the Earth's series is evaluated with numpy (earth_theory.py: within
-7e-15 au of epv00's own).  Refraction follows ERFA's model (refco), for optical light
+the apparent place on.  The steps are taken one by one (apco or apio, then atciqz, which
+is atco13's atciq for a target without proper motion or parallax, and atioq) with our
+own TT and UT1, so that dates before UTC (1960) are reached through Delta T; from 1960
+on UTC the results are those of atco13 and apio13 to their last bits (the Earth's series
+evaluated with numpy, earth_theory.py, is within 7e-15 au of epv00's own).  Refraction follows ERFA's model (refco), for optical light
 (0.55 um, relative humidity 0.5); pressure 0 gives the geometric (unrefracted) place.
 """
 
@@ -172,17 +172,17 @@ def _astrom_one(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc, frame, dense=False
 
 def _astrom_dense(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc):
     """``_astrom`` of one row of a log filled down (floats in, one row out), on the
-    segments of its cells (nodes.py): the Earth, the true equator's matrix, whose third
-    row's first two elements are the CIP's x and y (ERFA bpn2xy), and the series of the
-    CIO locator s (ERFA s06 less its -xy/2, interpolated like the rest); the TIO locator
+    segments of its cells (nodes.py), one table of them: the Earth, the true equator's
+    matrix, whose third row's first two elements are the CIP's x and y (ERFA bpn2xy),
+    and the series of the CIO locator s (ERFA s06 less its -xy/2); the TIO locator
     s' as ERFA sp00 forms it and the refraction constants kept by the atmosphere.  Within
     1 uas of the direct parameters' place (tests/test_nodes.py), for some twenty
     microseconds fewer a row in a loop than ``_astrom``'s calls of ERFA on one-row arrays
     (sp00, refco, bpn2xy, s06 and the arrays made for them)."""
-    e_p, e_v, s_p, _ = ephemeris.earth_and_sun_from_nodes(tt1, tt2)
-    m = frames.matrix_rows("EQUATORIAL TRUE", tt1, tt2, True)
-    x, y = m[2][0], m[2][1]
-    s = nodes.from_nodes("s06 series", _cio_series_at_points, tt1, tt2)[0] - x * y / 2.0
+    found = nodes.from_nodes("site-free parameters", _site_free_at_points, tt1, tt2)
+    e_p, e_v, s_p = found[0:3], found[3:6], found[6:9]
+    x, y = found[18], found[19]  # the true equator's matrix's third row
+    s = found[21] - x * y / 2.0
     sp = -47e-6 * (((tt1 - J2000_JD) + tt2) / 36525.0) * _RADIANS_PER_ARCSEC
     refa, refb = _refraction_constants(phpa, tc)
     earth_pv = np.empty(1, dtype=erfa.dt_pv)
@@ -195,9 +195,15 @@ def _astrom_dense(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc):
 _RADIANS_PER_ARCSEC = math.pi / 648_000.0
 
 
-def _cio_series_at_points(jd1, jd2):
-    """The series of ERFA s06 (s + xy/2: s06 with x = y = 0) at a segment's points."""
-    return erfa.ufunc.s06(jd1, jd2, 0.0, 0.0)[:, None]
+def _site_free_at_points(jd1, jd2):
+    """(n, 22) at a segment's points, one table so that a row interpolates once: the
+    Earth's and the Sun's barycentric states (12, shared with the places' segments over
+    the same points), the true equator's matrix (9) and the series of ERFA s06 (s + xy/2:
+    s06 with x = y = 0)."""
+    return np.concatenate((
+        ephemeris.earth_and_sun_at_points(jd1, jd2),
+        frames.matrices_at_points("EQUATORIAL TRUE", jd1, jd2).reshape(-1, 9),
+        erfa.ufunc.s06(jd1, jd2, 0.0, 0.0)[:, None]), axis=1)
 
 
 @functools.lru_cache(maxsize=64)
@@ -243,7 +249,7 @@ def observed(ra, dec, time, latitude, longitude, height=0.0, pressure=0.0,
     astrom, phpa = observer_astrom(time, latitude, longitude, height, pressure, temperature, frame)
     rc, dc = np.radians(ra), np.radians(dec)
     if frame == "ICRS":
-        ri, di = erfa.atciq(rc, dc, 0.0, 0.0, 0.0, 0.0, astrom)
+        ri, di = erfa.atciqz(rc, dc, astrom)  # (a target without proper motion or parallax)
     else:
         # TRUE: apparent RA on the equinox; the CIO-based RA that ERFA's observed chain
         # takes is larger by the equation of the origins.
@@ -320,7 +326,7 @@ def _observed_on_floats(ra, dec, time, latitude, longitude, height=0.0, pressure
     a date outside the IAU models' years (it gives the message), a refracted place too
     low.  The same steps and ERFA calls with the same inputs, so the same values to the
     bit: the site's parameters kept per instant (``_astrom_one``, shared with the
-    usual path and the row's other column), ERFA atciq and atioq on one row."""
+    usual path and the row's other column), ERFA atciqz and atioq on one row."""
     if frame != "ICRS" or not (abs(dec) <= 90.0 and abs(latitude) <= 90.0
                                and _within(height, HEIGHT_RANGE_M)
                                and _within(pressure, PRESSURE_RANGE_HPA)
@@ -341,12 +347,12 @@ def _observed_one(ra, dec, tt1, tt2, day, fraction, dut1, latitude, longitude, h
     """``_observed_on_floats``'s place of a target at an instant (its TT, its UTC day and
     fraction, the cell's DUT1: timescales.OneUTC's) and a site (floats), kept for the
     row's other columns: the azimuth beside the altitude finds it rather than running
-    atciq and atioq again.  ``dense``: the site's parameters from the segments of a log
+    atciqz and atioq again.  ``dense``: the site's parameters from the segments of a log
     (``_astrom_one``)."""
     ut1 = OneUTC((tt1, tt2), day, fraction, dut1).ut1()
     astrom = _astrom_one(tt1, tt2, *ut1, math.radians(longitude), math.radians(latitude),
                          height, pressure, temperature, "ICRS", dense)
-    ri, di = erfa.ufunc.atciq(math.radians(ra), math.radians(dec), 0.0, 0.0, 0.0, 0.0, astrom)
+    ri, di = erfa.ufunc.atciqz(math.radians(ra), math.radians(dec), astrom)
     aob, zob, hob, dob = (v.item() for v in erfa.ufunc.atioq(ri, di, astrom)[:4])
     if pressure > 0.0 and not 90.0 - math.degrees(zob) >= REFRACTION_MIN_ALTITUDE:
         return None

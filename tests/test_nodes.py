@@ -597,8 +597,8 @@ def test_a_rows_altitude_and_azimuth_share_the_sites_parameters(monkeypatch):
 @pytest.mark.parametrize("name", ["SKY.HORIZON.ALT", "SKY.HORIZON.AZ", "SKY.ORBIT.RA",
                                   "SKY.ORBIT.LAT"])
 def test_a_dense_log_of_observed_places_and_orbits_agrees_with_direct_cells(name, monkeypatch):
-    # A log of a site's targets (altitude, azimuth: the Earth and the true equator from
-    # segments, horizon._astrom_one) and of a minor planet's places (the Earth and the
+    # A log of a site's targets (altitude, azimuth: the site's parameters from segments,
+    # horizon._astrom_dense) and of a minor planet's places (the Earth and the
     # matrix from segments), two rows a day: within 1 uas of the same cells computed
     # directly, most of them from segments.  Ceres's MPC line is test_smallbodies.py's
     # (its source named there); the site is invented.
@@ -611,8 +611,12 @@ def test_a_dense_log_of_observed_places_and_orbits_agrees_with_direct_cells(name
     else:
         args = lambda s: [CERES, float(s)]  # noqa: E731
     got = np.array([cells.evaluate(name, args(s)) for s in serials])
-    # The Earth's and the matrix's segments; a minor planet's place has its own.
-    assert len(nodes._SEGMENTS) >= (2 * 8 if name.startswith("SKY.HORIZON") else 8)
+    # A site's parameters have segments of their own (one table: the Earth, the true
+    # equator, the CIO locator's series); a minor planet's place has its own.
+    quantities = [quantity for quantity, _ in nodes._SEGMENTS]
+    made = [q for q in quantities if (q == "site-free parameters" if name.startswith(
+        "SKY.HORIZON") else type(q) is tuple and q[0] == "place")]
+    assert len(made) >= 8
     monkeypatch.setattr(cells, "_SINGLE_CELL_CACHE", cells.KeptAnswers())
     monkeypatch.setattr(nodes, "DENSE_CELLS", 10**9)
     nodes.forget_kept_instants()
