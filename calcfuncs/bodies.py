@@ -12,6 +12,7 @@ The geocentric parallax of a site (up to 9" for Venus, a degree for the Moon) is
 applied.  Times are TDB; the built-in theories take TT for TDB (under 2 ms apart).
 """
 
+import itertools
 import math
 
 import erfa
@@ -500,24 +501,37 @@ def _place_from_segment(body, t1, t2, system, kind):
     if type(body) is str:
         if body not in PLACE_SEGMENT_BODIES:
             return None
-        which = body
+        which = name = body
         points = PLACE_SEGMENT_POINTS.get(body, points)
     elif type(body) is orbits.Orbit and body.q.size == 1:
         which = body.elements_floats(0)
+        name = _ORBIT_NAMES.get(which)
+        if name is None:
+            name = f"orbit {next(_ORBIT_NUMBERS)}"
+            keep(_ORBIT_NAMES, which, name, PLACES_AT_POINTS_KEPT)
     else:
         return None
-    quantity = ("place", which, kind, system)
+    quantity = ("place", name, kind, system)
     if not nodes.quantity_is_dense(quantity, t1, t2):
         return None
-    return nodes.from_nodes(quantity, _place_at_points(which, kind, system), t1, t2, points)
+    return nodes.from_nodes(quantity, _place_at_points(name, which, kind, system), t1, t2,
+                            points)
 
 
-def _place_at_points(which, kind, system):
-    """For nodes.from_nodes: the function giving the place of a body (a name, or a two-
-    body orbit's ``Orbit.elements_floats``) at a segment's points (unit vectors,
-    ``system``'s axes), each as a cell alone computes it; not a number over a segment
-    it declines (nodes.py: its cells take the earlier way)."""
-    found = _PLACES_AT_POINTS.get((which, kind, system))
+# An orbit's place is kept under a name of its own, its elements (a tuple of ten floats,
+# whose hash a tuple does not keep) looked up once a cell rather than hashed in each key
+# of the segments' tables.  A name is never given twice: the counter runs on past the
+# names dropped from this bounded table, which keys by the elements.
+_ORBIT_NAMES = {}
+_ORBIT_NUMBERS = itertools.count()
+
+
+def _place_at_points(name, which, kind, system):
+    """For nodes.from_nodes: the function giving the place of a body (``which``: a name,
+    or a two-body orbit's ``Orbit.elements_floats``, named ``name``) at a segment's
+    points (unit vectors, ``system``'s axes), each as a cell alone computes it; not a
+    number over a segment it declines (nodes.py: its cells take the earlier way)."""
+    found = _PLACES_AT_POINTS.get((name, kind, system))
     if found is not None:
         return found
     # (Not the Moon: its light never passes the Sun, whose bending of it stays smooth.)
@@ -542,10 +556,10 @@ def _place_at_points(which, kind, system):
         return u
 
     def compute(jd1, jd2):
-        u = nodes.shared_at_points(("direction", which, kind), directions, jd1, jd2)
+        u = nodes.shared_at_points(("direction", name, kind), directions, jd1, jd2)
         return np.einsum("nij,nj->ni", frames.matrices_at_points(system, jd1, jd2), u)
 
-    keep(_PLACES_AT_POINTS, (which, kind, system), compute, PLACES_AT_POINTS_KEPT)
+    keep(_PLACES_AT_POINTS, (name, kind, system), compute, PLACES_AT_POINTS_KEPT)
     return compute
 
 

@@ -686,7 +686,7 @@ def _on_floats(twin, row_args, rows, kwargs, null_jd, dut1):
     TAI - UTC, is read straight onto TT as two floats (timeinput.one_utc_serial, a
     timescales.OneUTC, which also gives its UT1) and handed to the twin with the cell's
     options, its numbers and angles as floats (one left out as its default), a text (an
-    orbit's line) as a column of one as ``_plain_single`` hands it.  No Instants and no
+    orbit's line) as it is.  No Instants and no
     arrays are made: in Calc each numpy call of a cell's path costs two to three times
     what it costs in a loop.  The twin gives the value the function gives, to the bit,
     or None where it does not take the cell; None here sends the cell down the usual
@@ -702,10 +702,8 @@ def _on_floats(twin, row_args, rows, kwargs, null_jd, dut1):
             if instant is None:
                 return None
             given[name] = instant
-        elif kind == "text":
-            column = np.empty(1, dtype=object)
-            column[0] = value
-            given[name] = column
+        elif kind == "text":  # (as it is: a twin reads one text, not a column)
+            given[name] = value
         elif type(value) is float:  # a number or an angle
             if not math.isfinite(value):
                 return None

@@ -248,9 +248,9 @@ def _place_cell(systems, index):
     def on_floats(orbit, time, frame="TRUE", kind="APPARENT", source=BUILTIN, model=TWO_BODY):
         if model != TWO_BODY:
             return None
-        # (The lane hands a text as a column of one.)  The kept orbit itself: the float
-        # path only reads its elements, and a copy of it costs a cell a microsecond.
-        kept = mpcformat.kept_orbit(orbit[0]) if type(orbit[0]) is str else None
+        # (The lane hands the text itself.)  The kept orbit itself: the float path only
+        # reads its elements, and a copy of it costs a cell a microsecond.
+        kept = mpcformat.kept_orbit(orbit)
         return bodies.cell_on_floats(mpcformat.orbits_of(orbit) if kept is None else kept,
                                      time, systems[frame], kind, source, index)
     cells.on_floats = on_floats

@@ -314,8 +314,9 @@ def test_one_cell_of_a_body_among_a_dense_log_of_another_makes_no_segment():
 @pytest.mark.parametrize("orbit", ["CERES", "NEO"])
 def test_a_dense_log_of_a_two_body_orbit_takes_its_place_from_segments(orbit):
     # A minor planet's log (Ceres's MPC line, and an NEO-like orbit, both from
-    # test_smallbodies.py) takes its place from segments of its own, keyed by its
-    # elements: within 0.5 uas of the cells computed directly (0.07 measured).
+    # test_smallbodies.py) takes its place from segments of its own, kept under the
+    # name its elements are given (bodies._ORBIT_NAMES): within 0.5 uas of the cells
+    # computed directly (0.07 measured).
     import test_smallbodies
 
     line = getattr(test_smallbodies, orbit)
@@ -324,7 +325,10 @@ def test_a_dense_log_of_a_two_body_orbit_takes_its_place_from_segments(orbit):
     got = np.array([cells.evaluate("SKY.ORBIT.RA", [line, float(s)]) for s in serials])
     places = [quantity for quantity, _ in nodes._SEGMENTS
               if type(quantity) is tuple and quantity[0] == "place"]
-    assert len(places) >= 4 and all(type(q[1]) is tuple for q in places)  # the elements
+    from calcfuncs import mpcformat
+
+    name = bodies._ORBIT_NAMES[mpcformat.orbits_of(line).elements_floats(0)]
+    assert len(places) >= 4 and all(q[1] == name for q in places)
     cells._SINGLE_CELL_CACHE.clear()
     with mock.patch.object(nodes, "DENSE_CELLS", 10**9):
         nodes.forget_kept_instants()
@@ -332,6 +336,27 @@ def test_a_dense_log_of_a_two_body_orbit_takes_its_place_from_segments(orbit):
     difference = np.abs((got - direct + 180.0) % 360.0 - 180.0) * 3.6e9
     assert difference.max() < 0.5
     assert np.count_nonzero(got != direct) > 300
+
+
+def test_two_orbits_in_one_log_keep_segments_of_their_own():
+    # Rows of two minor planets interleaved (test_smallbodies.py's Ceres and NEO-like
+    # lines): each orbit's places are kept under a name of its own, and each cell gives
+    # what it gives in a log of its orbit alone.
+    import test_smallbodies
+
+    rng = np.random.default_rng(17)
+    serials = 45300.0 + np.sort(rng.uniform(0.0, 80.0, 400))
+    lines = (test_smallbodies.CERES, test_smallbodies.NEO)
+    together = [cells.evaluate("SKY.ORBIT.RA", [lines[k % 2], float(s)])
+                for k, s in enumerate(serials)]
+    names = {q[1] for q, _ in nodes._SEGMENTS if type(q) is tuple and q[0] == "place"}
+    assert len(names) == 2
+    for k in (0, 1):
+        nodes.forget_single_cells()
+        cells._SINGLE_CELL_CACHE.clear()
+        alone = [cells.evaluate("SKY.ORBIT.RA", [lines[k], float(s)]) for s in serials[k::2]]
+        difference = np.abs((np.array(together[k::2]) - alone + 180.0) % 360.0 - 180.0)
+        assert difference.max() * 3.6e9 < 0.5
 
 
 def test_a_place_whose_chebyshev_tail_is_too_large_is_declined(monkeypatch):
