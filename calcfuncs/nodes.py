@@ -177,13 +177,14 @@ SEGMENT_DAYS = 16.0
 SEGMENT_POINTS = 20
 SEGMENT_ORIGIN = 2451545.0  # J2000.0 TT: segments start at whole days, exact in a double
 DENSE_CELLS = 3   # distinct instants asked for in a segment before it is made
-# Bounded: at most SEGMENTS_KEPT coefficient tables (SEGMENT_POINTS x at most 12 floats:
-# 2 KB) and SEGMENTS_NOTED segments (and as many places in segments) of asked instants
-# (at most DENSE_CELLS each); the values at AT_POINTS_KEPT segments' points shared
-# between quantities (shared_at_points: the nutation's 40 floats, the Earth's 240, a
-# place's 60) and LONG_SEGMENTS_KEPT long segments' tables: 7.8 MB with the segments,
-# the values at points and the long segments full (tracemalloc over 4,300 segments of
-# a log of the Sun's longitude and declination and Mars's right ascension, 2026-12-05).
+# Bounded: at most SEGMENTS_KEPT coefficient tables (at most 20 x 22 floats, a site's
+# parameters: 3.5 KB) and SEGMENTS_NOTED segments (and as many places in segments) of
+# asked instants (at most DENSE_CELLS each); the values at AT_POINTS_KEPT segments' or
+# runs' points shared between quantities (shared_at_points: the nutation's 40 floats a
+# segment, the Earth's 240, a place's 60) and LONG_SEGMENTS_KEPT long segments' tables:
+# 10.5 MB with all of them full (tracemalloc, a log of 100,000 rows over 4,300 segments
+# in five columns: the Sun's longitude and declination, Mars's right ascension, the
+# Moon's longitude and an altitude at a site, 2026-12-05).
 SEGMENTS_KEPT = 4_000
 SEGMENTS_NOTED = 4_000
 
@@ -280,7 +281,7 @@ def on_usual_grid(days):
 
 _SEGMENTS = {}   # (quantity, segment) -> Chebyshev coefficients (its grid's points, k)
 _AT_POINTS = {}  # (name, segment's start) -> values at its points (shared_at_points)
-AT_POINTS_KEPT = 1024
+AT_POINTS_KEPT = 256  # (an entry holds a run's points: up to eight segments')
 _ASKED = {}      # segment -> distinct instants asked for in it
 _ASKED_OF = {}   # (quantity, segment) -> distinct instants asked for it (quantity_is_dense)
 _IN_CELLS = [0]
@@ -413,10 +414,12 @@ def _coefficients(quantity, compute, segment, grid):
 # A log filled down moves from one segment into the next: when a segment is wanted whose
 # neighbour of the same quantity is made, the segments from it on to the end of its long
 # segment (or back to its start, for a log going back in time) are made in one run, all
-# their points in one call of the quantity's computation.  Most of a segment's cost is
-# numpy's and ERFA's cost a call, not a point: the Sun's place 219 -> 110 us a segment in
-# runs of eight, Mars's 315 -> 135 (measured 2026-12-05), the nutation's 612 terms at
-# the points being most of what is left.  A run stays within one long segment (so its
+# their points in one call of the quantity's computation.  Much of a segment's cost is
+# numpy's and ERFA's cost a call, not a point: a place's segment with its Earth and
+# matrix alone and in runs of eight, the long segments made, the Sun's 225 -> 164 us a
+# segment, the Moon's 435 -> 304, Mars's 332 -> 193, a minor planet's 674 -> 264
+# (measured 2026-12-05, the office's Python), the nutation's 612 terms at the points
+# being most of what is left.  A run stays within one long segment (so its
 # slow terms come from one, ``over_long_segment``) and stops at a segment already made;
 # a computation declines the segments of a run one by one (a place near the Sun,
 # bodies._place_at_points: not a number over them).  At most LONG_SEGMENT_OF - 1
@@ -459,8 +462,8 @@ def _keep_tables(quantity, first, grid, values):
     per_segment = values.reshape(count, grid.points, -1)
     tables = np.einsum("ij,sjk->sik", grid.to_coefficients, per_segment)
     finite = np.isfinite(per_segment).all(axis=(1, 2))
-    for k in range(count):
-        keep(_SEGMENTS, (quantity, first + k), tables[k] if finite[k] else _DECLINED,
+    for k in range(count):  # (copies: a table dropped frees its own memory, not a view's)
+        keep(_SEGMENTS, (quantity, first + k), tables[k].copy() if finite[k] else _DECLINED,
              SEGMENTS_KEPT)
 
 
