@@ -287,3 +287,28 @@ def test_a_place_at_a_segments_points_equals_each_point_alone_to_the_bit(kind, m
                     alone = bodies._place_floats(orbits.helio_floats(which, float(jd1[k]), t2),
                                                  by_parts, kind)
                     assert np.abs(together[k] - alone).max() < 1e-13, (segment, k)
+
+
+def test_one_matrix_turns_a_column_as_its_cells_are_turned():
+    # vectors.apply_transposed with one (3, 3) matrix for every row sums each component's
+    # products in the order of the axes, element by element: a column's row is the value
+    # of its row turned alone, to the bit, for any number of rows, and the same as the
+    # float steps of a single cell (ephemeris.heliocentric_floats' frame bias) and as
+    # numpy's einsum over the rows.
+    from calcfuncs import vectors
+
+    rng = np.random.default_rng(23)
+    bias = np.array(ephemeris.BIAS_ROWS)
+    (b0, b1, b2) = ephemeris.BIAS_ROWS
+    for n in (1, 2, 17, 5000):
+        v = rng.normal(size=(n, 3))
+        for m in (bias, rng.normal(size=(3, 3))):
+            column = vectors.apply_transposed(m, v)
+            assert np.array_equal(column, np.einsum("...ji,...j->...i", m, v))
+            for k in range(0, n, max(1, n // 25)):
+                assert np.array_equal(vectors.apply_transposed(m, v[k]), column[k])
+                assert np.array_equal(vectors.apply_transposed(m, v[k:k + 1])[0], column[k])
+        x, y, z = v[0].tolist()
+        assert vectors.apply_transposed(bias, v[0]).tolist() == [
+            b0[0] * x + b1[0] * y + b2[0] * z, b0[1] * x + b1[1] * y + b2[1] * z,
+            b0[2] * x + b1[2] * y + b2[2] * z]
