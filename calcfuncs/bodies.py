@@ -504,11 +504,11 @@ def _place_from_segment(body, t1, t2, system, kind):
         which = name = body
         points = PLACE_SEGMENT_POINTS.get(body, points)
     elif type(body) is orbits.Orbit and body.q.size == 1:
-        which = body.elements_floats(0)
-        name = _ORBIT_NAMES.get(which)
+        which, elements = body, body.elements_floats(0)
+        name = _ORBIT_NAMES.get(elements)
         if name is None:
             name = f"orbit {next(_ORBIT_NUMBERS)}"
-            keep(_ORBIT_NAMES, which, name, PLACES_AT_POINTS_KEPT)
+            keep(_ORBIT_NAMES, elements, name, PLACES_AT_POINTS_KEPT)
     else:
         return None
     quantity = ("place", name, kind, system)
@@ -528,7 +528,7 @@ _ORBIT_NUMBERS = itertools.count()
 
 def _place_at_points(name, which, kind, system):
     """For nodes.from_nodes: the function giving the place of a body (``which``: a name,
-    or a two-body orbit's ``Orbit.elements_floats``, named ``name``) at a segment's
+    or a two-body orbits.Orbit of one row, named ``name``) at a segment's
     points (unit vectors, ``system``'s axes), each as a cell alone computes it; not a
     number over a segment it declines (nodes.py: its cells take the earlier way)."""
     found = _PLACES_AT_POINTS.get((name, kind, system))
@@ -568,44 +568,24 @@ PLACES_AT_POINTS_KEPT = 256  # the functions of places (a sheet of many orbits: 
 
 def _directions_at_points(which, kind, jd1, jd2, states):
     """(n, 3): the unit vectors (GCRS axes) of a body's place (a name, or a two-body
-    orbit's ``Orbit.elements_floats``) at n instants (a segment's points) from the Earth's
-    and the Sun's barycentric states there ((n, 12)), each the one a cell alone computes
+    orbits.Orbit of one row) at n instants (a segment's points) from the Earth's and the
+    Sun's barycentric states there ((n, 12)), each the one a cell alone computes
     (``_direction_of_states``, ``_place_floats``), to the bit: the same steps on numpy's
-    rows, element by element, with ERFA's theories called once for all the points (an
-    orbit's positions within 1e-11 degree, ``_orbit_at_points``).  Point by point, each
-    point had paid some ninety Python calls."""
+    rows, element by element, with ERFA's theories called once for all the points.  An
+    orbit's positions come from Orbit.state, as a column's do (Kepler's equation solved
+    for all the points, the light time's instants from the f and g series): within
+    1e-11 degree of the cells' steps on floats.  Point by point, each point had paid
+    some ninety Python calls."""
     rows = np.ascontiguousarray(states.T)
     by_parts = ((rows[0], rows[1], rows[2]), (rows[3], rows[4], rows[5]),
                 (rows[6], rows[7], rows[8]), (rows[9], rows[10], rows[11]))
     if type(which) is str:
         u = _direction_of_states(which, jd1, jd2, kind, by_parts, np.sqrt, np.maximum)
     else:
-        u = _place_floats(_orbit_at_points(which, jd1, jd2), by_parts, kind, np.sqrt,
-                          np.maximum)
+        orbit = which.copy()  # (its own last solution, which state() keeps)
+        u = _place_floats(lambda tau: tuple(orbit.state(jd1, jd2 - tau)[0].T), by_parts,
+                          kind, np.sqrt, np.maximum)
     return np.stack(u, axis=1)
-
-
-def _orbit_at_points(elements, jd1, jd2):
-    """An orbit's heliocentric positions at n instants as one function of the light
-    times (a float, or an array of n): three arrays of n, Kepler's equation solved for
-    all the points at once and the light time's instants from the f and g series
-    (orbits.propagate_from_perihelion and fg_series, a column's way, Orbit.state: within
-    1e-11 degree of the cells' steps on floats, tests/test_float_places.py; 1.1 -> 0.6 ms
-    for a run of eight segments' points)."""
-    q, e, p_hat, q_hat, tp1, tp2 = elements
-    p_hat, q_hat = np.array(p_hat), np.array(q_hat)
-    solved = []  # (dt, position, velocity) of the last solution, as Orbit.state keeps it
-
-    def at(tau):
-        dt = (jd1 - tp1) + ((jd2 - tau) - tp2)
-        if solved:  # the light time's instants from the f and g series where they reach
-            position, _, near = orbits.fg_series(solved[1], solved[2], dt - solved[0])
-            if near.all():
-                return position[:, 0], position[:, 1], position[:, 2]
-        position, velocity = orbits.propagate_from_perihelion(q, e, p_hat, q_hat, dt)
-        solved[:] = (dt, position, velocity)
-        return position[:, 0], position[:, 1], position[:, 2]
-    return at
 
 
 def cell_on_floats(body, time, system, kind, source, index):

@@ -12,8 +12,9 @@ the apparent place on.  The steps are taken one by one (apco or apio, then atciq
 is atco13's atciq for a target without proper motion or parallax, and atioq) with our
 own TT and UT1, so that dates before UTC (1960) are reached through Delta T; from 1960
 on UTC the results are those of atco13 and apio13 to their last bits (the Earth's series
-evaluated with numpy, earth_theory.py, is within 7e-15 au of epv00's own).  Refraction follows ERFA's model (refco), for optical light
-(0.55 um, relative humidity 0.5); pressure 0 gives the geometric (unrefracted) place.
+evaluated with numpy, earth_theory.py, is within 7e-15 au of epv00's own).  Refraction
+follows ERFA's model (refco), for optical light (0.55 um, relative humidity 0.5);
+pressure 0 gives the geometric (unrefracted) place.
 """
 
 import functools
@@ -26,7 +27,7 @@ from . import earth_theory, ephemeris, frames, nodes
 from .errors import SkyError, rows_failing
 from .frames import check_latitudes, degrees_360, degrees_360_float
 from .timescales import OneUTC, check_years, within_years_one
-from .vocabulary import IAU2006_YEARS, J2000_JD
+from .vocabulary import IAU2006_YEARS
 
 WAVELENGTH_UM = 0.55
 # ERFA's refraction (refco: A tan z + B tan^3 z) is good to about zenith distance 85
@@ -174,25 +175,21 @@ def _astrom_dense(tt1, tt2, ut1, ut2, elong, phi, hm, phpa, tc):
     """``_astrom`` of one row of a log filled down (floats in, one row out), on the
     segments of its cells (nodes.py), one table of them: the Earth, the true equator's
     matrix, whose third row's first two elements are the CIP's x and y (ERFA bpn2xy),
-    and the series of the CIO locator s (ERFA s06 less its -xy/2); the TIO locator
-    s' as ERFA sp00 forms it and the refraction constants kept by the atmosphere.  Within
+    and the series of the CIO locator s (ERFA s06 less its -xy/2); the refraction
+    constants kept by the atmosphere.  Within
     1 uas of the direct parameters' place (tests/test_nodes.py), for some twenty
     microseconds fewer a row in a loop than ``_astrom``'s calls of ERFA on one-row arrays
-    (sp00, refco, bpn2xy, s06 and the arrays made for them)."""
+    (refco, bpn2xy, s06 and the arrays made for them)."""
     found = nodes.from_nodes("site-free parameters", _site_free_at_points, tt1, tt2)
     e_p, e_v, s_p = found[0:3], found[3:6], found[6:9]
     x, y = found[18], found[19]  # the true equator's matrix's third row
     s = found[21] - x * y / 2.0
-    sp = -47e-6 * (((tt1 - J2000_JD) + tt2) / 36525.0) * _RADIANS_PER_ARCSEC
     refa, refb = _refraction_constants(phpa, tc)
     earth_pv = np.empty(1, dtype=erfa.dt_pv)
     earth_pv["p"], earth_pv["v"] = e_p, e_v
     heliocentric = [[e_p[0] - s_p[0], e_p[1] - s_p[1], e_p[2] - s_p[2]]]
     return erfa.ufunc.apco(tt1, tt2, earth_pv, heliocentric, x, y, s, erfa.ufunc.era00(ut1, ut2),
-                           elong, phi, hm, 0.0, 0.0, sp, refa, refb)
-
-
-_RADIANS_PER_ARCSEC = math.pi / 648_000.0
+                           elong, phi, hm, 0.0, 0.0, erfa.ufunc.sp00(tt1, tt2), refa, refb)
 
 
 def _site_free_at_points(jd1, jd2):

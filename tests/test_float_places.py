@@ -268,7 +268,7 @@ def test_a_place_at_a_segments_points_equals_each_point_alone_to_the_bit(kind, m
         real = getattr(erfa.ufunc, name)
         monkeypatch.setattr(erfa.ufunc, name, lambda *a, _real=real, _name=name: (
             calls.append((_name, np.ndim(a[0]))) or _real(*a)))
-    orbits_here = [o.elements_floats(0) for o in _random_orbits(np.random.default_rng(5), 4)]
+    orbits_here = _random_orbits(np.random.default_rng(5), 4)
     for which in sorted(bodies.FLOAT_BODIES) + orbits_here:
         for segment in (-1500, 0, 700):
             jd1 = np.full(nodes.SEGMENT_POINTS, nodes.SEGMENT_ORIGIN + segment * nodes.SEGMENT_DAYS)
@@ -284,8 +284,9 @@ def test_a_place_at_a_segments_points_equals_each_point_alone_to_the_bit(kind, m
                     alone = bodies._direction_of_states(which, float(jd1[k]), t2, kind, by_parts)
                     assert together[k].tolist() == alone, (which, segment, k)
                 else:
-                    alone = bodies._place_floats(orbits.helio_floats(which, float(jd1[k]), t2),
-                                                 by_parts, kind)
+                    alone = bodies._place_floats(
+                        orbits.helio_floats(which.elements_floats(0), float(jd1[k]), t2),
+                        by_parts, kind)
                     assert np.abs(together[k] - alone).max() < 1e-13, (segment, k)
 
 
